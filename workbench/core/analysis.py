@@ -1,0 +1,119 @@
+"""One call from a plan to its schedule, dates and PERT odds: what every view and the
+command line show. Pure data, no Qt."""
+
+from __future__ import annotations
+
+import datetime as dt
+from dataclasses import dataclass
+
+import numpy as np
+
+from .calendar import WorkCalendar, round_offset
+from .cpm import Analyzer, Schedule
+from .pert import PertOdds, pert_odds
+
+
+@dataclass
+class Analysis:
+    plan: object
+    calendar: WorkCalendar
+    schedule: Schedule
+    pert: PertOdds
+    means: np.ndarray
+    variances: np.ndarray
+    deadline: float | None
+
+    # --- dates ---------------------------------------------------------
+    @property
+    def start_date(self) -> dt.date:
+        return self.calendar.start_date(0.0)
+
+    @property
+    def finish_date(self) -> dt.date:
+        return self.calendar.finish_date(self.schedule.finish)
+
+    def date_of_duration(self, duration: float) -> dt.date:
+        """The calendar day by whose end a project of this duration finishes."""
+        return self.calendar.finish_date(duration)
+
+    def dates(self) -> dict[str, np.ndarray]:
+        s, cal = self.schedule, self.calendar
+        return {
+            "early_start": cal.start_dates(s.es),
+            "early_finish": cal.finish_dates(s.ef, s.es),
+            "late_start": cal.start_dates(s.ls),
+            "late_finish": cal.finish_dates(s.lf, s.ls),
+        }
+
+    # --- odds ----------------------------------------------------------
+    def probability_by_deadline(self) -> float | None:
+        return None if self.deadline is None else self.pert.prob_by(self.deadline)
+
+    def date_at(self, probability: float) -> dt.date:
+        return self.date_of_duration(self.pert.duration_at(probability))
+
+    def to_dict(self) -> dict:
+        """The JSON contract of ``slackline analyze --json``."""
+        s, p = self.schedule, self.pert
+        dates = self.dates()
+        acts = {}
+        for i, act_id in enumerate(s.ids):
+            acts[act_id] = {
+                "es": round_offset(s.es[i]), "ef": round_offset(s.ef[i]),
+                "ls": round_offset(s.ls[i]), "lf": round_offset(s.lf[i]),
+                "total_float": round_offset(s.total_float[i]),
+                "free_float": round_offset(s.free_float[i]),
+                "critical": bool(s.critical[i]),
+                "mean": round_offset(self.means[i]), "variance": round_offset(self.variances[i]),
+                **{k: str(v[i]) for k, v in dates.items()},
+            }
+        pert = {"mean": round_offset(p.mean), "variance": round_offset(p.variance),
+                "sd": round_offset(p.sd), "path": list(p.path)}
+        if p.note:
+            pert["note"] = p.note
+        if self.deadline is not None:
+            pert["deadline"] = round_offset(self.deadline)
+            pert["deadline_date"] = self.date_of_duration(self.deadline).isoformat()
+            pert["z"] = _finite(p.z(self.deadline))
+            pert["probability"] = p.prob_by(self.deadline)
+        return {
+            "title": self.plan.settings.title,
+            "unit": self.plan.settings.unit,
+            "duration": round_offset(s.finish),
+            "start": self.start_date.isoformat(),
+            "finish": self.finish_date.isoformat(),
+            "critical_path": list(p.path),
+            "critical_paths": s.paths,
+            "activities": acts,
+            "pert": pert,
+        }
+
+
+def _finite(value: float):
+    if np.isfinite(value):
+        return round_offset(value)
+    return "inf" if value > 0 else "-inf"
+
+
+def moments(plan) -> tuple[np.ndarray, np.ndarray]:
+    """PERT mean and variance of every activity, in plan order."""
+    acts = plan.activities
+    means = np.fromiter((a.mean for a in acts), dtype=float, count=len(acts))
+    variances = np.fromiter((a.variance for a in acts), dtype=float, count=len(acts))
+    return means, variances
+
+
+def analyze(plan, deadline=None) -> Analysis:
+    """Schedule the plan on PERT means and compute the odds.
+
+    ``deadline`` (an offset or a date) overrides the plan's own deadline setting.
+    Raises :class:`~workbench.core.errors.PlanError` (or CycleError) naming the culprit.
+    """
+    plan.settings.validated()
+    calendar = WorkCalendar(plan.settings)
+    chosen = plan.settings.deadline if deadline is None else deadline
+    dl = calendar.resolve(chosen, finish=True)
+    analyzer = Analyzer.for_plan(plan, calendar)
+    means, variances = moments(plan)
+    schedule = analyzer.run(means, deadline=dl)
+    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl)

@@ -1,0 +1,104 @@
+"""Map plan offsets (working days or weeks from the project start) to calendar dates.
+
+Offset 0 is the start of the first working day on or after the plan start. An activity
+with early start ES begins on working day ``floor(ES)``; one that finishes at EF > 0
+ends on working day ``ceil(EF) − 1`` (the end of that day). In weeks, one week is as
+many working days as the calendar has working weekdays.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import math
+
+import numpy as np
+
+from .model import Calendar, Settings
+
+
+def public_holidays(region: str, years: range | list[int]) -> list[dt.date]:
+    """Public holidays of a country (``"DE"``) or subdivision (``"US-CA"``) for some years.
+
+    Resolved once through the ``holidays`` package; the caller stores the dates in the plan.
+    """
+    import holidays  # imported here: only needed when a planner adds a region's holidays
+
+    country, _, subdiv = region.partition("-")
+    try:
+        table = holidays.country_holidays(country.upper(), subdiv=subdiv.upper() or None, years=list(years))
+    except (NotImplementedError, KeyError) as exc:
+        from .errors import PlanError
+        raise PlanError(f"calendar: no public holidays known for region {region!r}", "calendar") from exc
+    return sorted(table.keys())
+
+
+class WorkCalendar:
+    """Vectorised offset ↔ date conversion for one plan's settings."""
+
+    def __init__(self, settings: Settings):
+        cal: Calendar = settings.calendar
+        self.weekmask = cal.weekmask()
+        self.holidays = np.array(sorted(set(cal.holidays)), dtype="datetime64[D]")
+        self.per_unit = len(cal.workdays) if settings.unit == "weeks" else 1
+        self._cal = np.busdaycalendar(weekmask=self.weekmask, holidays=self.holidays)
+        self.first_day = np.busday_offset(np.datetime64(settings.start, "D"), 0, roll="forward", busdaycal=self._cal)
+
+    # --- offsets to dates ------------------------------------------------
+    def _day(self, index) -> np.ndarray:
+        index = np.asarray(index, dtype=np.int64)
+        return np.busday_offset(self.first_day, index, roll="forward", busdaycal=self._cal)
+
+    def start_dates(self, offsets) -> np.ndarray:
+        """The working day on which something starting at ``offsets`` begins."""
+        days = np.floor(np.asarray(offsets, dtype=float) * self.per_unit + 1e-9)
+        return self._day(days)
+
+    def finish_dates(self, offsets, starts=None) -> np.ndarray:
+        """The working day at whose end something finishing at ``offsets`` ends.
+
+        Where ``starts`` is given and equal to the finish (a milestone), its start date.
+        """
+        fin = np.asarray(offsets, dtype=float) * self.per_unit
+        days = np.ceil(fin - 1e-9) - 1
+        if starts is not None:
+            st = np.asarray(starts, dtype=float) * self.per_unit
+            days = np.where(fin - st <= 1e-12, np.floor(st + 1e-9), days)
+        return self._day(np.maximum(days, 0))
+
+    def start_date(self, offset: float) -> dt.date:
+        return self.start_dates([offset])[0].astype(dt.date)
+
+    def finish_date(self, offset: float) -> dt.date:
+        return self.finish_dates([offset], [offset] if offset <= 0 else None)[0].astype(dt.date)
+
+    # --- dates to offsets ------------------------------------------------
+    def offset_before(self, date: dt.date) -> float:
+        """Offset of the start of ``date`` (working days before it) — for start constraints."""
+        n = np.busday_count(self.first_day, np.datetime64(date, "D"), busdaycal=self._cal)
+        return float(n) / self.per_unit
+
+    def offset_through(self, date: dt.date) -> float:
+        """Offset of the end of ``date`` (working days up to and including it) — for deadlines."""
+        n = np.busday_count(self.first_day, np.datetime64(date, "D") + 1, busdaycal=self._cal)
+        return float(n) / self.per_unit
+
+    def resolve(self, value, *, finish: bool) -> float | None:
+        """A constraint or deadline given as an offset or a date, as an offset."""
+        if value is None:
+            return None
+        if isinstance(value, dt.date):
+            return self.offset_through(value) if finish else self.offset_before(value)
+        return float(value)
+
+    def is_working(self, date: dt.date) -> bool:
+        return bool(np.is_busday(np.datetime64(date, "D"), busdaycal=self._cal))
+
+
+def round_offset(value: float) -> float:
+    """Round away binary noise (sums of sixths) so 44.00000000001 prints as 44."""
+    r = round(float(value), 9)
+    return 0.0 if r == 0 else r
+
+
+def whole(value: float) -> bool:
+    return math.isclose(value, round(value), abs_tol=1e-9)

@@ -1,0 +1,366 @@
+"""The plan model: activities, links, settings. Pure Python, no Qt.
+
+Containers announce changes to listeners (``Plan.subscribe``) so that adapters in
+other layers can follow them one-to-one.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import math
+from dataclasses import dataclass, field, replace
+from typing import Callable, Iterable
+
+from .errors import PlanError
+
+LINK_TYPES = ("FS", "SS", "FF", "SF")
+UNITS = ("days", "weeks")
+DISTRIBUTIONS = ("beta-pert", "triangular", "uniform", "normal", "fixed")
+
+Offset = float | dt.date  # a constraint or deadline: plan-unit offset or a calendar date
+
+
+def _check_number(value, activity: str, field_name: str, allow_none: bool = True) -> float | None:
+    if value is None:
+        if allow_none:
+            return None
+        raise PlanError(f"activity {activity}: {field_name} is missing", activity)
+    if isinstance(value, bool) or not isinstance(value, (int, float)):
+        raise PlanError(f"activity {activity}: {field_name} must be a number, not {value!r}", activity)
+    value = float(value)
+    if not math.isfinite(value):
+        raise PlanError(f"activity {activity}: {field_name} must be a finite number, not {value}", activity)
+    return value
+
+
+@dataclass(frozen=True)
+class Activity:
+    """One activity. Either a three-point estimate (optimistic ≤ most_likely ≤ pessimistic)
+    or a single fixed ``duration``; a duration of zero makes a milestone."""
+
+    id: str
+    name: str = ""
+    group: str = ""
+    notes: str = ""
+    optimistic: float | None = None
+    most_likely: float | None = None
+    pessimistic: float | None = None
+    duration: float | None = None
+    distribution: str | None = None  # None: the plan's default
+    start_no_earlier: Offset | None = None
+    finish_no_later: Offset | None = None
+
+    def validated(self) -> "Activity":
+        """Return self if valid, else raise PlanError naming the activity and field."""
+        if not isinstance(self.id, str) or not self.id.strip():
+            raise PlanError("an activity has an empty id", "id")
+        if self.id != self.id.strip() or any(c in self.id for c in ";,\n\t"):
+            raise PlanError(f"activity id {self.id!r} must not contain spaces at its ends, ';', ',' or tabs", self.id)
+        a = _check_number(self.optimistic, self.id, "optimistic")
+        m = _check_number(self.most_likely, self.id, "most likely")
+        b = _check_number(self.pessimistic, self.id, "pessimistic")
+        d = _check_number(self.duration, self.id, "duration")
+        three = [v is not None for v in (a, m, b)]
+        if any(three) and not all(three):
+            raise PlanError(f"activity {self.id}: a three-point estimate needs optimistic, most likely and pessimistic", self.id)
+        if all(three):
+            if min(a, m, b) < 0:
+                raise PlanError(f"activity {self.id}: estimates must not be negative ({a:g}, {m:g}, {b:g})", self.id)
+            if not a <= m <= b:
+                raise PlanError(f"activity {self.id}: estimates out of order: optimistic {a:g} \u2264 most likely {m:g} \u2264 pessimistic {b:g} does not hold", self.id)
+        elif d is None:
+            raise PlanError(f"activity {self.id}: needs a duration or a three-point estimate", self.id)
+        if d is not None and d < 0:
+            raise PlanError(f"activity {self.id}: duration must not be negative ({d:g})", self.id)
+        if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
+            raise PlanError(f"activity {self.id}: unknown distribution {self.distribution!r} (use one of {', '.join(DISTRIBUTIONS)})", self.id)
+        for name in ("start_no_earlier", "finish_no_later"):
+            v = getattr(self, name)
+            if v is not None and not isinstance(v, dt.date):
+                _check_number(v, self.id, name.replace("_", " "))
+        return self
+
+    @property
+    def has_estimate(self) -> bool:
+        return self.optimistic is not None and self.most_likely is not None and self.pessimistic is not None
+
+    @property
+    def mean(self) -> float:
+        """PERT expected duration te = (a + 4m + b) / 6, or the fixed duration."""
+        if self.has_estimate:
+            return (self.optimistic + 4.0 * self.most_likely + self.pessimistic) / 6.0
+        return float(self.duration or 0.0)
+
+    @property
+    def variance(self) -> float:
+        """PERT variance ((b − a) / 6)², zero for a fixed duration."""
+        if self.has_estimate:
+            return ((self.pessimistic - self.optimistic) / 6.0) ** 2
+        return 0.0
+
+    @property
+    def is_milestone(self) -> bool:
+        return self.mean == 0.0 and self.variance == 0.0
+
+    def with_(self, **changes) -> "Activity":
+        return replace(self, **changes)
+
+
+@dataclass(frozen=True)
+class Link:
+    """A precedence link ``pred → succ`` of type FS/SS/FF/SF with a lag in plan units."""
+
+    pred: str
+    succ: str
+    type: str = "FS"
+    lag: float = 0.0
+
+    def validated(self) -> "Link":
+        if self.type not in LINK_TYPES:
+            raise PlanError(f"link {self.pred} \u2192 {self.succ}: unknown link type {self.type!r} (use FS, SS, FF or SF)", self.succ)
+        if self.pred == self.succ:
+            raise PlanError(f"activity {self.succ} is linked to itself", self.succ)
+        _check_number(self.lag, self.succ, f"lag of the link from {self.pred}", allow_none=False)
+        return self
+
+    @property
+    def key(self) -> tuple[str, str]:
+        return (self.pred, self.succ)
+
+
+@dataclass
+class Calendar:
+    """Working weekdays (0 = Monday … 6 = Sunday) and holiday dates (stored, never re-derived)."""
+
+    workdays: tuple[int, ...] = (0, 1, 2, 3, 4)
+    holidays: tuple[dt.date, ...] = ()
+    region: str = ""  # informational: which public-holiday set was added, e.g. "GB-ENG"
+
+    def weekmask(self) -> str:
+        return "".join("1" if d in self.workdays else "0" for d in range(7))
+
+
+@dataclass
+class SignOff:
+    name: str = ""
+    role: str = ""
+
+
+@dataclass
+class Settings:
+    title: str = "Untitled plan"
+    start: dt.date = field(default_factory=lambda: dt.date.today())
+    unit: str = "days"
+    calendar: Calendar = field(default_factory=Calendar)
+    deadline: Offset | None = None
+    status_date: dt.date | None = None
+    target_confidence: float = 0.9
+    distribution: str = "beta-pert"
+    revision: str = ""
+    prepared_by: str = ""
+    sign_off: list[SignOff] = field(default_factory=list)
+
+    def validated(self) -> "Settings":
+        if self.unit not in UNITS:
+            raise PlanError(f"settings: unit must be 'days' or 'weeks', not {self.unit!r}", "unit")
+        if not 0.0 < float(self.target_confidence) < 1.0:
+            raise PlanError(f"settings: target confidence must lie between 0 and 1, not {self.target_confidence}", "target_confidence")
+        if self.distribution not in DISTRIBUTIONS:
+            raise PlanError(f"settings: unknown distribution {self.distribution!r}", "distribution")
+        if not self.calendar.workdays:
+            raise PlanError("settings: the calendar has no working weekdays", "calendar")
+        if self.deadline is not None and not isinstance(self.deadline, dt.date):
+            _check_number(self.deadline, "settings", "deadline")
+        return self
+
+
+@dataclass(frozen=True)
+class Risk:
+    """A risk event: with ``probability`` it adds a three-point delay to each listed activity."""
+
+    id: str
+    name: str = ""
+    probability: float = 0.0
+    optimistic: float = 0.0
+    most_likely: float = 0.0
+    pessimistic: float = 0.0
+    activities: tuple[str, ...] = ()
+
+
+@dataclass(frozen=True)
+class CorrelationGroup:
+    """Activities whose durations move together, with a rank correlation coefficient."""
+
+    name: str
+    activities: tuple[str, ...]
+    coefficient: float
+
+
+Listener = Callable[[str, dict], None]
+
+
+class Plan:
+    """An ordered set of activities, the links between them and the plan settings.
+
+    Listeners receive ``(event, info)`` pairs. Events: ``about_to_change`` and
+    ``changed`` around any modification, with ``info['kind']`` one of
+    ``activity_inserted``, ``activity_removed``, ``activity_changed``, ``activity_moved``,
+    ``links_changed``, ``settings_changed``, ``reset``; plus the row index where it applies.
+    """
+
+    def __init__(self, settings: Settings | None = None, activities: Iterable[Activity] = (),
+                 links: Iterable[Link] = (), risks: Iterable[Risk] = (),
+                 correlations: Iterable[CorrelationGroup] = ()):
+        self.settings = settings or Settings()
+        self._activities: list[Activity] = []
+        self._index: dict[str, int] = {}
+        self.links: list[Link] = []
+        self.risks: list[Risk] = list(risks)
+        self.correlations: list[CorrelationGroup] = list(correlations)
+        self._listeners: list[Listener] = []
+        for act in activities:
+            self._append(act.validated())
+        for link in links:
+            self._check_link(link)
+            self.links.append(link)
+
+    # --- reading -------------------------------------------------------
+    @property
+    def activities(self) -> tuple[Activity, ...]:
+        return tuple(self._activities)
+
+    def __len__(self) -> int:
+        return len(self._activities)
+
+    def __contains__(self, act_id: str) -> bool:
+        return act_id in self._index
+
+    def activity(self, act_id: str) -> Activity:
+        try:
+            return self._activities[self._index[act_id]]
+        except KeyError:
+            raise PlanError(f"no activity with id {act_id!r}", act_id) from None
+
+    def row_of(self, act_id: str) -> int:
+        return self._index[act_id]
+
+    def ids(self) -> list[str]:
+        return [a.id for a in self._activities]
+
+    def predecessors(self, act_id: str) -> list[Link]:
+        return [l for l in self.links if l.succ == act_id]
+
+    def successors(self, act_id: str) -> list[Link]:
+        return [l for l in self.links if l.pred == act_id]
+
+    # --- listeners -----------------------------------------------------
+    def subscribe(self, listener: Listener) -> None:
+        self._listeners.append(listener)
+
+    def unsubscribe(self, listener: Listener) -> None:
+        if listener in self._listeners:
+            self._listeners.remove(listener)
+
+    def _emit(self, event: str, **info) -> None:
+        for listener in list(self._listeners):
+            listener(event, info)
+
+    # --- changing (commands call these) ---------------------------------
+    def _append(self, act: Activity) -> None:
+        if act.id in self._index:
+            raise PlanError(f"duplicate activity id {act.id!r}", act.id)
+        self._index[act.id] = len(self._activities)
+        self._activities.append(act)
+
+    def _reindex(self) -> None:
+        self._index = {a.id: i for i, a in enumerate(self._activities)}
+
+    def _check_link(self, link: Link) -> None:
+        link.validated()
+        for end in (link.pred, link.succ):
+            if end not in self._index:
+                raise PlanError(f"link {link.pred} \u2192 {link.succ}: unknown activity {end!r}", link.succ if end == link.pred else end)
+
+    def insert_activity(self, row: int, act: Activity) -> None:
+        act.validated()
+        if act.id in self._index:
+            raise PlanError(f"duplicate activity id {act.id!r}", act.id)
+        row = max(0, min(row, len(self._activities)))
+        self._emit("about_to_change", kind="activity_inserted", row=row)
+        self._activities.insert(row, act)
+        self._reindex()
+        self._emit("changed", kind="activity_inserted", row=row)
+
+    def remove_activity(self, act_id: str) -> tuple[int, Activity, list[tuple[int, Link]]]:
+        """Remove an activity and its links; return what is needed to put them back."""
+        row = self.row_of(act_id)
+        removed = [(i, l) for i, l in enumerate(self.links) if act_id in (l.pred, l.succ)]
+        self._emit("about_to_change", kind="activity_removed", row=row)
+        act = self._activities.pop(row)
+        self.links = [l for l in self.links if act_id not in (l.pred, l.succ)]
+        self._reindex()
+        self._emit("changed", kind="activity_removed", row=row)
+        return row, act, removed
+
+    def restore_activity(self, row: int, act: Activity, links: list[tuple[int, Link]]) -> None:
+        self._emit("about_to_change", kind="activity_inserted", row=row)
+        self._activities.insert(row, act)
+        self._reindex()
+        for i, link in sorted(links):
+            self.links.insert(i, link)
+        self._emit("changed", kind="activity_inserted", row=row)
+
+    def replace_activity(self, act_id: str, new: Activity) -> Activity:
+        """Replace an activity (possibly renaming it: links follow the new id)."""
+        new.validated()
+        row = self.row_of(act_id)
+        if new.id != act_id and new.id in self._index:
+            raise PlanError(f"duplicate activity id {new.id!r}", new.id)
+        self._emit("about_to_change", kind="activity_changed", row=row)
+        old = self._activities[row]
+        self._activities[row] = new
+        if new.id != act_id:
+            self.links = [Link(new.id if l.pred == act_id else l.pred, new.id if l.succ == act_id else l.succ, l.type, l.lag)
+                          for l in self.links]
+            self._reindex()
+        self._emit("changed", kind="activity_changed", row=row)
+        return old
+
+    def move_activity(self, src: int, dst: int) -> None:
+        self._emit("about_to_change", kind="activity_moved", row=src, to=dst)
+        act = self._activities.pop(src)
+        self._activities.insert(dst, act)
+        self._reindex()
+        self._emit("changed", kind="activity_moved", row=src, to=dst)
+
+    def set_links(self, links: list[Link]) -> list[Link]:
+        """Replace all links at once (validated first); return the old list."""
+        for link in links:
+            self._check_link(link)
+        self._emit("about_to_change", kind="links_changed")
+        old, self.links = self.links, list(links)
+        self._emit("changed", kind="links_changed")
+        return old
+
+    def set_settings(self, settings: Settings) -> Settings:
+        settings.validated()
+        self._emit("about_to_change", kind="settings_changed")
+        old, self.settings = self.settings, settings
+        self._emit("changed", kind="settings_changed")
+        return old
+
+    def reset(self, other: "Plan") -> None:
+        """Take over the whole content of ``other`` (an import, a revert)."""
+        self._emit("about_to_change", kind="reset")
+        self.settings = other.settings
+        self._activities = list(other._activities)
+        self.links = list(other.links)
+        self.risks = list(other.risks)
+        self.correlations = list(other.correlations)
+        self._reindex()
+        self._emit("changed", kind="reset")
+
+    def copy(self) -> "Plan":
+        return Plan(replace(self.settings, calendar=replace(self.settings.calendar),
+                            sign_off=list(self.settings.sign_off)),
+                    self._activities, self.links, self.risks, self.correlations)
