@@ -1,0 +1,1 @@
+"""Support for the ``slackline`` command line (headless parts)."""

@@ -1,0 +1,198 @@
+"""The headless verbs of ``slackline``: analyze, simulate, report, import, export.
+
+Each takes parsed arguments and returns an exit code; bad input raises
+:class:`~workbench.core.errors.PlanError` (the caller prints it and exits 2).
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import json
+import os
+import sys
+from pathlib import Path
+
+from ..core.analysis import analyze
+from ..core.errors import PlanError
+from .text import CAUTION, elide, num, pct, table
+
+PLAN_SUFFIXES = (".slw", ".csv", ".xlsx")
+
+
+def parse_offset_or_date(text: str, what: str):
+    """``--deadline 47`` or ``--deadline 2027-11-30``."""
+    try:
+        return dt.date.fromisoformat(text)
+    except ValueError:
+        pass
+    try:
+        value = float(text)
+    except ValueError:
+        raise PlanError(f"{what}: {text!r} is neither a number of plan units nor a date YYYY-MM-DD", what) from None
+    if value != value or value in (float("inf"), float("-inf")):
+        raise PlanError(f"{what}: {text!r} must be a finite number", what)
+    return value
+
+
+def load_plan_file(path: str):
+    p = Path(path)
+    if p.suffix.lower() not in PLAN_SUFFIXES:
+        raise PlanError(f"{path}: unsupported file type {p.suffix or '(none)'!r}; use .slw, .csv or .xlsx", "PLAN")
+    if not p.exists():
+        raise PlanError(f"{path}: no such file", "PLAN")
+    if p.is_dir():
+        raise PlanError(f"{path}: is a folder, not a plan file", "PLAN")
+    from ..io.tabular import load_any
+
+    return load_any(p)
+
+
+def write_json(obj) -> None:
+    json.dump(obj, sys.stdout, indent=2, ensure_ascii=False, allow_nan=False)
+    sys.stdout.write("\n")
+
+
+# --- analyze ---------------------------------------------------------------
+def cmd_analyze(args) -> int:
+    plan = load_plan_file(args.plan)
+    deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
+    result = analyze(plan, deadline=deadline)
+    if args.json:
+        write_json(result.to_dict())
+    else:
+        print(render_analysis(result))
+    return 0
+
+
+def render_analysis(result) -> str:
+    s, plan = result.schedule, result.plan
+    dates = result.dates()
+    unit = plan.settings.unit
+    rows = []
+    for i, act in enumerate(plan.activities):
+        rows.append([act.id, elide(act.name, 32), num(result.means[i]), num(result.variances[i] ** 0.5),
+                     str(dates["early_start"][i]), str(dates["early_finish"][i]),
+                     str(dates["late_start"][i]), str(dates["late_finish"][i]),
+                     num(s.total_float[i]), num(s.free_float[i]), "yes" if s.critical[i] else ""])
+    headers = ["id", "name", "te", "sd", "early start", "early finish", "late start", "late finish",
+               "total float", "free float", "critical"]
+    out = [f"{plan.settings.title}", "", table(headers, rows, right={2, 3, 8, 9}), ""]
+    out += summary_lines(result, unit)
+    return "\n".join(out)
+
+
+def summary_lines(result, unit: str) -> list[str]:
+    p = result.pert
+    lines = [
+        f"Start          {result.start_date.isoformat()}",
+        f"Finish         {result.finish_date.isoformat()}  ({num(result.schedule.finish)} {unit})",
+        f"Critical path  {' - '.join(p.path)}",
+        f"PERT           mean {num(p.mean)} {unit}, sd {num(p.sd, 3)}, variance {num(p.variance, 4)}",
+    ]
+    if p.note:
+        lines.append(f"               {p.note}")
+    if result.deadline is not None:
+        z = p.z(result.deadline)
+        lines.append(f"Deadline       {result.date_of_duration(result.deadline).isoformat()}  "
+                     f"({num(result.deadline)} {unit}): z = {num(z, 4)}, "
+                     f"P(finish by deadline) = {pct(p.prob_by(result.deadline))}")
+    conf = result.plan.settings.target_confidence
+    for q in sorted({0.5, 0.8, 0.9, conf}):
+        d = p.duration_at(q)
+        lines.append(f"P{round(q * 100):<13d} {result.date_of_duration(d).isoformat()}  ({num(d)} {unit})")
+    lines += ["", CAUTION]
+    return lines
+
+
+# --- simulate --------------------------------------------------------------
+def cmd_simulate(args) -> int:
+    from ..core.montecarlo import simulate
+
+    plan = load_plan_file(args.plan)
+    if args.iterations <= 0:
+        raise PlanError(f"--iterations must be a positive whole number, not {args.iterations}", "--iterations")
+    deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
+    progress = None
+    if not args.json and sys.stderr.isatty():
+        def progress(done, total):
+            print(f"\rsimulating {done}/{total}", end="", file=sys.stderr, flush=True)
+    result = simulate(plan, args.iterations, args.seed, distribution=args.distribution,
+                      deadline=deadline, progress=progress)
+    if progress:
+        print(file=sys.stderr)
+    data = result.to_dict()
+    if args.json:
+        write_json(data)
+    else:
+        print(render_simulation(plan, data))
+    return 0
+
+
+def render_simulation(plan, data: dict) -> str:
+    unit = plan.settings.unit
+    out = [f"{plan.settings.title}: {data['iterations']} iterations, seed {data['seed']}", ""]
+    out.append(f"Mean finish    {num(data['mean'])} {unit} (sd {num(data['sd'], 3)}); "
+               f"PERT mean {num(data.get('pert_mean', float('nan')))}; merge bias {num(data['merge_bias'], 3)} {unit}")
+    dates = data.get("percentile_dates", {})
+    for key in ("P10", "P50", "P80", "P90"):
+        if key in data["percentiles"]:
+            out.append(f"{key:<14} {dates.get(key, '')}  ({num(data['percentiles'][key])} {unit})")
+    if "probability" in data:
+        out.append(f"P(finish by deadline) = {pct(data['probability'])}")
+    crit, sens = data["criticality"], data["sensitivity"]
+    top = sorted(crit, key=lambda k: (-crit[k], -abs(sens.get(k, 0.0)), k))[:10]
+    rows = [[k, elide(plan.activity(k).name, 32), f"{crit[k]:.3f}", f"{sens.get(k, 0.0):+.3f}"] for k in top]
+    out += ["", "Top drivers", table(["id", "name", "criticality", "sensitivity"], rows, right={2, 3}), "", CAUTION]
+    return "\n".join(out)
+
+
+# --- import / export / report ----------------------------------------------
+def cmd_import(args) -> int:
+    from ..io.planfile import save_plan
+    from ..io.tabular import read_table
+    from ..core.model import Settings
+
+    src = Path(args.source)
+    if src.suffix.lower() not in (".csv", ".xlsx"):
+        raise PlanError(f"{args.source}: import reads .csv or .xlsx files", "SRC")
+    if not src.is_file():
+        raise PlanError(f"{args.source}: no such file", "SRC")
+    if Path(args.output).suffix.lower() != ".slw":
+        raise PlanError(f"-o {args.output}: the output must be a .slw plan file", "-o")
+    settings = Settings(title=src.stem, unit=args.unit)
+    if args.start:
+        try:
+            settings.start = dt.date.fromisoformat(args.start)
+        except ValueError:
+            raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
+    plan = read_table(src, settings=settings)
+    analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
+    save_plan(plan, args.output)
+    print(f"imported {len(plan)} activities and {len(plan.links)} links into {args.output}")
+    return 0
+
+
+def cmd_export(args) -> int:
+    from ..io.tabular import export_table
+
+    out = Path(args.output)
+    if out.suffix.lower() not in (".csv", ".xlsx"):
+        raise PlanError(f"-o {args.output}: export writes .csv or .xlsx", "-o")
+    plan = load_plan_file(args.plan)
+    export_table(analyze(plan), out)
+    print(f"exported {len(plan)} activities to {out}")
+    return 0
+
+
+def cmd_report(args) -> int:
+    from ..reports.pack import build_pack
+
+    plan = load_plan_file(args.plan)
+    if args.iterations <= 0:
+        raise PlanError(f"--iterations must be a positive whole number, not {args.iterations}", "--iterations")
+    if Path(args.output).suffix.lower() != ".pdf":
+        raise PlanError(f"-o {args.output}: the approval pack is written as .pdf", "-o")
+    info = build_pack(plan, args.output, paper=args.paper, iterations=args.iterations, seed=args.seed,
+                      plan_path=os.path.basename(args.plan))
+    print(f"wrote {args.output} ({getattr(info, 'pages', '?')} pages, seed {getattr(info, 'seed', args.seed)})")
+    return 0
