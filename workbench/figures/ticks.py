@@ -1,0 +1,129 @@
+"""Date ticks for charts whose x axis is a plan-unit offset (working time).
+
+``date_ticks(calendar, lo, hi, max_ticks)`` picks the finest of days, weeks, months,
+quarters and years whose ticks in ``[lo, hi]`` number at most ``max_ticks`` and returns
+``(offset, label)`` pairs. A tick sits at the start of its date (``offset_before``); a
+date that is not a working day moves to the start of the next working day, so ticks on
+non-working days that would collide are dropped. No Qt.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+
+import numpy as np
+
+MONTHS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec")
+DAYS = ("Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun")
+
+# (level name, step, approximate calendar days per tick)
+LEVELS = (("day", 1, 1), ("day", 2, 2), ("week", 1, 7), ("week", 2, 14), ("month", 1, 30.4),
+          ("month", 2, 60.9), ("quarter", 1, 91.3), ("half", 1, 182.6), ("year", 1, 365.2),
+          ("year", 2, 730.5), ("year", 5, 1826), ("year", 10, 3652), ("year", 25, 9131),
+          ("year", 100, 36524))
+
+
+def _as_date(value) -> dt.date:
+    return np.datetime64(value, "D").astype(dt.date)
+
+
+def _day_candidates(first: dt.date, last: dt.date, step: int, calendar) -> list[dt.date]:
+    days = np.arange(np.datetime64(first, "D"), np.datetime64(last, "D") + 1)
+    days = days[np.is_busday(days, busdaycal=calendar._cal)][::step]
+    return [d.astype(dt.date) for d in days]
+
+
+def _week_candidates(first: dt.date, last: dt.date, step: int) -> list[dt.date]:
+    monday = first - dt.timedelta(days=first.weekday())
+    out = []
+    while monday <= last:
+        out.append(monday)
+        monday += dt.timedelta(days=7 * step)
+    return out
+
+
+def _month_candidates(first: dt.date, last: dt.date, months: int) -> list[dt.date]:
+    index = (first.year * 12 + first.month - 1) // months * months
+    out = []
+    while True:
+        d = dt.date(index // 12, index % 12 + 1, 1)
+        if d > last:
+            return out
+        out.append(d)
+        index += months
+
+
+def _candidates(level: str, step: int, first: dt.date, last: dt.date, calendar) -> list[dt.date]:
+    if level == "day":
+        return _day_candidates(first, last, step, calendar)
+    if level == "week":
+        return _week_candidates(first, last, step)
+    months = {"month": step, "quarter": 3, "half": 6, "year": 12 * step}[level]
+    return _month_candidates(first, last, months)
+
+
+def label(level: str, date: dt.date) -> str:
+    """Tick label text for one date at one level."""
+    if level == "day":
+        return f"{DAYS[date.weekday()]} {date.day}"
+    if level == "week":
+        return f"{date.day} {MONTHS[date.month - 1]}"
+    if level == "month":
+        return f"{MONTHS[date.month - 1]} {date.year}" if date.month == 1 else MONTHS[date.month - 1]
+    if level in ("quarter", "half"):
+        part = "Q" if level == "quarter" else "H"
+        size = 3 if level == "quarter" else 6
+        return f"{part}{(date.month - 1) // size + 1} {date.year}"
+    return str(date.year)
+
+
+def _offsets(calendar, dates: list[dt.date]) -> np.ndarray:
+    days = np.array(dates, dtype="datetime64[D]")
+    n = np.busday_count(calendar.first_day, days, busdaycal=calendar._cal)
+    return n.astype(float) / calendar.per_unit
+
+
+def choose_level(calendar, lo: float, hi: float, max_ticks: int) -> tuple[str, int]:
+    """The finest (level, step) giving at most ``max_ticks`` ticks over [lo, hi]."""
+    work_days = (hi - lo) * calendar.per_unit
+    span_days = work_days * 7.0 / max(1, calendar.weekmask.count("1"))
+    for level, step, per_tick in LEVELS:
+        count = work_days / step if level == "day" else span_days / per_tick
+        if count + 1 <= max_ticks:
+            return level, step
+    return LEVELS[-1][0], LEVELS[-1][1]
+
+
+def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> list[tuple[float, str]]:
+    """Ticks ``(offset, label)`` inside [lo_offset, hi_offset], at most ``max_ticks`` of them."""
+    if max_ticks < 1 or not np.isfinite([lo_offset, hi_offset]).all():
+        return []
+    lo, hi = float(min(lo_offset, hi_offset)), float(max(lo_offset, hi_offset))
+    first = _as_date(calendar.start_dates([lo])[0]) - dt.timedelta(days=7)
+    last = _as_date(calendar.start_dates([hi])[0]) + dt.timedelta(days=7)
+    start = LEVELS.index(next(l for l in LEVELS if l[:2] == choose_level(calendar, lo, hi, max_ticks)))
+    for level, step, _ in LEVELS[start:]:
+        dates = _candidates(level, step, first, last, calendar)
+        offsets = _offsets(calendar, dates) if dates else np.empty(0)
+        keep = (offsets >= lo - 1e-9) & (offsets <= hi + 1e-9)
+        keep &= np.r_[True, np.diff(offsets) > 1e-9]   # collisions on non-working days
+        if keep.sum() <= max_ticks:
+            chosen = [(float(o), d) for o, d, k in zip(offsets, dates, keep) if k]
+            return _with_context(level, chosen)
+    return []
+
+
+def _with_context(level: str, ticks: list[tuple[float, dt.date]]) -> list[tuple[float, str]]:
+    """Labels, adding the month (days) or year (months) at the first tick and where it changes."""
+    out, previous = [], None
+    for offset, date in ticks:
+        text = label(level, date)
+        if level == "day" and (previous is None or previous.month != date.month):
+            text += f" {MONTHS[date.month - 1]}"
+        elif level == "week" and previous is not None and previous.year != date.year:
+            text += f" {date.year}"
+        elif level == "month" and date.month != 1 and (previous is None or previous.year != date.year):
+            text += f" {date.year}"
+        out.append((offset, text))
+        previous = date
+    return out
