@@ -102,14 +102,15 @@ def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> 
     first = _as_date(calendar.start_dates([lo])[0]) - dt.timedelta(days=7)
     last = _as_date(calendar.start_dates([hi])[0]) + dt.timedelta(days=7)
     start = LEVELS.index(next(l for l in LEVELS if l[:2] == choose_level(calendar, lo, hi, max_ticks)))
-    for level, step, _ in LEVELS[start:]:
+    for level, step, _ in LEVELS[max(0, start - 2):]:
         dates = _candidates(level, step, first, last, calendar)
         offsets = _offsets(calendar, dates) if dates else np.empty(0)
         keep = (offsets >= lo - 1e-9) & (offsets <= hi + 1e-9)
         keep &= np.r_[True, np.diff(offsets) > 1e-9]   # collisions on non-working days
         if keep.sum() <= max_ticks:
-            chosen = [(float(o), d) for o, d, k in zip(offsets, dates, keep) if k]
-            return _with_context(level, chosen)
+            chosen = _with_context(level, [(float(o), d) for o, d, k in zip(offsets, dates, keep) if k])
+            if chosen:
+                return chosen
     return []
 
 
