@@ -1,0 +1,171 @@
+"""Odds geometry (Qt-free): shaded areas, the inverse date, zero variance, simulation bars."""
+
+import datetime as dt
+import math
+
+import numpy as np
+import pytest
+from hypothesis import given, settings, strategies as st
+from scipy.stats import norm
+
+from workbench.core.calendar import WorkCalendar
+from workbench.core.model import Settings
+from workbench.core.pert import PertOdds
+from workbench.figures import odds as fo
+
+R1 = PertOdds(44.0, 9.0, ("A", "B", "C", "E", "F", "J", "L", "N"))
+
+
+class Samples:
+    """A finished-run stand-in built from finish samples (the geometry reads only these)."""
+
+    def __init__(self, finish, seed=7):
+        self.finish = np.asarray(finish, dtype=float)
+        self.seed = seed
+
+    def percentile(self, p):
+        return float(np.percentile(self.finish, p))
+
+
+def _area(shade):
+    return float(np.trapezoid(shade.y, shade.x)) if shade.x.size else 0.0
+
+
+@pytest.mark.parametrize("question", [
+    fo.Question("by", 47.0), fo.Question("after", 47.0), fo.Question("between", 41.0, 47.0),
+    fo.Question("between", 47.0, 41.0), fo.Question("by", 38.5), fo.Question("after", 50.2),
+])
+def test_shaded_area_equals_displayed_probability(question):
+    lo, hi = fo.axis_span(R1)
+    shade = fo.pert_shade(R1, question, lo, hi)
+    assert abs(_area(shade) - shade.probability) < 1e-3
+    assert abs(shade.area() - shade.probability) < 1e-3
+
+
+def test_by_47_is_phi_of_one():
+    # Hillier & Lieberman house-building bid (reference R1): P(T <= 47) = Φ(1) = 0.8413
+    shade = fo.pert_shade(R1, fo.Question("by", 47.0), *fo.axis_span(R1))
+    assert shade.probability == pytest.approx(0.841345, abs=1e-6)
+
+
+@settings(max_examples=60, deadline=None)
+@given(mean=st.floats(1, 500), sd=st.floats(0.05, 50), a=st.floats(-3, 3), b=st.floats(-3, 3),
+       mode=st.sampled_from(fo.MODES))
+def test_area_matches_probability_property(mean, sd, a, b, mode):
+    odds = PertOdds(mean, sd * sd, ("X",))
+    q = fo.Question(mode, mean + a * sd, mean + b * sd)
+    shade = fo.pert_shade(odds, q, *fo.axis_span(odds))
+    assert abs(_area(shade) - shade.probability) < 1e-3
+    assert 0.0 <= shade.probability <= 1.0
+
+
+@settings(max_examples=60, deadline=None)
+@given(mean=st.floats(1, 500), sd=st.floats(0.01, 50), p=st.floats(0.001, 0.999))
+def test_inverse_offset_satisfies_probability(mean, sd, p):
+    odds = PertOdds(mean, sd * sd, ("X",))
+    x = fo.pert_offset_at(odds, p)
+    assert odds.prob_by(x) == pytest.approx(p, abs=1e-9)
+
+
+def test_inverse_90_reference_value():
+    # Φ⁻¹(0.9) = 1.281552 (reference R4, scipy.stats.norm)
+    assert fo.pert_offset_at(R1, 0.9) == pytest.approx(44 + 3 * 1.281552, abs=1e-5)
+
+
+def test_inverse_date_is_first_day_reaching_p():
+    cal = WorkCalendar(Settings(start=dt.date(2026, 3, 2)))
+    x = fo.pert_offset_at(R1, 0.9)
+    end = fo.day_end(cal, x)
+    assert R1.prob_by(end) >= 0.9 > R1.prob_by(end - 1)
+    day = fo.date_of(cal, x)
+    assert cal.offset_through(day) == pytest.approx(end)
+
+
+def test_zero_variance_is_an_honest_step():
+    odds = PertOdds(20.0, 0.0, ("A", "B"))
+    lo, hi = fo.axis_span(odds)
+    curve = fo.pert_curve(odds, lo, hi)
+    assert curve.step and not np.isnan(curve.cumulative).any() and not np.isnan(curve.density).any()
+    assert list(curve.cumulative) == [0.0, 0.0, 1.0, 1.0]
+    for q, expect in [(fo.Question("by", 19.0), 0.0), (fo.Question("by", 20.0), 1.0),
+                      (fo.Question("after", 20.0), 0.0), (fo.Question("between", 19.0, 21.0), 1.0)]:
+        shade = fo.pert_shade(odds, q, lo, hi)
+        assert shade.probability == expect and shade.x.size == 0
+    assert fo.pert_offset_at(odds, 0.9) == 20.0
+    cal = WorkCalendar(Settings(start=dt.date(2026, 3, 2)))
+    lines = fo.readout_lines(odds, fo.Question("by", 19.0), cal, "days")
+    assert not any("nan" in line.lower() for line in lines)
+    assert any("−∞" in line for line in lines)
+
+
+def test_curve_is_the_normal_density():
+    lo, hi = fo.axis_span(R1)
+    curve = fo.pert_curve(R1, lo, hi)
+    assert lo <= 44 - 12 and hi >= 44 + 12
+    assert np.allclose(curve.density, norm.pdf(curve.x, 44, 3))
+    assert float(np.trapezoid(curve.density, curve.x)) == pytest.approx(1.0, abs=1e-3)
+
+
+def test_question_rejects_bad_input():
+    with pytest.raises(ValueError, match="mode"):
+        fo.Question("before", 3.0).validated()
+    with pytest.raises(ValueError, match="second"):
+        fo.Question("between", 3.0).validated()
+
+
+@pytest.mark.parametrize("text,expect", [("90", 0.9), ("90 %", 0.9), ("0.8", 0.8), ("97,5", 0.975)])
+def test_parse_confidence(text, expect):
+    assert fo.parse_confidence(text) == pytest.approx(expect)
+
+
+@pytest.mark.parametrize("text", ["abc", "100", "0", "-5", "150 %"])
+def test_parse_confidence_rejects(text):
+    with pytest.raises(ValueError, match="confidence"):
+        fo.parse_confidence(text)
+
+
+def test_sim_figure_bars_share_the_density_axis():
+    rng = np.random.default_rng(3)
+    res = Samples(rng.normal(44, 3, 20_000))
+    fig = fo.sim_figure(res, bins=40)
+    assert float(np.sum(fig.heights * np.diff(fig.edges))) == pytest.approx(1.0)
+    assert fig.ecdf_y[-1] == 1.0 and np.all(np.diff(fig.ecdf_x) >= 0)
+    assert fig.markers["P50"] < fig.markers["P80"] < fig.markers["P90"]
+    assert fig.markers["P90"] == pytest.approx(44 + 3 * 1.2816, abs=0.15)
+
+
+@pytest.mark.parametrize("question", [fo.Question("by", 46.0), fo.Question("after", 42.3),
+                                      fo.Question("between", 40.0, 47.7)])
+def test_sim_shade_area_tracks_the_simulated_answer(question):
+    rng = np.random.default_rng(5)
+    res = Samples(rng.normal(44, 3, 50_000))
+    fig = fo.sim_figure(res, bins=60)
+    shade = fo.sim_shade(fig, question)
+    assert shade.area() == pytest.approx(shade.probability, abs=1e-9)
+    # the histogram's partial bins differ from the exact count by at most one bin's mass
+    assert abs(shade.probability - fo.sim_probability(res, question)) < 0.03
+
+
+def test_comparison_rows_and_merge_bias_note():
+    rng = np.random.default_rng(9)
+    res = Samples(rng.normal(45.0, 2.8, 20_000))
+    rows = fo.comparison_rows(R1, res, fo.Question("by", 47.0))
+    labels = [r.label for r in rows]
+    assert labels == ["Mean finish", "P50", "P80", "P90", "P(finish by)"]
+    assert rows[0].pert == 44.0 and rows[0].sim == pytest.approx(45.0, abs=0.1)
+    assert rows[-1].pert == pytest.approx(0.8413, abs=1e-4)
+    assert rows[-1].sim == pytest.approx(norm.cdf(47, 45, 2.8), abs=0.01)
+    note = fo.merge_bias_note(R1, res, "weeks")
+    assert "later than PERT" in note and "merge" in note
+    cal = WorkCalendar(Settings(start=dt.date(2026, 3, 2), unit="weeks"))
+    cells = fo.comparison_cells(rows, cal, "weeks")
+    assert cells[-1][1].startswith("0.8413")
+
+
+def test_readout_names_path_and_tie_note():
+    odds = PertOdds(10.0, 4.0, ("A", "C"), tied=2, note="2 critical paths tie at 10; ...")
+    cal = WorkCalendar(Settings(start=dt.date(2026, 3, 2)))
+    lines = fo.readout_lines(odds, fo.Question("by", 12.0), cal, "days")
+    text = "\n".join(lines)
+    assert "0.8413 (84.1 %)" in text and "+1.000" in text
+    assert "Path: A-C" in text and "tie" in text
