@@ -5,8 +5,10 @@ Conventions (standard precedence diagramming):
 - project finish = the latest early finish;
 - every late finish ≤ the project finish, or the deadline when one is set (negative float
   then shows the miss), and ≤ the activity's finish-no-later-than offset;
-- total float = LS − ES; free float = the smallest slack over outgoing links, or
-  project finish − EF for an activity without successors.
+- total float = LS − ES; free float = the smallest slack over outgoing links and
+  project finish − EF (the latter alone for an activity without successors; with SS/SF
+  links or negative lags an activity's own finish can drive the project finish, and
+  counting it keeps free float ≤ total float).
 
 Both passes run level by level with numpy: per level one gather, one segmented
 max/min (``reduceat``) and one scatter. A link's effect is folded into one offset between
@@ -80,7 +82,7 @@ def free_float(net: Network, es: np.ndarray, ef: np.ndarray, offsets: np.ndarray
     if p.order.size:
         slack = es[p.far] - es[p.near] - offsets[p.order]
         lo, hi, nodes, starts = p.levels[0]
-        ff[nodes] = np.minimum.reduceat(slack, starts, axis=0)
+        ff[nodes] = np.minimum(np.minimum.reduceat(slack, starts, axis=0), ff[nodes])
     return ff
 
 
