@@ -37,12 +37,15 @@ class Analysis:
         return self.calendar.finish_date(duration)
 
     def dates(self) -> dict[str, np.ndarray]:
+        """Calendar dates per activity; a milestone's start and finish share one date."""
         s, cal = self.schedule, self.calendar
+        mile = s.durations == 0
+        ef, lf = cal.finish_dates(s.ef), cal.finish_dates(s.lf)
         return {
-            "early_start": cal.start_dates(s.es),
-            "early_finish": cal.finish_dates(s.ef, s.es),
-            "late_start": cal.start_dates(s.ls),
-            "late_finish": cal.finish_dates(s.lf, s.ls),
+            "early_start": np.where(mile, ef, cal.start_dates(s.es)),
+            "early_finish": ef,
+            "late_start": np.where(mile, lf, cal.start_dates(s.ls)),
+            "late_finish": lf,
         }
 
     # --- odds ----------------------------------------------------------

@@ -2,7 +2,8 @@
 
 Offset 0 is the start of the first working day on or after the plan start. An activity
 with early start ES begins on working day ``floor(ES)``; one that finishes at EF > 0
-ends on working day ``ceil(EF) − 1`` (the end of that day). In weeks, one week is as
+ends on working day ``ceil(EF) − 1`` (the end of that day). A milestone at offset x is
+dated like a finish: on day ``ceil(x) − 1`` (day 0 for x = 0). In weeks, one week is as
 many working days as the calendar has working weekdays.
 """
 
@@ -56,20 +57,23 @@ class WorkCalendar:
     def finish_dates(self, offsets, starts=None) -> np.ndarray:
         """The working day at whose end something finishing at ``offsets`` ends.
 
-        Where ``starts`` is given and equal to the finish (a milestone), its start date.
+        A milestone (``starts`` equal to the finish) is dated the same way: on the working
+        day that ends at its offset, so a hand-over after Friday's work is dated Friday;
+        one at offset 0 on the first working day. ``starts`` is accepted for symmetry.
         """
         fin = np.asarray(offsets, dtype=float) * self.per_unit
         days = np.ceil(fin - 1e-9) - 1
-        if starts is not None:
-            st = np.asarray(starts, dtype=float) * self.per_unit
-            days = np.where(fin - st <= 1e-12, np.floor(st + 1e-9), days)
         return self._day(np.maximum(days, 0))
+
+    def milestone_dates(self, offsets) -> np.ndarray:
+        """The date shown for milestones at ``offsets`` (the day that ends there)."""
+        return self.finish_dates(offsets)
 
     def start_date(self, offset: float) -> dt.date:
         return self.start_dates([offset])[0].astype(dt.date)
 
     def finish_date(self, offset: float) -> dt.date:
-        return self.finish_dates([offset], [offset] if offset <= 0 else None)[0].astype(dt.date)
+        return self.finish_dates([offset])[0].astype(dt.date)
 
     # --- dates to offsets ------------------------------------------------
     def offset_before(self, date: dt.date) -> float:
