@@ -1,0 +1,35 @@
+"""Everything the pack's sections read, gathered once: plan, analysis, simulation, trace."""
+
+from __future__ import annotations
+
+import datetime as dt
+from dataclasses import dataclass
+
+from .footer import FooterInfo
+
+
+@dataclass
+class PackContext:
+    plan: object                 # core Plan
+    analysis: object             # core Analysis
+    simulation: object | None    # SimulationResult or None
+    footer: FooterInfo
+    paper: str
+
+    @property
+    def settings(self):
+        return self.plan.settings
+
+    @property
+    def unit(self) -> str:
+        return self.plan.settings.unit
+
+    def date_of(self, offset: float) -> dt.date:
+        """The calendar day by whose end a project of this duration finishes."""
+        return self.analysis.date_of_duration(offset)
+
+    def name_of(self, act_id: str) -> str:
+        return self.plan.activity(act_id).name
+
+    def deadline(self) -> float | None:
+        return self.analysis.deadline

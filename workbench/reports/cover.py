@@ -1,0 +1,60 @@
+"""The cover page: title, revision, status date, who prepared it and the sign-off block."""
+
+from __future__ import annotations
+
+from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
+
+from . import styles
+from .context import PackContext
+from .layout import Section
+from .text import format_date, para
+
+SIGN_OFF_ROWS_WHEN_EMPTY = 3
+CONTENTS = ("Summary", "Timeline", "Network", "Odds", "Drivers", "Activities",
+            "Assumptions and cautions")
+
+
+def cover(ctx: PackContext, width: float) -> list:
+    s = ctx.settings
+    story = [Section("Cover", "cover"),
+             Paragraph("SLACKLINE \u00b7 APPROVAL PACK", styles.SUBTITLE), Spacer(1, 40),
+             Paragraph(para(s.title), styles.TITLE), Spacer(1, 14),
+             _facts(ctx, width), Spacer(1, 30),
+             Paragraph("Contents", styles.H2),
+             Paragraph(para(" \u00b7 ".join(CONTENTS)), styles.BODY), Spacer(1, 30),
+             Paragraph("Sign-off", styles.H1),
+             Paragraph("By signing, each person confirms they have reviewed this pack; the "
+                       "decision rests with the organisation's own approval rules.", styles.BODY),
+             Spacer(1, 8), sign_off_table(s.sign_off, width)]
+    return story
+
+
+def _facts(ctx: PackContext, width: float) -> Table:
+    s = ctx.settings
+    rows = [("Revision", s.revision or "-"),
+            ("Status date", format_date(s.status_date) if s.status_date else "not set"),
+            ("Prepared by", s.prepared_by or "-"),
+            ("Plan file", ctx.footer.file_name),
+            ("Plan hash", ctx.footer.plan_hash),
+            ("Generated", ctx.footer.generated_at.strftime("%Y-%m-%d %H:%M %Z").strip())]
+    data = [[Paragraph(para(k), styles.BODY), Paragraph(para(v), styles.BODY)] for k, v in rows]
+    table = Table(data, colWidths=[110, width - 110], hAlign="LEFT")
+    table.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"),
+                               ("TEXTCOLOR", (0, 0), (0, -1), styles.MUTED),
+                               ("LINEBELOW", (0, 0), (-1, -1), 0.3, styles.GRID)]))
+    return table
+
+
+def sign_off_table(people, width: float) -> Table:
+    """Name, role, date and signature columns; blank ruled rows when no names are set."""
+    head = [Paragraph(f"<b>{h}</b>", styles.SMALL) for h in ("Name", "Role", "Date", "Signature")]
+    rows = [[Paragraph(para(p.name), styles.BODY), Paragraph(para(p.role), styles.BODY), "", ""]
+            for p in people] or [["", "", "", ""] for _ in range(SIGN_OFF_ROWS_WHEN_EMPTY)]
+    widths = [width * 0.27, width * 0.25, width * 0.16, width * 0.32]
+    table = Table([head] + rows, colWidths=widths, rowHeights=[16] + [38] * len(rows), hAlign="LEFT")
+    table.setStyle(TableStyle([("VALIGN", (0, 1), (-1, -1), "BOTTOM"),
+                               ("LINEBELOW", (0, 0), (-1, 0), 0.8, styles.TEXT),
+                               ("LINEBELOW", (0, 1), (-1, -1), 0.5, styles.TEXT),
+                               ("LINEAFTER", (0, 1), (-2, -1), 0.3, styles.GRID),
+                               ("BOTTOMPADDING", (0, 1), (-1, -1), 4)]))
+    return table

@@ -1,0 +1,122 @@
+"""The approval pack: ``build_pack(plan, path, ...)`` writes a vector PDF an approval board
+can read, sign and trace back to the exact plan and simulation seed."""
+
+from __future__ import annotations
+
+import datetime as dt
+import io
+import os
+import secrets
+from dataclasses import dataclass
+from pathlib import Path
+
+from workbench import __version__
+from workbench.core.analysis import analyze
+from workbench.core.errors import PlanError
+
+from . import styles
+from .cautions import cautions
+from .charts import chart_pages
+from .context import PackContext
+from .cover import cover
+from .footer import FooterInfo, footer_canvas
+from .layout import LANDSCAPE, PORTRAIT, PackDocument, frame_size, new_page
+from .summary import summary
+from .tables import activity_table
+
+
+@dataclass(frozen=True)
+class PackInfo:
+    pages: int
+    seed: int | None
+    hash: str
+    path: str
+
+
+def build_pack(plan, path, *, paper: str = "a4", iterations: int = 10_000, seed: int | None = None,
+               plan_path=None, progress=None, generated_at: dt.datetime | None = None,
+               simulation=None) -> PackInfo:
+    """Write the approval pack for ``plan`` to ``path`` and describe what was written.
+
+    ``iterations=0`` leaves the simulation out; ``simulation`` passes a result computed
+    elsewhere (its seed is recorded). ``generated_at`` fixes the time printed in the footer.
+    Raises PlanError (naming the culprit) for a plan that cannot be scheduled or bad options.
+    """
+    styles.page_size(paper)
+    report = _progress(progress)
+    analysis = analyze(_checked(plan))
+    sim = simulation if simulation is not None else _simulate(plan, iterations, seed, report)
+    footer = _footer(plan, plan_path, generated_at, sim)
+    ctx = PackContext(plan, analysis, sim, footer, paper)
+    data, pages = render(ctx, report)
+    _write(path, data)
+    report(100)
+    return PackInfo(pages, footer.seed, footer.plan_hash, str(path))
+
+
+def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:
+    """The pack's PDF bytes and its page count."""
+    buffer = io.BytesIO()
+    doc = PackDocument(buffer, ctx.paper, title=ctx.settings.title, author=ctx.settings.prepared_by,
+                       creator=f"Slackline {__version__}")
+    doc.build(story(ctx, report), canvasmaker=footer_canvas(ctx.footer))
+    report(95)
+    return buffer.getvalue(), doc.page
+
+
+def story(ctx: PackContext, report) -> list:
+    portrait_w, _ = frame_size(ctx.paper, PORTRAIT)
+    parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
+    report(72)
+    parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
+    report(80)
+    parts += new_page(PORTRAIT) + activity_table(ctx, portrait_w)
+    parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)
+    report(85)
+    return parts
+
+
+def _checked(plan):
+    if plan is None or not len(plan):
+        raise PlanError("the plan has no activities, so there is nothing to report", "plan")
+    return plan
+
+
+def _simulate(plan, iterations, seed, report):
+    if isinstance(iterations, bool) or not isinstance(iterations, int) or iterations < 0:
+        raise PlanError(f"iterations must be a whole number of at least 0, not {iterations!r}", "iterations")
+    if iterations == 0:
+        return None
+    if seed is not None and (isinstance(seed, bool) or not isinstance(seed, int) or seed < 0):
+        raise PlanError(f"seed must be a whole number of at least 0, not {seed!r}", "seed")
+    from workbench.core.montecarlo import simulate
+
+    seed = secrets.randbelow(2**31) if seed is None else seed
+    return simulate(plan, iterations=iterations, seed=seed,
+                    progress=lambda done, total: report(70 * done / max(total, 1)))
+
+
+def _footer(plan, plan_path, generated_at, sim) -> FooterInfo:
+    from workbench.io.planfile import plan_hash
+
+    when = generated_at or dt.datetime.now(dt.timezone.utc).replace(microsecond=0)
+    name = Path(plan_path).name if plan_path else "(plan not saved to a file)"
+    return FooterInfo(name, plan_hash(plan), when, __version__, None if sim is None else sim.seed)
+
+
+def _progress(progress):
+    if progress is None:
+        return lambda done: None
+    return lambda done: progress(min(100, int(done)), 100)
+
+
+def _write(path, data: bytes) -> None:
+    """Write atomically: a half-written pack never replaces a good one."""
+    target = Path(path)
+    tmp = target.with_name(target.name + ".part")
+    try:
+        tmp.write_bytes(data)
+        os.replace(tmp, target)
+    except OSError as exc:
+        tmp.unlink(missing_ok=True)
+        raise PlanError(f"cannot write the pack to {target}: {exc.strerror or exc}", "output") from None

@@ -1,0 +1,64 @@
+"""The activity table: PERT mean and spread, early/late dates, floats; header on every page."""
+
+from __future__ import annotations
+
+from reportlab.pdfbase.pdfmetrics import stringWidth
+from reportlab.platypus import LongTable, Paragraph, TableStyle
+
+from . import styles
+from .context import PackContext
+from .layout import Section
+from .text import clean, format_date, format_number
+
+HEAD = ("ID", "Name", "te", "sd", "ES", "EF", "LS", "LF", "Total\nfloat", "Free\nfloat", "Crit.")
+SHARES = (0.085, 0.255, 0.055, 0.05, 0.09, 0.09, 0.09, 0.09, 0.065, 0.065, 0.065)
+FONT_SIZE = 8
+
+
+def fit(text: str, width: float, font: str = styles.FONT, size: float = FONT_SIZE) -> str:
+    """Text shortened with '...' so it fits ``width`` points."""
+    text = clean(text)
+    if stringWidth(text, font, size) <= width:
+        return text
+    while text and stringWidth(text + "...", font, size) > width:
+        text = text[:-1]
+    return text.rstrip() + "..."
+
+
+def activity_rows(ctx: PackContext, widths: list[float]) -> list[list[str]]:
+    a, s = ctx.analysis, ctx.analysis.schedule
+    dates = a.dates()
+    rows = []
+    for i, act in enumerate(ctx.plan.activities):
+        rows.append([fit(act.id, widths[0] - 4, styles.BOLD), fit(act.name, widths[1] - 4),
+                     format_number(a.means[i], 2), format_number(a.variances[i] ** 0.5, 2),
+                     *(format_date(dates[k][i]) for k in ("early_start", "early_finish", "late_start", "late_finish")),
+                     format_number(s.total_float[i], 2), format_number(s.free_float[i], 2),
+                     "YES" if s.critical[i] else ""])
+    return rows
+
+
+def _table_style(ctx: PackContext) -> TableStyle:
+    cmds = [("FONT", (0, 0), (-1, -1), styles.FONT, FONT_SIZE), ("FONT", (0, 0), (-1, 0), styles.BOLD, FONT_SIZE),
+            ("FONT", (0, 1), (0, -1), styles.BOLD, FONT_SIZE), ("VALIGN", (0, 0), (-1, -1), "MIDDLE"),
+            ("ALIGN", (2, 0), (-1, -1), "RIGHT"), ("LINEBELOW", (0, 0), (-1, 0), 0.8, styles.TEXT),
+            ("TOPPADDING", (0, 0), (-1, -1), 1.5), ("BOTTOMPADDING", (0, 0), (-1, -1), 1.5),
+            ("LEFTPADDING", (0, 0), (-1, -1), 2), ("RIGHTPADDING", (0, 0), (-1, -1), 2)]
+    for row, critical in enumerate(ctx.analysis.schedule.critical, start=1):
+        if critical:
+            cmds += [("TEXTCOLOR", (-1, row), (-1, row), styles.CRITICAL), ("FONT", (-1, row), (-1, row), styles.BOLD, FONT_SIZE)]
+        if row % 2 == 0:
+            cmds.append(("BACKGROUND", (0, row), (-1, row), styles.LIGHT_ROW))
+    return TableStyle(cmds)
+
+
+def activity_table(ctx: PackContext, width: float) -> list:
+    widths = [width * share for share in SHARES]
+    table = LongTable([list(HEAD)] + activity_rows(ctx, widths), colWidths=widths, repeatRows=1)
+    table.setStyle(_table_style(ctx))
+    unit = ctx.unit
+    intro = (f"te: PERT expected duration, sd: its standard deviation, floats in {unit}; "
+             "ES/EF/LS/LF are calendar dates (start dates are the first working day, finish "
+             "dates the last). Critical activities are marked YES.")
+    return [Section("Activities", "activities"), Paragraph("Activities", styles.H1),
+            Paragraph(intro, styles.SMALL), table]
