@@ -74,6 +74,13 @@ def sim_probability(result, question: Question) -> float:
     return float(np.count_nonzero(inside)) / max(1, finish.size)
 
 
+def sim_answer(result, question: Question) -> tuple[float, float]:
+    """The simulation's answer and its standard error (binomial, from the iteration count)."""
+    p = sim_probability(result, question)
+    n = max(1, np.size(result.finish))
+    return p, math.sqrt(p * (1.0 - p) / n)
+
+
 # --- the PERT curve ------------------------------------------------------------
 @dataclass(frozen=True)
 class OddsCurve:
@@ -271,6 +278,16 @@ def readout_lines(odds, question: Question, calendar, unit: str) -> list[str]:
     if odds.note:
         lines.append(f"Note: {odds.note}")
     return lines
+
+
+def question_headline(q: Question, calendar) -> str:
+    """The question as a reader would ask it: "Finish by Fri 13 Mar 2026?"."""
+    if q.mode == "between":
+        lo, hi = q.bounds()
+        return (f"Finish after {format_date(date_of(calendar, lo))} "
+                f"and by {format_date(date_of(calendar, hi))}?")
+    word = "by" if q.mode == "by" else "after"
+    return f"Finish {word} {format_date(date_of(calendar, q.d1))}?"
 
 
 def _z_text(z: float) -> str:

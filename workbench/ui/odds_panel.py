@@ -1,0 +1,123 @@
+"""The Odds view's side panel: the question, the headline answers, the readout, the
+inverse question, the PERT-versus-simulation table and the caution note."""
+
+from __future__ import annotations
+
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtWidgets import (QAbstractItemView, QButtonGroup, QComboBox, QGroupBox, QHBoxLayout,
+                               QHeaderView, QLabel, QLineEdit, QPushButton, QTableWidget,
+                               QTableWidgetItem, QVBoxLayout, QWidget)
+
+from workbench.figures.odds import CAUTION, MODES, PRESETS
+
+MODE_TEXT = {"by": "Finish by the date", "after": "Finish after the date", "between": "Finish between two dates"}
+
+
+def _label(text: str = "", size: float | None = None, bold: bool = False) -> QLabel:
+    label = QLabel(text)
+    label.setWordWrap(True)
+    label.setTextInteractionFlags(Qt.TextSelectableByMouse)
+    if size or bold:
+        font = label.font()
+        if size:
+            font.setPointSizeF(size)
+        font.setBold(bold)
+        label.setFont(font)
+    return label
+
+
+class OddsPanel(QWidget):
+    """Widgets only; ``OddsView`` fills them. Signals: ``mode_changed(str)``,
+    ``confidence_requested(str)`` (a preset like "90" or typed text)."""
+
+    mode_changed = Signal(str)
+    confidence_requested = Signal(str)
+
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        self.headline = _label(size=13, bold=True)
+        self.headline.setTextFormat(Qt.RichText)
+        self.mode = QComboBox()
+        for key in MODES:
+            self.mode.addItem(MODE_TEXT[key], key)
+        self.mode.currentIndexChanged.connect(lambda _: self.mode_changed.emit(self.mode.currentData()))
+        self.readout = _label(size=10)
+        self.readout.setTextFormat(Qt.RichText)
+        self.sim_readout = _label(size=10)
+        self.inverse = _label(size=10)
+        self.inverse.setTextFormat(Qt.RichText)
+        self.error = _label()
+        self.error.setStyleSheet("color: #8A3B00;")
+        self.table = self._make_table()
+        self.merge_note = _label()
+        self.caution = _label(CAUTION)
+        self.caution.setStyleSheet("color: #555555; font-style: italic;")
+        self._layout()
+
+    def _make_table(self) -> QTableWidget:
+        table = QTableWidget(0, 3)
+        table.setHorizontalHeaderLabels(["", "PERT", "Simulation"])
+        table.verticalHeader().setVisible(False)
+        table.setEditTriggers(QAbstractItemView.NoEditTriggers)
+        table.setSelectionMode(QAbstractItemView.NoSelection)
+        table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeToContents)
+        table.horizontalHeader().setStretchLastSection(True)
+        return table
+
+    def _question_box(self) -> QGroupBox:
+        box = QGroupBox("Question (drag the purple date lines)")
+        lay = QVBoxLayout(box)
+        lay.addWidget(self.mode)
+        lay.addWidget(self.readout)
+        lay.addWidget(self.sim_readout)
+        return box
+
+    def _inverse_box(self) -> QGroupBox:
+        box = QGroupBox("Which date can we promise?")
+        lay = QVBoxLayout(box)
+        row = QHBoxLayout()
+        self.presets = QButtonGroup(self)
+        for p in PRESETS:
+            button = QPushButton(f"{round(100 * p)} %")
+            button.setCheckable(True)
+            button.clicked.connect(lambda _=False, v=p: self.confidence_requested.emit(str(round(100 * v))))
+            self.presets.addButton(button)
+            row.addWidget(button)
+        self.typed = QLineEdit()
+        self.typed.setPlaceholderText("other, e.g. 95 %")
+        self.typed.returnPressed.connect(lambda: self.confidence_requested.emit(self.typed.text()))
+        row.addWidget(self.typed, 1)
+        lay.addLayout(row)
+        lay.addWidget(self.inverse)
+        return box
+
+    def _layout(self) -> None:
+        lay = QVBoxLayout(self)
+        lay.addWidget(self.headline)
+        lay.addWidget(self.error)
+        lay.addWidget(self._question_box())
+        lay.addWidget(self._inverse_box())
+        self.controls_slot = QVBoxLayout()
+        lay.addLayout(self.controls_slot)
+        self.compare_box = QGroupBox("PERT and simulation side by side")
+        inner = QVBoxLayout(self.compare_box)
+        inner.addWidget(self.table)
+        inner.addWidget(self.merge_note)
+        lay.addWidget(self.compare_box, 1)
+        lay.addWidget(self.caution)
+
+    def set_table(self, cells) -> None:
+        self.table.setRowCount(len(cells))
+        for r, row in enumerate(cells):
+            for c, text in enumerate(row):
+                item = QTableWidgetItem(text)
+                if c == 0:
+                    font = item.font()
+                    font.setBold(True)
+                    item.setFont(font)
+                self.table.setItem(r, c, item)
+        self.table.resizeRowsToContents()
+
+    def mark_preset(self, probability: float) -> None:
+        for button in self.presets.buttons():
+            button.setChecked(button.text() == f"{round(100 * probability)} %")

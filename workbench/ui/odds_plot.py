@@ -1,0 +1,194 @@
+"""The Odds view's charts: finish density (top) and cumulative probability (bottom),
+on one date axis. Draws geometry from ``workbench.figures.odds``; no math here."""
+
+from __future__ import annotations
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtGui import QBrush, QColor, QFont
+
+from workbench.figures import style
+from workbench.ui.odds_axis import OddsAxis
+
+STALE = "#9A9A9A"
+
+
+def _colour(hex_colour: str, alpha: int = 255) -> QColor:
+    c = QColor(hex_colour)
+    c.setAlpha(alpha)
+    return c
+
+
+def _pen(hex_colour: str, width: float = 2.0, dash: bool = False):
+    return pg.mkPen(_colour(hex_colour), width=width, style=Qt.DashLine if dash else Qt.SolidLine)
+
+
+class OddsPlot(pg.GraphicsLayoutWidget):
+    """Two stacked plots sharing x (plan offsets, labelled with dates)."""
+
+    marker_moved = Signal()       # while dragging
+    marker_released = Signal()    # once, when a drag ends
+
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        self.setBackground(style.BACKGROUND)
+        self.density = self._make_plot(0, "Probability density")
+        self.cumulative = self._make_plot(1, "P(finish by date)")
+        self.cumulative.setXLink(self.density)
+        self.cumulative.setYRange(0, 1.0, padding=0.02)
+        self.ci.layout.setRowStretchFactor(0, 3)
+        self.ci.layout.setRowStretchFactor(1, 2)
+        self._make_items()
+        self._make_markers()
+
+    def _make_plot(self, row: int, ylabel: str) -> pg.PlotItem:
+        axis = OddsAxis("bottom")
+        plot = self.addPlot(row=row, col=0, axisItems={"bottom": axis})
+        plot.setLabel("left", ylabel)
+        plot.showGrid(x=True, y=True, alpha=0.25)
+        plot.setMouseEnabled(x=True, y=False)
+        plot.getViewBox().setDefaultPadding(0.0)
+        font = QFont()
+        font.setPointSizeF(style.SCREEN.font_size + 1)
+        for name in ("bottom", "left"):
+            plot.getAxis(name).setTickFont(font)
+        return plot
+
+    def _make_items(self) -> None:
+        d, c = self.density, self.cumulative
+        self.legend = d.addLegend(offset=(-10, 10), labelTextSize="11pt")
+        self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 1.2), fillLevel=0.0,
+                                    brush=_colour(style.FLOAT, 70), name="Simulation (histogram)")
+        self.sim_shade = pg.PlotDataItem(pen=_pen(style.PROBABILITY, 1.0), fillLevel=0.0,
+                                         brush=QBrush(_colour(style.CRITICAL, 200), Qt.BDiagPattern),
+                                         name="Simulation answer (hatched)")
+        self.pert_shade = pg.PlotDataItem(pen=pg.mkPen(None), fillLevel=0.0,
+                                          brush=_colour(style.PROBABILITY, 170), name="PERT answer (shaded)")
+        self.pert_curve = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT normal curve")
+        for item in (self.hist, self.pert_shade, self.sim_shade, self.pert_curve):
+            d.addItem(item)
+        self.certain = pg.InfiniteLine(angle=90, pen=_pen(style.TEXT, 3.0), movable=False,
+                                       label="certain finish", labelOpts={"position": 0.9})
+        self.certain.setVisible(False)
+        d.addItem(self.certain)
+        self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
+        self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
+        self.cum_legend = c.addLegend(offset=(10, 10), labelTextSize="11pt")
+        c.addItem(self.pert_cdf)
+        c.addItem(self.ecdf)
+        self.level = pg.InfiniteLine(angle=0, pen=_pen(style.MUTED_TEXT, 1.5, dash=True), movable=False)
+        c.addItem(self.level)
+        self.p_points = pg.ScatterPlotItem(size=11, brush=_colour(style.WORK), pen=_pen(style.TEXT, 1.0))
+        c.addItem(self.p_points)
+        self.p_labels: list[pg.TextItem] = []
+
+    def _make_markers(self) -> None:
+        self.markers, self.mirrors, self.answers = [], [], []
+        for key in ("D1", "D2"):
+            line = pg.InfiniteLine(angle=90, movable=True, pen=_pen(style.DEADLINE, 3.0),
+                                   hoverPen=_pen(style.DEADLINE, 5.0), label="",
+                                   labelOpts={"position": 0.95, "color": style.TEXT, "fill": (255, 255, 255, 220)})
+            line.setZValue(20)
+            line.sigPositionChanged.connect(lambda *_: self.marker_moved.emit())
+            line.sigPositionChangeFinished.connect(lambda *_: self.marker_released.emit())
+            mirror = pg.InfiniteLine(angle=90, movable=False, pen=_pen(style.DEADLINE, 2.0, dash=True))
+            self.density.addItem(line)
+            self.cumulative.addItem(mirror)
+            self.markers.append(line)
+            self.mirrors.append(mirror)
+        for colour in (style.TEXT, style.WORK):
+            line = pg.InfiniteLine(angle=90, movable=False, pen=_pen(colour, 2.0, dash=True), label="",
+                                   labelOpts={"position": 0.12, "color": colour, "fill": (255, 255, 255, 220)})
+            self.cumulative.addItem(line)
+            self.answers.append(line)
+
+    # --- setters (all drawing comes in as figures geometry) ---------------------
+    def set_calendar(self, calendar) -> None:
+        for plot in (self.density, self.cumulative):
+            plot.getAxis("bottom").set_calendar(calendar)
+
+    def set_span(self, lo: float, hi: float) -> None:
+        self.density.setXRange(lo, hi, padding=0.0)
+
+    def show_pert(self, curve) -> None:
+        self.certain.setVisible(curve.step)
+        if curve.step:
+            self.certain.setValue(curve.mean)
+            self.pert_curve.setData([], [])
+        else:
+            self.pert_curve.setData(curve.x, curve.density)
+        self.pert_cdf.setData(curve.x, curve.cumulative)
+        top = float(np.max(curve.density)) if not curve.step else 1.0
+        self._pert_top = top
+
+    def show_shade(self, item: pg.PlotDataItem, shade) -> None:
+        if shade is None or shade.x.size == 0:
+            item.setData([], [])
+        else:
+            item.setData(shade.x, shade.y)
+
+    def show_sim(self, fig, stale: bool) -> None:
+        """Histogram, S-curve and P-markers of a simulation (grey when stale); None clears."""
+        for label in self.p_labels:
+            self.cumulative.removeItem(label)
+        self.p_labels = []
+        if fig is None:
+            self.hist.setData([], [])
+            self.ecdf.setData([], [])
+            self.p_points.setData([], [])
+            return
+        colour = STALE if stale else style.WORK
+        self.hist.setPen(_pen(colour, 1.2))
+        self.hist.setBrush(_colour(STALE if stale else style.FLOAT, 70))
+        self.ecdf.setPen(_pen(colour, 2.5))
+        self.hist.setData(*fig.step_outline())
+        self.ecdf.setData(*_thin(fig.ecdf_x, fig.ecdf_y))
+        names = list(fig.markers)
+        xs = [fig.markers[n] for n in names]
+        ys = [int(n[1:]) / 100.0 for n in names]
+        self.p_points.setData(xs, ys, brush=_colour(colour))
+        for name, x, y in zip(names, xs, ys):
+            text = pg.TextItem(name, color=colour, anchor=(1.1, -0.1))
+            text.setPos(x, y)
+            self.cumulative.addItem(text)
+            self.p_labels.append(text)
+        self._y_top(float(np.max(fig.heights)))
+
+    def _y_top(self, sim_top: float) -> None:
+        top = max(getattr(self, "_pert_top", 0.0), sim_top)
+        self.density.setYRange(0, top * 1.12 if top > 0 else 1.0, padding=0.0)
+
+    def fit_y(self, has_sim: bool) -> None:
+        if not has_sim:
+            self._y_top(0.0)
+
+    def set_markers(self, mode: str, values: tuple[float, float | None], labels: tuple[str, str]) -> None:
+        for i, (line, mirror) in enumerate(zip(self.markers, self.mirrors)):
+            show = i == 0 or mode == "between"
+            line.setVisible(show)
+            mirror.setVisible(show)
+            if show and values[i] is not None:
+                if abs(line.value() - values[i]) > 1e-12:
+                    line.blockSignals(True)
+                    line.setValue(values[i])
+                    line.blockSignals(False)
+                mirror.setValue(values[i])
+                line.label.setFormat(labels[i])
+
+    def set_answers(self, probability: float, pert_x, sim_x, labels: tuple[str, str]) -> None:
+        """The inverse question on the S-curve: a level line and the two dates."""
+        self.level.setValue(probability)
+        for line, x, text in zip(self.answers, (pert_x, sim_x), labels):
+            line.setVisible(x is not None)
+            if x is not None:
+                line.setValue(x)
+                line.label.setFormat(text)
+
+
+def _thin(x: np.ndarray, y: np.ndarray, most: int = 2000):
+    """At most ``most`` points of a step curve (an S-curve of 100k points looks the same)."""
+    if x.size <= most:
+        return x, y
+    idx = np.unique(np.linspace(0, x.size - 1, most).astype(int))
+    return x[idx], y[idx]

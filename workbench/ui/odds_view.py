@@ -1,0 +1,274 @@
+"""The Odds view: what are the chances we finish by the promised date, and which date
+can we promise at 90 %? PERT curve and Monte Carlo results on one date axis.
+
+All numbers come from ``workbench.core`` (analysis, simulation) through the geometry in
+``workbench.figures.odds``; this file only wires widgets together.
+"""
+
+from __future__ import annotations
+
+from PySide6.QtCore import Qt
+from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QWidget
+
+from workbench.figures import odds as fo
+from workbench.ui.odds_controls import OddsControls
+from workbench.ui.odds_panel import OddsPanel
+from workbench.ui.odds_plot import OddsPlot
+from workbench.ui.odds_runner import OddsRunner
+
+
+class OddsView(QWidget):
+    """Finish-time odds for the session's plan (see module doc)."""
+
+    def __init__(self, session, parent=None):
+        super().__init__(parent)
+        self.session = session
+        self.mode = "by"
+        self.dates: list[float | None] = [None, None]
+        self.confidence = float(session.plan.settings.target_confidence)
+        self.result = None        # the simulation shown (current or stale)
+        self.sim_fig = None
+        self.stale = False
+        self._generation = 0      # counts plan changes, to spot runs overtaken by edits
+        self._run_generation = -1
+        self._deadline_seen = object()
+        self._build()
+        self._connect()
+        self.refresh()
+
+    # --- construction ----------------------------------------------------
+    def _build(self) -> None:
+        self.plot = OddsPlot(self)
+        self.panel = OddsPanel(self)
+        self.controls = OddsControls(self)
+        self.panel.controls_slot.addWidget(self.controls)
+        self.runner = OddsRunner(self)
+        side = QScrollArea()
+        side.setWidget(self.panel)
+        side.setWidgetResizable(True)
+        side.setMinimumWidth(470)
+        side.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        lay = QHBoxLayout(self)
+        lay.addWidget(self.plot, 1)
+        lay.addWidget(side)
+
+    def _connect(self) -> None:
+        s = self.session
+        s.schedule_changed.connect(self._on_schedule_changed)
+        s.simulation_changed.connect(self._on_simulation_changed)
+        self.plot.marker_moved.connect(self._on_marker_moved)
+        self.plot.marker_released.connect(self._snap_markers)
+        self.panel.mode_changed.connect(self.set_mode)
+        self.panel.confidence_requested.connect(self.ask_confidence)
+        self.controls.run_requested.connect(self.run_simulation)
+        self.controls.stop_requested.connect(self.runner.stop)
+        self.runner.running_changed.connect(self.controls.set_running)
+        self.runner.progress.connect(self.controls.set_progress)
+        self.runner.finished.connect(self._on_run_finished)
+        self.runner.cancelled.connect(lambda: self.controls.set_status("Stopped: no results kept from that run."))
+        self.runner.failed.connect(lambda msg: self.controls.set_status(f"Simulation failed: {msg}", True))
+
+    # --- plan and simulation changes -------------------------------------
+    @property
+    def analysis(self):
+        return self.session.analysis
+
+    def _on_schedule_changed(self) -> None:
+        self._generation += 1
+        self.refresh()
+
+    def _on_simulation_changed(self) -> None:
+        sim = self.session.simulation
+        if sim is not None:
+            self.result, self.stale = sim, False
+        elif self.result is not None:
+            self.stale = True
+        self._show_simulation()
+
+    def refresh(self) -> None:
+        """Redraw everything from the session's analysis."""
+        a = self.analysis
+        self.panel.error.setVisible(a is None)
+        if a is None:
+            self.panel.error.setText(f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
+            return
+        self.plot.set_calendar(a.calendar)
+        self._default_dates(a)
+        self.curve = fo.pert_curve(a.pert, *self._span())
+        self.plot.show_pert(self.curve)
+        self.plot.set_span(*self._span())
+        self._show_simulation()
+
+    def _default_dates(self, a) -> None:
+        if self._deadline_seen != a.deadline or self.dates[0] is None:
+            self._deadline_seen = a.deadline
+            first = a.deadline if a.deadline is not None else fo.day_end(a.calendar, a.pert.mean)
+            self.dates[0] = first
+        if self.dates[1] is None:
+            self.dates[1] = self.dates[0] + max(1.0, fo.snap_offset(a.calendar, 1.5 * a.pert.sd))
+
+    def _span(self) -> tuple[float, float]:
+        return fo.axis_span(self.analysis.pert, self.result if not self.stale else None, self.dates)
+
+    def _show_simulation(self) -> None:
+        if self.analysis is None:
+            return
+        self.sim_fig = fo.sim_figure(self.result) if self.result is not None else None
+        self.plot.show_sim(self.sim_fig, self.stale)
+        self.plot.fit_y(self.sim_fig is not None)
+        self.panel.compare_box.setEnabled(self.result is not None and not self.stale)
+        self._sim_status()
+        self.show_confidence()
+        self.update_question()
+
+    def _sim_status(self) -> None:
+        r = self.result
+        if r is None:
+            self.controls.set_status("No simulation yet: press Run to compare PERT with a Monte Carlo run.")
+        elif self.stale:
+            self.controls.set_status("Stale: the plan changed since this run (shown in grey). Run again.", True)
+        else:
+            self.controls.set_status(f"{len(r.finish):,} iterations, seed {getattr(r, 'seed', None)}.")
+
+    # --- the question ------------------------------------------------------
+    def set_mode(self, mode: str) -> None:
+        self.mode = fo.Question(mode, 0.0, 0.0).validated().mode
+        index = self.panel.mode.findData(mode)
+        if self.panel.mode.currentIndex() != index:
+            self.panel.mode.setCurrentIndex(index)
+        self.update_question()
+
+    def question(self) -> fo.Question:
+        return fo.Question(self.mode, self.dates[0], self.dates[1])
+
+    def _read_markers(self) -> None:
+        cal = self.analysis.calendar
+        for i, line in enumerate(self.plot.markers):
+            if line.isVisible() or i == 0:
+                self.dates[i] = fo.snap_offset(cal, float(line.value()))
+
+    def _on_marker_moved(self) -> None:
+        if self.analysis is not None:
+            self._read_markers()
+            self.update_question()
+
+    def _snap_markers(self) -> None:
+        self._on_marker_moved()
+
+    def update_question(self) -> None:
+        """Shade and read out the current question (called on every marker move)."""
+        a = self.analysis
+        if a is None:
+            return
+        q = self.question()
+        lo, hi = self._span()
+        self.plot.set_markers(q.mode, (q.d1, q.d2), self._marker_labels(q))
+        self.plot.show_shade(self.plot.pert_shade, fo.pert_shade(a.pert, q, lo, hi))
+        live = self.sim_fig is not None and not self.stale
+        self.plot.show_shade(self.plot.sim_shade, fo.sim_shade(self.sim_fig, q) if live else None)
+        unit = a.plan.settings.unit
+        self.panel.readout.setText("<br>".join(fo.readout_lines(a.pert, q, a.calendar, unit)))
+        self._sim_readout(q)
+        if self.result is not None:
+            rows = fo.comparison_rows(a.pert, self.result, q)
+            self.panel.set_table(fo.comparison_cells(rows, a.calendar, unit))
+            self.panel.merge_note.setText(fo.merge_bias_note(a.pert, self.result, unit))
+        else:
+            self.panel.set_table([])
+            self.panel.merge_note.setText("Run a simulation to compare PERT with it.")
+        self._headline(q)
+
+    def _marker_labels(self, q: fo.Question) -> tuple[str, str]:
+        cal = self.analysis.calendar
+        lo, hi = (q.d1, q.d2) if q.mode != "between" else q.bounds()
+        first = {"by": "by ", "after": "after ", "between": "after "}[q.mode]
+        texts = [first + fo.format_date(fo.date_of(cal, q.d1))]
+        texts.append("by " + fo.format_date(fo.date_of(cal, q.d2)) if q.d2 is not None else "")
+        if q.mode == "between" and q.d1 > q.d2:
+            texts = ["by " + texts[0].split(" ", 1)[1], "after " + texts[1].split(" ", 1)[1]]
+        return texts[0], texts[1]
+
+    def _sim_readout(self, q: fo.Question) -> None:
+        if self.result is None:
+            self.panel.sim_readout.setText("Simulation: not run yet.")
+            return
+        p, err = fo.sim_answer(self.result, q)
+        stale = "  (stale: plan changed)" if self.stale else ""
+        self.panel.sim_readout.setText(
+            f"Simulation probability: {fo.format_probability(p)} ± {err:.4f}{stale}")
+        self.panel.sim_readout.setEnabled(not self.stale)
+
+    def _headline(self, q: fo.Question) -> None:
+        a = self.analysis
+        text = fo.question_headline(q, a.calendar)
+        pert = f"{100 * fo.pert_probability(a.pert, q):.1f} %"
+        sim = self._sim_percent(q)
+        p = round(100 * self.confidence, 1)
+        d_pert = fo.format_date(fo.date_of(a.calendar, fo.pert_offset_at(a.pert, self.confidence)))
+        d_sim = self._sim_date()
+        self.panel.headline.setText(
+            f"{text}<br><span style='color:#000'>PERT {pert} &nbsp;·&nbsp; simulation {sim}</span>"
+            f"<br>{p:g} % date: PERT {d_pert} &nbsp;·&nbsp; simulation {d_sim}")
+
+    def _sim_percent(self, q) -> str:
+        if self.result is None:
+            return "not run"
+        return "stale" if self.stale else f"{100 * fo.sim_probability(self.result, q):.1f} %"
+
+    def _sim_date(self) -> str:
+        if self.result is None:
+            return "not run"
+        if self.stale:
+            return "stale"
+        return fo.format_date(fo.date_of(self.analysis.calendar, fo.sim_offset_at(self.result, self.confidence)))
+
+    # --- the inverse question -----------------------------------------------
+    def ask_confidence(self, text: str) -> None:
+        """A preset or typed confidence → the date reached with it, marked on the S-curve."""
+        try:
+            self.confidence = fo.parse_confidence(text)
+        except ValueError as exc:
+            self.panel.error.setText(str(exc))
+            self.panel.error.setVisible(True)
+            return
+        self.panel.error.setVisible(False)
+        self.show_confidence()
+        self.update_question()
+
+    def show_confidence(self) -> None:
+        a = self.analysis
+        if a is None:
+            return
+        p = self.confidence
+        self.panel.mark_preset(p)
+        pert_x = fo.pert_offset_at(a.pert, p)
+        live = self.result is not None and not self.stale
+        sim_x = fo.sim_offset_at(self.result, p) if live else None
+        pct = f"{100 * p:g} %"
+        labels = (f"PERT {pct}: {fo.format_date(fo.date_of(a.calendar, pert_x))}",
+                  f"Simulation {pct}: {fo.format_date(fo.date_of(a.calendar, sim_x))}" if live else "")
+        self.plot.set_answers(p, pert_x, sim_x, labels)
+        lines = [f"<b>{pct}</b> — PERT: {labels[0].split(': ', 1)[1]} (offset {pert_x:.2f})"]
+        if live:
+            lines.append(f"Simulation: {labels[1].split(': ', 1)[1]} (offset {sim_x:.2f})")
+        self.panel.inverse.setText("<br>".join(lines))
+
+    # --- simulation ---------------------------------------------------------
+    def run_simulation(self, iterations: int, seed) -> None:
+        if self.analysis is None:
+            self.controls.set_status("Cannot simulate: the plan cannot be scheduled.", True)
+            return
+        self._run_generation = self._generation
+        self.runner.start(self.session.plan, iterations, seed)
+
+    def _on_run_finished(self, result) -> None:
+        if self._run_generation != self._generation:
+            self.result, self.stale = result, True   # overtaken by an edit: show, but stale
+            self._show_simulation()
+            return
+        self.session.set_simulation(result)
+
+    def closeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        self.runner.stop()
+        self.runner.wait(5000)
+        super().closeEvent(event)
