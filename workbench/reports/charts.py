@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from .timeline_pages import timeline_pages
+
 
 def chart_pages(ctx, frame: tuple[float, float]) -> list:
-    return []
+    return timeline_pages(ctx, frame)
