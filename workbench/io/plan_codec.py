@@ -1,0 +1,182 @@
+"""Plan ⇄ plain dict (the current ``.slw`` layout), with field-level validation.
+
+``plan_to_dict`` always writes every field, so ``plan_to_dict(plan_from_dict(d)) == d``
+for any dict it wrote. Dates are ISO strings; a constraint or deadline is tagged
+``{"offset": 12.5}`` or ``{"date": "2026-03-02"}`` so the two can never be confused.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+
+from workbench.core.errors import PlanError
+from workbench.core.model import (Activity, Calendar, CorrelationGroup, Link, Plan, Risk, Settings,
+                                  SignOff)
+from workbench.core.network import compile_plan
+
+from .errors import PlanFileError
+from .fields import Fields
+from .plan_migrate import FORMAT, VERSION, upgrade
+
+ACTIVITY_FIELDS = ("id", "name", "group", "notes", "optimistic", "most_likely", "pessimistic",
+                   "duration", "distribution", "start_no_earlier", "finish_no_later")
+
+
+# --- writing -------------------------------------------------------------
+def _point(value):
+    if value is None:
+        return None
+    if isinstance(value, dt.date):
+        return {"date": value.isoformat()}
+    return {"offset": float(value)}
+
+
+def _num(value):
+    return None if value is None else float(value)
+
+
+def settings_to_dict(s: Settings) -> dict:
+    cal = s.calendar
+    return {
+        "title": s.title, "start": s.start.isoformat(), "unit": s.unit,
+        "calendar": {"workdays": [int(d) for d in cal.workdays],
+                     "holidays": [d.isoformat() for d in cal.holidays], "region": cal.region},
+        "deadline": _point(s.deadline),
+        "status_date": s.status_date.isoformat() if s.status_date else None,
+        "target_confidence": float(s.target_confidence), "distribution": s.distribution,
+        "revision": s.revision, "prepared_by": s.prepared_by,
+        "sign_off": [{"name": p.name, "role": p.role} for p in s.sign_off],
+    }
+
+
+def activity_to_dict(a: Activity) -> dict:
+    return {"id": a.id, "name": a.name, "group": a.group, "notes": a.notes,
+            "optimistic": _num(a.optimistic), "most_likely": _num(a.most_likely),
+            "pessimistic": _num(a.pessimistic), "duration": _num(a.duration),
+            "distribution": a.distribution,
+            "start_no_earlier": _point(a.start_no_earlier), "finish_no_later": _point(a.finish_no_later)}
+
+
+def plan_to_dict(plan: Plan) -> dict:
+    """The whole plan as JSON-ready data in the current layout (version 2)."""
+    return {
+        "format": FORMAT, "version": VERSION,
+        "settings": settings_to_dict(plan.settings),
+        "activities": [activity_to_dict(a) for a in plan.activities],
+        "links": [{"pred": l.pred, "succ": l.succ, "type": l.type, "lag": float(l.lag)} for l in plan.links],
+        "risks": [{"id": r.id, "name": r.name, "probability": float(r.probability),
+                   "optimistic": float(r.optimistic), "most_likely": float(r.most_likely),
+                   "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
+        "correlations": [{"name": c.name, "activities": list(c.activities),
+                          "coefficient": float(c.coefficient)} for c in plan.correlations],
+    }
+
+
+# --- reading -------------------------------------------------------------
+def _calendar(f: Fields) -> Calendar:
+    workdays = f.int_list("workdays", 0, 6, default=[0, 1, 2, 3, 4])
+    if len(set(workdays)) != len(workdays):
+        raise f.error("workdays", "lists a weekday twice")
+    cal = Calendar(tuple(workdays), tuple(f.date_list("holidays")), f.text("region"))
+    f.done()
+    return cal
+
+
+def settings_from_dict(data) -> Settings:
+    f = Fields(data, "settings")
+    s = Settings(title=f.text("title", "Untitled plan"), start=f.date("start", required=True),
+                 unit=f.text("unit", "days"), calendar=_calendar(f.sub("calendar")),
+                 deadline=f.point("deadline"), status_date=f.date("status_date"),
+                 target_confidence=f.number("target_confidence", default=0.9),
+                 distribution=f.text("distribution", "beta-pert"),
+                 revision=f.text("revision"), prepared_by=f.text("prepared_by"),
+                 sign_off=[_sign_off(x) for x in f.sub_list("sign_off")])
+    f.done()
+    return _core(s.validated)
+
+
+def _sign_off(f: Fields) -> SignOff:
+    person = SignOff(f.text("name"), f.text("role"))
+    f.done()
+    return person
+
+
+def activity_from_dict(data, position: int) -> Activity:
+    f = Fields.entry(data, "activity", position)
+    act = Activity(id=f.text("id", required=True), name=f.text("name"), group=f.text("group"),
+                   notes=f.text("notes"), optimistic=f.number("optimistic"),
+                   most_likely=f.number("most_likely"), pessimistic=f.number("pessimistic"),
+                   duration=f.number("duration"), distribution=f.text("distribution", None),
+                   start_no_earlier=f.point("start_no_earlier"), finish_no_later=f.point("finish_no_later"))
+    f.done()
+    return _core(act.validated)
+
+
+def link_from_dict(data, position: int) -> Link:
+    f = Fields.entry(data, "link", position)
+    link = Link(f.text("pred", required=True), f.text("succ", required=True),
+                f.text("type", "FS").upper(), f.number("lag", default=0.0))
+    f.done()
+    return _core(link.validated)
+
+
+def risk_from_dict(data, position: int, known: set[str]) -> Risk:
+    f = Fields.entry(data, "risk", position)
+    risk = Risk(f.text("id", required=True), f.text("name"), f.number("probability", default=0.0),
+                f.number("optimistic", default=0.0), f.number("most_likely", default=0.0),
+                f.number("pessimistic", default=0.0), tuple(f.text_list("activities")))
+    f.done()
+    if not 0.0 <= risk.probability <= 1.0:
+        raise f.error("probability", f"must lie between 0 and 1, got {risk.probability:g}")
+    if not 0.0 <= risk.optimistic <= risk.most_likely <= risk.pessimistic:
+        raise f.error("optimistic", "estimates must satisfy 0 \u2264 optimistic \u2264 most_likely \u2264 pessimistic")
+    f.check_known("activities", risk.activities, known)
+    return risk
+
+
+def correlation_from_dict(data, position: int, known: set[str]) -> CorrelationGroup:
+    f = Fields.entry(data, "correlation group", position, key="name")
+    group = CorrelationGroup(f.text("name", required=True), tuple(f.text_list("activities")),
+                             f.number("coefficient", required=True))
+    f.done()
+    if not -1.0 <= group.coefficient <= 1.0:
+        raise f.error("coefficient", f"must lie between -1 and 1, got {group.coefficient:g}")
+    f.check_known("activities", group.activities, known)
+    return group
+
+
+def _core(check):
+    """Run a core validation, turning its PlanError into a PlanFileError (same message)."""
+    try:
+        return check()
+    except PlanFileError:
+        raise
+    except PlanError as exc:
+        raise PlanFileError(str(exc), exc.culprit) from exc
+
+
+def _unique(acts: list[Activity]) -> None:
+    first: dict[str, int] = {}
+    for i, act in enumerate(acts, 1):
+        if act.id in first:
+            raise PlanFileError(f"activity {act.id}: duplicate id (activities {first[act.id]} and {i})", act.id)
+        first[act.id] = i
+
+
+def plan_from_dict(data) -> Plan:
+    """Build and check a plan from plan file data (older versions are upgraded first).
+    Raises :class:`PlanFileError` naming the activity and field; a loop in the links
+    raises it with the loop in order."""
+    top = Fields(upgrade(data), "plan file")
+    top.text("format"), top.number("version")
+    settings = settings_from_dict(top.raw("settings", {}))
+    acts = [activity_from_dict(x, i) for i, x in enumerate(top.raw_list("activities"), 1)]
+    _unique(acts)
+    links = [link_from_dict(x, i) for i, x in enumerate(top.raw_list("links"), 1)]
+    known = {a.id for a in acts}
+    risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
+    corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    top.done()
+    plan = _core(lambda: Plan(settings, acts, links, risks, corr))
+    _core(lambda: compile_plan(plan))
+    return plan
