@@ -1,0 +1,56 @@
+"""Texts shown in Network nodes, and finding a node by id or name. No Qt."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+
+@dataclass(frozen=True)
+class NodeText:
+    id: str
+    name: str
+    te: str
+    es: str
+    ef: str
+    ls: str
+    lf: str
+    total_float: str
+    negative: bool = False   # float below zero: a deadline that cannot be met
+
+
+def number(value: float) -> str:
+    """Compact number for a small cell: at most one decimal, no trailing zeros."""
+    v = round(float(value), 1)
+    if v == 0:
+        v = 0.0
+    text = f"{v:.1f}".rstrip("0").rstrip(".")
+    return text.replace("-", "\u2212")
+
+
+def node_texts(plan, analysis=None) -> list[NodeText]:
+    """One NodeText per activity in plan order; dates cells are empty without an analysis."""
+    out = []
+    s = analysis.schedule if analysis is not None else None
+    for i, act in enumerate(plan.activities):
+        te = number(act.mean)
+        if s is None:
+            out.append(NodeText(act.id, act.name, te, "", "", "", "", ""))
+            continue
+        tf = float(s.total_float[i])
+        out.append(NodeText(act.id, act.name, te, number(s.es[i]), number(s.ef[i]),
+                            number(s.ls[i]), number(s.lf[i]), number(tf), tf < -1e-9))
+    return out
+
+
+def find_nodes(plan, text: str) -> list[str]:
+    """Ids matching ``text``: an exact id first, then ids starting with it, then names
+    containing it (all case-insensitive), each in plan order."""
+    needle = text.strip().casefold()
+    if not needle:
+        return []
+    acts = plan.activities
+    exact = [a.id for a in acts if a.id.casefold() == needle]
+    prefix = [a.id for a in acts if a.id.casefold().startswith(needle) and a.id not in exact]
+    seen = set(exact) | set(prefix)
+    named = [a.id for a in acts if needle in a.name.casefold() and a.id not in seen]
+    return exact + prefix + named
