@@ -1,0 +1,104 @@
+"""One horizontal bar chart of the Drivers view (criticality index or sensitivity tornado).
+
+Rows come from ``workbench.figures.drivers`` geometry; a click on a bar emits its id."""
+
+from __future__ import annotations
+
+import pyqtgraph as pg
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtGui import QBrush, QColor, QFont
+
+from workbench.figures import drivers as fdr
+from workbench.figures import style
+
+STALE = "#A0A0A0"
+
+
+class DriversChart(pg.PlotWidget):
+    """Horizontal bars, top row first; ``signed`` charts are tornados centred on zero."""
+
+    activity_clicked = Signal(str)
+
+    def __init__(self, title: str, xlabel: str, signed: bool, parent=None):
+        super().__init__(parent, background=style.BACKGROUND)
+        self.signed = signed
+        self.bars: list[fdr.DriverBar] = []
+        self.rects: list[fdr.BarRect] = []
+        self.selected: set[str] = set()
+        self.stale = False
+        item = self.getPlotItem()
+        item.setTitle(title, size="13pt", color=style.TEXT)
+        item.setLabel("bottom", xlabel)
+        item.setMouseEnabled(x=False, y=False)
+        item.hideButtons()
+        item.showGrid(x=True, y=False, alpha=0.3)
+        font = QFont()
+        font.setPointSizeF(style.SCREEN.label_font_size + 1)
+        for name in ("left", "bottom"):
+            item.getAxis(name).setTickFont(font)
+            item.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
+        self.graph = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
+        self.folded = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
+        self.outline = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.78)
+        for g in (self.outline, self.graph, self.folded):
+            item.addItem(g)
+        if signed:
+            item.addItem(pg.InfiniteLine(0.0, angle=90, pen=pg.mkPen(style.TEXT, width=1.5)))
+        self.texts: list[pg.TextItem] = []
+        self.scene().sigMouseClicked.connect(self._clicked)
+
+    def set_bars(self, bars: list[fdr.DriverBar], stale: bool = False) -> None:
+        """Show the ranked rows (an empty list clears the chart)."""
+        self.bars, self.stale = bars, stale
+        self.rects = fdr.bar_rects(bars)
+        self._draw_bars()
+        self._draw_labels()
+        lo, hi = fdr.value_span(bars, self.signed)
+        item = self.getPlotItem()
+        item.setXRange(lo, hi * (1.18 if not self.signed else 1.0), padding=0.0)
+        item.setYRange(-max(1, len(bars)) + 0.4, 0.6, padding=0.02)
+        ticks = [(r.y, r.bar.label) for r in self.rects]
+        item.getAxis("left").setTicks([ticks, []])
+
+    def _split(self, folded: bool):
+        rs = [r for r in self.rects if r.bar.is_folded == folded]
+        return dict(x0=[r.x0 for r in rs], x1=[r.x1 for r in rs], y=[r.y for r in rs])
+
+    def _draw_bars(self) -> None:
+        main = STALE if self.stale else style.WORK
+        edge = "#555555" if self.stale else style.WORK_EDGE
+        self.graph.setOpts(**self._split(False), height=0.7, brush=QColor(main), pen=pg.mkPen(edge, width=1))
+        hatch = QBrush(QColor(STALE if self.stale else style.SUMMARY), Qt.BDiagPattern)
+        self.folded.setOpts(**self._split(True), height=0.7, brush=hatch, pen=pg.mkPen(style.SUMMARY, width=1))
+        self.set_selected(self.selected)
+
+    def set_selected(self, ids) -> None:
+        """Outline the rows of the selected activities (heavy black frame)."""
+        self.selected = set(ids)
+        rs = [r for r in self.rects if r.bar.act_id in self.selected]
+        self.outline.setOpts(x0=[r.x0 for r in rs], x1=[r.x1 for r in rs], y=[r.y for r in rs],
+                             height=0.86, brush=QColor(style.SELECTION),
+                             pen=pg.mkPen(style.TEXT, width=style.SCREEN.critical_outline))
+
+    def _draw_labels(self) -> None:
+        item = self.getPlotItem()
+        for text in self.texts:
+            item.removeItem(text)
+        self.texts = []
+        colour = STALE if self.stale else style.TEXT
+        for r in self.rects:
+            value = r.bar.value
+            text = pg.TextItem(f"{value:+.2f}" if self.signed else f"{value:.2f}", color=colour,
+                               anchor=(0.0, 0.5) if value >= 0 else (1.0, 0.5))
+            text.setPos(r.x1 if value >= 0 else r.x0, r.y)
+            item.addItem(text)
+            self.texts.append(text)
+
+    def row_at_scene(self, pos) -> int | None:
+        point = self.getPlotItem().vb.mapSceneToView(pos)
+        return fdr.row_at(self.bars, point.y())
+
+    def _clicked(self, event) -> None:
+        row = self.row_at_scene(event.scenePos())
+        if row is not None and not self.bars[row].is_folded:
+            self.activity_clicked.emit(self.bars[row].act_id)
