@@ -1,0 +1,91 @@
+"""The Drivers page: criticality index and the sensitivity tornado from the simulation,
+drawn from ``workbench.figures.drivers`` geometry (the Drivers view's)."""
+
+from __future__ import annotations
+
+from reportlab.platypus import Paragraph
+
+from workbench.figures import drivers as dg
+
+from . import marks as mk
+from . import styles
+from .chart_flowable import ChartFlowable
+from .layout import LANDSCAPE, Section, new_page
+from .tables import fit
+
+TOP = 15
+HEADING_SPACE = 30.0
+LABEL_W = 150.0
+BAR_ROW = 17.0
+
+
+def drivers_pages(ctx, frame: tuple[float, float]) -> list:
+    width, height = frame
+    story = new_page(LANDSCAPE) + [Section("Drivers", "drivers"), Paragraph("Drivers: what moves the finish", styles.H1)]
+    sim = ctx.simulation
+    if sim is None:
+        return story + [Paragraph("No simulation was run for this pack, so the drivers are not ranked.", styles.BODY)]
+    crit = dg.criticality_bars(sim, ctx.plan, TOP)
+    sens = dg.sensitivity_bars(sim, ctx.plan, TOP)
+    critical = set(ctx.analysis.pert.path)
+    paint = lambda c, w, h: _paint(c, w, h, crit, sens, critical)
+    return story + [ChartFlowable(width, height - HEADING_SPACE, paint)]
+
+
+def _paint(c, w: float, h: float, crit, sens, critical: set[str]) -> None:
+    half = (w - 20) / 2
+    _panel(c, (0, h, half), crit, False, "Criticality index: share of runs on the critical path", critical)
+    _panel(c, (half + 20, h, half), sens, True, "Sensitivity: correlation of duration with the finish", critical)
+    c.setFont(styles.FONT, 8)
+    c.setFillColor(styles.MUTED)
+    c.drawString(0, 4, "Activities on the PERT critical path are drawn hatched with a heavy outline. A folded row stands for "
+                       "the remaining activities and shows the largest of their values.")
+
+
+def _panel(c, box, bars, signed: bool, title: str, critical: set[str]) -> None:
+    x0, h, w = box
+    lo, hi = dg.value_span(bars, signed)
+    plot_x, plot_w = x0 + LABEL_W, w - LABEL_W - 30
+    top = h - 26
+    px = lambda v: plot_x + (v - lo) / (hi - lo) * plot_w
+    c.setFont(styles.BOLD, 10)
+    c.setFillColor(styles.TEXT)
+    c.drawString(x0, h - 12, title)
+    _grid(c, px, lo, hi, top, len(bars), signed)
+    for rect in dg.bar_rects(bars):
+        y = top - (rect.row + 0.5) * BAR_ROW
+        _bar(c, px(rect.x0), y - BAR_ROW * 0.35, px(rect.x1) - px(rect.x0), BAR_ROW * 0.7, rect.bar, critical)
+        c.setFont(styles.BOLD if not rect.bar.is_folded else styles.FONT, 8)
+        c.setFillColor(styles.TEXT)
+        c.drawString(x0, y - 3, fit(rect.bar.label, LABEL_W - 6, styles.BOLD, 8))
+        value = f"{rect.bar.value * 100:.0f} %" if not signed else f"{rect.bar.value:+.2f}"
+        c.setFont(styles.FONT, 8)
+        c.drawString(px(max(rect.x1, 0.0)) + 3, y - 3, value)
+
+
+def _grid(c, px, lo, hi, top, rows, signed) -> None:
+    bottom = top - rows * BAR_ROW
+    ticks = [k / 5 for k in range(6)] if not signed else [lo * 0.9, lo * 0.45, 0.0, hi * 0.45, hi * 0.9]
+    c.saveState()
+    c.setFont(styles.FONT, 7.5)
+    for v in ticks:
+        c.setStrokeColor(styles.TEXT if abs(v) < 1e-12 else styles.GRID)
+        c.setLineWidth(0.8 if abs(v) < 1e-12 else 0.4)
+        c.line(px(v), bottom, px(v), top)
+        c.setFillColor(styles.TEXT)
+        c.drawCentredString(px(v), bottom - 10, f"{v * 100:.0f} %" if not signed else f"{v:+.2f}")
+    c.restoreState()
+
+
+def _bar(c, x, y, w, h, bar, critical: set[str]) -> None:
+    if bar.is_folded:
+        c.saveState()
+        c.setFillColor(styles.GRID)
+        c.setStrokeColor(styles.MUTED)
+        c.rect(x, y, w, h, stroke=1, fill=1)
+        c.restoreState()
+    elif bar.act_id in critical:
+        mk.critical_bar(c, x, y, w, h, 1.0)
+    else:
+        mk.work_bar(c, x, y, w, h)
+

@@ -1,0 +1,143 @@
+"""Drawing of the activity-on-node diagram from ``workbench.figures.network_layout``:
+a window of the layout (layout units, y down) mapped onto a rectangle of the page."""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from reportlab.lib.colors import white as _WHITE
+
+from . import styles
+from .tables import fit
+from .text import clean, format_number
+
+DETAIL_SCALE = 0.5     # points per layout unit from which a node's numbers are legible
+
+
+@dataclass(frozen=True)
+class View:
+    """Layout window (x0, y0, w, h) drawn at ``scale`` points per unit into a page box."""
+
+    x0: float
+    y0: float
+    w: float
+    h: float
+    scale: float
+
+    def page(self, x: float, y: float, top: float) -> tuple[float, float]:
+        return (x - self.x0) * self.scale, top - (y - self.y0) * self.scale
+
+
+class NetworkPainter:
+    def __init__(self, ctx, layout, view: View):
+        self.ctx, self.layout, self.view = ctx, layout, view
+        self.detail = view.scale >= DETAIL_SCALE * 0.999
+
+    def paint(self, c, w: float, h: float) -> None:
+        c.saveState()
+        path = c.beginPath()
+        path.rect(0, 0, w, h)
+        c.clipPath(path, stroke=0, fill=0)
+        for link in sorted(self.layout.links, key=lambda l: l.critical):
+            self._link(c, link, h)
+        for node in self.layout.nodes:
+            if self._visible(node):
+                self._node(c, node, h)
+        c.restoreState()
+
+    def _visible(self, node) -> bool:
+        v = self.view
+        return node.x + node.w >= v.x0 and node.x <= v.x0 + v.w and node.y + node.h >= v.y0 and node.y <= v.y0 + v.h
+
+    # --- links -----------------------------------------------------------------
+    def _link(self, c, link, top: float) -> None:
+        pts = [self.view.page(x, y, top) for x, y in link.points]
+        c.saveState()
+        c.setStrokeColor(styles.CRITICAL if link.critical else styles.MUTED)
+        c.setFillColor(styles.CRITICAL if link.critical else styles.MUTED)
+        c.setLineWidth(max(1.6, 5 * self.view.scale) if link.critical else max(0.5, 1.5 * self.view.scale))
+        path = c.beginPath()
+        path.moveTo(*pts[0])
+        for p in pts[1:]:
+            path.lineTo(*p)
+        c.drawPath(path, stroke=1, fill=0)
+        _arrow(c, pts[-2], pts[-1], max(3.0, 9 * self.view.scale))
+        if link.label and self.detail:
+            x, y = self.view.page(*link.label_at, top)
+            c.setFont(styles.BOLD, 7.5)
+            c.setFillColor(styles.TEXT)
+            c.drawCentredString(x, y + 3, clean(link.label))
+        c.restoreState()
+
+    # --- nodes -----------------------------------------------------------------
+    def _node(self, c, node, top: float) -> None:
+        s = self.view.scale
+        x, y_top = self.view.page(node.x, node.y, top)
+        w, h = node.w * s, node.h * s
+        head = h * (0.24 if self.detail else 1.0)
+        c.saveState()
+        c.setFillColor(_WHITE)
+        c.rect(x, y_top - h, w, h, stroke=0, fill=1)
+        c.setFillColor(styles.CRITICAL if node.critical else styles.WORK)
+        c.rect(x, y_top - head, w, head, stroke=0, fill=1)
+        c.setStrokeColor(styles.TEXT if node.critical else styles.WORK_EDGE)
+        c.setLineWidth(max(1.5, 4.5 * s) if node.critical else max(0.4, 1.2 * s))
+        c.rect(x, y_top - h, w, h, stroke=1, fill=0)
+        self._head_text(c, node, x, y_top, w, head)
+        if self.detail:
+            self._body_text(c, node, x, y_top - head, w, h - head)
+        c.restoreState()
+
+    def _head_text(self, c, node, x, y_top, w, head) -> None:
+        size = min(10.0, head * 0.55, 20 * self.view.scale) if self.detail else min(9.0, head * 0.5)
+        if size < 3.0:
+            return
+        i = node.row
+        c.setFillColor(_WHITE)
+        _label_box(c, x + 2, y_top - head / 2 - size * 0.35, w * 0.6, size, node.id, styles.BOLD)
+        if self.detail:
+            te = self.ctx.analysis.means[i]
+            c.setFont(styles.BOLD, size * 0.8)
+            c.drawRightString(x + w - 3, y_top - head / 2 - size * 0.3, f"te {format_number(te)}")
+
+    def _body_text(self, c, node, x, y_top, w, h) -> None:
+        s, i = self.ctx.analysis.schedule, node.row
+        name_size = min(8.0, 16 * self.view.scale)
+        c.setFillColor(styles.TEXT)
+        c.setFont(styles.FONT, name_size)
+        c.drawString(x + 3, y_top - name_size * 1.2, fit(self.ctx.plan.activities[i].name, w - 6, styles.FONT, name_size))
+        cells = (("ES", s.es[i]), ("EF", s.ef[i]), ("TF", s.total_float[i]),
+                 ("LS", s.ls[i]), ("LF", s.lf[i]), ("FF", s.free_float[i]))
+        num = min(7.5, 14 * self.view.scale)
+        grid_top = y_top - name_size * 1.9
+        row_h, col_w = (grid_top - (y_top - h)) / 2, w / 3
+        c.setStrokeColor(styles.GRID)
+        c.setLineWidth(0.4)
+        c.line(x, grid_top, x + w, grid_top)
+        c.line(x, grid_top - row_h, x + w, grid_top - row_h)
+        for k, (label, value) in enumerate(cells):
+            cx, cy = x + (k % 3) * col_w, grid_top - (k // 3 + 1) * row_h
+            if k % 3:
+                c.line(cx, grid_top, cx, grid_top - 2 * row_h)
+            c.setFont(styles.FONT, num * 0.8)
+            c.setFillColor(styles.MUTED)
+            c.drawString(cx + 2, cy + row_h * 0.3, label)
+            c.setFont(styles.BOLD, num)
+            c.setFillColor(styles.DEADLINE if label == "TF" and value < -1e-9 else styles.TEXT)
+            c.drawRightString(cx + col_w - 2, cy + row_h * 0.3, format_number(value))
+
+
+def _label_box(c, x, y, width, size, text, font) -> None:
+    c.setFont(font, size)
+    c.drawString(x, y, fit(text, width, font, size))
+
+
+def _arrow(c, a, b, size: float) -> None:
+    angle = math.atan2(b[1] - a[1], b[0] - a[0])
+    path = c.beginPath()
+    path.moveTo(*b)
+    for turn in (2.7, -2.7):
+        path.lineTo(b[0] + size * math.cos(angle + turn), b[1] + size * math.sin(angle + turn))
+    path.close()
+    c.drawPath(path, stroke=0, fill=1)
