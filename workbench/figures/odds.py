@@ -324,11 +324,11 @@ def comparison_rows(odds, result, question: Question) -> list[ComparisonRow]:
 
 
 def comparison_cells(rows, calendar, unit: str) -> list[tuple[str, str, str]]:
-    """The comparison as text cells (label, PERT, simulation)."""
+    """The comparison as text cells (label, PERT, simulation); offsets in brackets."""
     def cell(value: float, kind: str) -> str:
         if kind == "probability":
             return format_probability(value)
-        return f"{value:.1f} {unit} · {format_date(date_of(calendar, value))}"
+        return f"{format_date(date_of(calendar, value))} ({value:.1f})"
     return [(r.label, cell(r.pert, r.kind), cell(r.sim, r.kind)) for r in rows]
 
 

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 import pyqtgraph as pg
 from PySide6.QtCore import Qt, Signal
-from PySide6.QtGui import QBrush, QColor, QFont
+from PySide6.QtGui import QBrush, QColor, QFont, QFontMetrics
 
 from workbench.figures import drivers as fdr
 from workbench.figures import style
@@ -37,6 +37,8 @@ class DriversChart(pg.PlotWidget):
         for name in ("left", "bottom"):
             item.getAxis(name).setTickFont(font)
             item.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
+            item.getAxis(name).enableAutoSIPrefix(False)
+        self._font = font
         self.graph = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
         self.folded = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
         self.outline = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.78)
@@ -58,7 +60,10 @@ class DriversChart(pg.PlotWidget):
         item.setXRange(lo, hi * (1.18 if not self.signed else 1.0), padding=0.0)
         item.setYRange(-max(1, len(bars)) + 0.4, 0.6, padding=0.02)
         ticks = [(r.y, r.bar.label) for r in self.rects]
-        item.getAxis("left").setTicks([ticks, []])
+        left = item.getAxis("left")
+        left.setTicks([ticks, []])
+        metrics = QFontMetrics(self._font)
+        left.setWidth(min(360, 24 + max((metrics.horizontalAdvance(t) for _, t in ticks), default=40)))
 
     def _split(self, folded: bool):
         rs = [r for r in self.rects if r.bar.is_folded == folded]

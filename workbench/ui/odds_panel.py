@@ -45,6 +45,7 @@ class OddsPanel(QWidget):
         self.readout.setTextFormat(Qt.RichText)
         self.sim_readout = _label(size=10)
         self.inverse = _label(size=10)
+        self.inverse.setWordWrap(False)
         self.inverse.setTextFormat(Qt.RichText)
         self.error = _label()
         self.error.setStyleSheet("color: #8A3B00;")
@@ -103,10 +104,12 @@ class OddsPanel(QWidget):
         inner = QVBoxLayout(self.compare_box)
         inner.addWidget(self.table)
         inner.addWidget(self.merge_note)
-        lay.addWidget(self.compare_box, 1)
+        lay.addWidget(self.compare_box)
         lay.addWidget(self.caution)
+        lay.addStretch(1)
 
-    def set_table(self, cells) -> None:
+    def set_table(self, cells, unit: str = "") -> None:
+        self.table.setHorizontalHeaderLabels([f"(offsets in {unit})" if unit else "", "PERT", "Simulation"])
         self.table.setRowCount(len(cells))
         for r, row in enumerate(cells):
             for c, text in enumerate(row):
@@ -117,6 +120,8 @@ class OddsPanel(QWidget):
                     item.setFont(font)
                 self.table.setItem(r, c, item)
         self.table.resizeRowsToContents()
+        rows = sum(self.table.rowHeight(r) for r in range(len(cells)))
+        self.table.setFixedHeight(self.table.horizontalHeader().height() + rows + 6)
 
     def mark_preset(self, probability: float) -> None:
         for button in self.presets.buttons():

@@ -33,7 +33,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
     def __init__(self, parent=None):
         super().__init__(parent)
         self.setBackground(style.BACKGROUND)
-        self.density = self._make_plot(0, "Probability density")
+        self.density = self._make_plot(0, "Likelihood of finishing (density per unit)")
         self.cumulative = self._make_plot(1, "P(finish by date)")
         self.cumulative.setXLink(self.density)
         self.cumulative.setYRange(0, 1.0, padding=0.02)
@@ -52,21 +52,25 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         font = QFont()
         font.setPointSizeF(style.SCREEN.font_size + 1)
         for name in ("bottom", "left"):
-            plot.getAxis(name).setTickFont(font)
+            axis = plot.getAxis(name)
+            axis.setTickFont(font)
+            axis.setTextPen(pg.mkPen(style.TEXT))
+            axis.enableAutoSIPrefix(False)
         return plot
 
     def _make_items(self) -> None:
         d, c = self.density, self.cumulative
-        self.legend = d.addLegend(offset=(-10, 10), labelTextSize="11pt")
-        self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 1.2), fillLevel=0.0,
-                                    brush=_colour(style.FLOAT, 70), name="Simulation (histogram)")
+        self.legend = d.addLegend(offset=(-10, 10), labelTextSize="11pt", labelTextColor=style.TEXT,
+                                  brush=pg.mkBrush(255, 255, 255, 220))
+        self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 2.0), fillLevel=0.0,
+                                    brush=_colour(style.FLOAT, 45), name="Simulation (histogram)")
         self.sim_shade = pg.PlotDataItem(pen=_pen(style.PROBABILITY, 1.0), fillLevel=0.0,
                                          brush=QBrush(_colour(style.CRITICAL, 200), Qt.BDiagPattern),
                                          name="Simulation answer (hatched)")
         self.pert_shade = pg.PlotDataItem(pen=pg.mkPen(None), fillLevel=0.0,
-                                          brush=_colour(style.PROBABILITY, 170), name="PERT answer (shaded)")
+                                          brush=_colour(style.PROBABILITY, 150), name="PERT answer (shaded)")
         self.pert_curve = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT normal curve")
-        for item in (self.hist, self.pert_shade, self.sim_shade, self.pert_curve):
+        for item in (self.pert_shade, self.hist, self.sim_shade, self.pert_curve):
             d.addItem(item)
         self.certain = pg.InfiniteLine(angle=90, pen=_pen(style.TEXT, 3.0), movable=False,
                                        label="certain finish", labelOpts={"position": 0.9})
@@ -74,7 +78,8 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         d.addItem(self.certain)
         self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
         self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
-        self.cum_legend = c.addLegend(offset=(10, 10), labelTextSize="11pt")
+        self.cum_legend = c.addLegend(offset=(10, 45), labelTextSize="11pt", labelTextColor=style.TEXT,
+                                      brush=pg.mkBrush(255, 255, 255, 220))
         c.addItem(self.pert_cdf)
         c.addItem(self.ecdf)
         self.level = pg.InfiniteLine(angle=0, pen=_pen(style.MUTED_TEXT, 1.5, dash=True), movable=False)
@@ -97,9 +102,10 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             self.cumulative.addItem(mirror)
             self.markers.append(line)
             self.mirrors.append(mirror)
-        for colour in (style.TEXT, style.WORK):
+        for colour, where in ((style.TEXT, 0.1), (style.WORK, 0.24)):
             line = pg.InfiniteLine(angle=90, movable=False, pen=_pen(colour, 2.0, dash=True), label="",
-                                   labelOpts={"position": 0.12, "color": colour, "fill": (255, 255, 255, 220)})
+                                   labelOpts={"position": where, "color": colour, "fill": (255, 255, 255, 230),
+                                              "anchors": [(0, 0.5), (0, 0.5)]})
             self.cumulative.addItem(line)
             self.answers.append(line)
 
@@ -139,8 +145,8 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             self.p_points.setData([], [])
             return
         colour = STALE if stale else style.WORK
-        self.hist.setPen(_pen(colour, 1.2))
-        self.hist.setBrush(_colour(STALE if stale else style.FLOAT, 70))
+        self.hist.setPen(_pen(colour, 2.0))
+        self.hist.setBrush(_colour(STALE if stale else style.FLOAT, 45))
         self.ecdf.setPen(_pen(colour, 2.5))
         self.hist.setData(*fig.step_outline())
         self.ecdf.setData(*_thin(fig.ecdf_x, fig.ecdf_y))

@@ -171,7 +171,7 @@ class OddsView(QWidget):
         self._sim_readout(q)
         if self.result is not None:
             rows = fo.comparison_rows(a.pert, self.result, q)
-            self.panel.set_table(fo.comparison_cells(rows, a.calendar, unit))
+            self.panel.set_table(fo.comparison_cells(rows, a.calendar, unit), unit)
             self.panel.merge_note.setText(fo.merge_bias_note(a.pert, self.result, unit))
         else:
             self.panel.set_table([])
