@@ -3,7 +3,7 @@
 Our own node: a filled header strip (id on the left, te on the right), the name on up to
 two lines, then a small grid — rows "early" and "late", columns "start" and "finish" —
 with the total float in its own cell on the right, spanning both rows. Critical nodes
-have a vermillion header and a heavy border; links on the critical path are vermillion
+have a vermillion header and a heavy dark border; links on the critical path are vermillion
 and heavy, so the critical path also reads in a grayscale print.
 All positions are fractions of the node box, so any box size works.
 """
@@ -20,6 +20,7 @@ TEXT = style.TEXT
 MUTED = style.MUTED_TEXT
 NODE_FILL = style.BACKGROUND
 WORK_EDGE = style.WORK_EDGE
+CRITICAL_EDGE = style.CRITICAL_EDGE   # heavy dark outline: critical also reads in grayscale
 LINK = "#4D4D4D"             # ordinary links: dark gray, so the vermillion ones stand out
 HEADER_TEXT = "#FFFFFF"
 GRID_LINE = "#B8B8B8"
@@ -42,7 +43,9 @@ class Weights:
     id_font: float = 15.0
     name_font: float = 13.0
     cell_font: float = 13.5
-    caption_font: float = 10.0
+    caption_font: float = 11.0
+    compact_id_font: float = 30.0     # zoomed out: id and name only, in larger type
+    compact_name_font: float = 24.0
     float_font: float = 17.0
     label_font: float = 12.0
     band_font: float = 22.0
@@ -56,6 +59,8 @@ NAME = (0.04, 0.23, 0.96, 0.49)
 CAPTIONS = (0.0, 0.49, 1.0, 0.60)
 EARLY = (0.0, 0.60, 1.0, 0.77)
 LATE = (0.0, 0.77, 1.0, 0.94)
+COMPACT_HEADER = (0.0, 0.0, 1.0, 0.34)
+COMPACT_NAME = (0.04, 0.38, 0.96, 0.96)
 GRID_COLUMNS = (0.04, 0.27, 0.51, 0.75, 0.96)   # edges: label | start | finish | float
 GRID_TOP = 0.51
 

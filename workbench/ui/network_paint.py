@@ -1,0 +1,281 @@
+"""One paint routine for the Network: screen item, image/SVG export and printing share it.
+
+Everything is drawn in layout units; ``scale`` (device pixels per unit) picks the level of
+detail and keeps hairlines visible. Only nodes and links meeting the visible rectangle are
+drawn; when most of the drawing is visible, links go out in one batched call per style.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
+from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPainter, QPen, QPolygonF
+
+from workbench.figures import network_style as ns
+
+TINY_PX = 40       # node narrower than this on screen: coloured box only
+COMPACT_PX = 140   # narrower than this: header colour and big id only
+LABEL_SCALE = 0.2  # link labels from this zoom on
+
+
+def colour(hex_text: str, alpha: int = 255) -> QColor:
+    c = QColor(hex_text)
+    c.setAlpha(alpha)
+    return c
+
+
+def font(size: float, bold: bool = False) -> QFont:
+    f = QFont()
+    f.setPixelSize(max(1, int(round(size))))
+    f.setBold(bold)
+    return f
+
+
+def pen(hex_text: str, units: float, scale: float, style=Qt.SolidLine) -> QPen:
+    """A cosmetic pen as wide as ``units`` at this scale, never thinner than one pixel."""
+    p = QPen(colour(hex_text), max(1.0, units * scale))
+    p.setCosmetic(True)
+    p.setStyle(style)
+    p.setJoinStyle(Qt.MiterJoin)
+    return p
+
+
+class NetworkPainter:
+    """Caches Qt shapes for one layout and paints any part of it."""
+
+    def __init__(self):
+        self.layout = None
+        self.texts = []
+        self.selected: set[int] = set()
+        self.hover = -1
+        self.related: set[int] = set()
+        self.hover_links: set[int] = set()
+        self.bands_visible = True
+        self._rects: list[QRectF] = []
+        self._polys: list[QPolygonF] = []
+        self._heads: list[QPolygonF] = []
+        self._names: list[tuple[str, str]] = []
+
+    # --- content ---------------------------------------------------------
+    def set_content(self, layout, texts) -> None:
+        self.layout, self.texts = layout, texts
+        self._rects = [QRectF(*map(float, b)) for b in layout.boxes]
+        self._crit = np.array([n.critical for n in layout.nodes], dtype=bool)
+        self._polys = [QPolygonF([QPointF(x, y) for x, y in l.points]) for l in layout.links]
+        self._heads = [self._arrow_head(l.points) for l in layout.links]
+        self._link_crit = np.array([l.critical for l in layout.links], dtype=bool)
+        pts = [np.asarray(l.points) for l in layout.links]
+        self._link_box = (np.array([[p[:, 0].min(), p[:, 1].min(), p[:, 0].max(), p[:, 1].max()] for p in pts])
+                          if pts else np.zeros((0, 4)))
+        self._lines = {flag: [QLineF(QPointF(*a), QPointF(*b)) for l in layout.links if l.critical == flag
+                              for a, b in zip(l.points, l.points[1:])] for flag in (False, True)}
+        self._names = [self._wrap(t.name, b[2], ns.WEIGHTS.name_font) for t, b in zip(texts, layout.boxes)]
+        self._short = [self._wrap(t.name, b[2], ns.WEIGHTS.compact_name_font) for t, b in zip(texts, layout.boxes)]
+        self.related = {r for r in self.related if r < len(self._rects)}
+        self.selected = {r for r in self.selected if r < len(self._rects)}
+
+    def set_hover(self, row: int) -> None:
+        self.hover = row
+        if row < 0 or self.layout is None:
+            self.related, self.hover_links = set(), set()
+            return
+        preds, succs = self.layout.neighbours(row)
+        self.related = set(preds) | set(succs)
+        me = self.layout.nodes[row].id
+        self.hover_links = {k for k, l in enumerate(self.layout.links) if me in (l.pred, l.succ)}
+
+    def _arrow_head(self, points) -> QPolygonF:
+        (x0, y0), (x1, y1) = points[-2], points[-1]
+        d = np.hypot(x1 - x0, y1 - y0) or 1.0
+        ux, uy = (x1 - x0) / d, (y1 - y0) / d
+        s = ns.WEIGHTS.arrow
+        base = (x1 - ux * s, y1 - uy * s)
+        return QPolygonF([QPointF(x1, y1), QPointF(base[0] - uy * s * 0.45, base[1] + ux * s * 0.45),
+                          QPointF(base[0] + uy * s * 0.45, base[1] - ux * s * 0.45)])
+
+    def _wrap(self, name: str, width: float, size: float) -> tuple[str, str]:
+        """The name on at most two lines, the second elided when it does not fit."""
+        fm = QFontMetricsF(font(size))
+        room = width * (ns.NAME[2] - ns.NAME[0])
+        words, first = name.split(), ""
+        while words and fm.horizontalAdvance((first + " " + words[0]).strip()) <= room:
+            first = (first + " " + words.pop(0)).strip()
+        if not first and words:      # one long word: break it
+            return fm.elidedText(name, Qt.ElideRight, room), ""
+        return first, fm.elidedText(" ".join(words), Qt.ElideRight, room)
+
+    # --- painting --------------------------------------------------------
+    def paint(self, p: QPainter, visible: QRectF, scale: float) -> None:
+        if self.layout is None:
+            return
+        node_px = float(self.layout.boxes[0, 2] * scale) if len(self._rects) else 0.0
+        p.setRenderHint(QPainter.Antialiasing, node_px >= TINY_PX)
+        p.setRenderHint(QPainter.TextAntialiasing, True)
+        if self.bands_visible:
+            self._paint_bands(p, visible, scale)
+        self._paint_links(p, visible, scale)
+        rows = self._visible_nodes(visible)
+        self._paint_halos(p, rows, scale)
+        if node_px < TINY_PX:
+            self._paint_tiny(p, rows)
+        else:
+            for r in rows:
+                self._paint_node(p, int(r), scale, node_px >= COMPACT_PX)
+
+    def _visible_nodes(self, v: QRectF) -> np.ndarray:
+        b = self.layout.boxes
+        if not len(b):
+            return np.zeros(0, dtype=np.int64)
+        keep = (b[:, 0] <= v.right()) & (b[:, 0] + b[:, 2] >= v.left()) & (b[:, 1] <= v.bottom()) & (b[:, 1] + b[:, 3] >= v.top())
+        return np.flatnonzero(keep)
+
+    def _visible_links(self, v: QRectF) -> np.ndarray:
+        b = self._link_box
+        if not len(b):
+            return np.zeros(0, dtype=np.int64)
+        keep = (b[:, 0] <= v.right()) & (b[:, 2] >= v.left()) & (b[:, 1] <= v.bottom()) & (b[:, 3] >= v.top())
+        return np.flatnonzero(keep)
+
+    def _paint_bands(self, p: QPainter, v: QRectF, scale: float) -> None:
+        w = ns.WEIGHTS
+        for i, band in enumerate(self.layout.bands):
+            rect = QRectF(band.x, band.y, band.w, band.h)
+            if not rect.intersects(v):
+                continue
+            p.fillRect(rect, colour(ns.BAND_FILLS[i % 2]))
+            if w.band_font * scale >= 6:
+                p.setPen(colour(ns.BAND_TEXT))
+                p.setFont(font(w.band_font, bold=True))
+                left = max(rect.left(), v.left()) + 8
+                p.drawText(QRectF(left, rect.top() + 4, 600, w.band_font * 1.5), Qt.AlignLeft | Qt.AlignVCenter, band.name)
+
+    def _paint_links(self, p: QPainter, v: QRectF, scale: float) -> None:
+        w = ns.WEIGHTS
+        rows = self._visible_links(v)
+        crit = self._link_crit
+        p.setBrush(Qt.NoBrush)
+        for flag, hexc, units in ((False, ns.LINK, w.link), (True, ns.CRITICAL, w.critical_link)):
+            line = pen(hexc, units, scale)
+            if flag:
+                line.setWidthF(max(2.5, line.widthF()))
+            p.setPen(line)
+            mine = rows[crit[rows] == flag]
+            if mine.size > 0.5 * max(1, len(self._polys)):
+                p.drawLines(self._lines[flag])
+            else:
+                for k in mine:
+                    p.drawPolyline(self._polys[k])
+        if self.hover_links:
+            p.setPen(pen(ns.HOVER, w.critical_link * 0.8, scale))
+            for k in self.hover_links:
+                p.drawPolyline(self._polys[k])
+        if w.arrow * scale >= 3:
+            self._paint_heads(p, rows, crit)
+        if scale >= LABEL_SCALE:
+            self._paint_labels(p, rows, scale)
+
+    def _paint_heads(self, p: QPainter, rows: np.ndarray, crit: np.ndarray) -> None:
+        p.setPen(Qt.NoPen)
+        for flag, hexc in ((False, ns.LINK), (True, ns.CRITICAL)):
+            p.setBrush(colour(hexc))
+            for k in rows[crit[rows] == flag]:
+                p.drawPolygon(self._heads[k])
+
+    def _paint_labels(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
+        size = min(2 * ns.WEIGHTS.label_font, max(ns.WEIGHTS.label_font, 8.0 / scale))
+        p.setFont(font(size, bold=True))
+        for k in rows:
+            link = self.layout.links[k]
+            if not link.label:
+                continue
+            x, y = link.label_at
+            rect = QRectF(x - 3 * size, y - 1.5 * size, 6 * size, 1.3 * size)
+            p.setPen(colour(ns.CRITICAL if link.critical else ns.TEXT))
+            p.drawText(rect, Qt.AlignCenter, link.label)
+
+    def _paint_halos(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
+        show = set(rows.tolist())
+        p.setBrush(colour(ns.SELECTED))
+        p.setPen(pen(ns.TEXT, 1.5, scale))
+        for r in self.selected & show:
+            p.drawRect(self._rects[r].adjusted(-10, -10, 10, 10))
+        p.setBrush(Qt.NoBrush)
+        p.setPen(pen(ns.HOVER, 3.0, scale, Qt.DashLine))
+        for r in (self.related | ({self.hover} if self.hover >= 0 else set())) & show:
+            p.drawRect(self._rects[r].adjusted(-6, -6, 6, 6))
+
+    def _paint_tiny(self, p: QPainter, rows: np.ndarray) -> None:
+        for flag, hexc in ((False, ns.WORK), (True, ns.CRITICAL)):
+            p.setPen(pen(ns.CRITICAL_EDGE, 0, 1.0) if flag else Qt.NoPen)
+            p.setBrush(colour(hexc))
+            p.drawRects([self._rects[r] for r in rows[self._crit[rows] == flag]])
+
+    def _paint_node(self, p: QPainter, r: int, scale: float, full: bool) -> None:
+        rect, crit, text = self._rects[r], bool(self._crit[r]), self.texts[r]
+        box = (rect.x(), rect.y(), rect.width(), rect.height())
+        w = ns.WEIGHTS
+        p.setPen(Qt.NoPen)
+        p.setBrush(colour(ns.NODE_FILL))
+        p.drawRect(rect)
+        head = QRectF(*ns.part(box, ns.HEADER if full else ns.COMPACT_HEADER))
+        p.fillRect(head, colour(ns.CRITICAL if crit else ns.WORK))
+        p.setPen(colour(ns.HEADER_TEXT))
+        inner = head.adjusted(8, 0, -8, 0)
+        if full:
+            p.setFont(font(w.id_font, bold=True))
+            p.drawText(inner, Qt.AlignLeft | Qt.AlignVCenter, text.id)
+            p.setFont(font(w.cell_font))
+            p.drawText(inner, Qt.AlignRight | Qt.AlignVCenter, f"te {text.te}")
+            self._paint_body(p, r, box)
+        else:
+            p.setFont(font(w.compact_id_font, bold=True))
+            p.drawText(inner, Qt.AlignLeft | Qt.AlignVCenter, text.id)
+            self._paint_compact_name(p, r, box)
+        edge = pen(ns.CRITICAL_EDGE, w.critical_edge, scale) if crit else pen(ns.WORK_EDGE, w.node_edge, scale)
+        if crit:
+            edge.setWidthF(max(2.5, edge.widthF()))
+        p.setPen(edge)
+        p.setBrush(Qt.NoBrush)
+        p.drawRect(rect)
+
+    def _paint_compact_name(self, p: QPainter, r: int, box) -> None:
+        first, second = self._short[r]
+        name = QRectF(*ns.part(box, ns.COMPACT_NAME))
+        p.setPen(colour(ns.TEXT))
+        p.setFont(font(ns.WEIGHTS.compact_name_font))
+        half = name.height() / 2
+        p.drawText(QRectF(name.x(), name.y(), name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, first)
+        p.drawText(QRectF(name.x(), name.y() + half, name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, second)
+
+    def _paint_body(self, p: QPainter, r: int, box) -> None:
+        text, w = self.texts[r], ns.WEIGHTS
+        first, second = self._names[r]
+        name = QRectF(*ns.part(box, ns.NAME))
+        p.setPen(colour(ns.TEXT))
+        p.setFont(font(w.name_font))
+        half = name.height() / 2
+        p.drawText(QRectF(name.x(), name.y(), name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, first)
+        p.drawText(QRectF(name.x(), name.y() + half, name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, second)
+        x, y, bw, bh = box
+        p.setPen(QPen(colour(ns.GRID_LINE), 0))
+        top = y + ns.GRID_TOP * bh
+        p.drawLine(QPointF(x + 6, top), QPointF(x + bw - 6, top))
+        split = x + ns.GRID_COLUMNS[3] * bw
+        p.drawLine(QPointF(split, top + 3), QPointF(split, y + ns.LATE[3] * bh))
+        p.setPen(colour(ns.MUTED))
+        p.setFont(font(w.caption_font))
+        for col, word in ((1, "start"), (2, "finish"), (3, "float")):
+            p.drawText(QRectF(*ns.cell(box, ns.CAPTIONS, col)), Qt.AlignCenter, word)
+        for row, label, a, b in ((ns.EARLY, "early", text.es, text.ef), (ns.LATE, "late", text.ls, text.lf)):
+            p.setPen(colour(ns.MUTED))
+            p.setFont(font(w.caption_font))
+            p.drawText(QRectF(*ns.cell(box, row, 0)), Qt.AlignLeft | Qt.AlignVCenter, label)
+            p.setPen(colour(ns.TEXT))
+            p.setFont(font(w.cell_font))
+            p.drawText(QRectF(*ns.cell(box, row, 1)), Qt.AlignCenter, a)
+            p.drawText(QRectF(*ns.cell(box, row, 2)), Qt.AlignCenter, b)
+        cx, _, cw, _ = ns.cell(box, ns.EARLY, 3)
+        float_rect = QRectF(cx, y + ns.EARLY[1] * bh, cw, (ns.LATE[3] - ns.EARLY[1]) * bh)
+        p.setPen(colour(ns.NEGATIVE if text.negative else ns.TEXT))
+        p.setFont(font(w.float_font, bold=True))
+        p.drawText(float_rect, Qt.AlignCenter, text.total_float)

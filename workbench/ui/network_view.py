@@ -1,0 +1,160 @@
+"""The Network view: the plan as an activity-on-node diagram.
+
+Geometry comes from ``workbench.figures.network_layout`` (no scheduling math here); one
+batched item paints it. Click selects (``session.select``), hovering a node marks its
+predecessors and successors, the find field jumps to an id or a name.
+"""
+
+from __future__ import annotations
+
+import pyqtgraph as pg
+from PySide6.QtCore import QRectF, Qt
+from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit,
+                               QMessageBox, QPushButton, QVBoxLayout, QWidget)
+
+from workbench.core.errors import PlanError
+from workbench.figures.network_labels import find_nodes, node_texts
+from workbench.figures.network_layout import LayoutOptions, layout_plan
+
+from .network_export import print_pages, save_picture
+from .network_item import NetworkItem
+
+READABLE_SCALE = 0.9     # zoom used when jumping to a found node from far out
+
+
+class NetworkView(QWidget):
+    def __init__(self, session, parent=None):
+        super().__init__(parent)
+        self.session = session
+        self.layout_result = None
+        self.options = LayoutOptions()
+        self._matches: list[str] = []
+        self._match_at = -1
+        self._build()
+        session.schedule_changed.connect(self.refresh)
+        session.selection_changed.connect(self._follow_selection)
+        self.refresh()
+        self.fit()
+
+    # --- widgets ---------------------------------------------------------
+    def _build(self) -> None:
+        self.find_field = QLineEdit(placeholderText="Find id or name \u21b5")
+        self.find_field.setClearButtonEnabled(True)
+        self.find_field.returnPressed.connect(self.find_next)
+        self.fit_button = QPushButton("Fit")
+        self.fit_button.clicked.connect(self.fit)
+        self.time_box = QCheckBox("Columns by early start")
+        self.time_box.toggled.connect(self._options_changed)
+        self.band_box = QCheckBox("Group bands")
+        self.band_box.toggled.connect(self._options_changed)
+        export = QPushButton("Export\u2026")
+        export.clicked.connect(self.export_dialog)
+        printing = QPushButton("Print\u2026")
+        printing.clicked.connect(self.print_preview)
+        bar = QHBoxLayout()
+        for w in (self.find_field, self.fit_button, self.time_box, self.band_box, export, printing):
+            bar.addWidget(w)
+        bar.setStretch(0, 1)
+        self.message = QLabel(alignment=Qt.AlignCenter, wordWrap=True)
+        self.message.hide()
+        self.graphics = pg.GraphicsView(background="w")
+        self.viewbox = pg.ViewBox(invertY=True, lockAspect=True, enableMenu=False)
+        self.graphics.setCentralItem(self.viewbox)
+        self.item = NetworkItem()
+        self.viewbox.addItem(self.item)
+        self.item.node_clicked.connect(self._clicked)
+        box = QVBoxLayout(self)
+        box.setContentsMargins(4, 4, 4, 4)
+        box.addLayout(bar)
+        box.addWidget(self.message)
+        box.addWidget(self.graphics, 1)
+
+    # --- content ---------------------------------------------------------
+    def refresh(self) -> None:
+        """Redraw from the session's plan and analysis (on every schedule change)."""
+        plan, analysis = self.session.plan, self.session.analysis
+        try:
+            result = layout_plan(plan, analysis, self.options)
+        except PlanError as exc:
+            self._show_message(f"The network cannot be drawn: {exc}")
+            return
+        first = self.layout_result is None or not self.layout_result.nodes
+        self.layout_result = result
+        self.item.set_content(result, node_texts(plan, analysis))
+        self._follow_selection(self.session.selected())
+        note = getattr(self.session, "analysis_error", None) if analysis is None else None
+        self._show_message(f"Not scheduled: {note}" if note else "")
+        if first and result.nodes:
+            self.fit()
+
+    def _show_message(self, text: str) -> None:
+        self.message.setText(text)
+        self.message.setVisible(bool(text))
+
+    def _options_changed(self) -> None:
+        self.options = LayoutOptions(time_scaled=self.time_box.isChecked(), bands=self.band_box.isChecked())
+        self.refresh()
+        self.fit()
+
+    def fit(self) -> None:
+        self.viewbox.autoRange(padding=0.02)
+
+    # --- selection, hover, find -------------------------------------------
+    def _clicked(self, row: int) -> None:
+        if self.layout_result is None:
+            return
+        self.session.select([] if row < 0 else [self.layout_result.nodes[row].id])
+
+    def _follow_selection(self, ids) -> None:
+        if self.layout_result is None:
+            return
+        rows = {self.layout_result.index_of(i) for i in ids} - {-1}
+        self.item.set_selected(rows)
+
+    def find_next(self) -> None:
+        """Select the next node whose id or name matches the find field, and show it."""
+        matches = find_nodes(self.session.plan, self.find_field.text())
+        if matches != self._matches:
+            self._matches, self._match_at = matches, -1
+        if not matches:
+            self.find_field.setStyleSheet("background: #FFE0E0;")
+            return
+        self.find_field.setStyleSheet("")
+        self._match_at = (self._match_at + 1) % len(matches)
+        act_id = matches[self._match_at]
+        self.session.select([act_id])
+        self.show_node(act_id)
+
+    def show_node(self, act_id: str) -> None:
+        """Centre the view on a node, zooming in far enough to read it."""
+        row = self.layout_result.index_of(act_id) if self.layout_result else -1
+        if row < 0:
+            return
+        x, y, w, h = map(float, self.layout_result.boxes[row])
+        view = self.viewbox.viewRect()
+        px = self.viewbox.width() or 1.0
+        span_w = min(view.width(), px / READABLE_SCALE)
+        span_h = view.height() * span_w / max(view.width(), 1e-9)
+        self.viewbox.setRange(QRectF(x + w / 2 - span_w / 2, y + h / 2 - span_h / 2, span_w, span_h), padding=0)
+
+    # --- export and print -------------------------------------------------
+    def export_picture(self, path: str) -> None:
+        save_picture(self.item.painter, path)
+
+    def export_dialog(self) -> None:
+        path, _ = QFileDialog.getSaveFileName(self, "Export network", "network.png", "PNG image (*.png);;SVG drawing (*.svg)")
+        if not path:
+            return
+        try:
+            self.export_picture(path)
+        except (OSError, ValueError) as exc:
+            QMessageBox.warning(self, "Export network", str(exc))
+
+    def print_preview(self) -> None:
+        from PySide6.QtPrintSupport import QPrintPreviewDialog, QPrinter
+
+        printer = QPrinter(QPrinter.HighResolution)
+        printer.setPageOrientation(printer.pageLayout().orientation().Landscape)
+        dialog = QPrintPreviewDialog(printer, self)
+        dialog.paintRequested.connect(lambda pr: print_pages(self.item.painter, pr))
+        dialog.exec()
