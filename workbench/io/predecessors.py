@@ -14,6 +14,7 @@ from workbench.core.errors import PlanError
 from workbench.core.model import LINK_TYPES, Link
 
 _SPLIT = re.compile(r"[;,]")
+_SPLIT_DECIMAL_COMMA = re.compile(r";|,(?!\d)|(?<!\d),")  # keeps the comma of "-0,5"
 
 
 def format_number(value: float) -> str:
@@ -24,9 +25,11 @@ def format_number(value: float) -> str:
     return repr(value)
 
 
-def parse_lag(text: str, item: str, succ_id: str) -> float:
+def parse_lag(text: str, item: str, succ_id: str, decimal_comma: bool = False) -> float:
+    if decimal_comma:
+        text = text.replace(",", ".")
     try:
-        lag = float(text)
+        lag = float(text) if "_" not in text else float("x")
     except ValueError:
         raise PlanError(f"activity {succ_id}: lag {text!r} in {item!r} is not a number", succ_id) from None
     if not math.isfinite(lag):
@@ -34,7 +37,7 @@ def parse_lag(text: str, item: str, succ_id: str) -> float:
     return lag
 
 
-def parse_item(item: str, succ_id: str) -> Link:
+def parse_item(item: str, succ_id: str, decimal_comma: bool = False) -> Link:
     """One ``ID [TYPE [LAG]]`` item as a link into ``succ_id``."""
     parts = item.split()
     if len(parts) > 3:
@@ -43,25 +46,28 @@ def parse_item(item: str, succ_id: str) -> Link:
     kind = parts[1].upper() if len(parts) > 1 else "FS"
     if kind not in LINK_TYPES:
         raise PlanError(f"activity {succ_id}: unknown link type {parts[1]!r} in {item!r} (use FS, SS, FF or SF)", succ_id)
-    lag = parse_lag(parts[2], item, succ_id) if len(parts) > 2 else 0.0
+    lag = parse_lag(parts[2], item, succ_id, decimal_comma) if len(parts) > 2 else 0.0
     if pred == succ_id:
         raise PlanError(f"activity {succ_id} cannot be its own predecessor", succ_id)
     return Link(pred, succ_id, kind, lag)
 
 
-def parse_predecessors(text: str, succ_id: str) -> list[Link]:
+def parse_predecessors(text: str, succ_id: str, decimal_comma: bool = False) -> list[Link]:
     """Read a predecessor cell into links ending at ``succ_id``.
+
+    With ``decimal_comma`` (tables from a ``;``-separated CSV) a comma between two digits
+    is a decimal mark (``C FF -0,5``), any other comma still separates items.
 
     Raises :class:`PlanError` naming the activity and the item that cannot be read, or
     a predecessor given twice with the same type. Whether the predecessor ids exist is the caller's check.
     """
     links: list[Link] = []
     seen: set[tuple[str, str]] = set()
-    for raw in _SPLIT.split(text or ""):
+    for raw in (_SPLIT_DECIMAL_COMMA if decimal_comma else _SPLIT).split(text or ""):
         item = raw.strip()
         if not item:
             continue
-        link = parse_item(item, succ_id)
+        link = parse_item(item, succ_id, decimal_comma)
         if (link.pred, link.type) in seen:
             raise PlanError(f"activity {succ_id}: predecessor {link.pred} {link.type} is listed twice", succ_id)
         seen.add((link.pred, link.type))

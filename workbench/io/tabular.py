@@ -1,0 +1,136 @@
+"""CSV and XLSX import and export of activity tables.
+
+>>> plan = read_table("activities.csv")          # all or nothing: TableImportError lists every problem
+>>> export_table(analyze(plan), "schedule.xlsx")  # plan columns + computed schedule
+>>> plan = load_any("bridge.slw")                 # by extension: .slw, .csv/.tsv/.txt, .xlsx/.xlsm
+
+Columns: ``id, name, optimistic, most_likely, pessimistic, duration, predecessors`` and
+optionally ``group, notes, distribution, start_no_earlier, finish_no_later`` (headers
+case-insensitive, with aliases: see :mod:`table_columns`). Unknown columns are ignored.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from pathlib import Path
+
+from workbench.core.errors import PlanError
+from workbench.core.model import Plan, Settings
+
+from .csv_text import DELIMITER_NAMES, csv_rows, decode, looks_binary, sniff_delimiter
+from .errors import TableImportError
+from .predecessors import format_predecessors, parse_predecessors
+from .table_columns import map_header
+from .table_export import table_rows, write_csv, write_xlsx
+from .table_rows import build_plan, rows_to_plan
+from .xlsx_safe import read_xlsx
+
+__all__ = ["ImportReport", "TableImportError", "export_table", "format_predecessors", "load_any",
+           "parse_predecessors", "read_table", "read_table_report", "rows_to_plan"]
+
+CSV_SUFFIXES = (".csv", ".tsv", ".txt")
+XLSX_SUFFIXES = (".xlsx", ".xlsm")
+ZIP_MAGIC = b"PK\x03\x04"
+MAX_CSV_BYTES = 200 * 1024 * 1024
+
+
+@dataclass
+class ImportReport:
+    """How a table was read: shown to the planner beside the import preview."""
+
+    kind: str = ""             # "csv" or "xlsx"
+    encoding: str = ""         # CSV only: utf-8-sig, utf-16, utf-8 or cp1252
+    delimiter: str = ""        # CSV only: comma, semicolon or tab
+    sheet: str = ""            # XLSX only: the sheet read
+    ignored_columns: list[str] = field(default_factory=list)
+    activities: int = 0
+    links: int = 0
+
+    def summary(self) -> str:
+        how = f"sheet '{self.sheet}'" if self.kind == "xlsx" else f"{self.encoding}, {self.delimiter}-separated"
+        text = f"{self.activities} activities, {self.links} links ({how})"
+        if self.ignored_columns:
+            text += "; ignored columns: " + ", ".join(self.ignored_columns)
+        return text
+
+
+def _read_bytes(path: Path, source: str) -> bytes:
+    try:
+        if path.stat().st_size > MAX_CSV_BYTES:
+            raise TableImportError([f"refused: the file is larger than {MAX_CSV_BYTES // 2**20} MB"], source)
+        return path.read_bytes()
+    except OSError as exc:
+        raise TableImportError([f"cannot read {path}: {exc.strerror or exc}"], source) from exc
+
+
+def _header_and_rows(rows):
+    """The first non-blank row is the header; the rest are numbered activity rows."""
+    for k, (number, cells) in enumerate(rows):
+        if any(str(c).strip() for c in cells):
+            return number, cells, rows[k + 1:]
+    return None, [], []
+
+
+def _csv_table(path: Path, raw: bytes, source: str, report: ImportReport):
+    text, report.encoding = decode(raw, source)
+    if looks_binary(text):
+        raise TableImportError(["this is a binary file, not CSV text (use .csv or .xlsx)"], source)
+    delimiter = sniff_delimiter(text)
+    report.kind, report.delimiter = "csv", DELIMITER_NAMES[delimiter]
+    return csv_rows(text, delimiter, source), delimiter != ","
+
+
+def read_table_report(path, settings: Settings | None = None) -> tuple[Plan, ImportReport]:
+    """Read a CSV or XLSX activity table (all or nothing) and say how it was read."""
+    path = Path(path)
+    source = path.name
+    report = ImportReport()
+    raw = _read_bytes(path, source)
+    if raw.startswith(ZIP_MAGIC):
+        report.kind = "xlsx"
+        report.sheet, rows = read_xlsx(path, source)
+        decimal_comma = False
+    elif path.suffix.lower() in XLSX_SUFFIXES:
+        raise TableImportError(["not a valid XLSX workbook (it is not a zip container; an old .xls or a "
+                                "password-protected file? save it as .xlsx or CSV)"], source)
+    else:
+        rows, decimal_comma = _csv_table(path, raw, source, report)
+    header_row, header, body = _header_and_rows(rows)
+    if header_row is None:
+        raise TableImportError(["the file is empty" if report.kind == "csv" else "the sheet is empty"], source)
+    report.ignored_columns = map_header(header, header_row).ignored
+    plan = build_plan(header, body, settings, header_row=header_row, decimal_comma=decimal_comma, source=source)
+    report.activities, report.links = len(plan), len(plan.links)
+    return plan, report
+
+
+def read_table(path, settings: Settings | None = None) -> Plan:
+    """A checked Plan from a CSV/XLSX table; default settings start today, in days."""
+    return read_table_report(path, settings)[0]
+
+
+def export_table(analysis, path) -> Path:
+    """Write the plan and its computed schedule to ``.csv`` (UTF-8 with BOM) or ``.xlsx``."""
+    path = Path(path)
+    rows = table_rows(analysis)
+    suffix = path.suffix.lower()
+    if suffix in XLSX_SUFFIXES:
+        write_xlsx(rows, path, analysis.plan.settings.title)
+    elif suffix in CSV_SUFFIXES:
+        write_csv(rows, path)
+    else:
+        raise PlanError(f"{path.name}: export writes .csv or .xlsx, not {suffix or 'a file without extension'}", "path")
+    return path
+
+
+def load_any(path) -> Plan:
+    """Open a plan from a ``.slw`` plan file or a ``.csv``/``.xlsx`` table, by extension."""
+    path = Path(path)
+    suffix = path.suffix.lower()
+    if suffix == ".slw":
+        from .planfile import load_plan
+        return load_plan(path)
+    if suffix in CSV_SUFFIXES + XLSX_SUFFIXES:
+        return read_table(path)
+    raise PlanError(f"{path.name}: cannot open a {suffix or 'file without extension'} file "
+                    "(use .slw, .csv or .xlsx)", "path")
