@@ -156,3 +156,23 @@ def test_figures_import_no_qt():
             "print(any(m.startswith(('PySide6', 'PyQt', 'pyqtgraph')) for m in sys.modules))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "False"
+
+
+def test_dragged_estimate_moves_most_likely_to_the_new_mean():
+    from workbench.figures.timeline import dragged_estimate
+    act = Activity("C", optimistic=6, most_likely=9, pessimistic=18)   # te 10
+    changes = dragged_estimate(act, 11.0)
+    assert changes == {"most_likely": 10.5}            # (6 + 4·10.5 + 18) / 6 = 11
+    assert act.with_(**changes).mean == pytest.approx(11.0)
+    assert dragged_estimate(act, 2.0) == {"most_likely": 6.0}   # never below optimistic
+
+
+def test_dragged_estimate_widens_pessimistic_when_needed():
+    from workbench.figures.timeline import dragged_estimate
+    act = Activity("C", optimistic=6, most_likely=9, pessimistic=18)
+    changes = dragged_estimate(act, 20.0)
+    new = act.with_(**changes).validated()
+    assert new.optimistic <= new.most_likely <= new.pessimistic
+    assert new.most_likely == new.pessimistic == pytest.approx(22.8)   # (6 + 5·22.8) / 6 = 20
+    assert new.mean == pytest.approx(20.0)
+    assert dragged_estimate(Activity("F", duration=4), 6.26) == {"duration": 6.3}

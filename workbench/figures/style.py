@@ -56,7 +56,7 @@ class Weights:
 
 SCREEN = Weights(bar_outline=1.0, critical_outline=2.5, float_line=2.0, float_tick=2.0,
                  reference_line=2.0, connector=1.0, whisker=1.5, grid=1.0,
-                 font_size=9.0, label_font_size=9.0, row_height=22.0, bar_fraction=0.6)
+                 font_size=10.0, label_font_size=10.5, row_height=24.0, bar_fraction=0.6)
 
 PRESENT = Weights(bar_outline=1.5, critical_outline=4.0, float_line=3.5, float_tick=3.5,
                   reference_line=3.5, connector=1.5, whisker=2.5, grid=1.0,

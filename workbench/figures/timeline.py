@@ -275,3 +275,36 @@ def _x_range(s, lines, whisker, marks) -> tuple[float, float]:
             values += [float(m.x0.min()), float(m.x1.max())]
     lo, hi = min(values), max(values)
     return lo, hi if hi > lo else lo + 1.0
+
+
+def bar_span(geo: TimelineGeometry, row: int) -> tuple[float, float] | None:
+    """(ES, EF) of the bar on a row, or None when the row has no bar (group, milestone)."""
+    for kind in ("critical", "work"):
+        m = geo.marks[kind]
+        hit = np.flatnonzero(m.rows == row)
+        if hit.size:
+            return float(m.x0[hit[0]]), float(m.x1[hit[0]])
+    return None
+
+
+def dragged_estimate(activity, length: float, step: float = 0.1) -> dict:
+    """Field changes giving ``activity`` the PERT mean ``length`` by moving its most likely
+    value (snapped to ``step``); a fixed duration changes the duration itself.
+
+    The optimistic value stays; the most likely never drops below it; when it would pass
+    the pessimistic value, the pessimistic widens to it.
+    """
+    length = max(0.0, float(length))
+    if not activity.has_estimate:
+        return {"duration": _snap(length, step)}
+    a, b = activity.optimistic, activity.pessimistic
+    m = max(a, _snap((6.0 * length - a - b) / 4.0, step))
+    if m <= b:
+        return {"most_likely": m}
+    m = max(a, _snap((6.0 * length - a) / 5.0, step))
+    return {"most_likely": m, "pessimistic": max(b, m)}
+
+
+def _snap(value: float, step: float) -> float:
+    snapped = round(max(0.0, value) / step) * step
+    return round(snapped, 9)

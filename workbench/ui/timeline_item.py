@@ -1,0 +1,180 @@
+"""The Timeline's one chart item: every bar, slack line and mark in a few batched calls.
+
+Draws a :class:`~workbench.figures.timeline.TimelineGeometry` in device pixels (so line
+widths and mark sizes stay crisp at any zoom), only the rows on screen, and keeps the
+result in a QPicture until the geometry, the options or the view change.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtCore import QRectF, Qt
+from PySide6.QtGui import QColor, QPainter, QPicture
+
+from workbench.figures import style
+from workbench.figures.timeline import TimelineGeometry
+from workbench.ui import timeline_paint as paint
+
+SHADE_DAY_PX = 7.0      # shade non-working days once a working day is this wide
+
+
+class _Pixels:
+    """Maps data (offset, row) to device pixels for one paint."""
+
+    def __init__(self, transform, scale: float):
+        self.t = transform
+        self.scale = scale                      # device pixels per screen pixel (print/export)
+        self.row_px = abs(transform.m22())      # pixels per row
+        self.unit_px = abs(transform.m11())     # pixels per plan unit
+
+    def x(self, x, row=0.0):
+        return self.t.m11() * np.asarray(x, float) + self.t.m21() * np.asarray(row, float) + self.t.m31()
+
+    def y(self, row, x=0.0):
+        return self.t.m12() * np.asarray(x, float) + self.t.m22() * np.asarray(row, float) + self.t.m32()
+
+
+class TimelineItem(pg.GraphicsObject):
+    """One GraphicsObject for the whole chart (thousands of bars in one batched paint)."""
+
+    def __init__(self, weights: style.Weights = style.SCREEN):
+        super().__init__()
+        self._geo: TimelineGeometry | None = None
+        self._weights = weights
+        self._selected_rows = np.zeros(0, dtype=np.int64)
+        self._preview: tuple[int, float, float] | None = None   # row, x0, x1 of a dragged bar
+        self._nonworking = None     # callable(lo, hi) -> offsets where a non-working stretch lies
+        self._picture: QPicture | None = None
+        self._picture_key = None
+        self.painted_rows = 0       # rows drawn in the last recording (for tests and benchmarks)
+        self.on_click = self.on_drag = self.on_hover = None   # set by the view
+
+    # --- gestures (passed to the view, which knows the session) -----------------
+    def mouseClickEvent(self, ev) -> None:
+        if ev.button() == Qt.MouseButton.LeftButton and self.on_click is not None:
+            ev.accept()
+            self.on_click(ev.pos(), ev.modifiers())
+
+    def mouseDragEvent(self, ev) -> None:
+        if ev.button() != Qt.MouseButton.LeftButton or self.on_drag is None:
+            ev.ignore()
+            return
+        if ev.isStart() and not self.on_drag("start", ev.buttonDownPos()):
+            ev.ignore()
+            return
+        if self.on_drag("finish" if ev.isFinish() else "move", ev.pos()):
+            ev.accept()
+        else:
+            ev.ignore()
+
+    def hoverEvent(self, ev) -> None:
+        if self.on_hover is None:
+            return
+        if ev.isExit():
+            self.on_hover(None, None)
+        else:
+            self.on_hover(ev.pos(), ev.screenPos().toPoint())
+
+    # --- options (each clears the cached picture) --------------------------
+    def _changed(self, geometry: bool = False) -> None:
+        self._picture = None
+        if geometry:
+            self.prepareGeometryChange()
+            self.informViewBoundsChanged()
+        self.update()
+
+    def set_geometry(self, geo: TimelineGeometry | None) -> None:
+        self._geo = geo
+        self._preview = None
+        self._changed(geometry=True)
+
+    def set_selection(self, rows) -> None:
+        self._selected_rows = np.asarray(sorted(rows), dtype=np.int64)
+        self._changed()
+
+    def set_preview(self, preview: tuple[int, float, float] | None) -> None:
+        self._preview = preview
+        self._changed()
+
+    def set_weights(self, weights: style.Weights) -> None:
+        self._weights = weights
+        self._changed()
+
+    def set_nonworking(self, finder) -> None:
+        self._nonworking = finder
+        self._changed()
+
+    def geometry_data(self) -> TimelineGeometry | None:
+        return self._geo
+
+    # --- bounds --------------------------------------------------------------
+    def dataBounds(self, ax, frac=1.0, orthoRange=None):
+        if self._geo is None:
+            return (None, None)
+        if ax == 0:
+            return self._geo.x_range
+        return (-0.5, max(self._geo.n_rows, 1) - 0.5)
+
+    def boundingRect(self) -> QRectF:
+        if self._geo is None:
+            return QRectF()
+        lo, hi = self._geo.x_range
+        pad = 0.02 * (hi - lo) + 1.0
+        return QRectF(lo - pad, -1.0, hi - lo + 2 * pad, self._geo.n_rows + 1.0)
+
+    # --- painting --------------------------------------------------------------
+    def paint(self, p: QPainter, *args) -> None:
+        if self._geo is None:
+            return
+        t = p.transform()
+        view = self.viewRect()
+        rows = (-1.0, float(self._geo.n_rows)) if view is None else (view.top() - 1, view.bottom() + 1)
+        xs = (self._geo.x_range if view is None else (view.left(), view.right()))
+        key = (t.m11(), t.m12(), t.m21(), t.m22(), t.m31(), t.m32(), rows, xs)
+        if self._picture is None or key != self._picture_key:
+            self._picture, self._picture_key = self._record(t, rows, xs), key
+        p.save()
+        p.resetTransform()
+        self._picture.play(p)
+        p.restore()
+
+    def _scale(self, t) -> float:
+        screen = self.deviceTransform_()
+        if screen is None or screen.m22() == 0:
+            return 1.0
+        return max(1.0, abs(t.m22() / screen.m22()))
+
+    def _record(self, t, rows, xs) -> QPicture:
+        picture = QPicture()
+        p = QPainter(picture)
+        px = _Pixels(t, self._scale(t))
+        geo = self._geo
+        self.painted_rows = int(max(0, min(rows[1], geo.n_rows) - max(rows[0], 0)))
+        self._draw_background(p, px, rows, xs)
+        marks = {k: m.within(*rows) for k, m in geo.marks.items()}
+        paint.draw_all(p, px, marks, geo, self._weights, self._preview, rows)
+        p.end()
+        return picture
+
+    def _draw_background(self, p: QPainter, px: _Pixels, rows, xs) -> None:
+        if self._selected_rows.size:
+            sel = self._selected_rows[(self._selected_rows >= rows[0]) & (self._selected_rows <= rows[1])]
+            x0, x1 = px.x(xs[0]), px.x(xs[1])
+            h = px.row_px
+            p.setPen(Qt.PenStyle.NoPen)
+            p.setBrush(QColor(style.SELECTION))
+            p.drawRects([QRectF(x0, y - h / 2, x1 - x0, h) for y in px.y(sel).tolist()])
+        if self._nonworking is not None and px.unit_px >= SHADE_DAY_PX:
+            self._shade_nonworking(p, px, rows, xs)
+
+    def _shade_nonworking(self, p: QPainter, px: _Pixels, rows, xs) -> None:
+        offsets = np.asarray(self._nonworking(xs[0], xs[1]), float)
+        if not offsets.size:
+            return
+        width = max(4.0, 0.18 * px.unit_px)
+        top, bottom = px.y(max(rows[0], -0.5)), px.y(min(rows[1], self._geo.n_rows - 0.5))
+        y0, h = float(min(top, bottom)), float(abs(bottom - top))
+        p.setPen(Qt.PenStyle.NoPen)
+        p.setBrush(QColor(style.NONWORKING))
+        p.drawRects([QRectF(x - width / 2, y0, width, h) for x in px.x(offsets).tolist()])

@@ -1,0 +1,180 @@
+"""Batched drawing of Timeline marks in device pixels: one call per style.
+
+Used by :class:`~workbench.ui.timeline_item.TimelineItem` for screen, export and print
+alike. ``px`` maps data to pixels (see ``timeline_item._Pixels``); ``marks`` are the
+geometry's marks already limited to the rows on screen.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
+from PySide6.QtGui import QBrush, QColor, QPainter, QPainterPath, QPen
+
+from workbench.figures import style
+
+DENSE_ROW_PX = 3.0
+
+
+def pen(colour: str, width: float, dash: bool = False) -> QPen:
+    p = QPen(QColor(colour))
+    p.setWidthF(max(width, 0.5))
+    p.setCapStyle(Qt.PenCapStyle.FlatCap)
+    p.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
+    if dash:
+        p.setStyle(Qt.PenStyle.DashLine)
+    return p
+
+
+def bar_height(px, w: style.Weights) -> float:
+    """Bar height in pixels: a share of the row, never taller than 1.6× the nominal bar."""
+    return float(min(px.row_px * w.bar_fraction, w.row_height * w.bar_fraction * 1.6 * px.scale))
+
+
+def _rects(px, m, h: float, shift: float = 0.0) -> list[QRectF]:
+    x0, x1, y = px.x(m.x0), px.x(m.x1), px.y(m.rows) + shift
+    return [QRectF(a, c - h / 2, b - a, h) for a, b, c in zip(x0.tolist(), x1.tolist(), y.tolist())]
+
+
+def _hlines(px, m, shift: float = 0.0) -> list[QLineF]:
+    x0, x1, y = px.x(m.x0), px.x(m.x1), px.y(m.rows) + shift
+    return [QLineF(a, c, b, c) for a, b, c in zip(x0.tolist(), x1.tolist(), y.tolist())]
+
+
+def _vlines(px, x, rows, half: float, shift: float = 0.0) -> list[QLineF]:
+    xs, ys = px.x(x), px.y(rows) + shift
+    return [QLineF(a, c - half, a, c + half) for a, c in zip(xs.tolist(), ys.tolist())]
+
+
+def draw_bars(p: QPainter, px, m, fill: str, edge: str, edge_width: float, h: float) -> None:
+    if not len(m):
+        return
+    if px.row_px < DENSE_ROW_PX:   # too dense for outlines: one line per bar
+        p.setPen(pen(edge if edge_width > 1.5 * px.scale else fill, max(1.0, px.row_px * 0.8)))
+        p.drawLines(_hlines(px, m))
+        return
+    p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
+    p.setBrush(QColor(fill))
+    p.drawRects(_rects(px, m, h))
+
+
+def draw_slack_lines(p: QPainter, px, m, w: style.Weights, h: float) -> None:
+    """Float: a thin line EF → LF ending in a short upright tick at LF."""
+    if not len(m):
+        return
+    p.setPen(pen(style.FLOAT, w.float_line * px.scale))
+    p.drawLines(_hlines(px, m))
+    if px.row_px >= DENSE_ROW_PX:
+        p.setPen(pen(style.FLOAT, w.float_tick * px.scale))
+        p.drawLines(_vlines(px, m.x1, m.rows, h / 2))
+
+
+def draw_negative_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
+    """A deadline miss: dashed line LF → EF just under the bar, tick at LF (the date needed)."""
+    if not len(m):
+        return
+    shift = h / 2 + 2.5 * px.scale if px.row_px >= DENSE_ROW_PX else 0.0
+    p.setPen(pen(style.NEGATIVE_FLOAT, w.float_line * 1.25 * px.scale, dash=True))
+    p.drawLines(_hlines(px, m, shift))
+    if px.row_px >= DENSE_ROW_PX:
+        p.setPen(pen(style.NEGATIVE_FLOAT, w.float_tick * 1.25 * px.scale))
+        p.drawLines(_vlines(px, m.x0, m.rows, h / 2, shift - h / 4))
+
+
+def draw_whiskers(p: QPainter, px, m, w: style.Weights, h: float) -> None:
+    """P10–P90 of an activity's finish: an orange line with end caps, below the row centre."""
+    if not len(m) or px.row_px < DENSE_ROW_PX:
+        return
+    shift = h / 2 + 1.5 * px.scale
+    p.setPen(pen(style.PROBABILITY, w.whisker * px.scale))
+    p.drawLines(_hlines(px, m, shift) + _vlines(px, m.x0, m.rows, h / 4, shift)
+                + _vlines(px, m.x1, m.rows, h / 4, shift))
+
+
+def draw_summaries(p: QPainter, px, m, critical: bool, w: style.Weights, h: float) -> None:
+    """Group rows: a slim dark bar with short downward ends."""
+    if not len(m):
+        return
+    slim = max(2.0, h * 0.35)
+    p.setPen(Qt.PenStyle.NoPen)
+    p.setBrush(QColor(style.CRITICAL if critical else style.SUMMARY))
+    p.drawRects(_rects(px, m, slim, -h / 4))
+    p.setBrush(QColor(style.SUMMARY))
+    p.setPen(pen(style.TEXT, 2 * px.scale))
+    p.drawLines(_vlines(px, m.x0, m.rows, h / 4, 0) + _vlines(px, m.x1, m.rows, h / 4, 0))
+
+
+def _diamonds(px, m, r: float) -> QPainterPath:
+    path = QPainterPath()
+    for x, y in zip(px.x(m.x0).tolist(), px.y(m.rows).tolist()):
+        path.moveTo(x, y - r)
+        path.lineTo(x + r, y)
+        path.lineTo(x, y + r)
+        path.lineTo(x - r, y)
+        path.closeSubpath()
+    return path
+
+
+def draw_milestones(p: QPainter, px, m, critical: bool, w: style.Weights, h: float) -> None:
+    """Milestones: black diamonds; a critical one is vermillion with the heavy black edge."""
+    if not len(m):
+        return
+    r = max(3.0, h * 0.6)
+    p.setPen(pen(style.CRITICAL_EDGE, (w.critical_outline if critical else 1.0) * px.scale))
+    p.setBrush(QColor(style.CRITICAL if critical else style.MILESTONE))
+    p.drawPath(_diamonds(px, m, r))
+
+
+def draw_free_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
+    """Free float: a small open circle on the slack line."""
+    if not len(m) or px.row_px < DENSE_ROW_PX:
+        return
+    r = max(2.5, h * 0.2)
+    p.setPen(pen(style.WORK_EDGE, 1.5 * px.scale))
+    p.setBrush(QColor(style.BACKGROUND))
+    for x, y in zip(px.x(m.x0).tolist(), px.y(m.rows).tolist()):
+        p.drawEllipse(QPointF(x, y), r, r)
+
+
+def draw_connectors(p: QPainter, px, segments: np.ndarray, rows, w: style.Weights) -> None:
+    if not segments.size:
+        return
+    lo, hi = rows
+    keep = ~(((segments[:, 1] < lo) & (segments[:, 3] < lo)) | ((segments[:, 1] > hi) & (segments[:, 3] > hi)))
+    s = segments[keep]
+    x0, y0, x1, y1 = px.x(s[:, 0]), px.y(s[:, 1]), px.x(s[:, 2]), px.y(s[:, 3])
+    p.setPen(pen(style.MUTED_TEXT, w.connector * px.scale))
+    p.drawLines([QLineF(a, b, c, d) for a, b, c, d in zip(x0.tolist(), y0.tolist(), x1.tolist(), y1.tolist())])
+
+
+def draw_preview(p: QPainter, px, preview, w: style.Weights, h: float) -> None:
+    """The bar being dragged: a dashed outline to its new finish."""
+    row, x0, x1 = preview
+    a, b, y = float(px.x(x0)), float(px.x(x1)), float(px.y(row))
+    p.setPen(pen(style.TEXT, 2 * px.scale, dash=True))
+    p.setBrush(Qt.BrushStyle.NoBrush)
+    p.drawRect(QRectF(a, y - h / 2 - 2, b - a, h + 4))
+
+
+def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows) -> None:
+    """Every style in back-to-front order."""
+    h = bar_height(px, w)
+    s = px.scale
+    p.setRenderHint(QPainter.RenderHint.Antialiasing, px.row_px >= DENSE_ROW_PX)
+    draw_connectors(p, px, geo.connectors, rows, w)
+    if len(marks["late"]):
+        p.setPen(pen(style.MUTED_TEXT, w.bar_outline * s, dash=True))
+        p.setBrush(Qt.BrushStyle.NoBrush)
+        p.drawRects(_rects(px, marks["late"], h * 0.5, h * 0.25))
+    draw_slack_lines(p, px, marks["float"], w, h)
+    draw_bars(p, px, marks["work"], style.WORK, style.WORK_EDGE, w.bar_outline * s, h)
+    draw_bars(p, px, marks["critical"], style.CRITICAL, style.CRITICAL_EDGE, w.critical_outline * s, h)
+    draw_negative_float(p, px, marks["negative_float"], w, h)
+    draw_whiskers(p, px, marks["whisker"], w, h)
+    draw_summaries(p, px, marks["summary"], False, w, h)
+    draw_summaries(p, px, marks["summary_critical"], True, w, h)
+    draw_free_float(p, px, marks["free_float"], w, h)
+    draw_milestones(p, px, marks["milestone"], False, w, h)
+    draw_milestones(p, px, marks["milestone_critical"], True, w, h)
+    if preview is not None:
+        draw_preview(p, px, preview, w, h)

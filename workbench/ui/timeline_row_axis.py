@@ -1,0 +1,75 @@
+"""The Timeline's label column: activity ids and names, left-aligned and elided.
+
+Replaces the numeric left axis: one label per visible row (thinned out when the rows
+are shorter than the text), group rows marked with an open/closed triangle and their
+members indented.
+"""
+
+from __future__ import annotations
+
+import math
+
+import pyqtgraph as pg
+from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtGui import QFont, QFontMetricsF, QPen
+
+INDENT = 14.0
+PADDING = 6.0
+
+
+class TimelineRowAxis(pg.AxisItem):
+    def __init__(self, width: float = 240.0, **kwargs):
+        super().__init__("left", **kwargs)
+        self._geo = None
+        self.setWidth(int(width))
+        self.setStyle(tickLength=0, autoExpandTextSpace=False)
+
+    def set_geometry(self, geo) -> None:
+        self._geo = geo
+        self.picture = None
+        self.update()
+
+    def set_font(self, font: QFont) -> None:
+        self.setStyle(tickFont=font)
+        self.picture = None
+        self.update()
+
+    def label_text(self, row: int) -> str:
+        """The text shown for a row (before eliding)."""
+        geo = self._geo
+        if geo.kinds[row] == "group":
+            return ("\u25b8 " if geo.keys[row] in geo.collapsed else "\u25be ") + geo.labels[row]
+        return geo.labels[row]
+
+    def _row_to_local(self, bounds: QRectF, row: float) -> float:
+        r0, r1 = self.range          # reversed by pyqtgraph when the view's y is inverted
+        frac = (row - r0) / (r1 - r0) if r1 != r0 else 0.0
+        return bounds.bottom() - frac * bounds.height()
+
+    def visible_rows(self, bounds: QRectF, font_px: float) -> range:
+        lo, hi = sorted(self.range)
+        row_px = bounds.height() / max(hi - lo, 1e-9)
+        step = max(1, math.ceil(font_px * 1.05 / max(row_px, 1e-9)))
+        first = max(0, math.ceil(lo - 0.5))
+        first = first + (-first) % step
+        return range(first, min(self._geo.n_rows, math.floor(hi + 0.5) + 1), step)
+
+    def generateDrawSpecs(self, p):
+        if self._geo is None:
+            return super().generateDrawSpecs(p)
+        font = self.style.get("tickFont") or QFont()
+        p.setFont(font)
+        metrics = QFontMetricsF(font)
+        bounds = self.mapRectFromParent(self.geometry())
+        axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
+        texts = []
+        h = metrics.height()
+        for row in self.visible_rows(bounds, h):
+            indent = INDENT * int(self._geo.depth[row])
+            width = bounds.width() - 2 * PADDING - indent
+            text = metrics.elidedText(self.label_text(row), Qt.TextElideMode.ElideRight, width)
+            y = self._row_to_local(bounds, row)
+            rect = QRectF(bounds.left() + PADDING + indent, y - h / 2, width, h)
+            if bounds.top() - h / 2 <= y <= bounds.bottom() + h / 2:
+                texts.append((rect, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, text))
+        return axis, [], texts

@@ -1,0 +1,354 @@
+"""The Timeline view: a Gantt chart that shows float at a glance.
+
+Bars from early start to early finish (critical in vermillion with a heavy dark edge,
+other work in blue), the slack line from early to late finish ending in an upright tick,
+milestones as diamonds, deadline / status / project-start lines, P10–P90 whiskers when a
+simulation has run. Geometry comes from ``workbench.figures.timeline``; this file only
+draws it and turns gestures into session calls and core commands.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtCore import QEvent, QObject, Qt, Signal
+from PySide6.QtGui import QAction, QColor, QFont, QKeySequence
+from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
+
+from workbench.figures import style
+from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
+from workbench.ui.timeline_date_axis import TimelineDateAxis
+from workbench.ui.timeline_item import TimelineItem
+from workbench.ui.timeline_row_axis import TimelineRowAxis
+from workbench.ui.timeline_tooltip import tooltip_text
+
+GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
+LINE_NAMES = {"start": "Start", "deadline": "Deadline", "status": "Status"}
+LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style.STATUS}
+
+
+class TimelineView(QWidget):
+    """``TimelineView(session)``: the Timeline of the session's plan."""
+
+    duration_dragging = Signal(str, float)   # activity id, most likely value (continuous)
+    duration_dragged = Signal(str, float)    # once, on release (after the edit is pushed)
+
+    def __init__(self, session, parent=None):
+        super().__init__(parent)
+        self.session = session
+        self.collapsed: set[str] = set()
+        self.critical_only = False
+        self.late_bars = False
+        self.connectors = False
+        self._weights = style.SCREEN
+        self._drag = None
+        self.geometry = None
+        self._build()
+        session.schedule_changed.connect(self.refresh)
+        session.simulation_changed.connect(self.refresh)
+        session.selection_changed.connect(self._follow_selection)
+        self.refresh()
+        self.fit_all(rows_to_fit=True)
+
+    # --- construction ---------------------------------------------------------
+    def _build(self) -> None:
+        self.row_axis = TimelineRowAxis()
+        self.date_axis = TimelineDateAxis("bottom")
+        self.plot = pg.PlotWidget(background=style.BACKGROUND,
+                                  axisItems={"left": self.row_axis, "bottom": self.date_axis})
+        self.plot.setFocusPolicy(Qt.FocusPolicy.StrongFocus)
+        self.plot.installEventFilter(self)
+        pi = self.plot.getPlotItem()
+        pi.hideButtons()
+        pi.setMenuEnabled(False)
+        self.view_box = pi.getViewBox()
+        self.view_box.invertY(True)
+        for name in ("left", "bottom"):
+            pi.getAxis(name).setPen(pg.mkPen(style.TEXT))
+            pi.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
+        self.item = TimelineItem(self._weights)
+        self.item.on_click, self.item.on_drag, self.item.on_hover = self._click, self._drag_event, self._hover
+        pi.addItem(self.item)
+        self._lines: dict[str, pg.InfiniteLine] = {}
+        self._band = pg.LinearRegionItem(movable=False, brush=pg.mkBrush(QColor(230, 159, 0, 40)),
+                                         pen=pg.mkPen(style.PROBABILITY, width=1.5))
+        self._band.setZValue(-10)
+        self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
+        self._message.setVisible(False)
+        pi.addItem(self._message, ignoreBounds=True)
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.addWidget(self._toolbar())
+        layout.addWidget(self.plot)
+        self._apply_weights()
+
+    def _toolbar(self) -> QToolBar:
+        bar = QToolBar("Timeline", self)
+        self.actions_by_name = {}
+        for name, text, slot, checkable in (
+                ("fit", "Fit all", lambda: self.fit_all(), False),
+                ("critical", "Critical path", self.show_critical_path, True),
+                ("late", "Late dates", self.set_late_bars, True),
+                ("links", "Links", self.set_connectors, True),
+                ("png", "Export PNG\u2026", self._export_png_dialog, False),
+                ("svg", "Export SVG\u2026", self._export_svg_dialog, False),
+                ("print", "Print\u2026", self.print_preview, False)):
+            action = QAction(text, self, checkable=checkable)
+            action.triggered.connect(slot)
+            bar.addAction(action)
+            self.actions_by_name[name] = action
+        return bar
+
+    # --- session → drawing -------------------------------------------------------
+    def refresh(self) -> None:
+        """Rebuild the geometry from the session's latest analysis (and simulation)."""
+        analysis = self.session.analysis
+        if analysis is None:
+            self.geometry = None
+            self.item.set_geometry(None)
+            self.row_axis.set_geometry(None)
+            self._show_message(self.session.analysis_error or "No schedule yet.")
+            return
+        only = critical_ids(analysis) if self.critical_only else None
+        self.geometry = timeline_geometry(analysis, self.session.simulation, collapsed=self.collapsed,
+                                          late_bars=self.late_bars, connectors=self.connectors, only=only)
+        self._message.setVisible(False)
+        self.date_axis.set_calendar(analysis.calendar)
+        self.item.set_nonworking(self._nonworking_finder(analysis.calendar))
+        self.item.set_geometry(self.geometry)
+        self.row_axis.set_geometry(self.geometry)
+        self._update_lines()
+        self._follow_selection(self.session.selected())
+
+    def _show_message(self, text: str) -> None:
+        self._message.setText(f"The plan cannot be scheduled:\n{text}")
+        self._message.setPos(0, 0)
+        self._message.setVisible(True)
+        self._update_lines()
+
+    def _update_lines(self) -> None:
+        geo = self.geometry
+        wanted = {} if geo is None else geo.lines
+        dates = {} if geo is None else {k: self._line_label(k, v) for k, v in wanted.items()}
+        for name in list(self._lines):
+            if name not in wanted:
+                self.plot.removeItem(self._lines.pop(name))
+        for name, offset in wanted.items():
+            line = self._lines.get(name) or self._new_line(name)
+            line.setValue(offset)
+            line.label.setFormat(dates[name])
+        self._update_band()
+
+    def _line_label(self, name: str, offset: float) -> str:
+        cal = self.session.analysis.calendar
+        day = cal.start_date(offset) if name == "start" else cal.finish_date(offset)
+        return f"{LINE_NAMES[name]} {day.day} {day:%b}"
+
+    def _new_line(self, name: str) -> pg.InfiniteLine:
+        width = self._weights.reference_line
+        pen = pg.mkPen(LINE_COLOURS[name], width=width,
+                       style=Qt.PenStyle.DashLine if name == "status" else Qt.PenStyle.SolidLine)
+        left_of_line = name == "deadline"
+        anchor = (1.0, 0.0) if left_of_line else (0.0, 0.0)
+        line = pg.InfiniteLine(angle=90, movable=False, pen=pen, label=LINE_NAMES[name],
+                               labelOpts={"position": 0.01 if name != "status" else 0.05,
+                                          "color": LINE_COLOURS[name], "fill": pg.mkBrush(255, 255, 255, 230),
+                                          "anchors": [anchor, anchor]})
+        font = QFont()
+        font.setPointSizeF(self._weights.font_size)
+        font.setBold(True)
+        line.label.setFont(font)
+        line.setZValue(5)
+        self.plot.addItem(line, ignoreBounds=True)
+        self._lines[name] = line
+        return line
+
+    def _update_band(self) -> None:
+        whisker = None if self.geometry is None else self.geometry.finish_whisker
+        if whisker is None:
+            if self._band.scene() is not None:
+                self.plot.removeItem(self._band)
+            return
+        self._band.setRegion(whisker)
+        if self._band.scene() is None:
+            self.plot.addItem(self._band, ignoreBounds=True)
+
+    @staticmethod
+    def _nonworking_finder(calendar):
+        """Offsets (working time) at which a non-working stretch of days lies."""
+        def find(lo: float, hi: float) -> np.ndarray:
+            per = calendar.per_unit
+            days = np.arange(max(0, int(np.floor(lo * per))), int(np.ceil(hi * per)) + 1)
+            if days.size > 4000:
+                return np.zeros(0)
+            dates = calendar.start_dates(days / per).astype("datetime64[D]")
+            gap = np.flatnonzero(np.diff(dates).astype(int) > 1) + 1
+            return days[gap] / per
+        return find
+
+    # --- selection -----------------------------------------------------------------
+    def _follow_selection(self, ids) -> None:
+        geo = self.geometry
+        rows = [] if geo is None else [geo.row_of[i] for i in ids if i in geo.row_of]
+        self.item.set_selection(rows)
+
+    def _click(self, pos, modifiers) -> None:
+        geo = self.geometry
+        row = None if geo is None else geo.row_at(pos.y())
+        if row is None:
+            self.session.select([])
+            return
+        if geo.kinds[row] == "group":
+            self.toggle_group(geo.keys[row])
+            return
+        act_id = geo.keys[row]
+        if modifiers & Qt.KeyboardModifier.ControlModifier:
+            chosen = self.session.selected()
+            ids = [i for i in chosen if i != act_id] if act_id in chosen else chosen + [act_id]
+            self.session.select(ids)
+        else:
+            self.session.select([act_id])
+
+    def toggle_group(self, name: str) -> None:
+        self.collapsed ^= {name}
+        self.refresh()
+
+    # --- hover ---------------------------------------------------------------------
+    def _hover(self, pos, screen_pos) -> None:
+        geo = self.geometry
+        row = None if geo is None or pos is None else geo.row_at(pos.y())
+        if row is None or geo.kinds[row] == "group":
+            self.item.setCursor(Qt.CursorShape.ArrowCursor)
+            QToolTip.hideText()
+            return
+        near_end = self._near_bar_end(row, pos.x())
+        self.item.setCursor(Qt.CursorShape.SizeHorCursor if near_end else Qt.CursorShape.ArrowCursor)
+        text = tooltip_text(self.session.analysis, self.session.simulation, geo.keys[row])
+        if screen_pos is not None:
+            QToolTip.showText(screen_pos, text, self.plot)
+        self.plot.setToolTip(text)
+
+    def _near_bar_end(self, row: int, x: float) -> bool:
+        span = bar_span(self.geometry, row)
+        per_px = self.item.pixelWidth() or 0.0
+        return span is not None and abs(x - span[1]) <= GRAB_PX * per_px
+
+    # --- duration drag ------------------------------------------------------------------
+    def _drag_event(self, phase: str, pos) -> bool:
+        """'start' (return True to take the drag), 'move', 'finish' with the pointer in data units."""
+        if phase == "start":
+            return self._drag_start(pos)
+        if self._drag is None:
+            return False
+        act_id, row, es = self._drag
+        act = self.session.plan.activity(act_id)
+        changes = dragged_estimate(act, pos.x() - es)
+        value = changes.get("most_likely", changes.get("duration"))
+        if phase == "move":
+            self.item.set_preview((row, es, es + act.with_(**changes).mean))
+            self.duration_dragging.emit(act_id, float(value))
+            return True
+        self._drag = None
+        self.item.set_preview(None)
+        from workbench.core.commands import EditActivity
+        if self.session.push(EditActivity(act_id, **changes)):
+            self.duration_dragged.emit(act_id, float(value))
+        return True
+
+    def _drag_start(self, pos) -> bool:
+        geo = self.geometry
+        row = None if geo is None else geo.row_at(pos.y())
+        if row is None or geo.index[row] < 0 or not self._near_bar_end(row, pos.x()):
+            return False
+        self._drag = (geo.keys[row], row, bar_span(geo, row)[0])
+        return True
+
+    # --- zoom, pan, filters -------------------------------------------------------------
+    def fit_all(self, rows_to_fit: bool = False) -> None:
+        """Show the whole plan; with ``rows_to_fit``, only as many rows as fit at full size."""
+        geo = self.geometry
+        if geo is None:
+            return
+        lo, hi = geo.x_range
+        pad = 0.03 * (hi - lo)
+        n = max(geo.n_rows, 1)
+        if rows_to_fit:
+            fit = max(5, int(max(self.plot.height() - 60, 200) / self._weights.row_height))
+            n = min(n, fit)
+        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.7, n - 0.3), padding=0)
+
+    def show_critical_path(self, on: bool = True) -> None:
+        """Show only the critical rows (or all rows again) and fit them."""
+        self.critical_only = bool(on)
+        self.actions_by_name["critical"].setChecked(self.critical_only)
+        self.refresh()
+        self.fit_all()
+
+    def set_late_bars(self, on: bool) -> None:
+        self.late_bars = bool(on)
+        self.refresh()
+
+    def set_connectors(self, on: bool) -> None:
+        self.connectors = bool(on)
+        self.refresh()
+
+    def zoom(self, factor: float) -> None:
+        self.view_box.scaleBy((1.0 / factor, 1.0))
+
+    def pan(self, dx_frac: float = 0.0, dy_rows: float = 0.0) -> None:
+        (x0, x1), _ = self.view_box.viewRange()
+        self.view_box.translateBy(x=dx_frac * (x1 - x0), y=dy_rows)
+
+    def eventFilter(self, obj: QObject, event: QEvent) -> bool:
+        if obj is self.plot and event.type() == QEvent.Type.KeyPress:
+            return self._key(event.key())
+        return super().eventFilter(obj, event)
+
+    def _key(self, key) -> bool:
+        K = Qt.Key
+        actions = {K.Key_Plus: lambda: self.zoom(1.25), K.Key_Equal: lambda: self.zoom(1.25),
+                   K.Key_Minus: lambda: self.zoom(0.8), K.Key_Left: lambda: self.pan(-0.1),
+                   K.Key_Right: lambda: self.pan(0.1), K.Key_Up: lambda: self.pan(dy_rows=-3),
+                   K.Key_Down: lambda: self.pan(dy_rows=3), K.Key_Home: self.fit_all,
+                   K.Key_0: self.fit_all}
+        if key in actions:
+            actions[key]()
+            return True
+        return False
+
+    # --- Present mode and output -------------------------------------------------------------
+    def set_present(self, on: bool) -> None:
+        """Bigger type and heavier lines for a projector."""
+        self._weights = style.PRESENT if on else style.SCREEN
+        self._apply_weights()
+
+    def _apply_weights(self) -> None:
+        font = QFont()
+        font.setPointSizeF(self._weights.label_font_size)
+        self.row_axis.set_font(font)
+        self.row_axis.setWidth(int(240 * self._weights.label_font_size / style.SCREEN.label_font_size))
+        self.date_axis.setStyle(tickFont=font)
+        self.item.set_weights(self._weights)
+        for line in list(self._lines):
+            self.plot.removeItem(self._lines.pop(line))
+        self._update_lines()
+
+    def export_png(self, path, size=None) -> None:
+        from workbench.ui.timeline_output import export_png
+        export_png(self, path, size)
+
+    def export_svg(self, path) -> None:
+        from workbench.ui.timeline_output import export_svg
+        export_svg(self, path)
+
+    def print_preview(self) -> None:
+        from workbench.ui.timeline_output import print_preview
+        print_preview(self)
+
+    def _export_png_dialog(self) -> None:
+        from workbench.ui.timeline_output import ask_and_export
+        ask_and_export(self, "png")
+
+    def _export_svg_dialog(self) -> None:
+        from workbench.ui.timeline_output import ask_and_export
+        ask_and_export(self, "svg")
