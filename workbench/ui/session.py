@@ -68,16 +68,17 @@ class Session(QObject):
         try:
             command.do(self.plan)
         except PlanError as exc:
-            return self._refuse(str(exc))
+            return self.refuse(str(exc))
         analysis, error, ms = self._analyze()
         if error is not None and was_schedulable:
             command.undo(self.plan)
-            return self._refuse(error)
+            return self.refuse(error)
         self.undo_stack.push(_UndoAdapter(self, command))
         self._set_analysis(analysis, error, ms)
         return True
 
-    def _refuse(self, message: str) -> bool:
+    def refuse(self, message: str) -> bool:
+        """Report an edit that was not applied (also used for cells that cannot be read)."""
         self.last_refusal = message
         self.edit_refused.emit(message)
         return False

@@ -1,0 +1,161 @@
+"""The columns of the Activities table: headings, and cell text in and out.
+
+Reading a cell never changes the plan: ``changes_for`` turns typed text into the field
+changes of one ``EditActivity`` command, or raises PlanError naming the activity and the
+field. No scheduling here; computed columns come from the core's Analysis.
+"""
+
+from __future__ import annotations
+
+import datetime as dt
+import math
+from dataclasses import dataclass
+
+from workbench.core.errors import PlanError
+from workbench.core.model import DISTRIBUTIONS, Activity
+
+
+@dataclass(frozen=True)
+class Column:
+    key: str
+    title: str
+    tip: str
+    editable: bool = True
+    numeric: bool = False
+
+
+COLUMNS: tuple[Column, ...] = (
+    Column("id", "ID", "Short unique code of the activity"),
+    Column("name", "Name", "What is done"),
+    Column("group", "Group", "Work package or team, for filtering"),
+    Column("optimistic", "Optimistic", "Shortest credible duration (a)", numeric=True),
+    Column("most_likely", "Most likely", "Most likely duration (m)", numeric=True),
+    Column("pessimistic", "Pessimistic", "Longest credible duration (b)", numeric=True),
+    Column("duration", "Duration", "A fixed duration instead of three estimates; 0 makes a milestone", numeric=True),
+    Column("distribution", "Distribution", "Duration distribution for simulation; empty = the plan's default"),
+    Column("start_no_earlier", "Not before", "Start no earlier than: a date (YYYY-MM-DD) or an offset"),
+    Column("finish_no_later", "Not after", "Finish no later than: a date (YYYY-MM-DD) or an offset"),
+    Column("predecessors", "Predecessors", "e.g. A; B SS 2; C FF -1  (ID [type [lag]])"),
+    Column("notes", "Notes", "Free text"),
+    Column("te", "te", "PERT expected duration (a + 4m + b) / 6", editable=False, numeric=True),
+    Column("sd", "σ", "PERT standard deviation (b − a) / 6", editable=False, numeric=True),
+    Column("early_start", "Early start", "Earliest start date", editable=False),
+    Column("early_finish", "Early finish", "Earliest finish date", editable=False),
+    Column("late_start", "Late start", "Latest start date without delaying the finish", editable=False),
+    Column("late_finish", "Late finish", "Latest finish date without delaying the finish", editable=False),
+    Column("total_float", "Total float", "Delay possible without moving the project finish", editable=False, numeric=True),
+    Column("free_float", "Free float", "Delay possible without moving any successor", editable=False, numeric=True),
+    Column("critical", "Critical", "On the critical path (zero or least float)", editable=False),
+)
+KEYS = tuple(c.key for c in COLUMNS)
+INDEX = {c.key: i for i, c in enumerate(COLUMNS)}
+ESTIMATE = ("optimistic", "most_likely", "pessimistic")
+DATE_FORMAT = "%d %b %Y"
+CRITICAL_MARK = "● yes"
+
+
+def format_number(value) -> str:
+    if value is None:
+        return ""
+    value = float(value)
+    if abs(value - round(value)) < 1e-9:
+        return str(int(round(value)))
+    return f"{value:.2f}".rstrip("0").rstrip(".")
+
+
+def format_constraint(value) -> str:
+    if value is None:
+        return ""
+    if isinstance(value, dt.date):
+        return value.isoformat()
+    return format_number(value)
+
+
+def format_date(value) -> str:
+    """A numpy datetime64 or date as '03 Mar 2026'."""
+    day = value.astype(dt.date) if hasattr(value, "astype") else value
+    return day.strftime(DATE_FORMAT)
+
+
+def parse_number(text: str, act_id: str, title: str) -> float | None:
+    text = text.strip().replace(",", ".") if text.count(",") == 1 and "." not in text else text.strip()
+    if not text:
+        return None
+    try:
+        value = float(text)
+    except ValueError:
+        raise PlanError(f"activity {act_id}: {title}: {text!r} is not a number", act_id) from None
+    if not math.isfinite(value):
+        raise PlanError(f"activity {act_id}: {title} must be a finite number", act_id)
+    return value
+
+
+def parse_date(text: str) -> dt.date | None:
+    for fmt in ("%Y-%m-%d", DATE_FORMAT, "%d %B %Y"):
+        try:
+            return dt.datetime.strptime(text.strip(), fmt).date()
+        except ValueError:
+            continue
+    return None
+
+
+def parse_constraint(text: str, act_id: str, title: str):
+    text = text.strip()
+    if not text:
+        return None
+    day = parse_date(text)
+    if day is not None:
+        return day
+    try:
+        return parse_number(text, act_id, title)
+    except PlanError:
+        raise PlanError(f"activity {act_id}: {title}: {text!r} is neither a date (YYYY-MM-DD) "
+                        "nor a number of units from the start", act_id) from None
+
+
+def parse_distribution(text: str, act_id: str) -> str | None:
+    text = text.strip().lower()
+    if not text or text == "default":
+        return None
+    if text not in DISTRIBUTIONS:
+        raise PlanError(f"activity {act_id}: distribution {text!r} is unknown (use {', '.join(DISTRIBUTIONS)} or leave empty)", act_id)
+    return text
+
+
+def _estimate_changes(act: Activity, key: str, value: float | None) -> dict:
+    """Typing one of a/m/b: a first value fills all three; clearing one clears all three;
+    an estimate replaces a fixed duration."""
+    if value is None:
+        return dict.fromkeys(ESTIMATE)
+    if not act.has_estimate:
+        return {**dict.fromkeys(ESTIMATE, value), "duration": None}
+    return {key: value, "duration": None}
+
+
+def changes_for(act: Activity, key: str, text: str) -> dict:
+    """Field changes for typing ``text`` into column ``key`` of activity ``act``."""
+    title = COLUMNS[INDEX[key]].title.lower()
+    if key in ("id", "name", "group", "notes"):
+        return {key: text.strip() if key == "id" else text}
+    if key in ESTIMATE:
+        return _estimate_changes(act, key, parse_number(text, act.id, title))
+    if key == "duration":
+        value = parse_number(text, act.id, "fixed duration")
+        return {"duration": value} if value is None else {"duration": value, **dict.fromkeys(ESTIMATE)}
+    if key == "distribution":
+        return {"distribution": parse_distribution(text, act.id)}
+    if key in ("start_no_earlier", "finish_no_later"):
+        return {key: parse_constraint(text, act.id, title)}
+    raise PlanError(f"activity {act.id}: column {title!r} cannot be edited", act.id)
+
+
+def edit_text(act: Activity, key: str) -> str:
+    """The text shown for an editable field (display and editor alike)."""
+    value = getattr(act, key)
+    if key in ESTIMATE or key == "duration":
+        return format_number(value)
+    if key in ("start_no_earlier", "finish_no_later"):
+        return format_constraint(value)
+    if key == "distribution":
+        return value or ""
+    return value

@@ -1,0 +1,221 @@
+"""The Slackline window: the Activities table in the middle, a summary strip above it,
+views in docks around it, menus, a status bar; files through the FileController."""
+
+from __future__ import annotations
+
+import importlib
+from pathlib import Path
+
+from PySide6.QtCore import QByteArray, QSettings, Qt
+from PySide6.QtGui import QCloseEvent
+from PySide6.QtWidgets import QDockWidget, QLabel, QMainWindow, QUndoView, QVBoxLayout, QWidget
+
+from workbench.core.model import Plan
+from workbench.ui.activities_panel import ActivitiesPanel
+from workbench.ui.file_controller import TABLE_SUFFIXES, FileController
+from workbench.ui.icons import icon
+from workbench.ui.notice_bar import NoticeBar
+from workbench.ui.recovery_store import RecoveryStore
+from workbench.ui.session import Session
+from workbench.ui.summary_strip import SummaryStrip
+from workbench.ui.window_menus import build_menus
+
+# (dock title, module, class, what the placeholder promises)
+VIEWS = (
+    ("Timeline", "workbench.ui.timeline_view", "TimelineView",
+     "The Timeline will appear here: a Gantt chart of the schedule with float drawn as slack lines."),
+    ("Network", "workbench.ui.network_view", "NetworkView",
+     "The Network will appear here: the activity-on-node diagram with the critical path marked."),
+    ("Odds", "workbench.ui.odds_view", "OddsView",
+     "The Odds view will appear here: the chance of finishing by any date."),
+    ("Drivers", "workbench.ui.drivers_view", "DriversView",
+     "The Drivers view will appear here: which activities drive the finish date."),
+)
+STATE_VERSION = 1
+
+
+def make_view(module: str, cls: str, session: Session, parent=None) -> QWidget | None:
+    """The view, or None while its module is not there (or not yet importable)."""
+    try:
+        view_class = getattr(importlib.import_module(module), cls)
+    except Exception:  # a view another engineer is still writing must not stop the window
+        return None
+    return view_class(session, parent)
+
+
+def placeholder(text: str, parent=None) -> QLabel:
+    label = QLabel(text, parent)
+    label.setWordWrap(True)
+    label.setAlignment(Qt.AlignmentFlag.AlignCenter)
+    label.setMargin(24)
+    label.setAccessibleName("View not available yet")
+    return label
+
+
+class MainWindow(QMainWindow):
+    """One window, one session. ``views`` maps a dock title to its widget."""
+
+    def __init__(self, session: Session | None = None, store: RecoveryStore | None = None, parent=None):
+        super().__init__(parent)
+        self.session = session or Session(Plan())
+        self.files = FileController(self.session, self, store)
+        self.setWindowIcon(icon("app"))
+        self.setAcceptDrops(True)
+        self.setDockOptions(QMainWindow.DockOption.AnimatedDocks | QMainWindow.DockOption.AllowTabbedDocks
+                            | QMainWindow.DockOption.AllowNestedDocks)
+        self._build_centre()
+        self.docks: dict[str, QDockWidget] = {}
+        self.views: dict[str, QWidget] = {}
+        self._build_docks()
+        self._build_status()
+        self.menu_actions = build_menus(self)
+        self._connect()
+        self.restore_layout()
+        self.update_title()
+
+    # --- building ------------------------------------------------------------
+    def _build_centre(self) -> None:
+        centre = QWidget(self)
+        layout = QVBoxLayout(centre)
+        layout.setContentsMargins(0, 0, 0, 0)
+        layout.setSpacing(2)
+        self.summary = SummaryStrip(self.session, centre)
+        self.notice = NoticeBar(centre)
+        self.activities = ActivitiesPanel(self.session, centre)
+        layout.addWidget(self.summary)
+        layout.addWidget(self.notice)
+        layout.addWidget(self.activities, 1)
+        self.setCentralWidget(centre)
+
+    def _add_dock(self, title: str, widget: QWidget, area) -> QDockWidget:
+        dock = QDockWidget(title, self)
+        dock.setObjectName(f"dock_{title.lower()}")
+        dock.setWidget(widget)
+        dock.setAccessibleName(f"{title} panel")
+        self.addDockWidget(area, dock)
+        self.docks[title] = dock
+        return dock
+
+    def _build_docks(self) -> None:
+        for title, module, cls, promise in VIEWS:
+            view = make_view(module, cls, self.session, self)
+            widget = view if view is not None else placeholder(promise, self)
+            self.views[title] = widget
+            self._add_dock(title, widget, Qt.DockWidgetArea.BottomDockWidgetArea)
+        self.history = QUndoView(self.session.undo_stack, self)
+        self.history.setEmptyLabel("Opened plan")
+        self.history.setAccessibleName("Edit history")
+        self._add_dock("History", self.history, Qt.DockWidgetArea.BottomDockWidgetArea)
+        self._arrange()
+
+    def _arrange(self) -> None:
+        """Default layout: Timeline and Network on the lower left, Odds, Drivers and
+        History on the lower right, the table above them."""
+        for dock in self.docks.values():
+            dock.setFloating(False)
+            dock.show()
+            self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, dock)
+        self.splitDockWidget(self.docks["Timeline"], self.docks["Odds"], Qt.Orientation.Horizontal)
+        self.tabifyDockWidget(self.docks["Timeline"], self.docks["Network"])
+        self.tabifyDockWidget(self.docks["Odds"], self.docks["Drivers"])
+        self.tabifyDockWidget(self.docks["Drivers"], self.docks["History"])
+        self.docks["Timeline"].raise_()
+        self.docks["Odds"].raise_()
+        self._default_sizes()
+
+    def _default_sizes(self) -> None:
+        """Give the table most of the width and the Timeline the lower part of the window."""
+        self.resize(1440, 900)
+        self.resizeDocks([self.docks["Timeline"], self.docks["Odds"]],
+                         [int(self.width() * 0.58), int(self.width() * 0.42)], Qt.Orientation.Horizontal)
+        self.resizeDocks([self.docks["Timeline"]], [int(self.height() * 0.48)], Qt.Orientation.Vertical)
+
+    def _build_status(self) -> None:
+        bar = self.statusBar()
+        self.save_label = QLabel(self)
+        self.save_label.setAccessibleName("Save state")
+        self.recalc_label = QLabel(self)
+        self.recalc_label.setAccessibleName("Recalculation time")
+        bar.addPermanentWidget(self.save_label)
+        bar.addPermanentWidget(self.recalc_label)
+
+    def _connect(self) -> None:
+        stack = self.session.undo_stack
+        stack.cleanChanged.connect(self.update_title)
+        self.files.path_changed.connect(self.update_title)
+        self.files.message.connect(lambda text: self.statusBar().showMessage(text, 5000))
+        self.activities.message.connect(lambda text: self.statusBar().showMessage(text, 5000))
+        self.session.edit_refused.connect(self.notice.show_problem)
+        self.session.schedule_changed.connect(self._on_schedule_changed)
+        self._on_schedule_changed()
+
+    # --- state shown -----------------------------------------------------------
+    def _on_schedule_changed(self) -> None:
+        self.notice.hide()
+        ms = self.session.recalc_ms
+        problem = "" if self.session.analysis is not None else " — cannot schedule"
+        self.recalc_label.setText(f"Recalculated in {ms:.0f} ms{problem}")
+        self.update_title()
+
+    def update_title(self, *_) -> None:
+        name = self.files.display_name()
+        ro = " (read-only)" if self.files.read_only else ""
+        self.setWindowTitle(f"{name}[*]{ro} — Slackline")
+        modified = self.files.modified
+        self.setWindowModified(modified)
+        where = self.files.path or "not saved to a file yet"
+        self.save_label.setText(("Unsaved changes" if modified else "All changes saved") if self.files.path
+                                else ("Unsaved new plan" if modified or len(self.session.plan) else "New plan"))
+        self.save_label.setToolTip(where)
+
+    # --- layout persistence ------------------------------------------------------
+    def save_layout(self) -> None:
+        settings = QSettings()
+        settings.setValue("window/geometry", self.saveGeometry())
+        settings.setValue("window/state", self.saveState(STATE_VERSION))
+
+    def restore_layout(self) -> bool:
+        settings = QSettings()
+        geometry, state = settings.value("window/geometry"), settings.value("window/state")
+        if isinstance(geometry, QByteArray):
+            self.restoreGeometry(geometry)
+        else:
+            self.resize(1440, 900)
+        return isinstance(state, QByteArray) and self.restoreState(state, STATE_VERSION)
+
+    def reset_layout(self) -> None:
+        self._arrange()
+
+    # --- files in from outside -------------------------------------------------------
+    def open_path(self, path: str) -> bool:
+        """Open a file handed over by the command line, a second launch or a drop."""
+        self.raise_()
+        self.activateWindow()
+        return self.files.open_path(path)
+
+    @staticmethod
+    def _dropped_paths(event) -> list[str]:
+        urls = event.mimeData().urls() if event.mimeData().hasUrls() else []
+        paths = [u.toLocalFile() for u in urls if u.isLocalFile()]
+        return [p for p in paths if Path(p).suffix.lower() in (".slw",) + TABLE_SUFFIXES]
+
+    def dragEnterEvent(self, event) -> None:
+        if self._dropped_paths(event):
+            event.acceptProposedAction()
+        else:
+            event.ignore()
+
+    def dropEvent(self, event) -> None:
+        paths = self._dropped_paths(event)
+        if paths:
+            event.acceptProposedAction()
+            self.open_path(paths[0])
+
+    # --- closing -------------------------------------------------------------------
+    def closeEvent(self, event: QCloseEvent) -> None:
+        if not self.files.maybe_save():
+            event.ignore()
+            return
+        self.save_layout()
+        self.files.close()
+        event.accept()

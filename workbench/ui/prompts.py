@@ -1,0 +1,101 @@
+"""Every question the window asks the planner, in one place.
+
+Each function opens a modal dialog and returns the answer. Keeping them here lets
+tests replace them with functions that answer at once.
+"""
+
+from __future__ import annotations
+
+from PySide6.QtWidgets import QFileDialog, QMessageBox, QWidget
+
+PLAN_FILTER = "Slackline plans (*.slw)"
+OPEN_FILTER = "Plans and tables (*.slw *.csv *.xlsx);;Slackline plans (*.slw);;Tables (*.csv *.xlsx)"
+TABLE_FILTER = "Tables (*.csv *.xlsx)"
+EXPORT_FILTER = "CSV table (*.csv);;Excel workbook (*.xlsx)"
+
+
+def ask_open_path(parent: QWidget, title: str = "Open plan", filters: str = OPEN_FILTER,
+                  folder: str = "") -> str | None:
+    path, _ = QFileDialog.getOpenFileName(parent, title, folder, filters)
+    return path or None
+
+
+def ask_save_path(parent: QWidget, title: str = "Save plan as", suggested: str = "",
+                  filters: str = PLAN_FILTER) -> str | None:
+    path, _ = QFileDialog.getSaveFileName(parent, title, suggested, filters)
+    return path or None
+
+
+def _choose(parent, title: str, text: str, buttons: list[tuple[str, str, QMessageBox.ButtonRole]],
+            icon=QMessageBox.Icon.Question, detail: str = "") -> str:
+    box = QMessageBox(icon, title, text, QMessageBox.StandardButton.NoButton, parent)
+    if detail:
+        box.setInformativeText(detail)
+    made = {box.addButton(label, role): key for key, label, role in buttons}
+    box.setDefaultButton(next(iter(made)))
+    box.exec()
+    return made.get(box.clickedButton(), buttons[-1][0])
+
+
+def ask_unsaved(parent: QWidget, name: str) -> str:
+    """'save', 'discard' or 'cancel'."""
+    R = QMessageBox.ButtonRole
+    return _choose(parent, "Unsaved changes", f"Save the changes to {name}?",
+                   [("save", "Save", R.AcceptRole), ("discard", "Don't Save", R.DestructiveRole),
+                    ("cancel", "Cancel", R.RejectRole)],
+                   detail="Changes you don't save are lost.")
+
+
+def ask_recovery(parent: QWidget, text: str, detail: str) -> str:
+    """'restore', 'open' (the saved file) or 'discard'."""
+    R = QMessageBox.ButtonRole
+    return _choose(parent, "Recover unsaved work", text,
+                   [("restore", "Restore Recovered Work", R.AcceptRole),
+                    ("open", "Open Saved File", R.ActionRole),
+                    ("discard", "Discard Recovered Work", R.DestructiveRole)],
+                   detail=detail)
+
+
+def ask_locked(parent: QWidget, path: str, holder: str) -> str:
+    """'readonly' or 'cancel'."""
+    R = QMessageBox.ButtonRole
+    return _choose(parent, "Plan in use", f"{path} is open in another Slackline window{holder}.",
+                   [("readonly", "Open Read-Only", R.AcceptRole), ("cancel", "Cancel", R.RejectRole)],
+                   icon=QMessageBox.Icon.Warning,
+                   detail="Editing it in two places would lose one set of changes.")
+
+
+def ask_save_as_instead(parent: QWidget, message: str) -> bool:
+    R = QMessageBox.ButtonRole
+    return _choose(parent, "Cannot save here", message,
+                   [("save_as", "Save As…", R.AcceptRole), ("cancel", "Cancel", R.RejectRole)],
+                   icon=QMessageBox.Icon.Warning) == "save_as"
+
+
+def show_error(parent: QWidget, title: str, message: str) -> None:
+    QMessageBox.warning(parent, title, message)
+
+
+def show_info(parent: QWidget, title: str, message: str) -> None:
+    QMessageBox.information(parent, title, message)
+
+
+def edit_settings(parent: QWidget, settings):
+    """The plan settings dialog; returns new Settings or None."""
+    from workbench.ui.settings_dialog import SettingsDialog
+    dialog = SettingsDialog(settings, parent)
+    return dialog.result_settings() if dialog.exec() else None
+
+
+def pick_predecessors(parent: QWidget, plan, act_id: str):
+    """The predecessor picker; returns the new list of links into ``act_id`` or None."""
+    from workbench.ui.predecessor_dialog import PredecessorDialog
+    dialog = PredecessorDialog(plan, act_id, parent)
+    return dialog.links() if dialog.exec() else None
+
+
+def preview_import(parent: QWidget, path: str, plan, problems: list[str]) -> bool:
+    """Show what an import would bring in (or why it cannot); True to apply it."""
+    from workbench.ui.import_dialog import ImportDialog
+    dialog = ImportDialog(path, plan, problems, parent)
+    return bool(dialog.exec()) and plan is not None

@@ -1,0 +1,72 @@
+"""Screenshots for people to look at: ``python -m workbench.ui.shots OUTDIR [PLAN]``.
+
+Renders offscreen at 1920×1080 the main window (main.png) and each view that exists
+(timeline.png, network.png, odds.png, drivers.png). Settings and recovery copies go to
+a temporary folder so a real installation is never touched.
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+import tempfile
+from pathlib import Path
+
+SIZE = (1920, 1080)
+VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png"}
+
+
+def _settle(app, rounds: int = 5) -> None:
+    for _ in range(rounds):
+        app.processEvents()
+
+
+def _grab(widget, path: Path, app) -> None:
+    widget.resize(*SIZE)
+    widget.show()
+    _settle(app)
+    if not widget.grab().save(str(path)):
+        raise OSError(f"could not write {path}")
+
+
+def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
+    from PySide6.QtCore import QSettings
+    from workbench.ui.app import application, demo_plan
+    from workbench.ui.main_window import VIEWS, MainWindow, make_view
+    app = application()
+    QSettings.setDefaultFormat(QSettings.Format.IniFormat)
+    QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, tempfile.mkdtemp())
+    outdir.mkdir(parents=True, exist_ok=True)
+    window = MainWindow()
+    if plan_path:
+        if not window.files.open_path(plan_path, ask=False):
+            raise SystemExit(f"cannot open {plan_path}")
+    else:
+        window.session.load(demo_plan())
+    written = [outdir / "main.png"]
+    _grab(window, written[0], app)
+    for title, module, cls, _promise in VIEWS:
+        view = make_view(module, cls, window.session)
+        if view is not None:
+            written.append(outdir / VIEW_FILES[title])
+            _grab(view, written[-1], app)
+            view.close()
+    window.files.close()
+    window.hide()
+    return written
+
+
+def main(argv: list[str] | None = None) -> int:
+    argv = sys.argv[1:] if argv is None else argv
+    if not argv:
+        print("usage: python -m workbench.ui.shots OUTDIR [PLAN]", file=sys.stderr)
+        return 2
+    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    os.environ.setdefault("SLACKLINE_DATA_DIR", tempfile.mkdtemp(prefix="slackline-shots-"))
+    for path in render(Path(argv[0]), argv[1] if len(argv) > 1 else None):
+        print(path)
+    return 0
+
+
+if __name__ == "__main__":
+    sys.exit(main())
