@@ -27,8 +27,8 @@ def pen(colour: str, width: float, dash: bool = False) -> QPen:
 
 
 def bar_height(px, w: style.Weights) -> float:
-    """Bar height in pixels: a share of the row, never taller than 1.6× the nominal bar."""
-    return float(min(px.row_px * w.bar_fraction, w.row_height * w.bar_fraction * 1.6 * px.scale))
+    """Bar height in pixels: a share of the row, never taller than twice the nominal bar."""
+    return float(min(px.row_px * w.bar_fraction, w.row_height * w.bar_fraction * 2.0 * px.scale))
 
 
 def _rects(px, m, h: float, shift: float = 0.0) -> list[QRectF]:

@@ -18,9 +18,10 @@ PADDING = 6.0
 
 
 class TimelineRowAxis(pg.AxisItem):
-    def __init__(self, width: float = 240.0, **kwargs):
+    def __init__(self, width: float = 300.0, **kwargs):
         super().__init__("left", **kwargs)
         self._geo = None
+        self._bold_rows: set[int] = set()
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
@@ -63,6 +64,7 @@ class TimelineRowAxis(pg.AxisItem):
         bounds = self.mapRectFromParent(self.geometry())
         axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
         texts = []
+        self._bold_rows = set()
         h = metrics.height()
         for row in self.visible_rows(bounds, h):
             indent = INDENT * int(self._geo.depth[row])
@@ -72,4 +74,19 @@ class TimelineRowAxis(pg.AxisItem):
             rect = QRectF(bounds.left() + PADDING + indent, y - h / 2, width, h)
             if bounds.top() - h / 2 <= y <= bounds.bottom() + h / 2:
                 texts.append((rect, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, text))
+                self._bold_rows.add(len(texts) - 1) if self._geo.kinds[row] == "group" else None
         return axis, [], texts
+
+    def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
+        """Like the base class, with group rows in bold."""
+        pen, p1, p2 = axisSpec
+        p.setPen(pen)
+        p.drawLine(p1, p2)
+        font = QFont(self.style.get("tickFont") or QFont())
+        bold = QFont(font)
+        bold.setBold(True)
+        p.setPen(self.textPen())
+        p.setClipRect(self.boundingRect().toAlignedRect())
+        for k, (rect, flags, text) in enumerate(textSpecs):
+            p.setFont(bold if k in self._bold_rows else font)
+            p.drawText(rect, int(flags), text)

@@ -12,7 +12,7 @@ def _num(value: float) -> str:
 
 
 def _date(d) -> str:
-    return d.strftime("%a %d %b %Y")
+    return f"{d:%a} {d.day} {d:%b %Y}"
 
 
 def tooltip_text(analysis, simulation, act_id: str) -> str:

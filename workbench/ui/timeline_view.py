@@ -326,7 +326,7 @@ class TimelineView(QWidget):
         font = QFont()
         font.setPointSizeF(self._weights.label_font_size)
         self.row_axis.set_font(font)
-        self.row_axis.setWidth(int(240 * self._weights.label_font_size / style.SCREEN.label_font_size))
+        self.row_axis.setWidth(int(300 * self._weights.label_font_size / style.SCREEN.label_font_size))
         self.date_axis.setStyle(tickFont=font)
         self.item.set_weights(self._weights)
         for line in list(self._lines):

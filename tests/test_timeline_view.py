@@ -1,0 +1,233 @@
+"""Timeline view: pixel facts on a rendered image, selection both ways, the duration drag."""
+
+import datetime as dt
+
+import numpy as np
+import pytest
+from PySide6.QtCore import QPoint, QPointF, Qt
+from PySide6.QtTest import QTest
+
+from workbench.core import Activity, Link, Plan, Settings
+from workbench.core.commands import EditActivity
+from workbench.figures import style
+from workbench.figures.timeline import dragged_estimate
+from workbench.ui.session import Session
+from workbench.ui.timeline_output import export_pdf, export_svg, render_image
+from workbench.ui.timeline_view import TimelineView
+
+
+def small_plan(deadline=None):
+    acts = [Activity("A", "Survey", optimistic=1, most_likely=2, pessimistic=3),
+            Activity("B", "Order parts", optimistic=1, most_likely=2, pessimistic=9),
+            Activity("C", "Assemble", optimistic=6, most_likely=9, pessimistic=18),
+            Activity("D", "Paint", duration=3),
+            Activity("M", "Handover", duration=0)]
+    links = [Link("A", "C"), Link("B", "D"), Link("C", "M"), Link("D", "M")]
+    return Plan(Settings(start=dt.date(2026, 12, 7), deadline=deadline), acts, links)
+
+
+@pytest.fixture
+def view(qtbot):
+    session = Session(small_plan())
+    v = TimelineView(session)
+    qtbot.addWidget(v)
+    v.resize(1200, 600)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit_all()
+    qtbot.wait(20)
+    return v
+
+
+def to_px(view, x, row) -> QPoint:
+    p = view.item.deviceTransform_().map(QPointF(x, row))
+    return QPoint(round(p.x()), round(p.y()))
+
+
+def colour_at(image, point: QPoint) -> str:
+    return image.pixelColor(point).name().upper()
+
+
+def near(image, point: QPoint, colour: str, radius: int = 2) -> bool:
+    want = np.array(style.rgb255(colour))
+    for dy in range(-radius, radius + 1):
+        c = image.pixelColor(point.x(), point.y() + dy)
+        if np.abs(np.array([c.red(), c.green(), c.blue()]) - want).max() <= 12:
+            return True
+    return False
+
+
+def bar(view, act_id):
+    geo = view.geometry
+    row = geo.row_of[act_id]
+    for kind in ("critical", "work"):
+        m = geo.marks[kind]
+        hit = np.flatnonzero(m.rows == row)
+        if hit.size:
+            return kind, row, float(m.x0[hit[0]]), float(m.x1[hit[0]])
+    raise AssertionError(f"{act_id} has no bar")
+
+
+def test_critical_and_work_bars_have_their_colours(view):
+    image = render_image(view)
+    kind, row, x0, x1 = bar(view, "C")
+    assert kind == "critical"
+    assert colour_at(image, to_px(view, (x0 + x1) / 2, row)) == style.CRITICAL
+    kind, row, x0, x1 = bar(view, "D")
+    assert kind == "work"
+    assert colour_at(image, to_px(view, (x0 + x1) / 2, row)) == style.WORK
+
+
+def test_critical_bar_carries_a_heavy_dark_edge(view):
+    image = render_image(view)
+    _, row, x0, x1 = bar(view, "C")
+    centre = to_px(view, (x0 + x1) / 2, row)
+    column = [image.pixelColor(centre.x(), y) for y in range(centre.y() - 40, centre.y())]
+    dark = [c for c in column if style.gray_level(c.name()) < 0.15]
+    assert len(dark) >= 2          # at least two pixel rows of near-black above the centre
+
+
+def test_slack_line_drawn_where_the_geometry_puts_it(view):
+    image = render_image(view)
+    m = view.geometry.marks["float"]
+    assert len(m)
+    for row, x0, x1 in zip(m.rows.tolist(), m.x0.tolist(), m.x1.tolist()):
+        assert near(image, to_px(view, (x0 + x1) / 2, row), style.FLOAT)
+        assert not near(image, to_px(view, x1 + (x1 - x0) * 0.5 + 1, row), style.FLOAT)
+
+
+def test_milestone_diamond_is_drawn(view):
+    image = render_image(view)
+    m = view.geometry.marks["milestone_critical"]
+    point = to_px(view, float(m.x0[0]), int(m.rows[0]))
+    assert colour_at(image, point) in (style.CRITICAL, style.MILESTONE)
+
+
+def test_selection_follows_the_session(view):
+    view.session.select(["D"])
+    assert view.item._selected_rows.tolist() == [view.geometry.row_of["D"]]
+    image = render_image(view)
+    (x_lo, x_hi), _ = view.view_box.viewRange()
+    row = view.geometry.row_of["D"]
+    assert colour_at(image, to_px(view, x_lo + 0.01 * (x_hi - x_lo), row)) == style.SELECTION
+    view.session.select([])
+    assert view.item._selected_rows.size == 0
+
+
+def test_click_selects_in_the_session(view, qtbot):
+    _, row, x0, x1 = bar(view, "B")
+    with qtbot.waitSignal(view.session.selection_changed, timeout=2000) as sig:
+        QTest.mouseClick(view.plot.viewport(), Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier,
+                         to_px(view, (x0 + x1) / 2, row))
+    assert sig.args == [["B"]]
+    assert view.session.selected() == ["B"]
+
+
+def drag(view, start: QPoint, end: QPoint, steps: int = 6) -> None:
+    vp = view.plot.viewport()
+    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
+    for k in range(1, steps + 1):
+        QTest.mouseMove(vp, start + (end - start) * k / steps)
+        QTest.qWait(5)
+    QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, end)
+
+
+def test_dragging_a_bar_end_is_one_undo_step_with_the_right_most_likely(view, qtbot):
+    session = view.session
+    before = session.plan.activity("C")
+    _, row, es, ef = bar(view, "C")
+    start = to_px(view, ef, row)
+    end = start + QPoint(120, 0)
+    moving, finished = [], []
+    view.duration_dragging.connect(lambda i, v: moving.append((i, v)))
+    view.duration_dragged.connect(lambda i, v: finished.append((i, v)))
+    steps_before = session.undo_stack.count()
+    drag(view, start, end)
+    x_end = view.item.deviceTransform_().inverted()[0].map(QPointF(end)).x()
+    expected = dragged_estimate(before, x_end - es)
+    after = session.plan.activity("C")
+    assert session.undo_stack.count() == steps_before + 1
+    assert after.most_likely == pytest.approx(expected["most_likely"])
+    assert after.most_likely > before.most_likely
+    assert (after.optimistic, after.pessimistic) == (before.optimistic, before.pessimistic)
+    assert len(moving) >= 2 and len(finished) == 1 and finished[0][0] == "C"
+    session.undo_stack.undo()
+    assert session.plan.activity("C") == before
+
+
+def test_live_preview_does_not_change_the_plan(view):
+    _, row, es, ef = bar(view, "C")
+    start = to_px(view, ef, row)
+    vp = view.plot.viewport()
+    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
+    for k in range(1, 5):
+        QTest.mouseMove(vp, start + QPoint(25 * k, 0))
+    assert view.item._preview is not None and view.item._preview[2] > ef
+    assert view.session.undo_stack.count() == 0
+    QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start + QPoint(100, 0))
+    assert view.item._preview is None
+
+
+def test_dragging_elsewhere_pans_without_editing(view):
+    _, row, es, ef = bar(view, "C")
+    before = view.view_box.viewRange()[0]
+    drag(view, to_px(view, (es + ef) / 2, row) + QPoint(0, 0), to_px(view, (es + ef) / 2, row) + QPoint(-150, 0))
+    assert view.session.undo_stack.count() == 0
+    assert view.view_box.viewRange()[0] != before
+
+
+def test_redraws_on_schedule_change(view):
+    view.session.push(EditActivity("D", duration=10))
+    kind, row, x0, x1 = bar(view, "D")
+    assert x1 - x0 == pytest.approx(10)
+
+
+def test_critical_path_filter_and_group_toggle(view):
+    view.show_critical_path(True)
+    assert view.geometry.keys == ["A", "C", "M"]
+    view.show_critical_path(False)
+    assert len(view.geometry.keys) == 5
+
+
+def test_keyboard_zoom_and_pan(view):
+    (x0, x1), _ = view.view_box.viewRange()
+    QTest.keyClick(view.plot, Qt.Key.Key_Plus)
+    (y0, y1), _ = view.view_box.viewRange()
+    assert (y1 - y0) < (x1 - x0)
+    QTest.keyClick(view.plot, Qt.Key.Key_Right)
+    (z0, z1), _ = view.view_box.viewRange()
+    assert z0 > y0
+
+
+def test_tooltip_names_dates_and_floats(view):
+    from workbench.ui.timeline_tooltip import tooltip_text
+    text = tooltip_text(view.session.analysis, None, "D")
+    assert text.startswith("D  Paint")
+    # D follows B (te (1 + 8 + 9) / 6 = 3): starts on the fourth working day, Thu 10 Dec,
+    # lasts 3 working days (Thu, Fri, Mon) and may slip 6 before M.
+    assert "Early: Thu 10 Dec 2026 \u2192 Mon 14 Dec 2026" in text
+    assert "total float 6, free float 6" in text and "te 3 days" in text
+
+
+def test_unschedulable_plan_shows_a_message(qtbot):
+    plan = small_plan()
+    plan.links.append(Link("M", "A"))      # a loop the core refuses to schedule
+    session = Session(plan)
+    v = TimelineView(session)
+    qtbot.addWidget(v)
+    assert session.analysis is None
+    assert v.geometry is None and v._message.isVisible()
+    assert "loop" in v._message.textItem.toPlainText()
+
+
+def test_exports(view, tmp_path):
+    png, svg, pdf = tmp_path / "t.png", tmp_path / "t.svg", tmp_path / "t.pdf"
+    view.export_png(png, (800, 500))
+    from PySide6.QtGui import QImage
+    assert QImage(str(png)).size().width() > 700
+    export_svg(view, svg)
+    text = svg.read_text()
+    assert "<svg" in text and style.CRITICAL.lower() in text.lower()
+    export_pdf(view, pdf)
+    from pypdf import PdfReader
+    assert len(PdfReader(str(pdf)).pages) == 1
