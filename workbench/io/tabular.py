@@ -86,6 +86,8 @@ def read_table_report(path, settings: Settings | None = None) -> tuple[Plan, Imp
     source = path.name
     report = ImportReport()
     raw = _read_bytes(path, source)
+    if not raw.strip(b" \t\r\n\x00"):
+        raise TableImportError(["the file is empty"], source)
     if raw.startswith(ZIP_MAGIC):
         report.kind = "xlsx"
         report.sheet, rows = read_xlsx(path, source)

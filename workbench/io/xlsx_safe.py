@@ -70,17 +70,25 @@ def read_xlsx(path: Path, source: str) -> tuple[str, list[tuple[int, list[str]]]
     check_zip(path, source)
     import openpyxl
 
-    try:
-        workbook = openpyxl.load_workbook(path, read_only=True, data_only=True)
-    except Exception as exc:  # openpyxl raises many kinds for a broken workbook
-        raise TableImportError([f"cannot read the workbook: {type(exc).__name__}: {exc}"], source) from exc
-    try:
-        sheet = _pick_sheet(workbook)
-        rows = []
-        for cells in sheet.iter_rows():
-            number = next((c.row for c in cells if getattr(c, "row", None)), None)
-            if number is not None:
-                rows.append((number, [cell_text(c.value) for c in cells]))
-        return sheet.title, rows
-    finally:
-        workbook.close()
+    with open(path, "rb") as handle:  # a handle, so a workbook named .csv still opens
+        try:
+            workbook = openpyxl.load_workbook(handle, read_only=True, data_only=True)
+        except Exception as exc:  # openpyxl raises many kinds for a broken workbook
+            raise TableImportError([f"cannot read the workbook: {type(exc).__name__}: {exc}"], source) from exc
+        try:
+            sheet = _pick_sheet(workbook)
+            return sheet.title, _numbered_rows(sheet)
+        finally:
+            workbook.close()
+
+
+def _numbered_rows(sheet) -> list[tuple[int, list[str]]]:
+    """Rows by their real row numbers; the stored size tag is ignored (some writers get it
+    wrong, and read-only mode would then silently cut off rows or columns)."""
+    sheet.reset_dimensions()
+    rows = []
+    for cells in sheet.iter_rows():
+        number = next((c.row for c in cells if getattr(c, "row", None)), None)
+        if number is not None:
+            rows.append((number, [cell_text(c.value) for c in cells]))
+    return rows
