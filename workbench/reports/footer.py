@@ -1,8 +1,7 @@
-"""The footer on every page of the pack (page X of Y and the traceability line).
+"""The footer on every page of the pack: 'Page X of Y' and the traceability line.
 
-The total page count is only known at the end, so the canvas keeps each finished page
-and draws the footers when the document is saved.
-"""
+The page count is only known at the end, so each footer places a form (a reusable PDF
+drawing) for the total, and the form is written once when the document is saved."""
 
 from __future__ import annotations
 
@@ -13,6 +12,9 @@ from reportlab.pdfgen.canvas import Canvas
 
 from . import styles
 from .text import clean
+
+TOTAL_FORM = "pack-page-total"
+PAGE_LABEL_W = 78.0
 
 
 @dataclass(frozen=True)
@@ -30,39 +32,37 @@ class FooterInfo:
                      f"  \u00b7  Slackline {self.version}  \u00b7  {seed}")
 
 
-def draw_footer(canvas: Canvas, info: FooterInfo, page: int, total: int) -> None:
-    width, _ = canvas._pagesize
-    y = styles.MARGIN * 0.55
-    canvas.saveState()
-    canvas.setStrokeColor(styles.MUTED)
-    canvas.setLineWidth(0.4)
-    canvas.line(styles.MARGIN, y + 10, width - styles.MARGIN, y + 10)
-    canvas.setFillColor(styles.MUTED)
-    canvas.setFont(styles.FONT, 7.5)
-    canvas.drawString(styles.MARGIN, y, info.line())
-    canvas.setFont(styles.BOLD, 8)
-    canvas.drawRightString(width - styles.MARGIN, y, f"Page {page} of {total}")
-    canvas.restoreState()
+def footer_drawer(info: FooterInfo):
+    """An ``onPage`` hook drawing the footer of the current page."""
+
+    def draw(canvas: Canvas, doc) -> None:
+        width, _ = canvas._pagesize
+        y = styles.MARGIN * 0.55
+        canvas.saveState()
+        canvas.setStrokeColor(styles.MUTED)
+        canvas.setLineWidth(0.4)
+        canvas.line(styles.MARGIN, y + 10, width - styles.MARGIN, y + 10)
+        canvas.setFillColor(styles.MUTED)
+        canvas.setFont(styles.FONT, 7.5)
+        canvas.drawString(styles.MARGIN, y, info.line())
+        canvas.setFont(styles.BOLD, 8)
+        x = width - styles.MARGIN - PAGE_LABEL_W
+        text = f"Page {canvas.getPageNumber()} of "
+        canvas.drawString(x, y, text)
+        canvas.translate(x + canvas.stringWidth(text, styles.BOLD, 8), y)
+        canvas.doForm(TOTAL_FORM)
+        canvas.restoreState()
+
+    return draw
 
 
-def footer_canvas(info: FooterInfo) -> type:
-    """A Canvas class that stamps ``info`` and 'page X of Y' on every page when saved."""
+class PackCanvas(Canvas):
+    """A canvas that writes the page total into the footers' form when saved."""
 
-    class FooterCanvas(Canvas):
-        def __init__(self, *args, **kwargs):
-            super().__init__(*args, **kwargs)
-            self._kept_pages = []
-
-        def showPage(self):
-            self._kept_pages.append(dict(self.__dict__))
-            self._startPage()
-
-        def save(self):
-            total = len(self._kept_pages)
-            for number, state in enumerate(self._kept_pages, start=1):
-                self.__dict__.update(state)
-                draw_footer(self, info, number, total)
-                Canvas.showPage(self)
-            Canvas.save(self)
-
-    return FooterCanvas
+    def save(self):
+        self.beginForm(TOTAL_FORM, lowerx=0, lowery=-2, upperx=40, uppery=10)
+        self.setFont(styles.BOLD, 8)
+        self.setFillColor(styles.MUTED)
+        self.drawString(0, 0, str(self.getPageNumber() - 1))
+        self.endForm()
+        super().save()

@@ -12,19 +12,20 @@ PORTRAIT, LANDSCAPE = "portrait", "landscape"
 class PackDocument(BaseDocTemplate):
     """A4 or letter; page templates ``portrait`` and ``landscape``; invariant output."""
 
-    def __init__(self, target, paper: str, title: str, author: str, creator: str):
+    def __init__(self, target, paper: str, title: str, author: str, creator: str, on_page=None):
         size = styles.page_size(paper)
         super().__init__(target, pagesize=size, invariant=1, title=title, author=author,
                          creator=creator, subject="Approval pack", pageCompression=1)
-        self.addPageTemplates([_template(PORTRAIT, size),
-                               _template(LANDSCAPE, styles.landscape_size(paper))])
+        self.addPageTemplates([_template(PORTRAIT, size, on_page),
+                               _template(LANDSCAPE, styles.landscape_size(paper), on_page)])
 
 
-def _template(name: str, size: tuple[float, float]) -> PageTemplate:
+def _template(name: str, size: tuple[float, float], on_page=None) -> PageTemplate:
     frame = Frame(styles.MARGIN, styles.MARGIN + styles.FOOTER_SPACE - 12,
                   size[0] - 2 * styles.MARGIN, size[1] - 2 * styles.MARGIN - styles.FOOTER_SPACE + 12,
                   leftPadding=0, rightPadding=0, topPadding=0, bottomPadding=0, id=name)
-    return PageTemplate(id=name, frames=[frame], pagesize=size)
+    hook = on_page or (lambda canvas, doc: None)
+    return PageTemplate(id=name, frames=[frame], pagesize=size, onPage=hook)
 
 
 def frame_size(paper: str, orientation: str) -> tuple[float, float]:

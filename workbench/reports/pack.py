@@ -7,6 +7,7 @@ import datetime as dt
 import io
 import os
 import secrets
+import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -19,7 +20,7 @@ from .cautions import cautions
 from .charts import chart_pages
 from .context import PackContext
 from .cover import cover
-from .footer import FooterInfo, footer_canvas
+from .footer import FooterInfo, PackCanvas, footer_drawer
 from .layout import LANDSCAPE, PORTRAIT, PackDocument, frame_size, new_page
 from .summary import summary
 from .tables import activity_table
@@ -58,8 +59,8 @@ def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:
     """The pack's PDF bytes and its page count."""
     buffer = io.BytesIO()
     doc = PackDocument(buffer, ctx.paper, title=ctx.settings.title, author=ctx.settings.prepared_by,
-                       creator=f"Slackline {__version__}")
-    doc.build(story(ctx, report), canvasmaker=footer_canvas(ctx.footer))
+                       creator=f"Slackline {__version__}", on_page=footer_drawer(ctx.footer))
+    doc.build(story(ctx, report), canvasmaker=PackCanvas)
     report(95)
     return buffer.getvalue(), doc.page
 
@@ -113,10 +114,14 @@ def _progress(progress):
 def _write(path, data: bytes) -> None:
     """Write atomically: a half-written pack never replaces a good one."""
     target = Path(path)
-    tmp = target.with_name(target.name + ".part")
+    tmp = None
     try:
-        tmp.write_bytes(data)
+        fd, name = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".part", dir=target.parent)
+        tmp = Path(name)
+        with os.fdopen(fd, "wb") as handle:
+            handle.write(data)
         os.replace(tmp, target)
     except OSError as exc:
-        tmp.unlink(missing_ok=True)
+        if tmp is not None:
+            tmp.unlink(missing_ok=True)
         raise PlanError(f"cannot write the pack to {target}: {exc.strerror or exc}", "output") from None
