@@ -183,13 +183,17 @@ class NetworkPainter:
 
     def _paint_labels(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
         size = min(2 * ns.WEIGHTS.label_font, max(ns.WEIGHTS.label_font, 8.0 / scale))
-        p.setFont(font(size, bold=True))
+        f = font(size, bold=True)
+        p.setFont(f)
+        metrics, backdrop = QFontMetricsF(f), colour(ns.NODE_FILL, 225)
         for k in rows:
             link = self.layout.links[k]
             if not link.label:
                 continue
             x, y = link.label_at
-            rect = QRectF(x - 3 * size, y - 1.5 * size, 6 * size, 1.3 * size)
+            width = metrics.horizontalAdvance(link.label) + size * 0.5
+            rect = QRectF(x - width / 2, y - 1.6 * size, width, 1.3 * size)
+            p.fillRect(rect, backdrop)
             p.setPen(colour(ns.CRITICAL if link.critical else ns.TEXT))
             p.drawText(rect, Qt.AlignCenter, link.label)
 

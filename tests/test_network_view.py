@@ -1,0 +1,132 @@
+"""Network view: model → view → change model → check view, plus pixel facts."""
+
+import pytest
+from PySide6.QtCore import QPoint, QPointF, QRectF, Qt
+from PySide6.QtGui import QColor, QImage
+from PySide6.QtTest import QTest
+
+from workbench.core.commands import EditActivity
+from workbench.core.model import Activity, Link, Plan, Settings
+from workbench.figures import style
+from workbench.ui.network_view import NetworkView
+from workbench.ui.session import Session
+
+
+def small_plan():
+    # A → B → D is critical (2 + 5 + 1); A → C → D has 3 days of float
+    acts = [Activity(id="A", name="Dig trench", duration=2.0), Activity(id="B", name="Lay cable", duration=5.0),
+            Activity(id="C", name="Order lamps", duration=2.0), Activity(id="D", name="Switch on", duration=1.0)]
+    links = [Link("A", "B"), Link("A", "C"), Link("B", "D"), Link("C", "D", "SS", 2.0)]
+    return Plan(Settings(title="Lamps"), acts, links)
+
+
+@pytest.fixture
+def view(qtbot):
+    session = Session(small_plan())
+    v = NetworkView(session)
+    qtbot.addWidget(v)
+    v.resize(900, 600)
+    v.show()
+    qtbot.waitExposed(v)
+    return v
+
+
+def node_point(view, act_id, fx=0.5, fy=0.5) -> QPoint:
+    """Widget-of-the-graphics-view coordinates of a point given as fractions of a node box."""
+    x, y, w, h = view.layout_result.boxes[view.layout_result.index_of(act_id)]
+    scene = view.viewbox.mapViewToScene(QPointF(x + fx * w, y + fy * h))
+    return view.graphics.mapFromScene(scene)
+
+
+def zoom_to(view, act_id):
+    x, y, w, h = view.layout_result.boxes[view.layout_result.index_of(act_id)]
+    view.viewbox.setRange(QRectF(x - w, y - h, 3 * w, 3 * h), padding=0)
+    view.graphics.repaint()
+
+
+def pixel(view, point: QPoint) -> QColor:
+    image: QImage = view.graphics.grab().toImage()
+    return QColor(image.pixel(point))
+
+
+def close_to(c: QColor, hex_text: str, tol=30) -> bool:
+    want = QColor(hex_text)
+    return max(abs(c.red() - want.red()), abs(c.green() - want.green()), abs(c.blue() - want.blue())) <= tol
+
+
+def test_click_selects_through_the_session(view, qtbot):
+    zoom_to(view, "C")
+    with qtbot.waitSignal(view.session.selection_changed):
+        QTest.mouseClick(view.graphics.viewport(), Qt.LeftButton, pos=node_point(view, "C"))
+    assert view.session.selected() == ["C"]
+    assert view.item.painter.selected == {view.layout_result.index_of("C")}
+
+
+def test_view_follows_session_selection(view):
+    view.session.select(["B", "D"])
+    rows = view.layout_result
+    assert view.item.painter.selected == {rows.index_of("B"), rows.index_of("D")}
+    view.session.select([])
+    assert view.item.painter.selected == set()
+
+
+def test_critical_node_shows_critical_colour_inside_its_border(view):
+    for act_id, hexc in (("B", style.CRITICAL), ("C", style.WORK)):
+        zoom_to(view, act_id)
+        header = pixel(view, node_point(view, act_id, 0.55, 0.1))
+        assert close_to(header, hexc), (act_id, header.name())
+        inside = pixel(view, node_point(view, act_id, 0.5, 0.9))
+        assert close_to(inside, "#FFFFFF", 10)
+
+
+def test_redraws_when_the_schedule_changes(view):
+    zoom_to(view, "C")
+    assert close_to(pixel(view, node_point(view, "C", 0.55, 0.1)), style.WORK)
+    view.session.push(EditActivity("C", duration=9.0))       # C now drives D: C becomes critical
+    before = [n.x for n in view.layout_result.nodes]
+    assert view.layout_result.nodes[view.layout_result.index_of("C")].critical
+    view.graphics.repaint()
+    assert close_to(pixel(view, node_point(view, "C", 0.55, 0.1)), style.CRITICAL)
+    assert before == [n.x for n in view.layout_result.nodes]
+
+
+def test_hover_marks_predecessors_and_successors(view, qtbot):
+    zoom_to(view, "B")
+    view.fit()
+    view.graphics.repaint()
+    QTest.mouseMove(view.graphics.viewport(), node_point(view, "B"))
+    qtbot.waitUntil(lambda: view.item.painter.hover >= 0, timeout=2000)
+    rows = view.layout_result
+    assert view.item.painter.hover == rows.index_of("B")
+    assert view.item.painter.related == {rows.index_of("A"), rows.index_of("D")}
+
+
+def test_find_by_name_then_by_id(view):
+    view.find_field.setText("cable")
+    view.find_next()
+    assert view.session.selected() == ["B"]
+    view.find_field.setText("d")        # id D first, then names containing "d"
+    view.find_next()
+    assert view.session.selected() == ["D"]
+    view.find_next()
+    assert view.session.selected() == ["A"]   # "Dig trench"
+
+
+def test_export_png_and_svg(view, tmp_path):
+    png, svg = tmp_path / "net.png", tmp_path / "net.svg"
+    view.export_picture(str(png))
+    view.export_picture(str(svg))
+    image = QImage(str(png))
+    assert not image.isNull() and image.width() > image.height() > 0
+    assert "<svg" in svg.read_text(encoding="utf-8")[:2000]
+    with pytest.raises(ValueError, match=r"\.pdf"):
+        view.export_picture(str(tmp_path / "net.pdf"))
+
+
+def test_a_loop_shows_a_message_instead_of_a_drawing(qtbot):
+    plan = small_plan()
+    plan.links.append(Link("D", "A"))
+    v = NetworkView(Session(plan))
+    qtbot.addWidget(v)
+    assert not v.message.isHidden()
+    assert "loop" in v.message.text()
