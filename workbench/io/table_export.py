@@ -57,8 +57,9 @@ def table_rows(analysis) -> list[list]:
 
 
 def guard_csv(text: str) -> str:
-    """Prefix a quote so a spreadsheet shows the text instead of running it."""
-    return "'" + text if text and text[0] in GUARDED else text
+    """Prefix a quote so a spreadsheet shows the text instead of running it (and double a
+    leading quote, so the import can tell the guard from the planner's own quote)."""
+    return "'" + text if text and (text[0] in GUARDED or text[0] == "'") else text
 
 
 def csv_value(value, column: str) -> str:

@@ -30,8 +30,9 @@ Row = tuple[int, list[str]]  # (row number as the spreadsheet shows it, cells)
 
 
 def unguard(text: str) -> str:
-    """Undo the export's formula guard: ``'=x`` → ``=x`` (only before = + - @ tab CR)."""
-    if len(text) > 1 and text[0] == "'" and text[1] in GUARDED:
+    """Undo the CSV export's formula guard: ``'=x`` → ``=x``, ``''x`` → ``'x`` (a quote is
+    removed only before = + - @ tab CR or another quote)."""
+    if len(text) > 1 and text[0] == "'" and (text[1] in GUARDED or text[1] == "'"):
         return text[1:]
     return text
 
@@ -39,8 +40,8 @@ def unguard(text: str) -> str:
 class RowReader:
     """Reads activity rows against one header; collects problems instead of stopping."""
 
-    def __init__(self, cols: Columns, decimal_comma: bool = False):
-        self.cols, self.decimal_comma = cols, decimal_comma
+    def __init__(self, cols: Columns, decimal_comma: bool = False, guarded: bool = True):
+        self.cols, self.decimal_comma, self.guarded = cols, decimal_comma, guarded
         self.problems: list[str] = []
         self.rows: dict[str, int] = {}  # id → row number
         self.activities: list[Activity] = []
@@ -50,7 +51,8 @@ class RowReader:
         i = self.cols.index.get(name)
         if i is None or i >= len(cells):
             return ""
-        return unguard(str(cells[i])).strip()
+        text = str(cells[i])
+        return (unguard(text) if self.guarded else text).strip()
 
     def problem(self, number: int, act_id: str, name: str | None, what: str) -> None:
         where = f", {self.cols.where(name)}" if name else ""
@@ -160,12 +162,14 @@ def _all_ids(rows: list[Row], reader: RowReader) -> set[str]:
 
 
 def build_plan(header: list[str], rows: list[Row], settings: Settings | None = None, *,
-               header_row: int = 1, decimal_comma: bool = False, source: str = "") -> Plan:
-    """A checked plan from a header and numbered rows, or TableImportError with every problem."""
+               header_row: int = 1, decimal_comma: bool = False, guarded: bool = True,
+               source: str = "") -> Plan:
+    """A checked plan from a header and numbered rows, or TableImportError with every problem.
+    ``guarded``: text may carry the CSV export's formula guard (not so in XLSX cells)."""
     cols = map_header(header, header_row)
     if cols.problems:
         raise TableImportError(cols.problems, source)
-    reader = RowReader(cols, decimal_comma)
+    reader = RowReader(cols, decimal_comma, guarded)
     for number, cells in rows:
         reader.read(number, cells)
     links = reader.check_links(_all_ids(rows, reader))

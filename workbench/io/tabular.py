@@ -101,7 +101,8 @@ def read_table_report(path, settings: Settings | None = None) -> tuple[Plan, Imp
     if header_row is None:
         raise TableImportError(["the file is empty" if report.kind == "csv" else "the sheet is empty"], source)
     report.ignored_columns = map_header(header, header_row).ignored
-    plan = build_plan(header, body, settings, header_row=header_row, decimal_comma=decimal_comma, source=source)
+    plan = build_plan(header, body, settings, header_row=header_row, decimal_comma=decimal_comma,
+                      guarded=report.kind == "csv", source=source)
     report.activities, report.links = len(plan), len(plan.links)
     return plan, report
 
