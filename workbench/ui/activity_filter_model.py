@@ -40,17 +40,23 @@ class ActivityFilterModel(QSortFilterProxyModel):
         self.setDynamicSortFilter(True)
 
     # --- filter settings ----------------------------------------------
+    def _change(self, name: str, value) -> None:
+        if hasattr(self, "beginFilterChange"):  # Qt 6.9 and later
+            self.beginFilterChange()
+            setattr(self, name, value)
+            self.endFilterChange(QSortFilterProxyModel.Direction.Rows)
+        else:
+            setattr(self, name, value)
+            self.invalidateFilter()
+
     def set_group(self, group: str) -> None:
-        self._group = group or ""
-        self.invalidateFilter()
+        self._change("_group", group or "")
 
     def set_critical_only(self, on: bool) -> None:
-        self._critical_only = bool(on)
-        self.invalidateFilter()
+        self._change("_critical_only", bool(on))
 
     def set_text(self, text: str) -> None:
-        self._text = (text or "").strip().casefold()
-        self.invalidateFilter()
+        self._change("_text", (text or "").strip().casefold())
 
     def is_filtered(self) -> bool:
         return bool(self._group or self._critical_only or self._text)

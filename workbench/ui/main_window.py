@@ -58,6 +58,8 @@ class MainWindow(QMainWindow):
     def __init__(self, session: Session | None = None, store: RecoveryStore | None = None, parent=None):
         super().__init__(parent)
         self.session = session or Session(Plan())
+        if self.session.parent() is None:
+            self.session.setParent(self)
         self.files = FileController(self.session, self, store)
         self.setWindowIcon(icon("app"))
         self.setAcceptDrops(True)

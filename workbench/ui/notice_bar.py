@@ -26,11 +26,13 @@ class NoticeBar(QFrame):
         layout.setContentsMargins(8, 4, 4, 4)
         layout.addWidget(self.label, 1)
         layout.addWidget(close)
+        self.message = ""
         self.hide()
 
     def show_problem(self, message: str) -> None:
-        self.label.setText(f"<b>Not applied:</b> {html.escape(message)}")
+        self.message = message
+        self.label.setText(f"<b>Not applied:</b> {html.escape(message, quote=False)}")
         self.show()
 
     def text(self) -> str:
-        return self.label.text() if self.isVisible() else ""
+        return "" if self.isHidden() else f"Not applied: {self.message}"
