@@ -10,10 +10,12 @@ Conventions (standard precedence diagramming):
   links or negative lags an activity's own finish can drive the project finish, and
   counting it keeps free float ≤ total float).
 
-Both passes run level by level with numpy: per level one gather, one segmented
-max/min (``reduceat``) and one scatter. A link's effect is folded into one offset between
-the two early starts (see :meth:`Network.link_offsets`), so the backward pass runs on late
-starts with the same offsets.
+Both passes run level by level with numpy over a renumbered copy of the network (see
+:mod:`.network`): per level one gather, one add and one segmented max/min written into
+the level's block. A link's effect is folded into one offset between the two early
+starts (see :meth:`Network.link_offsets`), so the backward pass runs on late starts
+with the same offsets. Re-running with new durations reuses the compiled network, and
+the critical paths when the driving links have not changed.
 """
 
 from __future__ import annotations
@@ -43,6 +45,7 @@ class Schedule:
     deadline: float | None
     paths: list[list[str]] = field(default_factory=list)   # every tied critical path (capped)
     paths_truncated: bool = False
+    graph: tuple | None = field(default=None, repr=False, compare=False)  # critical subgraph
 
     @property
     def ids(self) -> list[str]:
@@ -52,38 +55,73 @@ class Schedule:
         return self.network.ids.index(act_id)
 
 
+def _stack(values: np.ndarray, bounds) -> np.ndarray:
+    """Link values followed by one bound per activity (either may be 1-D or 2-D)."""
+    values, bounds = np.asarray(values, dtype=float), np.asarray(bounds, dtype=float)
+    if values.ndim == 2 and bounds.ndim == 1:
+        bounds = np.broadcast_to(bounds[:, None], (bounds.size, values.shape[1]))
+    elif values.ndim == 1 and bounds.ndim == 2:
+        values = np.broadcast_to(values[:, None], (values.size, bounds.shape[1]))
+    return np.concatenate((values, bounds))
+
+
+def _sweep(steps, work: np.ndarray, entry: np.ndarray, reduce, add: bool) -> np.ndarray:
+    for a, b, lo, hi, seg, far in steps:
+        cand = work.take(far, axis=0)
+        if add:
+            cand += entry[lo:hi]
+        else:
+            cand -= entry[lo:hi]
+        reduce.reduceat(cand, seg, axis=0, out=work[a:b])
+    return work
+
+
+def _work(net: Network, init, trailing) -> np.ndarray:
+    """Renumbered working array with the spare row n set to zero."""
+    work = np.zeros((net.size + 1,) + trailing)
+    if init is not None:
+        work[:net.size] = np.asarray(init, dtype=float)[net.topo]
+    return work
+
+
+def _forward_work(net: Network, offsets: np.ndarray, floor: np.ndarray) -> np.ndarray:
+    entry = _stack(offsets, floor)
+    work = _work(net, floor, entry.shape[1:])
+    return _sweep(net.forward.steps, work, entry[net.forward.idx], np.maximum, True)
+
+
+def _backward_work(net: Network, offsets: np.ndarray, ceiling: np.ndarray) -> np.ndarray:
+    entry = _stack(offsets, -np.asarray(ceiling, dtype=float))
+    work = _work(net, None, entry.shape[1:])
+    return _sweep(net.backward.steps, work, entry[net.backward.idx], np.minimum, False)
+
+
 def forward(net: Network, offsets: np.ndarray, floor: np.ndarray) -> np.ndarray:
     """Early starts: ES_j = max(floor_j, max over links (ES_i + offset))."""
-    es = floor.copy()
-    p = net.forward
-    off = offsets[p.order]
-    for lo, hi, nodes, starts in p.levels:
-        cand = es[p.far[lo:hi]] + off[lo:hi]
-        best = np.maximum.reduceat(cand, starts, axis=0)
-        es[nodes] = np.maximum(best, es[nodes])
-    return es
+    return _forward_work(net, offsets, floor)[net.rank]
 
 
 def backward(net: Network, offsets: np.ndarray, ceiling: np.ndarray) -> np.ndarray:
     """Late starts: LS_i = min(ceiling_i, min over links (LS_j − offset))."""
-    ls = ceiling.copy()
+    return _backward_work(net, offsets, ceiling)[net.rank]
+
+
+def _free_float(net: Network, es_work: np.ndarray, offsets: np.ndarray, d: np.ndarray, finish: float):
+    """Smallest slack over outgoing links and project finish − EF, per activity."""
     p = net.backward
-    off = offsets[p.order]
-    for lo, hi, nodes, starts in p.levels:
-        cand = ls[p.far[lo:hi]] - off[lo:hi]
-        best = np.minimum.reduceat(cand, starts, axis=0)
-        ls[nodes] = np.minimum(best, ls[nodes])
-    return ls
+    es_work[net.size] = finish          # a bound entry reads finish − ES − d = finish − EF
+    slack = es_work.take(p.far) - es_work.take(p.near) - _stack(offsets, d)[p.idx]
+    es_work[net.size] = 0.0
+    ff = np.empty(net.size)
+    if net.size:
+        ff[p.origin] = np.minimum.reduceat(slack, p.starts)
+    return ff
 
 
 def free_float(net: Network, es: np.ndarray, ef: np.ndarray, offsets: np.ndarray, finish) -> np.ndarray:
-    ff = finish - ef
-    p = net.by_src
-    if p.order.size:
-        slack = es[p.far] - es[p.near] - offsets[p.order]
-        lo, hi, nodes, starts = p.levels[0]
-        ff[nodes] = np.minimum(np.minimum.reduceat(slack, starts, axis=0), ff[nodes])
-    return ff
+    """Free float from early dates in plan order (see :func:`_free_float`)."""
+    work = _work(net, es, ())
+    return _free_float(net, work, offsets, np.asarray(ef) - np.asarray(es), float(finish))
 
 
 class Analyzer:
@@ -94,6 +132,7 @@ class Analyzer:
         n = net.size
         self.floor = np.zeros(n) if floor is None else np.maximum(np.asarray(floor, float), 0.0)
         self.fnlt = np.full(n, np.inf) if fnlt is None else np.asarray(fnlt, float)
+        self._cache: tuple | None = None   # (driving links, critical flags, graph, paths, truncated)
 
     @classmethod
     def for_plan(cls, plan, calendar=None) -> "Analyzer":
@@ -111,21 +150,31 @@ class Analyzer:
         net = self.net
         d = np.asarray(durations, dtype=float)
         offsets = net.link_offsets(d)
-        es = forward(net, offsets, self.floor)
+        es_work = _forward_work(net, offsets, self.floor)
+        es = es_work[net.rank]
         ef = es + d
         finish = float(ef.max()) if ef.size else 0.0
         ref = finish if deadline is None else float(deadline)
-        ceiling = np.minimum(ref, self.fnlt) - d
-        ls = backward(net, offsets, ceiling)
-        lf = ls + d
+        ls = _backward_work(net, offsets, np.minimum(ref, self.fnlt) - d)[net.rank]
         tf = ls - es
-        ff = free_float(net, es, ef, offsets, finish)
+        ff = _free_float(net, es_work, offsets, d, finish)
         critical = tf <= (ref - finish) + EPS
-        sched = Schedule(net, d, es, ef, ls, lf, tf, ff, critical, finish,
+        sched = Schedule(net, d, es, ef, ls, ls + d, tf, ff, critical, finish,
                          None if deadline is None else float(deadline))
         if paths:
-            sched.paths, sched.paths_truncated = critical_paths(sched, offsets)
+            self._critical(sched, offsets)
         return sched
+
+    def _critical(self, sched: Schedule, offsets: np.ndarray) -> None:
+        """Critical subgraph and paths, reused while the driving links stay the same."""
+        driving = driving_links(sched, offsets)
+        c = self._cache
+        if c is None or not (np.array_equal(c[0], driving) and np.array_equal(c[1], sched.critical)):
+            graph = _critical_graph(sched, offsets, driving)
+            found, cut = critical_paths(sched, offsets, graph=graph)
+            c = self._cache = (driving, sched.critical.copy(), graph, found, cut)
+        sched.graph = c[2]
+        sched.paths, sched.paths_truncated = list(c[3]), c[4]
 
 
 def _resolve(calendar, value, finish: bool) -> float:
@@ -143,32 +192,32 @@ def driving_links(sched: Schedule, offsets: np.ndarray) -> np.ndarray:
     return np.flatnonzero((np.abs(slack) <= EPS) & sched.critical[net.src] & sched.critical[net.dst])
 
 
-def _critical_graph(sched: Schedule, offsets: np.ndarray):
+def _critical_graph(sched: Schedule, offsets: np.ndarray, driving=None):
     net = sched.network
+    if driving is None:
+        driving = driving_links(sched, offsets)
     succ: dict[int, list[int]] = {}
     has_pred: set[int] = set()
-    for k in driving_links(sched, offsets):
-        s, t = int(net.src[k]), int(net.dst[k])
+    for s, t in zip(net.src[driving].tolist(), net.dst[driving].tolist()):
         lst = succ.setdefault(s, [])
         if t not in lst:
             lst.append(t)
         has_pred.add(t)
     crit = np.flatnonzero(sched.critical)
+    pos = net.rank
     # Start where nothing critical drives the activity, in topological order.
-    pos = np.empty(net.size, dtype=np.int64)
-    pos[net.topo] = np.arange(net.size)
-    starts = sorted((int(i) for i in crit if int(i) not in has_pred), key=lambda i: pos[i])
+    starts = sorted((i for i in crit.tolist() if i not in has_pred), key=lambda i: pos[i])
     return succ, starts, pos
 
 
-def critical_paths(sched: Schedule, offsets: np.ndarray, limit: int = MAX_PATHS):
+def critical_paths(sched: Schedule, offsets: np.ndarray, limit: int = MAX_PATHS, graph=None):
     """Every critical path as an ordered list of ids (at most ``limit``; flag if more).
 
     Depth-first with one shared path (no copying per step), so a 100,000-long chain
     costs linear time; each branch ends at the project finish, so the walk stops after
     ``limit`` paths.
     """
-    succ, starts, pos = _critical_graph(sched, offsets)
+    succ, starts, pos = graph or _critical_graph(sched, offsets)
     children = {s: sorted(t, key=lambda i: pos[i]) for s, t in succ.items()}
     ids = sched.network.ids
     paths: list[list[str]] = []
@@ -193,23 +242,31 @@ def critical_paths(sched: Schedule, offsets: np.ndarray, limit: int = MAX_PATHS)
 def max_weight_path(sched: Schedule, weights: np.ndarray) -> list[str]:
     """The critical path with the largest total weight (e.g. PERT variance), by dynamic
     programming over the critical subgraph (no enumeration, so no blow-up on ties)."""
+    return [sched.network.ids[i] for i in max_weight_indices(sched, weights)]
+
+
+def max_weight_indices(sched: Schedule, weights: np.ndarray) -> list[int]:
+    """:func:`max_weight_path` as activity indices."""
     net = sched.network
-    offsets = net.link_offsets(sched.durations)
-    succ, starts, pos = _critical_graph(sched, offsets)
-    crit = sorted((int(i) for i in np.flatnonzero(sched.critical)), key=lambda i: -pos[i])
+    if sched.graph is None:
+        sched.graph = _critical_graph(sched, net.link_offsets(sched.durations))
+    succ, starts, pos = sched.graph
+    if not starts:
+        return []
+    w = np.asarray(weights, dtype=float).tolist()
+    rank = pos
+    crit = sorted(np.flatnonzero(sched.critical).tolist(), key=lambda i: -rank[i])
     best: dict[int, float] = {}
     nxt: dict[int, int | None] = {}
     for node in crit:  # reverse topological: successors first
-        options = [(best[t], t) for t in succ.get(node, []) if t in best]
+        options = [(round(best[t], 9), -rank[t], t) for t in succ.get(node, ()) if t in best]
         if options:
-            val, t = max(options, key=lambda o: (round(o[0], 9), -pos[o[1]]))
-            best[node], nxt[node] = weights[node] + val, t
+            val, _, t = max(options)
+            best[node], nxt[node] = w[node] + best[t], t
         else:
-            best[node], nxt[node] = float(weights[node]), None
-    if not starts:
-        return []
-    head = max(starts, key=lambda s: (round(best[s], 9), -pos[s]))
+            best[node], nxt[node] = w[node], None
+    head = max(starts, key=lambda s: (round(best[s], 9), -rank[s]))
     path = [head]
     while nxt[path[-1]] is not None:
         path.append(nxt[path[-1]])
-    return [net.ids[i] for i in path]
+    return path

@@ -1,6 +1,12 @@
 """Compile a plan's links into arrays processed level by level (topological generations).
 
-Everything here is vectorised with numpy; a 100,000-activity chain is handled without
+Nodes are renumbered once in topological order (by longest-path level), so each level's
+activities occupy one contiguous block of the working arrays: a pass over a level is one
+gather, one add and one segmented max/min written straight into that block. Each
+activity also gets one "bound" entry (its floor going forward, its ceiling going
+backward) read from a spare row at index n, so no separate clamp is needed.
+
+Everything is vectorised with numpy; a 100,000-activity chain is handled without
 recursion. Cycles are reported as the loop in order.
 """
 
@@ -20,12 +26,20 @@ DST_FINISH = np.array([0.0, 0.0, 1.0, 1.0])
 
 @dataclass
 class Pass:
-    """Links of one sweep sorted by level; per level, the nodes updated and segment starts."""
+    """Entries of one sweep (links plus one bound per activity), grouped by the activity
+    they update. ``idx`` points into ``concatenate([link values, per-activity bounds])``;
+    ``far``/``near`` are renumbered nodes (``far`` = n for a bound entry).
+    ``steps`` per level: (first node, end node, entry lo, entry hi, segment starts, far slice);
+    ``levels`` the same as (lo, hi, original node ids, segment starts)."""
 
-    order: np.ndarray          # permutation of link indices
-    near: np.ndarray           # the node updated (dst forward, src backward), per sorted link
-    far: np.ndarray            # the node read, per sorted link
-    levels: list[tuple[int, int, np.ndarray, np.ndarray]]  # (lo, hi, nodes, segment starts)
+    idx: np.ndarray
+    near: np.ndarray
+    far: np.ndarray
+    starts: np.ndarray          # segment start of each updated node, in ``nodes`` order
+    nodes: np.ndarray           # renumbered nodes in the order their segments appear
+    origin: np.ndarray          # the same nodes as original indices
+    steps: list[tuple]
+    levels: list[tuple[int, int, np.ndarray, np.ndarray]]
 
 
 @dataclass
@@ -36,11 +50,11 @@ class Network:
     lag: np.ndarray
     src_fin: np.ndarray
     dst_fin: np.ndarray
-    topo: np.ndarray           # nodes in a topological order
-    level: np.ndarray
+    topo: np.ndarray           # nodes in a topological order (by level, then index)
+    rank: np.ndarray           # position of each node in ``topo`` (its renumbered index)
+    level: np.ndarray          # longest-path level (links from the sources)
     forward: Pass
     backward: Pass
-    by_src: Pass               # links grouped by predecessor (free float), one level
 
     @property
     def size(self) -> int:
@@ -59,58 +73,99 @@ class Network:
         return (self.lag[:, None] + d_src * self.src_fin[:, None] - d_dst * self.dst_fin[:, None])
 
 
+def _ranges(lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
+    """Concatenation of arange(lo[k], hi[k]) for all k."""
+    count = hi - lo
+    total = int(count.sum())
+    shift = np.repeat(lo - (np.cumsum(count) - count), count)
+    return shift + np.arange(total)
+
+
 def _levels(n: int, src: np.ndarray, dst: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
-    """Longest-path level of each node by frontier sweeps; -1 marks nodes on or behind a cycle."""
+    """Longest-path level of each node by frontier sweeps (work proportional to the links
+    leaving each frontier); -1 marks nodes on or behind a cycle."""
     level = np.full(n, -1, dtype=np.int64)
+    out = dst[np.argsort(src, kind="stable")]
+    starts = np.zeros(n + 1, dtype=np.int64)
+    np.cumsum(np.bincount(src, minlength=n), out=starts[1:])
     indeg = np.bincount(dst, minlength=n)
-    order = np.argsort(src, kind="stable")
-    starts = np.searchsorted(src[order], np.arange(n + 1))
     frontier = np.flatnonzero(indeg == 0)
-    topo_parts = []
-    depth = 0
+    parts, depth = [], 0
     while frontier.size:
         level[frontier] = depth
-        topo_parts.append(frontier)
-        lo, hi = starts[frontier], starts[frontier + 1]
-        count = hi - lo
-        if count.sum() == 0:
-            break
-        idx = np.repeat(lo - np.concatenate(([0], np.cumsum(count)[:-1])), count) + np.arange(count.sum())
-        targets = dst[order[idx]]
-        dec = np.bincount(targets, minlength=n)
-        before = indeg
-        indeg = indeg - dec
-        frontier = np.flatnonzero((indeg == 0) & (before > 0))
+        parts.append(frontier)
+        if frontier.size == 1:
+            f = int(frontier[0])
+            targets = out[starts[f]:starts[f + 1]]
+        else:
+            targets = out[_ranges(starts[frontier], starts[frontier + 1])]
+        if targets.size == 1:               # a chain: stay scalar
+            t = int(targets[0])
+            indeg[t] -= 1
+            frontier = targets if indeg[t] == 0 else targets[:0]
+        else:
+            uniq, count = np.unique(targets, return_counts=True)
+            indeg[uniq] -= count
+            frontier = uniq[indeg[uniq] == 0]
         depth += 1
-    topo = np.concatenate(topo_parts) if topo_parts else np.empty(0, dtype=np.int64)
+    topo = np.concatenate(parts) if parts else np.empty(0, dtype=np.int64)
     return level, topo
 
 
 def _find_loop(ids: list[str], src: np.ndarray, dst: np.ndarray, stuck: np.ndarray) -> list[str]:
+    """One loop among the stuck nodes, in link order, starting at its earliest plan row."""
     import networkx as nx
 
     graph = nx.DiGraph()
     mask = stuck[src] & stuck[dst]
     graph.add_edges_from(zip(src[mask].tolist(), dst[mask].tolist()))
-    edges = nx.find_cycle(graph)
-    loop = [ids[u] for u, _ in edges]
+    nodes = [u for u, _ in nx.find_cycle(graph)]
+    first = nodes.index(min(nodes))     # start at the activity listed first in the plan
+    loop = [ids[u] for u in nodes[first:] + nodes[:first]]
     return loop + [loop[0]]
 
 
-def _make_pass(near: np.ndarray, far: np.ndarray, key: np.ndarray) -> Pass:
-    """Sort links by (key of the near node, near node) and cut them into level segments."""
-    order = np.lexsort((near, key[near]))
-    near_s, far_s = near[order], far[order]
-    lv = key[near_s]
-    levels = []
-    if order.size:
-        cuts = np.flatnonzero(np.diff(lv)) + 1
-        bounds = np.concatenate(([0], cuts, [order.size]))
-        node_change = np.concatenate(([True], near_s[1:] != near_s[:-1]))
-        for lo, hi in zip(bounds[:-1], bounds[1:]):
-            seg = np.flatnonzero(node_change[lo:hi])
-            levels.append((int(lo), int(hi), near_s[lo + seg], seg))
-    return Pass(order, near_s, far_s, levels)
+def _make_pass(near: np.ndarray, far: np.ndarray, idx: np.ndarray, position: np.ndarray,
+               blocks: list[tuple[int, int]], topo: np.ndarray) -> Pass:
+    """Group entries by ``position[near]``, the order nodes are updated in; ``blocks``
+    lists each level's renumbered node range [a, b) in that order (positions follow on)."""
+    order = np.argsort(position[near], kind="stable")
+    near, far, idx = near[order], far[order], idx[order]
+    total = sum(b - a for a, b in blocks)
+    counts = np.bincount(position[near], minlength=total)
+    starts = np.cumsum(counts) - counts
+    bounds = np.append(starts, near.size)
+    lo_hi = np.array(blocks, dtype=np.int64).reshape(-1, 2)
+    nodes = _ranges(lo_hi[:, 0], lo_hi[:, 1])
+    steps, levels, k = [], [], 0
+    for a, b in blocks:
+        lo, hi = int(bounds[k]), int(bounds[k + b - a])
+        seg = starts[k:k + b - a] - lo
+        steps.append((a, b, lo, hi, seg, far[lo:hi]))
+        levels.append((lo, hi, topo[a:b], seg))
+        k += b - a
+    return Pass(idx, near, far, starts, nodes, topo[nodes], steps, levels)
+
+
+def _passes(n: int, m: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, level: np.ndarray):
+    rank = np.empty(n, dtype=np.int64)
+    rank[topo] = np.arange(n)
+    per_level = np.bincount(level) if n else np.zeros(0, dtype=np.int64)
+    edges = np.concatenate(([0], np.cumsum(per_level)))
+    blocks = [(int(a), int(b)) for a, b in zip(edges[:-1], edges[1:])]
+    links = np.arange(m, dtype=np.int64)
+    n0 = blocks[0][1] if blocks else 0
+    later = np.arange(n0, n, dtype=np.int64)
+    fwd = _make_pass(np.concatenate((rank[dst], later)), np.concatenate((rank[src], np.full(n - n0, n))),
+                     np.concatenate((links, m + topo[n0:])), np.arange(n, dtype=np.int64) - n0,
+                     blocks[1:], topo)
+    lvl = level[topo]                     # renumbered nodes' levels, non-decreasing
+    back_order = np.lexsort((np.arange(n), -lvl))
+    back_pos = np.empty(n, dtype=np.int64)
+    back_pos[back_order] = np.arange(n)
+    bwd = _make_pass(np.concatenate((rank[src], np.arange(n))), np.concatenate((rank[dst], np.full(n, n))),
+                     np.concatenate((links, m + topo)), back_pos, blocks[::-1], topo)
+    return rank, fwd, bwd
 
 
 def compile_network(ids: list[str], src: np.ndarray, dst: np.ndarray, lag: np.ndarray,
@@ -126,15 +181,12 @@ def compile_network(ids: list[str], src: np.ndarray, dst: np.ndarray, lag: np.nd
     level, topo = _levels(n, src, dst)
     if topo.size < n:
         raise CycleError(_find_loop(ids, src, dst, level < 0))
-    rlevel, _ = _levels(n, dst, src)
-    empty = np.zeros(0, dtype=np.int64)
+    rank, fwd, bwd = _passes(n, src.size, src, dst, topo, level)
     return Network(
         ids=list(ids), src=src, dst=dst, lag=np.asarray(lag, dtype=float),
-        src_fin=SRC_FINISH[types] if types.size else np.zeros(0), dst_fin=DST_FINISH[types] if types.size else np.zeros(0),
-        topo=topo, level=level,
-        forward=_make_pass(dst, src, level),
-        backward=_make_pass(src, dst, rlevel),
-        by_src=_make_pass(src, dst, np.zeros(n, dtype=np.int64)) if n else Pass(empty, empty, empty, []),
+        src_fin=SRC_FINISH[types] if types.size else np.zeros(0),
+        dst_fin=DST_FINISH[types] if types.size else np.zeros(0),
+        topo=topo, rank=rank, level=level, forward=fwd, backward=bwd,
     )
 
 

@@ -10,6 +10,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
+import numpy as np
 from scipy.stats import norm
 
 
@@ -61,11 +62,11 @@ class PertOdds:
 
 def pert_odds(schedule, variances) -> PertOdds:
     """Odds for a schedule computed on PERT means; ``variances`` per activity (array)."""
-    from .cpm import max_weight_path
+    from .cpm import max_weight_indices
 
-    path = max_weight_path(schedule, variances)
-    index = {a: i for i, a in enumerate(schedule.ids)}
-    var = float(sum(variances[index[a]] for a in path))
+    chosen = max_weight_indices(schedule, variances)
+    path = [schedule.ids[i] for i in chosen]
+    var = float(np.sum(np.asarray(variances, dtype=float)[chosen])) if chosen else 0.0
     tied = max(1, len(schedule.paths))
     note = ""
     if tied > 1:
