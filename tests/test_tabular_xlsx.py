@@ -219,3 +219,18 @@ def test_wrong_size_tag_in_sheet_does_not_cut_off_data(tmp_path):
             dst.writestr(item, data)
     plan = read_table(patched)
     assert plan.ids() == ["A", "B"] and plan.links == [Link("A", "B")]
+
+
+def test_failed_export_keeps_the_previous_table(tmp_path, kiosk, monkeypatch):
+    path = export_table(analyze(kiosk), tmp_path / "k.csv")
+    before = path.read_bytes()
+    from workbench.io import tabular
+
+    def broken(rows, target):
+        Path(target).write_text("half")
+        raise OSError(28, "No space left on device")
+
+    monkeypatch.setattr(tabular, "write_csv", broken)
+    with pytest.raises(Exception, match="could not write .*No space left"):
+        export_table(analyze(kiosk), path)
+    assert path.read_bytes() == before and sorted(p.name for p in tmp_path.iterdir()) == ["k.csv"]

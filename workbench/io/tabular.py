@@ -11,7 +11,9 @@ case-insensitive, with aliases: see :mod:`table_columns`). Unknown columns are i
 
 from __future__ import annotations
 
+import os
 from dataclasses import dataclass, field
+from functools import partial
 from pathlib import Path
 
 from workbench.core.errors import PlanError
@@ -113,16 +115,27 @@ def read_table(path, settings: Settings | None = None) -> Plan:
 
 
 def export_table(analysis, path) -> Path:
-    """Write the plan and its computed schedule to ``.csv`` (UTF-8 with BOM) or ``.xlsx``."""
+    """Write the plan and its computed schedule to ``.csv`` (UTF-8 with BOM) or ``.xlsx``.
+
+    Written to a temporary file first and renamed into place, so a failed export never
+    leaves a half-written table where a good one was."""
     path = Path(path)
-    rows = table_rows(analysis)
     suffix = path.suffix.lower()
     if suffix in XLSX_SUFFIXES:
-        write_xlsx(rows, path, analysis.plan.settings.title)
+        write = partial(write_xlsx, title=analysis.plan.settings.title)
     elif suffix in CSV_SUFFIXES:
-        write_csv(rows, path)
+        write = write_csv
     else:
         raise PlanError(f"{path.name}: export writes .csv or .xlsx, not {suffix or 'a file without extension'}", "path")
+    rows = table_rows(analysis)
+    tmp = path.with_name(f".{path.name}.{os.getpid()}.tmp")
+    try:
+        write(rows, tmp)
+        os.replace(tmp, path)
+    except OSError as exc:
+        raise PlanError(f"could not write {path}: {exc.strerror or exc}", "path") from exc
+    finally:
+        tmp.unlink(missing_ok=True)
     return path
 
 
