@@ -250,3 +250,11 @@ def test_comma_file_does_not_read_decimal_commas(tmp_path):
 def test_bad_constraint_date(tmp_path):
     (line,) = problems_of(write(tmp_path, "id,duration,not before\nA,1,2026-02-30\n"))
     assert "row 2, activity A, column C 'not before'" in line and "not a valid date" in line
+
+
+def test_title_lines_above_the_header_are_skipped(tmp_path):
+    path = write(tmp_path, "Harbour works; phase 2\nexported by the site office\n\nid;name;duration;preds\nA;Dig;1;\nB;Fill;2,5;A\nC;x;y;\n")
+    (line,) = problems_of(path)
+    assert line == "row 7, activity C, column C 'duration': 'y' is not a number"
+    plan = read_table(write(tmp_path, "Harbour works; phase 2\n\nid;name;duration;preds\nA;Dig;1;\nB;Fill;2,5;A\n"))
+    assert plan.ids() == ["A", "B"] and plan.activity("B").duration == 2.5 and plan.links == [Link("A", "B")]

@@ -3,8 +3,8 @@
 Encoding: a UTF-8 byte-order mark → ``utf-8-sig``; a UTF-16 mark → ``utf-16``; text
 that decodes as UTF-8 → ``utf-8``; anything else → ``cp1252`` (the usual spreadsheet
 export on Western Windows machines), which the import report says it used.
-Delimiter: whichever of ``,`` ``;`` tab occurs most in the first non-blank line outside
-quotes (ties favour the comma).
+Delimiter: whichever of ``,`` ``;`` tab occurs most outside quotes in the first ten
+non-blank lines (ties favour the comma).
 """
 
 from __future__ import annotations
@@ -65,8 +65,8 @@ def _count_outside_quotes(line: str, delimiter: str) -> int:
 
 
 def sniff_delimiter(text: str) -> str:
-    first = next((line for line in text.splitlines() if line.strip()), "")
-    counts = [(_count_outside_quotes(first, d), -i, d) for i, d in enumerate(DELIMITERS)]
+    lines = [line for line in text[:65536].splitlines() if line.strip()][:10]
+    counts = [(sum(_count_outside_quotes(line, d) for line in lines), -i, d) for i, d in enumerate(DELIMITERS)]
     best = max(counts)
     return best[2] if best[0] > 0 else ","
 

@@ -22,7 +22,7 @@ from workbench.core.model import Plan, Settings
 from .csv_text import DELIMITER_NAMES, csv_rows, decode, looks_binary, sniff_delimiter
 from .errors import TableImportError
 from .predecessors import format_predecessors, parse_predecessors
-from .table_columns import map_header
+from .table_columns import LOOKUP, map_header, normalise
 from .table_export import table_rows, write_csv, write_xlsx
 from .table_rows import build_plan, rows_to_plan
 from .xlsx_safe import read_xlsx
@@ -65,12 +65,20 @@ def _read_bytes(path: Path, source: str) -> bytes:
         raise TableImportError([f"cannot read {path}: {exc.strerror or exc}"], source) from exc
 
 
+def _is_header(cells) -> bool:
+    known = [LOOKUP.get(normalise(c)) for c in cells if str(c).strip()]
+    return "id" in known and len([k for k in known if k]) >= 2
+
+
 def _header_and_rows(rows):
-    """The first non-blank row is the header; the rest are numbered activity rows."""
-    for k, (number, cells) in enumerate(rows):
-        if any(str(c).strip() for c in cells):
-            return number, cells, rows[k + 1:]
-    return None, [], []
+    """The header is the first of the first ten non-blank rows that names an id column
+    and another known column (title lines above it are skipped), else the first
+    non-blank row. Returns (header row number, header cells, rows below it)."""
+    filled = [k for k, (_, cells) in enumerate(rows) if any(str(c).strip() for c in cells)]
+    if not filled:
+        return None, [], []
+    k = next((k for k in filled[:10] if _is_header(rows[k][1])), filled[0])
+    return rows[k][0], rows[k][1], rows[k + 1:]
 
 
 def _csv_table(path: Path, raw: bytes, source: str, report: ImportReport):
