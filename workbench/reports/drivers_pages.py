@@ -28,11 +28,12 @@ def drivers_pages(ctx, frame: tuple[float, float]) -> list:
     crit = dg.criticality_bars(sim, ctx.plan, TOP)
     sens = dg.sensitivity_bars(sim, ctx.plan, TOP)
     critical = set(ctx.analysis.pert.path)
-    paint = lambda c, w, h: _paint(c, w, h, crit, sens, critical)
+    paint = lambda c, w, h: paint_drivers(c, w, h, crit, sens, critical)
     return story + [ChartFlowable(width, height - HEADING_SPACE, paint)]
 
 
-def _paint(c, w: float, h: float, crit, sens, critical: set[str]) -> None:
+def paint_drivers(c, w: float, h: float, crit, sens, critical: set[str]) -> None:
+    """Criticality (left) and the sensitivity tornado (right) side by side in w × h points."""
     half = (w - 20) / 2
     _panel(c, (0, h, half), crit, False, "Criticality index: share of runs on the critical path", critical)
     _panel(c, (half + 20, h, half), sens, True, "Sensitivity: correlation of duration with the finish", critical)

@@ -40,13 +40,19 @@ def _occupied(layout, view: View) -> bool:
     return bool(inside.any())
 
 
+def overview_view(layout, width: float, height: float) -> View:
+    """The whole diagram fitted into width × height points, centred vertically."""
+    total_w, total_h = layout.width + 2 * MARGIN_UNITS, layout.height + 2 * MARGIN_UNITS
+    fit = min(width / total_w, height / total_h, 1.0)
+    return View(-MARGIN_UNITS, layout.height / 2 - height / fit / 2, total_w, height / fit, fit)
+
+
 def network_pages(ctx, frame: tuple[float, float]) -> list:
     layout = layout_plan(ctx.plan, ctx.analysis)
     width, height = frame
     chart_h = height - HEADING_SPACE - NOTE_SPACE
-    total_w, total_h = layout.width + 2 * MARGIN_UNITS, layout.height + 2 * MARGIN_UNITS
-    fit = min(width / total_w, chart_h / total_h, 1.0)
-    overview = View(-MARGIN_UNITS, layout.height / 2 - chart_h / fit / 2, total_w, chart_h / fit, fit)
+    overview = overview_view(layout, width, chart_h)
+    fit = overview.scale
     story = new_page(LANDSCAPE) + [Section("Network", "network"), Paragraph("Network", styles.H1),
                                    ChartFlowable(width, chart_h, NetworkPainter(ctx, layout, overview).paint),
                                    Paragraph(_note(fit), styles.SMALL)]

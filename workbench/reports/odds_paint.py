@@ -47,6 +47,10 @@ class OddsPainter:
         pert, sim = ctx.analysis.pert, ctx.simulation
         self.lo, self.hi = og.axis_span(pert, sim, extra=(question.d1,))
 
+    def offset_at(self, x: float, w: float) -> float:
+        """The offset under a horizontal position in a chart w points wide (the panels' mapping)."""
+        return self.lo + (x - LEFT) / max(w - LEFT - 6, 1e-9) * (self.hi - self.lo)
+
     def paint(self, c, w: float, h: float) -> None:
         sim = self.ctx.simulation
         body = h - LEGEND_H - 4
