@@ -312,15 +312,24 @@ class ComparisonRow:
     kind: str  # "offset" or "probability"
 
 
-def comparison_rows(odds, result, question: Question) -> list[ComparisonRow]:
-    """PERT next to simulation: mean, P50, P80, P90 and the question's probability."""
+def offset_rows(odds, result) -> list[ComparisonRow]:
+    """PERT next to simulation: mean finish, P50, P80, P90 (offsets)."""
     rows = [ComparisonRow("Mean finish", float(odds.mean), float(np.mean(result.finish)), "offset")]
     for name in MARKERS:
         p = int(name[1:]) / 100.0
         rows.append(ComparisonRow(name, pert_offset_at(odds, p), sim_offset_at(result, p), "offset"))
-    label = {"by": "P(finish by)", "after": "P(finish after)", "between": "P(finish between)"}[question.mode]
-    rows.append(ComparisonRow(label, pert_probability(odds, question), sim_probability(result, question), "probability"))
     return rows
+
+
+def question_row(odds, result, question: Question) -> ComparisonRow:
+    """PERT next to simulation: the question's probability."""
+    label = {"by": "P(finish by)", "after": "P(finish after)", "between": "P(finish between)"}[question.mode]
+    return ComparisonRow(label, pert_probability(odds, question), sim_probability(result, question), "probability")
+
+
+def comparison_rows(odds, result, question: Question) -> list[ComparisonRow]:
+    """The whole comparison: mean, P50, P80, P90 and the question's probability."""
+    return offset_rows(odds, result) + [question_row(odds, result, question)]
 
 
 def comparison_cells(rows, calendar, unit: str) -> list[tuple[str, str, str]]:

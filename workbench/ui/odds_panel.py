@@ -109,19 +109,31 @@ class OddsPanel(QWidget):
         lay.addStretch(1)
 
     def set_table(self, cells, unit: str = "") -> None:
-        self.table.setHorizontalHeaderLabels([f"(offsets in {unit})" if unit else "", "PERT", "Simulation"])
-        self.table.setRowCount(len(cells))
+        """Fill the comparison; only texts change when the shape stays the same (drags)."""
+        header = f"(offsets in {unit})" if unit else ""
+        if self.table.horizontalHeaderItem(0) is None or self.table.horizontalHeaderItem(0).text() != header:
+            self.table.setHorizontalHeaderLabels([header, "PERT", "Simulation"])
+        if self.table.rowCount() != len(cells):
+            self._reshape(len(cells))
         for r, row in enumerate(cells):
             for c, text in enumerate(row):
-                item = QTableWidgetItem(text)
+                item = self.table.item(r, c)
+                if item.text() != text:
+                    item.setText(text)
+
+    def _reshape(self, rows: int) -> None:
+        self.table.setRowCount(rows)
+        for r in range(rows):
+            for c in range(3):
+                item = QTableWidgetItem("")
                 if c == 0:
                     font = item.font()
                     font.setBold(True)
                     item.setFont(font)
                 self.table.setItem(r, c, item)
         self.table.resizeRowsToContents()
-        rows = sum(self.table.rowHeight(r) for r in range(len(cells)))
-        self.table.setFixedHeight(self.table.horizontalHeader().height() + rows + 6)
+        height = sum(self.table.rowHeight(r) for r in range(rows))
+        self.table.setFixedHeight(self.table.horizontalHeader().height() + height + 6)
 
     def mark_preset(self, probability: float) -> None:
         for button in self.presets.buttons():

@@ -32,6 +32,7 @@ class OddsView(QWidget):
         self._generation = 0      # counts plan changes, to spot runs overtaken by edits
         self._run_generation = -1
         self._deadline_seen = object()
+        self._offset_rows, self._answer_dates = [], ("", "")
         self._build()
         self._connect()
         self.refresh()
@@ -113,7 +114,12 @@ class OddsView(QWidget):
     def _show_simulation(self) -> None:
         if self.analysis is None:
             return
-        self.sim_fig = fo.sim_figure(self.result) if self.result is not None else None
+        a, r = self.analysis, self.result
+        self.sim_fig = fo.sim_figure(r) if r is not None else None
+        self._offset_rows = fo.offset_rows(a.pert, r) if r is not None else []
+        unit = a.plan.settings.unit
+        self.panel.merge_note.setText(fo.merge_bias_note(a.pert, r, unit) if r is not None
+                                      else "Run a simulation to compare PERT with it.")
         self.plot.show_sim(self.sim_fig, self.stale)
         self.plot.fit_y(self.sim_fig is not None)
         self.panel.compare_box.setEnabled(self.result is not None and not self.stale)
@@ -170,12 +176,10 @@ class OddsView(QWidget):
         self.panel.readout.setText("<br>".join(fo.readout_lines(a.pert, q, a.calendar, unit)))
         self._sim_readout(q)
         if self.result is not None:
-            rows = fo.comparison_rows(a.pert, self.result, q)
+            rows = self._offset_rows + [fo.question_row(a.pert, self.result, q)]
             self.panel.set_table(fo.comparison_cells(rows, a.calendar, unit), unit)
-            self.panel.merge_note.setText(fo.merge_bias_note(a.pert, self.result, unit))
         else:
             self.panel.set_table([])
-            self.panel.merge_note.setText("Run a simulation to compare PERT with it.")
         self._headline(q)
 
     def _marker_labels(self, q: fo.Question) -> tuple[str, str]:
@@ -204,8 +208,7 @@ class OddsView(QWidget):
         pert = f"{100 * fo.pert_probability(a.pert, q):.1f} %"
         sim = self._sim_percent(q)
         p = round(100 * self.confidence, 1)
-        d_pert = fo.format_date(fo.date_of(a.calendar, fo.pert_offset_at(a.pert, self.confidence)))
-        d_sim = self._sim_date()
+        d_pert, d_sim = self._answer_dates
         self.panel.headline.setText(
             f"{text}<br><span style='color:#000'>PERT {pert} &nbsp;·&nbsp; simulation {sim}</span>"
             f"<br>{p:g} % date: PERT {d_pert} &nbsp;·&nbsp; simulation {d_sim}")
@@ -215,12 +218,10 @@ class OddsView(QWidget):
             return "not run"
         return "stale" if self.stale else f"{100 * fo.sim_probability(self.result, q):.1f} %"
 
-    def _sim_date(self) -> str:
+    def _sim_date(self, sim_x) -> str:
         if self.result is None:
             return "not run"
-        if self.stale:
-            return "stale"
-        return fo.format_date(fo.date_of(self.analysis.calendar, fo.sim_offset_at(self.result, self.confidence)))
+        return "stale" if self.stale else fo.format_date(fo.date_of(self.analysis.calendar, sim_x))
 
     # --- the inverse question -----------------------------------------------
     def ask_confidence(self, text: str) -> None:
@@ -248,6 +249,7 @@ class OddsView(QWidget):
         labels = (f"PERT {pct}: {fo.format_date(fo.date_of(a.calendar, pert_x))}",
                   f"Simulation {pct}: {fo.format_date(fo.date_of(a.calendar, sim_x))}" if live else "")
         self.plot.set_answers(p, pert_x, sim_x, labels)
+        self._answer_dates = (fo.format_date(fo.date_of(a.calendar, pert_x)), self._sim_date(sim_x))
         lines = [f"<b>{pct}</b> — PERT: {labels[0].split(': ', 1)[1]} (offset {pert_x:.2f})"]
         if live:
             lines.append(f"Simulation: {labels[1].split(': ', 1)[1]} (offset {sim_x:.2f})")

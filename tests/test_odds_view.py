@@ -1,0 +1,155 @@
+"""Odds view: dragging dates, modes, the inverse date, simulation runs, cancel and stale."""
+
+import datetime as dt
+
+import numpy as np
+import pytest
+from scipy.stats import norm
+
+from workbench.core.commands import EditActivity
+from workbench.core.model import Activity, Link, Plan, Settings
+from workbench.figures import odds as fo
+from workbench.ui.odds_view import OddsView
+from workbench.ui.session import Session
+
+# House-building bid, Hillier & Lieberman (reference R1); three-point estimates [memory]
+R1 = {"A": ("", 1, 2, 3), "B": ("A", 2, 3.5, 8), "C": ("B", 6, 9, 18), "D": ("C", 4, 5.5, 10),
+      "E": ("C", 1, 4.5, 5), "F": ("E", 4, 4, 10), "G": ("D", 5, 6.5, 11), "H": ("E,G", 5, 8, 17),
+      "I": ("C", 3, 7.5, 9), "J": ("F,I", 3, 9, 9), "K": ("J", 4, 4, 4), "L": ("J", 1, 5.5, 7),
+      "M": ("H", 1, 2, 3), "N": ("K,L", 5, 5.5, 9)}
+
+
+def house_plan(deadline=47.0) -> Plan:
+    acts = [Activity(k, name=f"step {k}", optimistic=a, most_likely=m, pessimistic=b)
+            for k, (_, a, m, b) in R1.items()]
+    links = [Link(p, k) for k, (ps, *_) in R1.items() for p in ps.split(",") if p]
+    return Plan(Settings(title="House", start=dt.date(2026, 3, 2), unit="weeks", deadline=deadline),
+                acts, links)
+
+
+@pytest.fixture
+def view(qtbot):
+    session = Session(house_plan())
+    v = OddsView(session)
+    qtbot.addWidget(v)
+    v.resize(1400, 900)
+    yield v
+    v.runner.stop()
+    v.runner.wait(10_000)
+
+
+def _shaded_area(item) -> float:
+    x, y = item.getData()
+    return 0.0 if x is None or len(x) == 0 else float(np.trapezoid(y, x))
+
+
+def test_opens_on_the_deadline_with_phi_one(view):
+    # P(T ≤ 47) = Φ(1) = 0.8413 (reference R1, published)
+    assert view.dates[0] == 47.0
+    assert "0.8413 (84.1 %)" in view.panel.readout.text()
+    assert "Path: A-B-C-E-F-J-L-N" in view.panel.readout.text()
+    assert abs(_shaded_area(view.plot.pert_shade) - 0.841345) < 1e-3
+
+
+def test_dragging_a_marker_updates_readout_and_shading(view):
+    line = view.plot.markers[0]
+    line.setValue(46.03)              # what a drag does: set the value, emit the signal
+    assert view.dates[0] == 46.0      # snapped to the end of a working day (1/5 week)
+    expect = norm.cdf(46.0, 44, 3)
+    assert f"{expect:.4f}" in view.panel.readout.text()
+    assert abs(_shaded_area(view.plot.pert_shade) - expect) < 1e-3
+    assert f"{100 * expect:.1f} %" in view.panel.headline.text()
+    line.sigPositionChangeFinished.emit(line)
+    assert line.value() == pytest.approx(46.0)
+
+
+@pytest.mark.parametrize("mode", ["by", "after", "between"])
+def test_every_mode_shades_what_it_reports(view, mode):
+    view.set_mode(mode)
+    view.plot.markers[0].setValue(42.0)
+    if mode == "between":
+        view.plot.markers[1].setValue(47.0)
+    p = fo.pert_probability(view.analysis.pert, view.question())
+    assert fo.format_probability(p) in view.panel.readout.text()
+    assert abs(_shaded_area(view.plot.pert_shade) - p) < 1e-3
+    assert view.plot.markers[1].isVisible() == (mode == "between")
+
+
+def test_typed_confidence_marks_its_date(view):
+    view.panel.typed.setText("95 %")
+    view.panel.typed.returnPressed.emit()
+    x = view.plot.answers[0].value()
+    assert norm.cdf(x, 44, 3) == pytest.approx(0.95, abs=1e-9)
+    day = fo.format_date(view.analysis.calendar.finish_date(x))
+    assert day in view.panel.inverse.text() and "95 % date: PERT " + day in view.panel.headline.text()
+    assert view.plot.level.value() == pytest.approx(0.95)
+
+
+def test_bad_confidence_is_named_not_raised(view):
+    view.panel.typed.setText("lots")
+    view.panel.typed.returnPressed.emit()
+    assert not view.panel.error.isHidden() and "confidence" in view.panel.error.text()
+    assert view.confidence == pytest.approx(0.9)
+
+
+def _run(view, qtbot, iterations=2000, seed=11):
+    with qtbot.waitSignal(view.session.simulation_changed, timeout=60_000):
+        view.controls.iterations.setValue(iterations)
+        view.controls.seed.setValue(seed)
+        view.controls.button.click()
+
+
+def test_simulation_runs_in_worker_and_fills_the_comparison(view, qtbot):
+    _run(view, qtbot)
+    result = view.session.simulation
+    assert result is not None and len(result.finish) == 2000 and view.result is result
+    table = view.panel.table
+    assert table.rowCount() == 5 and table.item(4, 0).text() == "P(finish by)"
+    sim_p = fo.sim_probability(result, view.question())
+    assert table.item(4, 2).text() == fo.format_probability(sim_p)
+    assert sim_p < 0.8413  # merge bias: the published network finishes later than PERT says
+    assert "later than PERT" in view.panel.merge_note.text()
+    x, _ = view.plot.ecdf.getData()
+    assert len(x) > 0 and view.plot.answers[1].isVisible()
+
+
+def test_cancel_leaves_no_partial_result(view, qtbot):
+    with qtbot.waitSignal(view.runner.cancelled, timeout=60_000):
+        view.runner.progress.connect(lambda *_: view.controls.button.click())  # Stop at first block
+        view.controls.iterations.setValue(200_000)
+        view.controls.button.click()
+    assert view.session.simulation is None and view.result is None
+    assert "no results" in view.controls.status.text().lower()
+    assert view.controls.button.text() == "Run simulation"
+
+
+def test_edit_marks_results_stale(view, qtbot):
+    _run(view, qtbot)
+    view.session.push(EditActivity("C", pessimistic=30.0))
+    assert view.session.simulation is None and view.stale
+    assert "Stale" in view.controls.status.text()
+    assert not view.panel.compare_box.isEnabled()
+    assert view.plot.hist.opts["pen"].color().name() == "#9a9a9a"
+    _run(view, qtbot, seed=12)
+    assert not view.stale and view.panel.compare_box.isEnabled()
+
+
+def test_run_overtaken_by_an_edit_is_not_stored(view, qtbot):
+    with qtbot.waitSignal(view.runner.finished, timeout=60_000):
+        view.controls.iterations.setValue(3000)
+        view.controls.button.click()
+        view.session.push(EditActivity("A", name="changed while running"))
+    assert view.session.simulation is None
+    assert view.stale and view.result is not None
+
+
+def test_zero_variance_plan_shows_a_certain_finish(qtbot):
+    acts = [Activity("A", duration=4), Activity("B", duration=6)]
+    session = Session(Plan(Settings(start=dt.date(2026, 3, 2), deadline=9.0), acts, [Link("A", "B")]))
+    v = OddsView(session)
+    qtbot.addWidget(v)
+    assert v.plot.certain.isVisible() and v.plot.certain.value() == 10.0
+    text = v.panel.readout.text()
+    assert "0.0000 (0.0 %)" in text and "nan" not in text.lower()
+    v.plot.markers[0].setValue(10.0)
+    assert "1.0000 (100.0 %)" in v.panel.readout.text()
