@@ -6,7 +6,7 @@ import numpy as np
 import pytest
 from scipy.stats import norm
 
-from workbench.core.commands import EditActivity
+from workbench.core.commands import EditActivity, SetPredecessors
 from workbench.core.model import Activity, Link, Plan, Settings
 from workbench.figures import odds as fo
 from workbench.ui.odds_view import OddsView
@@ -153,3 +153,17 @@ def test_zero_variance_plan_shows_a_certain_finish(qtbot):
     assert "0.0000 (0.0 %)" in text and "nan" not in text.lower()
     v.plot.markers[0].setValue(10.0)
     assert "1.0000 (100.0 %)" in v.panel.readout.text()
+
+
+def test_unschedulable_plan_names_the_loop_then_recovers(qtbot):
+    acts = [Activity("A", optimistic=1, most_likely=2, pessimistic=4), Activity("B", duration=3)]
+    plan = Plan(Settings(start=dt.date(2026, 3, 2)), acts, [Link("A", "B"), Link("B", "A")])
+    session = Session(plan)
+    v = OddsView(session)
+    qtbot.addWidget(v)
+    assert not v.panel.error.isHidden() and "A → B → A" in v.panel.error.text()
+    assert not v.plot.isEnabled()
+    assert session.push(SetPredecessors("A", []))
+    assert v.panel.error.isHidden() and v.plot.isEnabled()
+    x, y = v.plot.pert_curve.getData()
+    assert len(x) > 0 and np.all(np.isfinite(y))

@@ -90,6 +90,7 @@ class OddsView(QWidget):
         """Redraw everything from the session's analysis."""
         a = self.analysis
         self.panel.error.setVisible(a is None)
+        self.plot.setEnabled(a is not None)
         if a is None:
             self.panel.error.setText(f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
             return
