@@ -122,33 +122,40 @@ class FileController(QObject):
             if self.read_only:
                 self.message.emit("This plan is open read-only; choose a new name.")
             return self.save_as()
-        return self._write(self.path)
+        written = self._write(self.path)
+        if written and written != self.path:
+            self._set_path(written)
+        return written is not None
 
     def save_as(self) -> bool:
+        written = self._choose_and_write()
+        if written:
+            self._set_path(written)
+        return written is not None
+
+    def _choose_and_write(self) -> str | None:
         suggested = self.path or str(Path(self._folder()) / f"{self.session.plan.settings.title or 'plan'}.slw")
         path = prompts.ask_save_path(self.widget, suggested=suggested)
         if not path:
-            return False
+            return None
         if not path.lower().endswith(".slw"):
             path += ".slw"
-        if not self._write(path):
-            return False
-        self._set_path(str(Path(path).resolve()))
-        return True
+        return self._write(path)
 
-    def _write(self, path: str) -> bool:
-        from workbench.io.planfile import save_plan
+    def _write(self, path: str) -> str | None:
+        """Save to ``path``; on failure offer another name. Returns the path written."""
+        from workbench.io import planfile
         try:
-            save_plan(self.session.plan, path)
+            planfile.save_plan(self.session.plan, path)
         except (PlanError, OSError) as exc:
             if prompts.ask_save_as_instead(self.widget, _describe(exc, path)):
-                return self.save_as()
-            return False
+                return self._choose_and_write()
+            return None
         self.session.undo_stack.setClean()
         self.store.discard()
         self._autosave_due = False
         self.message.emit(f"Saved {Path(path).name}")
-        return True
+        return str(Path(path).resolve())
 
     def maybe_save(self) -> bool:
         """Ask about unsaved changes; True when it is fine to go on."""
