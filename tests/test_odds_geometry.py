@@ -169,3 +169,10 @@ def test_readout_names_path_and_tie_note():
     text = "\n".join(lines)
     assert "0.8413 (84.1 %)" in text and "+1.000" in text
     assert "Path: A-C" in text and "tie" in text
+
+
+def test_headline_names_the_deadline():
+    cal = WorkCalendar(Settings(start=dt.date(2026, 3, 2)))
+    day = fo.format_date(cal.finish_date(10.0))
+    assert fo.question_headline(fo.Question("by", 10.0), cal, 10.0) == f"Finish by the deadline, {day}?"
+    assert fo.question_headline(fo.Question("by", 10.0), cal, 12.0) == f"Finish by {day}?"

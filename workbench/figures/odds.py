@@ -280,8 +280,12 @@ def readout_lines(odds, question: Question, calendar, unit: str) -> list[str]:
     return lines
 
 
-def question_headline(q: Question, calendar) -> str:
-    """The question as a reader would ask it: "Finish by Fri 13 Mar 2026?"."""
+def question_headline(q: Question, calendar, deadline: float | None = None) -> str:
+    """The question as a reader would ask it: "Finish by Fri 13 Mar 2026?" (naming the
+    deadline when the date is the plan's deadline)."""
+    if q.mode != "between" and deadline is not None and abs(q.d1 - deadline) < 1e-9:
+        word = "by" if q.mode == "by" else "after"
+        return f"Finish {word} the deadline, {format_date(date_of(calendar, q.d1))}?"
     if q.mode == "between":
         lo, hi = q.bounds()
         return (f"Finish after {format_date(date_of(calendar, lo))} "

@@ -205,7 +205,7 @@ class OddsView(QWidget):
 
     def _headline(self, q: fo.Question) -> None:
         a = self.analysis
-        text = fo.question_headline(q, a.calendar)
+        text = fo.question_headline(q, a.calendar, a.deadline)
         pert = f"{100 * fo.pert_probability(a.pert, q):.1f} %"
         sim = self._sim_percent(q)
         p = round(100 * self.confidence, 1)
