@@ -96,9 +96,6 @@ class OddsView(QWidget):
             return
         self.plot.set_calendar(a.calendar)
         self._default_dates(a)
-        self.curve = fo.pert_curve(a.pert, *self._span())
-        self.plot.show_pert(self.curve)
-        self.plot.set_span(*self._span())
         self._show_simulation()
 
     def _default_dates(self, a) -> None:
@@ -110,12 +107,16 @@ class OddsView(QWidget):
             self.dates[1] = self.dates[0] + max(1.0, fo.snap_offset(a.calendar, 1.5 * a.pert.sd))
 
     def _span(self) -> tuple[float, float]:
-        return fo.axis_span(self.analysis.pert, self.result if not self.stale else None, self.dates)
+        return fo.axis_span(self.analysis.pert, self.result, self.dates)
 
     def _show_simulation(self) -> None:
         if self.analysis is None:
             return
         a, r = self.analysis, self.result
+        span = self._span()
+        self.curve = fo.pert_curve(a.pert, *span)
+        self.plot.show_pert(self.curve)
+        self.plot.set_span(*span)
         self.sim_fig = fo.sim_figure(r) if r is not None else None
         self._offset_rows = fo.offset_rows(a.pert, r) if r is not None else []
         unit = a.plan.settings.unit
