@@ -106,11 +106,11 @@ def summary_lines(result, unit: str) -> list[str]:
 
 # --- simulate --------------------------------------------------------------
 def cmd_simulate(args) -> int:
-    from ..core.montecarlo import simulate
-
-    plan = load_plan_file(args.plan)
     if args.iterations <= 0:
         raise PlanError(f"--iterations must be a positive whole number, not {args.iterations}", "--iterations")
+    plan = load_plan_file(args.plan)
+    from ..core.montecarlo import simulate
+
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
     progress = None
     if not args.json and sys.stderr.isatty():
@@ -187,11 +187,11 @@ def cmd_export(args) -> int:
 def cmd_report(args) -> int:
     from ..reports.pack import build_pack
 
-    plan = load_plan_file(args.plan)
     if args.iterations <= 0:
         raise PlanError(f"--iterations must be a positive whole number, not {args.iterations}", "--iterations")
     if Path(args.output).suffix.lower() != ".pdf":
         raise PlanError(f"-o {args.output}: the approval pack is written as .pdf", "-o")
+    plan = load_plan_file(args.plan)
     info = build_pack(plan, args.output, paper=args.paper, iterations=args.iterations, seed=args.seed,
                       plan_path=os.path.basename(args.plan))
     print(f"wrote {args.output} ({getattr(info, 'pages', '?')} pages, seed {getattr(info, 'seed', args.seed)})")
