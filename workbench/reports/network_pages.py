@@ -12,7 +12,7 @@ from workbench.figures.network_layout import layout_plan
 from . import styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
-from .network_paint import DETAIL_SCALE, NetworkPainter, View
+from .network_paint import DETAIL_SCALE, NetworkPainter, View, link_bounds
 
 HEADING_SPACE = 30.0
 NOTE_SPACE = 30.0
@@ -59,10 +59,11 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
     if fit >= DETAIL_SCALE:
         return story
     views = [v for v in tiles(layout.width, layout.height, width, chart_h, DETAIL_SCALE) if _occupied(layout, v)]
+    boxes = link_bounds(layout)
     for k, view in enumerate(views):
         story += new_page(LANDSCAPE) + [
             Paragraph(f"Network, detail {k + 1} of {len(views)}", styles.H1),
-            ChartFlowable(width, chart_h, NetworkPainter(ctx, layout, view).paint),
+            ChartFlowable(width, chart_h, NetworkPainter(ctx, layout, view, boxes).paint),
             Paragraph(_note(DETAIL_SCALE), styles.SMALL)]
     return story
 

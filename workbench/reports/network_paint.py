@@ -6,6 +6,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+import numpy as np
+
 from reportlab.lib.colors import white as _WHITE
 
 from . import styles
@@ -29,17 +31,30 @@ class View:
         return (x - self.x0) * self.scale, top - (y - self.y0) * self.scale
 
 
+def link_bounds(layout) -> np.ndarray:
+    """(k, 4) bounding boxes x0, y0, x1, y1 of every link route, for culling."""
+    out = np.zeros((len(layout.links), 4))
+    for k, link in enumerate(layout.links):
+        pts = np.asarray(link.points, dtype=float)
+        out[k] = (*pts.min(axis=0), *pts.max(axis=0))
+    return out
+
+
 class NetworkPainter:
-    def __init__(self, ctx, layout, view: View):
+    def __init__(self, ctx, layout, view: View, link_boxes=None):
         self.ctx, self.layout, self.view = ctx, layout, view
         self.detail = view.scale >= DETAIL_SCALE * 0.999
+        self.link_boxes = link_bounds(layout) if link_boxes is None else link_boxes
 
     def paint(self, c, w: float, h: float) -> None:
         c.saveState()
         path = c.beginPath()
         path.rect(0, 0, w, h)
         c.clipPath(path, stroke=0, fill=0)
-        for link in sorted(self.layout.links, key=lambda l: l.critical):
+        v, b = self.view, self.link_boxes
+        seen = (b[:, 2] >= v.x0) & (b[:, 0] <= v.x0 + v.w) & (b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)
+        links = [self.layout.links[k] for k in np.flatnonzero(seen)]
+        for link in sorted(links, key=lambda l: l.critical):
             self._link(c, link, h)
         for node in self.layout.nodes:
             if self._visible(node):

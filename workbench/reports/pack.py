@@ -11,6 +11,8 @@ import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
+from reportlab import rl_config
+
 from workbench import __version__
 from workbench.core.analysis import analyze
 from workbench.core.errors import PlanError
@@ -58,11 +60,21 @@ def build_pack(plan, path, *, paper: str = "a4", iterations: int = 10_000, seed:
 def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:
     """The pack's PDF bytes and its page count."""
     buffer = io.BytesIO()
+    use_a85 = rl_config.useA85
+    rl_config.useA85 = 0            # binary streams: smaller, and no slow pure-Python ASCII85 pass
+    try:
+        doc = _build(ctx, buffer, report)
+    finally:
+        rl_config.useA85 = use_a85
+    report(95)
+    return buffer.getvalue(), doc.page
+
+
+def _build(ctx: PackContext, buffer, report) -> PackDocument:
     doc = PackDocument(buffer, ctx.paper, title=ctx.settings.title, author=ctx.settings.prepared_by,
                        creator=f"Slackline {__version__}", on_page=footer_drawer(ctx.footer))
     doc.build(story(ctx, report), canvasmaker=PackCanvas)
-    report(95)
-    return buffer.getvalue(), doc.page
+    return doc
 
 
 def story(ctx: PackContext, report) -> list:
