@@ -136,8 +136,18 @@ def route_links(graph: LayeredGraph, y: np.ndarray, column_x: np.ndarray, width:
         inner = np.column_stack((np.repeat(xs, 2) + np.tile([0.0, width], mid.size), np.repeat(y[mid], 2)))
         start = [column_x[graph.layer[src[k]]] + width, out_y[k]]
         end = [column_x[graph.layer[dst[k]]], in_y[k]]
-        routes.append(np.vstack(([start], inner.reshape(-1, 2), [end])))
+        routes.append(_simplify(np.vstack(([start], inner.reshape(-1, 2), [end]))))
     return routes
+
+
+def _simplify(points: np.ndarray) -> np.ndarray:
+    """Drop interior points that lie on the straight line through their neighbours."""
+    if len(points) < 3:
+        return points
+    a, b, c = points[:-2], points[1:-1], points[2:]
+    cross = (b[:, 0] - a[:, 0]) * (c[:, 1] - a[:, 1]) - (b[:, 1] - a[:, 1]) * (c[:, 0] - a[:, 0])
+    keep = np.concatenate(([True], np.abs(cross) > 1e-6, [True]))
+    return points[keep] if keep.all() else _simplify(points[keep])
 
 
 def label_anchor(route: np.ndarray, reach: float) -> tuple[float, float]:

@@ -16,6 +16,7 @@ from workbench.figures import network_style as ns
 TINY_PX = 40       # node narrower than this on screen: coloured box only
 COMPACT_PX = 140   # narrower than this: header colour and big id only
 LABEL_SCALE = 0.2  # link labels from this zoom on
+AA_SEGMENTS = 250  # smooth (antialiased) ordinary links only when this few are visible
 
 
 def colour(hex_text: str, alpha: int = 255) -> QColor:
@@ -64,15 +65,28 @@ class NetworkPainter:
         self._polys = [QPolygonF([QPointF(x, y) for x, y in l.points]) for l in layout.links]
         self._heads = [self._arrow_head(l.points) for l in layout.links]
         self._link_crit = np.array([l.critical for l in layout.links], dtype=bool)
-        pts = [np.asarray(l.points) for l in layout.links]
-        self._link_box = (np.array([[p[:, 0].min(), p[:, 1].min(), p[:, 0].max(), p[:, 1].max()] for p in pts])
-                          if pts else np.zeros((0, 4)))
-        self._lines = {flag: [QLineF(QPointF(*a), QPointF(*b)) for l in layout.links if l.critical == flag
-                              for a, b in zip(l.points, l.points[1:])] for flag in (False, True)}
+        self._cache_segments(layout)
+        self._ends = np.array([l.points[-1] for l in layout.links]).reshape(-1, 2)
+        self._label_at = np.array([l.label_at for l in layout.links]).reshape(-1, 2)
+        self._heads_full = [QRectF(*ns.part(b, ns.HEADER)) for b in layout.boxes.tolist()]
+        self._heads_compact = [QRectF(*ns.part(b, ns.COMPACT_HEADER)) for b in layout.boxes.tolist()]
+        self._short_rects = [_two_lines(ns.part(b, ns.COMPACT_NAME)) for b in layout.boxes.tolist()]
         self._names = [self._wrap(t.name, b[2], ns.WEIGHTS.name_font) for t, b in zip(texts, layout.boxes)]
         self._short = [self._wrap(t.name, b[2], ns.WEIGHTS.compact_name_font) for t, b in zip(texts, layout.boxes)]
         self.related = {r for r in self.related if r < len(self._rects)}
         self.selected = {r for r in self.selected if r < len(self._rects)}
+
+    def _cache_segments(self, layout) -> None:
+        """Every link segment once: coordinates for culling, QLineF for batched drawing."""
+        rows = [(a[0], a[1], b[0], b[1], l.critical, k) for k, l in enumerate(layout.links)
+                for a, b in zip(l.points, l.points[1:])]
+        arr = np.array(rows, dtype=float).reshape(-1, 6)
+        self._segs = arr[:, :4]
+        self._seg_crit = arr[:, 4] > 0.5
+        self._seg_link = arr[:, 5].astype(np.int64)
+        self._seg_lines = [QLineF(x0, y0, x1, y1) for x0, y0, x1, y1 in self._segs.tolist()]
+        self._all_lines = {flag: [self._seg_lines[i] for i in np.flatnonzero(self._seg_crit == flag)]
+                           for flag in (False, True)}
 
     def set_hover(self, row: int) -> None:
         self.hover = row
@@ -119,21 +133,13 @@ class NetworkPainter:
         if node_px < TINY_PX:
             self._paint_tiny(p, rows)
         else:
-            for r in rows:
-                self._paint_node(p, int(r), scale, node_px >= COMPACT_PX)
+            self._paint_nodes(p, rows, scale, node_px >= COMPACT_PX)
 
     def _visible_nodes(self, v: QRectF) -> np.ndarray:
         b = self.layout.boxes
         if not len(b):
             return np.zeros(0, dtype=np.int64)
         keep = (b[:, 0] <= v.right()) & (b[:, 0] + b[:, 2] >= v.left()) & (b[:, 1] <= v.bottom()) & (b[:, 1] + b[:, 3] >= v.top())
-        return np.flatnonzero(keep)
-
-    def _visible_links(self, v: QRectF) -> np.ndarray:
-        b = self._link_box
-        if not len(b):
-            return np.zeros(0, dtype=np.int64)
-        keep = (b[:, 0] <= v.right()) & (b[:, 2] >= v.left()) & (b[:, 1] <= v.bottom()) & (b[:, 3] >= v.top())
         return np.flatnonzero(keep)
 
     def _paint_bands(self, p: QPainter, v: QRectF, scale: float) -> None:
@@ -151,28 +157,31 @@ class NetworkPainter:
 
     def _paint_links(self, p: QPainter, v: QRectF, scale: float) -> None:
         w = ns.WEIGHTS
-        rows = self._visible_links(v)
-        crit = self._link_crit
+        seg = self._segs
+        vis = ((np.minimum(seg[:, 0], seg[:, 2]) <= v.right()) & (np.maximum(seg[:, 0], seg[:, 2]) >= v.left())
+               & (np.minimum(seg[:, 1], seg[:, 3]) <= v.bottom()) & (np.maximum(seg[:, 1], seg[:, 3]) >= v.top()))
         p.setBrush(Qt.NoBrush)
-        for flag, hexc, units in ((False, ns.LINK, w.link), (True, ns.CRITICAL, w.critical_link)):
-            line = pen(hexc, units, scale)
-            if flag:
-                line.setWidthF(max(2.5, line.widthF()))
-            p.setPen(line)
-            mine = rows[crit[rows] == flag]
-            if mine.size > 0.5 * max(1, len(self._polys)):
-                p.drawLines(self._lines[flag])
-            else:
-                for k in mine:
-                    p.drawPolyline(self._polys[k])
+        ordinary = np.flatnonzero(vis & ~self._seg_crit)
+        p.setRenderHint(QPainter.Antialiasing, 0 < ordinary.size <= AA_SEGMENTS)
+        p.setPen(pen(ns.LINK, w.link, scale))
+        if ordinary.size > 0.6 * len(self._all_lines[False]):
+            p.drawLines(self._all_lines[False])
+        elif ordinary.size:     # clipped first: long lines are slow to stroke
+            p.drawLines([QLineF(*c) for c in _clip(seg[ordinary], v.adjusted(-40, -40, 40, 40)).tolist()])
+        p.setRenderHint(QPainter.Antialiasing, True)
+        heavy = pen(ns.CRITICAL, w.critical_link, scale)
+        heavy.setWidthF(max(2.5, heavy.widthF()))
+        p.setPen(heavy)
+        for k in np.unique(self._seg_link[vis & self._seg_crit]).tolist():
+            p.drawPolyline(self._polys[k])
         if self.hover_links:
             p.setPen(pen(ns.HOVER, w.critical_link * 0.8, scale))
             for k in self.hover_links:
                 p.drawPolyline(self._polys[k])
         if w.arrow * scale >= 3:
-            self._paint_heads(p, rows, crit)
+            self._paint_heads(p, _inside(self._ends, v, w.arrow), self._link_crit)
         if scale >= LABEL_SCALE:
-            self._paint_labels(p, rows, scale)
+            self._paint_labels(p, _inside(self._label_at, v, 60.0), scale)
 
     def _paint_heads(self, p: QPainter, rows: np.ndarray, crit: np.ndarray) -> None:
         p.setPen(Qt.NoPen)
@@ -214,42 +223,39 @@ class NetworkPainter:
             p.setBrush(colour(hexc))
             p.drawRects([self._rects[r] for r in rows[self._crit[rows] == flag]])
 
-    def _paint_node(self, p: QPainter, r: int, scale: float, full: bool) -> None:
-        rect, crit, text = self._rects[r], bool(self._crit[r]), self.texts[r]
-        box = (rect.x(), rect.y(), rect.width(), rect.height())
-        w = ns.WEIGHTS
+    def _paint_nodes(self, p: QPainter, rows: np.ndarray, scale: float, full: bool) -> None:
+        """Bodies, headers and borders in a few batched calls; texts node by node."""
+        w, crit = ns.WEIGHTS, self._crit[rows]
+        heads = self._heads_full if full else self._heads_compact
         p.setPen(Qt.NoPen)
         p.setBrush(colour(ns.NODE_FILL))
-        p.drawRect(rect)
-        head = QRectF(*ns.part(box, ns.HEADER if full else ns.COMPACT_HEADER))
-        p.fillRect(head, colour(ns.CRITICAL if crit else ns.WORK))
-        p.setPen(colour(ns.HEADER_TEXT))
-        inner = head.adjusted(8, 0, -8, 0)
-        if full:
-            p.setFont(font(w.id_font, bold=True))
-            p.drawText(inner, Qt.AlignLeft | Qt.AlignVCenter, text.id)
-            p.setFont(font(w.cell_font))
-            p.drawText(inner, Qt.AlignRight | Qt.AlignVCenter, f"te {text.te}")
-            self._paint_body(p, r, box)
-        else:
-            p.setFont(font(w.compact_id_font, bold=True))
-            p.drawText(inner, Qt.AlignLeft | Qt.AlignVCenter, text.id)
-            self._paint_compact_name(p, r, box)
-        edge = pen(ns.CRITICAL_EDGE, w.critical_edge, scale) if crit else pen(ns.WORK_EDGE, w.node_edge, scale)
-        if crit:
-            edge.setWidthF(max(2.5, edge.widthF()))
-        p.setPen(edge)
+        p.drawRects([self._rects[r] for r in rows])
+        for flag, hexc in ((False, ns.WORK), (True, ns.CRITICAL)):
+            p.setBrush(colour(hexc))
+            p.drawRects([heads[r] for r in rows[crit == flag]])
+        white, black = colour(ns.HEADER_TEXT), colour(ns.TEXT)
+        id_font = font(w.id_font if full else w.compact_id_font, bold=True)
+        name_font, te_font = font(w.compact_name_font), font(w.cell_font)
+        for r in rows.tolist():
+            text, head = self.texts[r], heads[r].adjusted(8, 0, -8, 0)
+            p.setPen(white)
+            p.setFont(id_font)
+            p.drawText(head, Qt.AlignLeft | Qt.AlignVCenter, text.id)
+            if full:
+                p.setFont(te_font)
+                p.drawText(head, Qt.AlignRight | Qt.AlignVCenter, f"te {text.te}")
+                self._paint_body(p, r, (self._rects[r].x(), self._rects[r].y(), self._rects[r].width(), self._rects[r].height()))
+            else:
+                p.setPen(black)
+                p.setFont(name_font)
+                for rect, line in zip(self._short_rects[r], self._short[r]):
+                    p.drawText(rect, Qt.AlignLeft | Qt.AlignVCenter, line)
         p.setBrush(Qt.NoBrush)
-        p.drawRect(rect)
-
-    def _paint_compact_name(self, p: QPainter, r: int, box) -> None:
-        first, second = self._short[r]
-        name = QRectF(*ns.part(box, ns.COMPACT_NAME))
-        p.setPen(colour(ns.TEXT))
-        p.setFont(font(ns.WEIGHTS.compact_name_font))
-        half = name.height() / 2
-        p.drawText(QRectF(name.x(), name.y(), name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, first)
-        p.drawText(QRectF(name.x(), name.y() + half, name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, second)
+        edge = pen(ns.CRITICAL_EDGE, w.critical_edge, scale)
+        edge.setWidthF(max(2.5, edge.widthF()))
+        for flag, line in ((False, pen(ns.WORK_EDGE, w.node_edge, scale)), (True, edge)):
+            p.setPen(line)
+            p.drawRects([self._rects[r] for r in rows[crit == flag]])
 
     def _paint_body(self, p: QPainter, r: int, box) -> None:
         text, w = self.texts[r], ns.WEIGHTS
@@ -283,3 +289,33 @@ class NetworkPainter:
         p.setPen(colour(ns.NEGATIVE if text.negative else ns.TEXT))
         p.setFont(font(w.float_font, bold=True))
         p.drawText(float_rect, Qt.AlignCenter, text.total_float)
+
+
+def _two_lines(rect) -> tuple[QRectF, QRectF]:
+    x, y, w, h = rect
+    return QRectF(x, y, w, h / 2), QRectF(x, y + h / 2, w, h / 2)
+
+
+def _inside(points: np.ndarray, v: QRectF, pad: float) -> np.ndarray:
+    """Indices of points within the visible rectangle grown by ``pad``."""
+    if not len(points):
+        return np.zeros(0, dtype=np.int64)
+    x, y = points[:, 0], points[:, 1]
+    return np.flatnonzero((x >= v.left() - pad) & (x <= v.right() + pad) & (y >= v.top() - pad) & (y <= v.bottom() + pad))
+
+
+def _clip(seg: np.ndarray, r: QRectF) -> np.ndarray:
+    """Segments (m, 4) clipped to a rectangle (Liang–Barsky, vectorised); misses dropped."""
+    x0, y0, x1, y1 = seg.T
+    dx, dy = x1 - x0, y1 - y0
+    lo, hi = np.zeros(len(seg)), np.ones(len(seg))
+    for d, start, a, b in ((dx, x0, r.left(), r.right()), (dy, y0, r.top(), r.bottom())):
+        flat = np.abs(d) < 1e-12
+        safe = np.where(flat, 1.0, d)
+        t0, t1 = (a - start) / safe, (b - start) / safe
+        lo = np.where(flat, lo, np.maximum(lo, np.minimum(t0, t1)))
+        hi = np.where(flat, hi, np.minimum(hi, np.maximum(t0, t1)))
+    keep = lo <= hi
+    lo, hi = lo[keep], hi[keep]
+    return np.column_stack((x0[keep] + lo * dx[keep], y0[keep] + lo * dy[keep],
+                            x0[keep] + hi * dx[keep], y0[keep] + hi * dy[keep]))
