@@ -17,6 +17,7 @@ from pathlib import Path
 from workbench.core.calendar import round_offset
 
 from .predecessors import format_number, format_predecessors
+from .xlsx_write import write_xlsx as _write_xlsx
 from .table_rows import GUARDED
 
 PLAN_COLUMNS = ("id", "name", "group", "optimistic", "most_likely", "pessimistic", "duration", "distribution",
@@ -34,26 +35,42 @@ def _point(value):
     return float(value)
 
 
-def plan_cells(plan, act) -> list:
+def plan_cells(act, links) -> list:
     return [act.id, act.name, act.group, act.optimistic, act.most_likely, act.pessimistic, act.duration,
-            act.distribution or "", format_predecessors(plan.predecessors(act.id)),
+            act.distribution or "", format_predecessors(links),
             _point(act.start_no_earlier), _point(act.finish_no_later), act.notes]
+
+
+def _links_into(plan) -> dict[str, list]:
+    into: dict[str, list] = {}
+    for link in plan.links:
+        into.setdefault(link.succ, []).append(link)
+    return into
+
+
+def _computed(analysis) -> list[list]:
+    """te, sd, offsets, dates, floats and the critical flag, one list per activity (as
+    many floats as possible converted in bulk: this runs for every exported row)."""
+    s = analysis.schedule
+    offsets = [[round_offset(x) for x in col.tolist()] for col in (s.es, s.ef, s.ls, s.lf)]
+    found = analysis.dates()
+    dates = [found[k].astype("datetime64[D]").astype(dt.date).tolist()
+             for k in ("early_start", "early_finish", "late_start", "late_finish")]
+    te = [round_offset(x) for x in analysis.means.tolist()]
+    sd = [round_offset(math.sqrt(x)) for x in analysis.variances.tolist()]
+    floats = [[round_offset(x) for x in col.tolist()] for col in (s.total_float, s.free_float)]
+    critical = ["yes" if c else "no" for c in s.critical.tolist()]
+    return [[te[j], sd[j], *(c[j] for c in offsets), *(c[j] for c in dates), *(c[j] for c in floats), critical[j]]
+            for j in range(len(te))]
 
 
 def table_rows(analysis) -> list[list]:
     """One row of values per activity in plan order (None for an empty cell)."""
-    plan, s = analysis.plan, analysis.schedule
-    dates = {k: v.astype("datetime64[D]").astype(dt.date) for k, v in analysis.dates().items()}
-    rows = []
-    for i, act in enumerate(plan.activities):
-        j = s.index(act.id)
-        computed = [round_offset(analysis.means[j]), round_offset(math.sqrt(analysis.variances[j])),
-                    *(round_offset(x[j]) for x in (s.es, s.ef, s.ls, s.lf)),
-                    *(dates[k][j] for k in ("early_start", "early_finish", "late_start", "late_finish")),
-                    round_offset(s.total_float[j]), round_offset(s.free_float[j]),
-                    "yes" if s.critical[j] else "no"]
-        rows.append(plan_cells(plan, act) + computed)
-    return rows
+    plan = analysis.plan
+    computed = _computed(analysis)
+    position = {act_id: j for j, act_id in enumerate(analysis.schedule.ids)}
+    into = _links_into(plan)
+    return [plan_cells(act, into.get(act.id, [])) + computed[position[act.id]] for act in plan.activities]
 
 
 def guard_csv(text: str) -> str:
@@ -82,52 +99,4 @@ def write_csv(rows: list[list], path: Path) -> None:
 
 
 def write_xlsx(rows: list[list], path: Path, title: str = "") -> None:
-    from openpyxl import Workbook
-    from openpyxl.cell.cell import ILLEGAL_CHARACTERS_RE
-    from openpyxl.styles import Font
-
-    book = Workbook()
-    sheet = book.active
-    sheet.title = "Activities"
-    sheet.append(list(HEADER))
-    for cell in sheet[1]:
-        cell.font = Font(bold=True)
-    for r, row in enumerate(rows, 2):
-        for c, value in enumerate(row, 1):
-            _put(sheet.cell(row=r, column=c), value, ILLEGAL_CHARACTERS_RE)
-    sheet.freeze_panes = "A2"
-    _widths(sheet, rows)
-    if title:
-        book.properties.title = ILLEGAL_CHARACTERS_RE.sub("\ufffd", title)
-    book.save(path)
-
-
-def _put(cell, value, illegal) -> None:
-    if value is None:
-        return
-    if isinstance(value, dt.date):
-        cell.value = value
-        cell.number_format = "yyyy-mm-dd"
-    elif isinstance(value, (int, float)):
-        cell.value = value
-    else:
-        cell.value = illegal.sub("\ufffd", str(value))
-        cell.data_type = "s"  # text, never a formula
-
-
-def _widths(sheet, rows: list[list]) -> None:
-    from openpyxl.utils import get_column_letter
-
-    for c, name in enumerate(HEADER):
-        longest = max([len(name)] + [len(_shown(row[c])) for row in rows[:500]])
-        sheet.column_dimensions[get_column_letter(c + 1)].width = min(60, max(6, longest + 2))
-
-
-def _shown(value) -> str:
-    if value is None:
-        return ""
-    if isinstance(value, dt.date):
-        return "2026-01-01"
-    if isinstance(value, float):
-        return format_number(value)
-    return str(value)
+    _write_xlsx(HEADER, rows, path, title)
