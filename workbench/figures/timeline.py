@@ -7,7 +7,7 @@ can draw each style in one batched call:
 
 - ``critical`` / ``work``: bars [ES, EF]; ``milestone`` / ``milestone_critical``: points at ES;
 - ``float``: the slack line [EF, LF] (the drawing adds the upright tick at LF);
-- ``free_float``: a mark at EF + free float; ``negative_float``: [LF, EF] where LF < EF
+- ``free_float``: a mark at EF + free float, where that is short of LF; ``negative_float``: [LF, EF] where LF < EF
   (a deadline or finish-no-later date that cannot be met);
 - ``late``: late-date bars [LS, LF] (optional); ``summary`` / ``summary_critical``: group rows;
 - ``whisker``: P10–P90 of an activity's finish (when the simulation offers it).
@@ -151,7 +151,7 @@ def _activity_marks(s, rows, idx, late_bars: bool) -> dict[str, Marks]:
     es, ef, ls, lf = s.es[idx], s.ef[idx], s.ls[idx], s.lf[idx]
     tf, ff, crit = s.total_float[idx], s.free_float[idx], s.critical[idx]
     ms = (ef - es) <= EPS
-    free = (ff > EPS) & (tf > EPS) & (ff <= tf + EPS)
+    free = (ff > EPS) & (ff < tf - EPS)   # where free float equals total float the tick says it
     return {
         "critical": Marks(rows, es, ef, idx).take(~ms & crit),
         "work": Marks(rows, es, ef, idx).take(~ms & ~crit),

@@ -7,6 +7,8 @@ result in a QPicture until the geometry, the options or the view change.
 
 from __future__ import annotations
 
+import time
+
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QRectF, Qt
@@ -17,6 +19,7 @@ from workbench.figures.timeline import TimelineGeometry
 from workbench.ui import timeline_paint as paint
 
 SHADE_DAY_PX = 7.0      # shade non-working days once a working day is this wide
+PICTURE_ROWS = 400      # above this many rows on screen, draw directly instead of recording
 
 
 class _Pixels:
@@ -48,6 +51,7 @@ class TimelineItem(pg.GraphicsObject):
         self._picture: QPicture | None = None
         self._picture_key = None
         self.painted_rows = 0       # rows drawn in the last recording (for tests and benchmarks)
+        self.paint_ms = 0.0         # time of the last paint (for benchmarks)
         self.on_click = self.on_drag = self.on_hover = None   # set by the view
 
     # --- gestures (passed to the view, which knows the session) -----------------
@@ -127,17 +131,30 @@ class TimelineItem(pg.GraphicsObject):
     def paint(self, p: QPainter, *args) -> None:
         if self._geo is None:
             return
+        started = time.perf_counter()
+        self._paint(p)
+        self.paint_ms = (time.perf_counter() - started) * 1000.0
+
+    def _paint(self, p: QPainter) -> None:
         t = p.transform()
         view = self.viewRect()
         rows = (-1.0, float(self._geo.n_rows)) if view is None else (view.top() - 1, view.bottom() + 1)
         xs = (self._geo.x_range if view is None else (view.left(), view.right()))
-        key = (t.m11(), t.m12(), t.m21(), t.m22(), t.m31(), t.m32(), rows, xs)
-        if self._picture is None or key != self._picture_key:
-            self._picture, self._picture_key = self._record(t, rows, xs), key
         p.save()
         p.resetTransform()
-        self._picture.play(p)
+        if self._visible_rows(rows) > PICTURE_ROWS:
+            # Thousands of rows on screen: a recording would cost more than it saves.
+            self._picture = None
+            self._draw(p, t, rows, xs)
+        else:
+            key = (t.m11(), t.m12(), t.m21(), t.m22(), t.m31(), t.m32(), rows, xs)
+            if self._picture is None or key != self._picture_key:
+                self._picture, self._picture_key = self._record(t, rows, xs), key
+            self._picture.play(p)
         p.restore()
+
+    def _visible_rows(self, rows) -> int:
+        return int(max(0, min(rows[1], self._geo.n_rows) - max(rows[0], 0)))
 
     def _scale(self, t) -> float:
         screen = self.deviceTransform_()
@@ -148,14 +165,18 @@ class TimelineItem(pg.GraphicsObject):
     def _record(self, t, rows, xs) -> QPicture:
         picture = QPicture()
         p = QPainter(picture)
+        self._draw(p, t, rows, xs)
+        p.end()
+        return picture
+
+    def _draw(self, p: QPainter, t, rows, xs) -> None:
+        """Draw the rows on screen in device pixels (p has an identity transform)."""
         px = _Pixels(t, self._scale(t))
         geo = self._geo
-        self.painted_rows = int(max(0, min(rows[1], geo.n_rows) - max(rows[0], 0)))
+        self.painted_rows = self._visible_rows(rows)
         self._draw_background(p, px, rows, xs)
         marks = {k: m.within(*rows) for k, m in geo.marks.items()}
         paint.draw_all(p, px, marks, geo, self._weights, self._preview, rows)
-        p.end()
-        return picture
 
     def _draw_background(self, p: QPainter, px: _Pixels, rows, xs) -> None:
         if self._selected_rows.size:

@@ -9,9 +9,14 @@ from __future__ import annotations
 
 import numpy as np
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QBrush, QColor, QPainter, QPainterPath, QPen
+from PySide6.QtGui import QColor, QPainter, QPainterPath, QPen
 
 from workbench.figures import style
+
+try:  # pyqtgraph's numpy-backed arrays of QRectF/QLineF: no Python object per bar
+    from pyqtgraph.Qt.internals import PrimitiveArray
+except ImportError:  # pragma: no cover - older pyqtgraph
+    PrimitiveArray = None
 
 DENSE_ROW_PX = 3.0
 
@@ -31,54 +36,95 @@ def bar_height(px, w: style.Weights) -> float:
     return float(min(px.row_px * w.bar_fraction, w.row_height * w.bar_fraction * 2.0 * px.scale))
 
 
-def _rects(px, m, h: float, shift: float = 0.0) -> list[QRectF]:
+_RECTS = PrimitiveArray(QRectF, 4) if PrimitiveArray is not None else None
+_LINES = PrimitiveArray(QLineF, 4) if PrimitiveArray is not None else None
+
+
+def rects(p: QPainter, x, y, w, h) -> None:
+    """Draw many rectangles in one call (numpy-backed when the Qt binding allows it)."""
+    x, y, w, h = np.broadcast_arrays(*(np.asarray(v, float) for v in (x, y, w, h)))
+    if not x.size:
+        return
+    if _RECTS is None:
+        x, y, w, h = np.round(x), np.round(y), np.round(w), np.maximum(np.round(h), 1.0)
+        p.drawRects([QRectF(*v) for v in zip(x.tolist(), y.tolist(), w.tolist(), h.tolist())])
+        return
+    _RECTS.resize(x.size)
+    m = _RECTS.ndarray()
+    x0, hh = np.round(x), np.maximum(np.round(h), 1.0)    # whole pixels: crisp, even lines
+    m[:, 0], m[:, 1] = x0, np.round(y + (h - hh) / 2)
+    m[:, 2], m[:, 3] = np.round(x + w) - x0, hh
+    p.drawRects(*_RECTS.drawargs())
+
+
+def lines(p: QPainter, x0, y0, x1, y1) -> None:
+    """Draw many line segments in one call."""
+    x0, y0, x1, y1 = np.broadcast_arrays(*(np.asarray(v, float) for v in (x0, y0, x1, y1)))
+    if not x0.size:
+        return
+    if _LINES is None:
+        p.drawLines([QLineF(*v) for v in zip(x0.tolist(), y0.tolist(), x1.tolist(), y1.tolist())])
+        return
+    _LINES.resize(x0.size)
+    m = _LINES.ndarray()
+    m[:, 0], m[:, 1], m[:, 2], m[:, 3] = x0, y0, x1, y1
+    p.drawLines(*_LINES.drawargs())
+
+
+def spans(p: QPainter, px, m, h: float, shift: float = 0.0) -> None:
+    """Marks as rectangles [x0, x1] × (row centre + shift ± h/2), in the current pen/brush."""
     x0, x1, y = px.x(m.x0), px.x(m.x1), px.y(m.rows) + shift
-    return [QRectF(a, c - h / 2, b - a, h) for a, b, c in zip(x0.tolist(), x1.tolist(), y.tolist())]
+    rects(p, x0, y - h / 2, np.maximum(x1 - x0, 0.0), h)
 
 
-def _hlines(px, m, shift: float = 0.0) -> list[QLineF]:
-    x0, x1, y = px.x(m.x0), px.x(m.x1), px.y(m.rows) + shift
-    return [QLineF(a, c, b, c) for a, b, c in zip(x0.tolist(), x1.tolist(), y.tolist())]
+def fill(p: QPainter, colour: str) -> None:
+    p.setPen(Qt.PenStyle.NoPen)
+    p.setBrush(QColor(colour))
 
 
-def _vlines(px, x, rows, half: float, shift: float = 0.0) -> list[QLineF]:
+def ticks(p: QPainter, px, x, rows, half: float, width: float, shift: float = 0.0) -> None:
+    """Upright ticks as thin filled rectangles (crisp at any width)."""
     xs, ys = px.x(x), px.y(rows) + shift
-    return [QLineF(a, c - half, a, c + half) for a, c in zip(xs.tolist(), ys.tolist())]
+    rects(p, xs - width / 2, ys - half, width, 2 * half)
 
 
-def draw_bars(p: QPainter, px, m, fill: str, edge: str, edge_width: float, h: float) -> None:
+def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float, h: float) -> None:
     if not len(m):
         return
-    if px.row_px < DENSE_ROW_PX:   # too dense for outlines: one line per bar
-        p.setPen(pen(edge if edge_width > 1.5 * px.scale else fill, max(1.0, px.row_px * 0.8)))
-        p.drawLines(_hlines(px, m))
+    if px.row_px < DENSE_ROW_PX:   # too dense for outlines: a one-colour strip per bar
+        fill(p, edge if edge_width > 1.5 * px.scale else fill_colour)
+        spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
     p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
-    p.setBrush(QColor(fill))
-    p.drawRects(_rects(px, m, h))
+    p.setBrush(QColor(fill_colour))
+    spans(p, px, m, h)
 
 
 def draw_slack_lines(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     """Float: a thin line EF → LF ending in a short upright tick at LF."""
     if not len(m):
         return
-    p.setPen(pen(style.FLOAT, w.float_line * px.scale))
-    p.drawLines(_hlines(px, m))
+    fill(p, style.FLOAT)
+    thick = w.float_line * px.scale
+    spans(p, px, m, min(thick, max(1.0, px.row_px * 0.5)))
     if px.row_px >= DENSE_ROW_PX:
-        p.setPen(pen(style.FLOAT, w.float_tick * px.scale))
-        p.drawLines(_vlines(px, m.x1, m.rows, h / 2))
+        ticks(p, px, m.x1, m.rows, h / 2, w.float_tick * px.scale)
 
 
 def draw_negative_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     """A deadline miss: dashed line LF → EF just under the bar, tick at LF (the date needed)."""
     if not len(m):
         return
-    shift = h / 2 + 2.5 * px.scale if px.row_px >= DENSE_ROW_PX else 0.0
+    if px.row_px < DENSE_ROW_PX:
+        fill(p, style.NEGATIVE_FLOAT)
+        spans(p, px, m, max(1.0, px.row_px * 0.5))
+        return
+    shift = h / 2 + 2.5 * px.scale
+    y = px.y(m.rows) + shift
     p.setPen(pen(style.NEGATIVE_FLOAT, w.float_line * 1.25 * px.scale, dash=True))
-    p.drawLines(_hlines(px, m, shift))
-    if px.row_px >= DENSE_ROW_PX:
-        p.setPen(pen(style.NEGATIVE_FLOAT, w.float_tick * 1.25 * px.scale))
-        p.drawLines(_vlines(px, m.x0, m.rows, h / 2, shift - h / 4))
+    lines(p, px.x(m.x0), y, px.x(m.x1), y)
+    fill(p, style.NEGATIVE_FLOAT)
+    ticks(p, px, m.x0, m.rows, h / 2, w.float_tick * 1.25 * px.scale, shift - h / 4)
 
 
 def draw_whiskers(p: QPainter, px, m, w: style.Weights, h: float) -> None:
@@ -86,22 +132,24 @@ def draw_whiskers(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     if not len(m) or px.row_px < DENSE_ROW_PX:
         return
     shift = h / 2 + 1.5 * px.scale
-    p.setPen(pen(style.PROBABILITY, w.whisker * px.scale))
-    p.drawLines(_hlines(px, m, shift) + _vlines(px, m.x0, m.rows, h / 4, shift)
-                + _vlines(px, m.x1, m.rows, h / 4, shift))
+    width = w.whisker * px.scale
+    fill(p, style.PROBABILITY)
+    spans(p, px, m, width, shift)
+    ticks(p, px, m.x0, m.rows, h / 4, width, shift)
+    ticks(p, px, m.x1, m.rows, h / 4, width, shift)
 
 
 def draw_summaries(p: QPainter, px, m, critical: bool, w: style.Weights, h: float) -> None:
     """Group rows: a slim dark bar with short downward ends."""
     if not len(m):
         return
-    slim = max(2.0, h * 0.35)
-    p.setPen(Qt.PenStyle.NoPen)
-    p.setBrush(QColor(style.CRITICAL if critical else style.SUMMARY))
-    p.drawRects(_rects(px, m, slim, -h / 4))
-    p.setBrush(QColor(style.SUMMARY))
-    p.setPen(pen(style.TEXT, 2 * px.scale))
-    p.drawLines(_vlines(px, m.x0, m.rows, h / 4, 0) + _vlines(px, m.x1, m.rows, h / 4, 0))
+    slim = max(1.0, h * 0.35)
+    fill(p, style.CRITICAL if critical else style.SUMMARY)
+    spans(p, px, m, slim, -h / 4)
+    if px.row_px >= DENSE_ROW_PX:
+        fill(p, style.TEXT)
+        ticks(p, px, m.x0, m.rows, h / 4, 2 * px.scale, -h / 8)
+        ticks(p, px, m.x1, m.rows, h / 4, 2 * px.scale, -h / 8)
 
 
 def _diamonds(px, m, r: float) -> QPainterPath:
@@ -118,6 +166,10 @@ def _diamonds(px, m, r: float) -> QPainterPath:
 def draw_milestones(p: QPainter, px, m, critical: bool, w: style.Weights, h: float) -> None:
     """Milestones: black diamonds; a critical one is vermillion with the heavy black edge."""
     if not len(m):
+        return
+    if px.row_px < DENSE_ROW_PX:
+        fill(p, style.CRITICAL_EDGE)
+        rects(p, px.x(m.x0) - 1.5, px.y(m.rows) - 1.5, 3.0, 3.0)
         return
     r = max(3.0, h * 0.6)
     p.setPen(pen(style.CRITICAL_EDGE, (w.critical_outline if critical else 1.0) * px.scale))
@@ -144,7 +196,7 @@ def draw_connectors(p: QPainter, px, segments: np.ndarray, rows, w: style.Weight
     s = segments[keep]
     x0, y0, x1, y1 = px.x(s[:, 0]), px.y(s[:, 1]), px.x(s[:, 2]), px.y(s[:, 3])
     p.setPen(pen(style.MUTED_TEXT, w.connector * px.scale))
-    p.drawLines([QLineF(a, b, c, d) for a, b, c, d in zip(x0.tolist(), y0.tolist(), x1.tolist(), y1.tolist())])
+    lines(p, x0, y0, x1, y1)
 
 
 def draw_preview(p: QPainter, px, preview, w: style.Weights, h: float) -> None:
@@ -160,12 +212,12 @@ def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows)
     """Every style in back-to-front order."""
     h = bar_height(px, w)
     s = px.scale
-    p.setRenderHint(QPainter.RenderHint.Antialiasing, px.row_px >= DENSE_ROW_PX)
+    p.setRenderHint(QPainter.RenderHint.Antialiasing, False)
     draw_connectors(p, px, geo.connectors, rows, w)
     if len(marks["late"]):
         p.setPen(pen(style.MUTED_TEXT, w.bar_outline * s, dash=True))
         p.setBrush(Qt.BrushStyle.NoBrush)
-        p.drawRects(_rects(px, marks["late"], h * 0.5, h * 0.25))
+        spans(p, px, marks["late"], h * 0.5, h * 0.25)
     draw_slack_lines(p, px, marks["float"], w, h)
     draw_bars(p, px, marks["work"], style.WORK, style.WORK_EDGE, w.bar_outline * s, h)
     draw_bars(p, px, marks["critical"], style.CRITICAL, style.CRITICAL_EDGE, w.critical_outline * s, h)
@@ -173,6 +225,7 @@ def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows)
     draw_whiskers(p, px, marks["whisker"], w, h)
     draw_summaries(p, px, marks["summary"], False, w, h)
     draw_summaries(p, px, marks["summary_critical"], True, w, h)
+    p.setRenderHint(QPainter.RenderHint.Antialiasing, px.row_px >= DENSE_ROW_PX)   # round marks
     draw_free_float(p, px, marks["free_float"], w, h)
     draw_milestones(p, px, marks["milestone"], False, w, h)
     draw_milestones(p, px, marks["milestone_critical"], True, w, h)

@@ -7,6 +7,7 @@ members indented.
 
 from __future__ import annotations
 
+import heapq
 import math
 
 import pyqtgraph as pg
@@ -63,9 +64,10 @@ class TimelineRowAxis(pg.AxisItem):
         metrics = QFontMetricsF(font)
         bounds = self.mapRectFromParent(self.geometry())
         axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
-        texts = []
+        texts, ticks = [], []
         self._bold_rows = set()
         h = metrics.height()
+        tick_pen = QPen(self.pen())
         for row in self.visible_rows(bounds, h):
             indent = INDENT * int(self._geo.depth[row])
             width = bounds.width() - 2 * PADDING - indent
@@ -74,8 +76,18 @@ class TimelineRowAxis(pg.AxisItem):
             rect = QRectF(bounds.left() + PADDING + indent, y - h / 2, width, h)
             if bounds.top() - h / 2 <= y <= bounds.bottom() + h / 2:
                 texts.append((rect, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, text))
+                ticks.append((tick_pen, QPointF(bounds.right() - 4, y), QPointF(bounds.right(), y)))
                 self._bold_rows.add(len(texts) - 1) if self._geo.kinds[row] == "group" else None
-        return axis, [], texts
+        return axis, ticks, texts
+
+    def preferred_width(self, font: QFont, limit: float) -> int:
+        """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
+        if self._geo is None or not self._geo.labels:
+            return int(min(limit, 120))
+        metrics = QFontMetricsF(font)
+        longest = heapq.nlargest(40, range(self._geo.n_rows), key=lambda r: len(self._geo.labels[r]))
+        need = max(metrics.horizontalAdvance(self.label_text(r)) + INDENT * int(self._geo.depth[r]) for r in longest)
+        return int(min(limit, need + 2 * PADDING + 2))
 
     def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
         """Like the base class, with group rows in bold."""
@@ -85,6 +97,9 @@ class TimelineRowAxis(pg.AxisItem):
         font = QFont(self.style.get("tickFont") or QFont())
         bold = QFont(font)
         bold.setBold(True)
+        for tick_pen, a, b in tickSpecs:
+            p.setPen(tick_pen)
+            p.drawLine(a, b)
         p.setPen(self.textPen())
         p.setClipRect(self.boundingRect().toAlignedRect())
         for k, (rect, flags, text) in enumerate(textSpecs):

@@ -22,6 +22,7 @@ from workbench.ui.timeline_item import TimelineItem
 from workbench.ui.timeline_row_axis import TimelineRowAxis
 from workbench.ui.timeline_tooltip import tooltip_text
 
+HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
 GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
 LINE_NAMES = {"start": "Start", "deadline": "Deadline", "status": "Status"}
 LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style.STATUS}
@@ -117,8 +118,25 @@ class TimelineView(QWidget):
         self.item.set_nonworking(self._nonworking_finder(analysis.calendar))
         self.item.set_geometry(self.geometry)
         self.row_axis.set_geometry(self.geometry)
+        self._fit_label_column()
         self._update_lines()
         self._follow_selection(self.session.selected())
+
+    def _fit_label_column(self) -> None:
+        """Label column as wide as the longest labels need, at most a third of the view."""
+        limit = max(140.0, 0.32 * max(self.width(), 600))
+        self.row_axis.setWidth(self.row_axis.preferred_width(self._font(), limit))
+
+    def resizeEvent(self, event) -> None:
+        super().resizeEvent(event)
+        if self.geometry is not None:
+            self._fit_label_column()
+
+    def _font(self, bold: bool = False) -> QFont:
+        font = QFont()
+        font.setPointSizeF(self._weights.label_font_size)
+        font.setBold(bold)
+        return font
 
     def _show_message(self, text: str) -> None:
         self._message.setText(f"The plan cannot be scheduled:\n{text}")
@@ -151,13 +169,10 @@ class TimelineView(QWidget):
         left_of_line = name == "deadline"
         anchor = (1.0, 0.0) if left_of_line else (0.0, 0.0)
         line = pg.InfiniteLine(angle=90, movable=False, pen=pen, label=LINE_NAMES[name],
-                               labelOpts={"position": 0.01 if name != "status" else 0.05,
+                               labelOpts={"position": 0.01,
                                           "color": LINE_COLOURS[name], "fill": pg.mkBrush(255, 255, 255, 230),
                                           "anchors": [anchor, anchor]})
-        font = QFont()
-        font.setPointSizeF(self._weights.font_size)
-        font.setBold(True)
-        line.label.setFont(font)
+        line.label.setFont(self._font(bold=True))
         line.setZValue(5)
         self.plot.addItem(line, ignoreBounds=True)
         self._lines[name] = line
@@ -272,10 +287,11 @@ class TimelineView(QWidget):
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
         n = max(geo.n_rows, 1)
+        height = max(self.view_box.height(), 200.0)
         if rows_to_fit:
-            fit = max(5, int(max(self.plot.height() - 60, 200) / self._weights.row_height))
-            n = min(n, fit)
-        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.7, n - 0.3), padding=0)
+            n = min(n, max(5, int((height - HEADER_PX) / self._weights.row_height)))
+        header = HEADER_PX * n / max(height - HEADER_PX, 1.0)    # room for the line labels
+        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
 
     def show_critical_path(self, on: bool = True) -> None:
         """Show only the critical rows (or all rows again) and fit them."""
@@ -323,10 +339,9 @@ class TimelineView(QWidget):
         self._apply_weights()
 
     def _apply_weights(self) -> None:
-        font = QFont()
-        font.setPointSizeF(self._weights.label_font_size)
+        font = self._font()
         self.row_axis.set_font(font)
-        self.row_axis.setWidth(int(300 * self._weights.label_font_size / style.SCREEN.label_font_size))
+        self._fit_label_column()
         self.date_axis.setStyle(tickFont=font)
         self.item.set_weights(self._weights)
         for line in list(self._lines):
