@@ -61,7 +61,8 @@ class Placer:
     def place(self) -> np.ndarray:
         y = np.zeros(self.graph.size)
         for items, c in zip(self.rows, self.offsets):
-            y[items] = c - c[-1] / 2
+            if items.size:
+                y[items] = c - c[-1] / 2
         last = self.graph.layers - 1
         for _ in range(ROUNDS):
             for l in range(1, last + 1):
@@ -74,6 +75,8 @@ class Placer:
 
     def _settle(self, l: int, y: np.ndarray, sides: list[tuple[np.ndarray, np.ndarray]]) -> None:
         items, c = self.rows[l], self.offsets[l]
+        if not items.size:
+            return
         here = np.concatenate([s[0] for s in sides])
         there = np.concatenate([s[1] for s in sides])
         want, has = _medians(items.size, self.rank[here], y[there])

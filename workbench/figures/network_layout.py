@@ -25,7 +25,7 @@ import numpy as np
 
 from ..core.network import compile_network
 from .network_coords import Placer, label_anchor, route_links
-from .network_order import MAX_SWEEPS, Sweeper, count_crossings, expand, naive_positions
+from .network_order import MAX_SWEEPS, LayeredGraph, Sweeper, count_crossings, expand, naive_positions
 
 
 @dataclass(frozen=True)
@@ -36,7 +36,8 @@ class LayoutOptions:
     row_gap: float = 36.0
     lane: float = 12.0          # height kept free in a column for a link passing through
     lane_gap: float = 8.0
-    band_gap: float = 48.0      # space between group bands
+    band_gap: float = 96.0      # space between the contents of two group bands
+    band_title: float = 64.0    # room above a band's contents for its name
     time_scaled: bool = False   # columns placed by early start
     bands: bool = False         # one horizontal band per group
     max_sweeps: int = MAX_SWEEPS
@@ -170,7 +171,7 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
     pos, crossings = Sweeper(graph).reduce(start, options.max_sweeps)
     o = options
     height = np.where(graph.owner < 0, o.node_height, o.lane)
-    y = Placer(graph, pos, height, o.row_gap, o.lane_gap).place()
+    y = _place(graph, pos, height, o) if names else Placer(graph, pos, height, o.row_gap, o.lane_gap).place()
     bands = _stack_bands(graph, y, height, names, o) if names else []
     top = float((y - height / 2).min()) if n else 0.0
     y = y - top
@@ -186,10 +187,25 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
                     bands, width, full_h, crossings, count_crossings(graph, start))
 
 
+def _place(graph: LayeredGraph, pos: np.ndarray, height: np.ndarray, o: LayoutOptions) -> np.ndarray:
+    """With bands: place each group on its own (links inside the group pull), so every
+    band is as compact as its own logic allows; ``_stack_bands`` then stacks them."""
+    y = np.zeros(graph.size)
+    for rank in np.unique(graph.band).tolist():
+        items = np.flatnonzero(graph.band == rank)
+        local = np.full(graph.size, -1, dtype=np.int64)
+        local[items] = np.arange(items.size)
+        inside = (local[graph.seg_u] >= 0) & (local[graph.seg_v] >= 0)
+        sub = LayeredGraph(0, graph.layer[items], local[graph.seg_u[inside]], local[graph.seg_v[inside]],
+                           [], graph.owner[items], np.zeros(items.size, dtype=np.int64))
+        y[items] = Placer(sub, pos[items], height[items], o.row_gap, o.lane_gap).place()
+    return y
+
+
 def _stack_bands(graph, y: np.ndarray, height: np.ndarray, names: list[str], o: LayoutOptions) -> list[GroupBand]:
     """Move each group's items (in place) so the groups occupy separate horizontal bands."""
     bands, bottom = [], None
-    pad = o.band_gap / 3
+    below = max(o.band_gap - o.band_title - 8.0, 0.0)
     for rank, name in enumerate(names):
         mine = graph.band == rank
         if not mine.any():
@@ -199,7 +215,7 @@ def _stack_bands(graph, y: np.ndarray, height: np.ndarray, names: list[str], o: 
             y[mine] += bottom + o.band_gap - top
             top = bottom + o.band_gap
         bottom = float((y[mine] + height[mine] / 2).max())
-        bands.append(GroupBand(name or "ungrouped", 0.0, top - pad, 0.0, bottom - top + 2 * pad))
+        bands.append(GroupBand(name or "ungrouped", 0.0, top - o.band_title, 0.0, bottom - top + o.band_title + below))
     return bands
 
 

@@ -149,11 +149,11 @@ class NetworkPainter:
             if not rect.intersects(v):
                 continue
             p.fillRect(rect, colour(ns.BAND_FILLS[i % 2]))
-            if w.band_font * scale >= 6:
-                p.setPen(colour(ns.BAND_TEXT))
-                p.setFont(font(w.band_font, bold=True))
-                left = max(rect.left(), v.left()) + 8
-                p.drawText(QRectF(left, rect.top() + 4, 600, w.band_font * 1.5), Qt.AlignLeft | Qt.AlignVCenter, band.name)
+            size = min(3 * w.band_font, max(w.band_font, 11.0 / scale))
+            p.setPen(colour(ns.BAND_TEXT))
+            p.setFont(font(size, bold=True))
+            left = max(rect.left(), v.left()) + 8
+            p.drawText(QRectF(left, rect.top() + 2, 40 * size, size * 1.4), Qt.AlignLeft | Qt.AlignVCenter, band.name)
 
     def _paint_links(self, p: QPainter, v: QRectF, scale: float) -> None:
         w = ns.WEIGHTS
