@@ -70,4 +70,17 @@ def run_app(argv: list[str]) -> int:
     first_plan(window, paths)
     code = app.exec()
     instance.close()
+    _dispose(window)
     return code
+
+
+def _dispose(window) -> None:
+    """Delete the window while Python is still fully alive (a Qt object torn down during
+    interpreter shutdown can crash on its way out)."""
+    import gc
+
+    import shiboken6
+    window.hide()
+    if shiboken6.isValid(window):
+        shiboken6.delete(window)
+    gc.collect()

@@ -31,7 +31,7 @@ def _grab(widget, path: Path, app) -> None:
 
 def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
     from PySide6.QtCore import QSettings
-    from workbench.ui.app import application, demo_plan
+    from workbench.ui.app import _dispose, application, demo_plan
     from workbench.ui.main_window import VIEWS, MainWindow, make_view
     app = application()
     QSettings.setDefaultFormat(QSettings.Format.IniFormat)
@@ -50,9 +50,9 @@ def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
         if view is not None:
             written.append(outdir / VIEW_FILES[title])
             _grab(view, written[-1], app)
-            view.close()
+            _dispose(view)
     window.files.close()
-    window.hide()
+    _dispose(window)
     return written
 
 
