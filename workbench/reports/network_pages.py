@@ -16,19 +16,38 @@ from .network_paint import DETAIL_SCALE, NetworkPainter, View, link_bounds
 
 HEADING_SPACE = 30.0
 NOTE_SPACE = 30.0
-OVERLAP = 0.06
 MARGIN_UNITS = 12.0
 
 
-def tiles(width: float, height: float, page_w: float, page_h: float, scale: float) -> list[View]:
-    """Windows of the layout, page-sized at ``scale``, overlapping a little, row by row."""
-    win_w, win_h = page_w / scale, page_h / scale
-    step_w, step_h = win_w * (1 - OVERLAP), win_h * (1 - OVERLAP)
-    nx = max(1, math.ceil((width - win_w) / step_w) + 1) if width > win_w else 1
-    ny = max(1, math.ceil((height - win_h) / step_h) + 1) if height > win_h else 1
-    top = (height - win_h) / 2 if height <= win_h else -MARGIN_UNITS   # centred when one row of tiles
-    return [View(-MARGIN_UNITS + i * step_w, top + j * step_h, win_w, win_h, scale)
-            for j in range(ny) for i in range(nx)]
+def cuts(starts, ends, lo: float, hi: float, size: float, pad: float = 6.0) -> list[tuple[float, float]]:
+    """Windows of at most ``size`` covering [lo, hi], each ending in a gap between boxes
+    (given as intervals starts..ends) where one exists, so no box is cut in two."""
+    out, a = [], lo
+    while a < hi - 1e-6:
+        b = a + size
+        while True:
+            straddle = [s for s, e in zip(starts, ends) if s < b < e and s > a + 0.3 * size]
+            if not straddle:
+                break
+            b = min(straddle) - pad
+        out.append((a, b))
+        a = b
+    return out
+
+
+def tiles(layout, page_w: float, page_h: float, scale: float) -> list[View]:
+    """Page-sized windows of the layout at ``scale``: vertical strips of whole columns;
+    down a strip, pages overlap by one node height, so a node cut at the foot of one page
+    appears whole at the head of the next."""
+    b, win_h = layout.boxes, page_h / scale
+    xs = cuts(b[:, 0], b[:, 0] + b[:, 2], -MARGIN_UNITS, layout.width + MARGIN_UNITS, page_w / scale)
+    total = layout.height + 2 * MARGIN_UNITS
+    if total <= win_h:
+        top = (layout.height - win_h) / 2           # everything fits one page high: centred
+        return [View(x0, top, x1 - x0, win_h, scale) for x0, x1 in xs]
+    step = max(win_h - float(b[:, 3].max()) - 2 * MARGIN_UNITS, win_h * 0.5)
+    count = math.ceil((total - win_h) / step) + 1
+    return [View(x0, -MARGIN_UNITS + k * step, x1 - x0, win_h, scale) for k in range(count) for x0, x1 in xs]
 
 
 def _occupied(layout, view: View) -> bool:
@@ -58,7 +77,7 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
                                    Paragraph(_note(fit), styles.SMALL)]
     if fit >= DETAIL_SCALE:
         return story
-    views = [v for v in tiles(layout.width, layout.height, width, chart_h, DETAIL_SCALE) if _occupied(layout, v)]
+    views = [v for v in tiles(layout, width, chart_h, DETAIL_SCALE) if _occupied(layout, v)]
     boxes = link_bounds(layout)
     for k, view in enumerate(views):
         story += new_page(LANDSCAPE) + [

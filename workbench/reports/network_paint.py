@@ -49,7 +49,7 @@ class NetworkPainter:
     def paint(self, c, w: float, h: float) -> None:
         c.saveState()
         path = c.beginPath()
-        path.rect(0, 0, w, h)
+        path.rect(0, h - self.view.h * self.view.scale, self.view.w * self.view.scale, self.view.h * self.view.scale)
         c.clipPath(path, stroke=0, fill=0)
         v, b = self.view, self.link_boxes
         seen = (b[:, 2] >= v.x0) & (b[:, 0] <= v.x0 + v.w) & (b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)
