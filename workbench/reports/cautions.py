@@ -35,7 +35,7 @@ def cautions(ctx: PackContext, width: float) -> list:
         "Dates follow the plan's working calendar (working weekdays and the holidays stored in the "
         "plan file).",
         "This pack informs a decision; it does not make one. Commitments and approvals rest with the "
-        "organisation's own approval rules and the people who sign above.",
+        "organisation's own approval rules and the people who sign the cover page.",
     ]
     story = [Section("Assumptions and cautions", "cautions"),
              Paragraph("Assumptions and cautions", styles.H1)]

@@ -8,7 +8,7 @@ from reportlab.platypus import LongTable, Paragraph, TableStyle
 from . import styles
 from .context import PackContext
 from .layout import Section
-from .text import clean, format_date, format_number
+from .text import clean, format_date
 
 HEAD = ("ID", "Name", "te", "sd", "ES", "EF", "LS", "LF", "Total\nfloat", "Free\nfloat", "Crit.")
 SHARES = (0.085, 0.255, 0.055, 0.05, 0.09, 0.09, 0.09, 0.09, 0.065, 0.065, 0.065)
@@ -25,15 +25,20 @@ def fit(text: str, width: float, font: str = styles.FONT, size: float = FONT_SIZ
     return text.rstrip() + "..."
 
 
+def _fixed(x: float) -> str:
+    """Two decimals in every row, so a column's figures line up."""
+    return f"{round(float(x), 9) + 0.0:.2f}"
+
+
 def activity_rows(ctx: PackContext, widths: list[float]) -> list[list[str]]:
     a, s = ctx.analysis, ctx.analysis.schedule
     dates = a.dates()
     rows = []
     for i, act in enumerate(ctx.plan.activities):
         rows.append([fit(act.id, widths[0] - 4, styles.BOLD), fit(act.name, widths[1] - 4),
-                     format_number(a.means[i], 2), format_number(a.variances[i] ** 0.5, 2),
+                     _fixed(a.means[i]), _fixed(a.variances[i] ** 0.5),
                      *(format_date(dates[k][i]) for k in ("early_start", "early_finish", "late_start", "late_finish")),
-                     format_number(s.total_float[i], 2), format_number(s.free_float[i], 2),
+                     _fixed(s.total_float[i]), _fixed(s.free_float[i]),
                      "YES" if s.critical[i] else ""])
     return rows
 
