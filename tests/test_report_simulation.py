@@ -1,0 +1,94 @@
+"""The approval pack with a Monte Carlo simulation: seed recorded and reproducible, the
+simulated odds printed as the Odds view formats them, drivers ranked, charts vector."""
+
+from __future__ import annotations
+
+import datetime as dt
+import re
+
+import pytest
+from pypdf import PdfReader
+
+from test_report_plans import footbridge_plan
+from workbench.figures.drivers import sensitivity_bars
+from workbench.figures.odds import format_probability
+from workbench.reports.pack import build_pack
+
+montecarlo = pytest.importorskip("workbench.core.montecarlo")
+
+WHEN = dt.datetime(2027, 2, 23, 9, 30, tzinfo=dt.timezone.utc)
+ITERATIONS = 2000
+
+
+def _sections(reader):
+    return {item.title: reader.get_destination_page_number(item) for item in reader.outline}
+
+
+def _text(reader, pages) -> str:
+    return "\n".join(reader.pages[p].extract_text() or "" for p in pages)
+
+
+@pytest.fixture(scope="module")
+def simulated(tmp_path_factory):
+    path = tmp_path_factory.mktemp("sim") / "pack.pdf"
+    info = build_pack(footbridge_plan(), path, iterations=ITERATIONS, seed=42, generated_at=WHEN)
+    return info, PdfReader(str(path)), path
+
+
+def test_seed_is_recorded_on_every_page(simulated):
+    info, reader, _ = simulated
+    assert info.seed == 42
+    for number in range(len(reader.pages)):
+        assert "seed 42" in (reader.pages[number].extract_text() or ""), number
+
+
+def test_summary_shows_the_simulated_probability_as_the_screen_does(simulated):
+    _, reader, _ = simulated
+    plan = footbridge_plan()
+    sim = montecarlo.simulate(plan, iterations=ITERATIONS, seed=42)
+    from workbench.core.analysis import analyze
+    deadline = analyze(plan).deadline
+    p, _ = sim.prob_by(deadline)
+    summary = _text(reader, [_sections(reader)["Summary"]])
+    assert format_probability(p) in summary
+    odds = _text(reader, [_sections(reader)["Odds"]])
+    assert f"Simulation ({ITERATIONS:,} runs, seed 42)" in odds
+
+
+def test_drivers_page_ranks_the_top_driver_first(simulated):
+    _, reader, _ = simulated
+    plan = footbridge_plan()
+    sim = montecarlo.simulate(plan, iterations=ITERATIONS, seed=42)
+    top = sensitivity_bars(sim, plan, top=15)[0]
+    text = _text(reader, [_sections(reader)["Drivers"]])
+    assert top.act_id in text
+    summary = _text(reader, [_sections(reader)["Summary"]])
+    assert re.search(rf"\b{re.escape(top.act_id)}\b", summary.split("Top risk drivers")[1])
+
+
+def test_simulation_chart_pages_are_vector(simulated):
+    _, reader, _ = simulated
+    found = _sections(reader)
+    for number in range(found["Odds"], found["Activities"]):
+        page = reader.pages[number]
+        ops = page.get_contents().get_data().decode("latin-1")
+        assert len(re.findall(r"(?<=\s)(?:m|l|re)(?=\s)", ops)) >= 30, number
+        xobjects = page["/Resources"].get("/XObject", {})
+        assert not [k for k, v in xobjects.items() if v.get_object().get("/Subtype") == "/Image"]
+
+
+def test_same_seed_same_bytes(simulated, tmp_path):
+    _, _, first = simulated
+    again = tmp_path / "again.pdf"
+    build_pack(footbridge_plan(), again, iterations=ITERATIONS, seed=42, generated_at=WHEN)
+    assert again.read_bytes() == first.read_bytes()
+
+
+def test_without_a_seed_one_is_chosen_and_printed(tmp_path):
+    info = build_pack(footbridge_plan(), tmp_path / "p.pdf", iterations=500, generated_at=WHEN)
+    assert isinstance(info.seed, int) and info.seed >= 0
+    reader = PdfReader(str(tmp_path / "p.pdf"))
+    assert f"seed {info.seed}" in (reader.pages[0].extract_text() or "")
+    again = build_pack(footbridge_plan(), tmp_path / "q.pdf", iterations=500, seed=info.seed, generated_at=WHEN)
+    assert (tmp_path / "q.pdf").read_bytes() == (tmp_path / "p.pdf").read_bytes()
+    assert again.seed == info.seed
