@@ -2,7 +2,8 @@
 
 The drawing follows the layered (hierarchical) drawing framework of Sugiyama, Tagawa and
 Toda (1981, IEEE Trans. SMC 11(2)): 1. layers, 2. dummy nodes on links that span several
-layers, 3. crossing reduction by barycentre sweeps between adjacent layers, 4. coordinate
+layers, 3. crossing reduction by barycentre sweeps between adjacent layers, the best order then
+refined by adjacent exchanges (``network_exchange``), 4. coordinate
 assignment (see ``network_coords``). Everything here is vectorised with numpy; the only
 Python loops run over layers and over a bounded number of sweeps.
 """
@@ -13,8 +14,11 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from .network_exchange import exchange_pass
+
 MAX_SWEEPS = 12     # down+up sweep pairs, at most
 PATIENCE = 3        # stop after this many pairs without improvement
+EXCHANGES = 6       # adjacent-exchange passes on the best order, at most
 
 
 @dataclass
@@ -155,8 +159,15 @@ class Sweeper:
         for l in range(self.graph.layers - 2, -1, -1):
             self._reorder(l, pos, self.up[l])
 
+    def exchange(self, pos: np.ndarray) -> None:
+        """Adjacent exchanges (see ``network_exchange``) until none helps, a bounded number of times."""
+        for _ in range(EXCHANGES):
+            if not exchange_pass(self.members, [self.down, self.up], self.graph.band, pos):
+                break
+
     def reduce(self, pos: np.ndarray, max_sweeps: int = MAX_SWEEPS) -> tuple[np.ndarray, int]:
-        """Sweep until no improvement for a few rounds; return the best order and its crossings."""
+        """Sweep until no improvement for a few rounds, then refine the best order by
+        adjacent exchanges; return it and its crossings."""
         best, best_c = pos.copy(), count_crossings(self.graph, pos)
         stale = 0
         work = pos.copy()
@@ -169,4 +180,7 @@ class Sweeper:
                 best, best_c, stale = work.copy(), c, 0
             else:
                 stale += 1
+        if best_c:
+            self.exchange(best)
+            best_c = count_crossings(self.graph, best)
         return best, best_c
