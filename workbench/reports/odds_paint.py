@@ -4,6 +4,7 @@ of the S-curve, on a reportlab canvas, from ``workbench.figures.odds`` geometry.
 from __future__ import annotations
 
 import numpy as np
+from reportlab.lib.colors import white as _WHITE
 
 from workbench.figures import odds as og
 
@@ -158,6 +159,9 @@ class SCurvePainter:
             c.setDash(1.5, 1.5)
             c.line(ax.x, ax.py(p), ax.px(x), ax.py(p))
             c.line(ax.px(x), ax.y, ax.px(x), ax.py(p))
+            label = clean(f"P{int(p * 100)} {format_date(self.ctx.date_of(x))}")
+            c.setFillColor(_WHITE)
+            c.rect(ax.px(x) + 2, ax.py(p) - 12, c.stringWidth(label, styles.BOLD, 8) + 2, 10, stroke=0, fill=1)
             c.setFillColor(styles.TEXT)
-            c.drawString(ax.px(x) + 3, ax.py(p) - 10, clean(f"P{int(p * 100)} {format_date(self.ctx.date_of(x))}"))
+            c.drawString(ax.px(x) + 3, ax.py(p) - 10, label)
         c.restoreState()
