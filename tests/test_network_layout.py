@@ -217,3 +217,54 @@ def test_a_loop_is_reported():
 def test_empty_plan():
     layout = layout_plan(Plan(Settings(title="empty")))
     assert layout.nodes == [] and layout.links == []
+
+
+@settings(max_examples=60, deadline=None)
+@given(dags(max_n=24))
+def test_adjacent_exchange_never_adds_crossings(case):
+    from workbench.figures.network_exchange import exchange_pass
+    from workbench.figures.network_order import Sweeper
+
+    n, links, groups = case
+    arr = np.array(links, dtype=np.int64).reshape(-1, 2)
+    net = compile_network([str(i) for i in range(n)], arr[:, 0], arr[:, 1], np.zeros(len(arr)),
+                          np.zeros(len(arr), dtype=np.int64))
+    band = np.array(["xyz".index(g) for g in groups], dtype=np.int64)
+    graph = expand(net.level.astype(np.int64), arr[:, 0], arr[:, 1], band)
+    pos = naive_positions(graph, arr[:, 0])
+    sweeper = Sweeper(graph)
+    before = count_crossings(graph, pos)
+    exchange_pass(sweeper.members, [sweeper.down, sweeper.up], graph.band, pos)
+    assert count_crossings(graph, pos) <= before
+    for items in graph.members():
+        assert sorted(pos[items].tolist()) == list(range(items.size))
+        ranks = pos[items]
+        assert all(graph.band[a] <= graph.band[b] for a, b in zip(items[np.argsort(ranks)], items[np.argsort(ranks)][1:]))
+
+
+def test_node_texts_and_number_format():
+    from workbench.core.model import Settings as S
+    from workbench.figures.network_labels import node_texts, number
+
+    assert number(3.0) == "3" and number(12.0) == "12" and number(2.26) == "2.3"
+    assert number(-0.0) == "0" and number(-1.5) == "\u22121.5"
+    acts = [Activity(id="A", name="Pour slab", optimistic=2.0, most_likely=3.0, pessimistic=10.0),
+            Activity(id="B", name="Cure", duration=4.0)]
+    plan = Plan(S(title="t", deadline=6.0), acts, [Link("A", "B")])
+    texts = node_texts(plan, analyze(plan))
+    a, b = texts
+    assert (a.id, a.name, a.te, a.es, a.ef) == ("A", "Pour slab", "4", "0", "4")
+    assert (b.es, b.ef, b.lf) == ("4", "8", "6")
+    assert b.total_float == "\u22122" and b.negative       # deadline 6, finish 8: float −2
+    assert node_texts(plan)[0].es == ""                     # without an analysis: no dates
+
+
+def test_find_nodes_order():
+    from workbench.figures.network_labels import find_nodes
+
+    plan = Plan(Settings(title="t"), [Activity(id="W1", name="Wall", duration=1.0),
+                                      Activity(id="W10", name="Window", duration=1.0),
+                                      Activity(id="R", name="Roof over w1 wall", duration=1.0)])
+    assert find_nodes(plan, "w1") == ["W1", "W10", "R"]
+    assert find_nodes(plan, "  ") == []
+    assert find_nodes(plan, "zzz") == []

@@ -130,3 +130,26 @@ def test_a_loop_shows_a_message_instead_of_a_drawing(qtbot):
     qtbot.addWidget(v)
     assert not v.message.isHidden()
     assert "loop" in v.message.text()
+
+
+def test_print_routine_writes_a_page(view, tmp_path):
+    from PySide6.QtPrintSupport import QPrinter
+
+    from workbench.ui.network_export import print_pages
+
+    printer = QPrinter(QPrinter.HighResolution)
+    printer.setOutputFormat(QPrinter.PdfFormat)
+    out = tmp_path / "net.pdf"
+    printer.setOutputFileName(str(out))
+    print_pages(view.item.painter, printer)
+    data = out.read_bytes()
+    assert data.startswith(b"%PDF") and b"/Type /Page" in data
+
+
+def test_selected_node_is_framed(view):
+    zoom_to(view, "C")
+    spot = node_point(view, "C", 0.5, -0.05)            # just above the box: the selection halo
+    assert close_to(pixel(view, spot), "#FFFFFF", 10)
+    view.session.select(["C"])
+    view.graphics.repaint()
+    assert close_to(pixel(view, spot), style.SELECTION, 12)
