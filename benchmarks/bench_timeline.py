@@ -105,13 +105,16 @@ def main(argv=None) -> int:
     t = interleaved({"bare": (bare, None),
                      "blank": (blank.plot, None),
                      "full": (full.plot, full.item._changed),
-                     "zoom": (zoom.plot, zoom.item._changed)}, opts.rounds)
+                     "zoom": (zoom.plot, zoom.item._changed),
+                     "zoom_cached": (zoom.plot, None)}, opts.rounds)
     print(f"references at {SIZE[0]}x{SIZE[1]}: empty pyqtgraph plot {t['bare']:.2f} ms; "
           f"empty Timeline (no activities: same axes, lines, label column) {t['blank']:.2f} ms")
     for name, label, target in (("full", "10,000 activities, all rows", "<= 20 ms, <= 2.5x"),
                                 ("zoom", f"10,000 activities, {zoom.item.painted_rows} rows in view", "<= 1.3x")):
         print(f"{label}: {t[name]:.1f} ms = {t[name] / t['bare']:.1f}x empty plot, "
               f"{t[name] / t['blank']:.2f}x empty Timeline (target {target})")
+    print(f"same view repainted from its cached QPicture: {t['zoom_cached']:.1f} ms = "
+          f"{t['zoom_cached'] / t['bare']:.1f}x empty plot, {t['zoom_cached'] / t['blank']:.2f}x empty Timeline")
     print(f"geometry for 10,000 activities: {geometry_ms(full, 3):.1f} ms (on schedule change, not per paint)")
     out = Path(opts.out)
     out.mkdir(parents=True, exist_ok=True)

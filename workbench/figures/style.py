@@ -54,8 +54,8 @@ class Weights:
     bar_fraction: float     # share of a row's height a bar takes
 
 
-SCREEN = Weights(bar_outline=1.0, critical_outline=2.5, float_line=2.5, float_tick=2.5,
-                 reference_line=2.5, connector=1.0, whisker=1.5, grid=1.0,
+SCREEN = Weights(bar_outline=1.0, critical_outline=2.5, float_line=3.0, float_tick=3.0,
+                 reference_line=3.0, connector=1.0, whisker=1.5, grid=1.0,
                  font_size=10.0, label_font_size=10.5, row_height=24.0, bar_fraction=0.6)
 
 PRESENT = Weights(bar_outline=1.5, critical_outline=4.0, float_line=3.5, float_tick=3.5,
