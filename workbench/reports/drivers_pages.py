@@ -39,34 +39,39 @@ def paint_drivers(c, w: float, h: float, crit, sens, critical: set[str]) -> None
     _panel(c, (half + 20, h, half), sens, True, "Sensitivity: correlation of duration with the finish", critical)
     c.setFont(styles.FONT, 8)
     c.setFillColor(styles.MUTED)
-    c.drawString(0, 4, "Activities on the PERT critical path are drawn hatched with a heavy outline. A folded row stands for "
-                       "the remaining activities and shows the largest of their values.")
+    c.drawString(0, 4, fit("Activities on the PERT critical path are drawn hatched with a heavy outline. A folded row "
+                           "stands for the remaining activities and shows the largest of their values.", w, styles.FONT, 8))
 
 
 def _panel(c, box, bars, signed: bool, title: str, critical: set[str]) -> None:
     x0, h, w = box
     lo, hi = dg.value_span(bars, signed)
-    plot_x, plot_w = x0 + LABEL_W, w - LABEL_W - 30
+    label_w = min(LABEL_W, 0.42 * w)
+    plot_x, plot_w = x0 + label_w, w - label_w - 30
     top = h - 26
+    row = min(max(BAR_ROW, (h - 60) / max(len(bars), 1)), 1.6 * BAR_ROW)
     px = lambda v: plot_x + (v - lo) / (hi - lo) * plot_w
     c.setFont(styles.BOLD, 10)
     c.setFillColor(styles.TEXT)
-    c.drawString(x0, h - 12, title)
-    _grid(c, px, lo, hi, top, len(bars), signed)
+    c.drawString(x0, h - 12, fit(title, w, styles.BOLD, 10))
+    _grid(c, px, (lo, hi), (top, top - len(bars) * row), signed, plot_w)
     for rect in dg.bar_rects(bars):
-        y = top - (rect.row + 0.5) * BAR_ROW
-        _bar(c, px(rect.x0), y - BAR_ROW * 0.35, px(rect.x1) - px(rect.x0), BAR_ROW * 0.7, rect.bar, critical)
+        y = top - (rect.row + 0.5) * row
+        _bar(c, px(rect.x0), y - row * 0.35, px(rect.x1) - px(rect.x0), row * 0.7, rect.bar, critical)
         c.setFont(styles.BOLD if not rect.bar.is_folded else styles.FONT, 8)
         c.setFillColor(styles.TEXT)
-        c.drawString(x0, y - 3, fit(rect.bar.label, LABEL_W - 6, styles.BOLD, 8))
+        c.drawString(x0, y - 3, fit(rect.bar.label, label_w - 6, styles.BOLD, 8))
         value = f"{rect.bar.value * 100:.0f} %" if not signed else f"{rect.bar.value:+.2f}"
         c.setFont(styles.FONT, 8)
         c.drawString(px(max(rect.x1, 0.0)) + 3, y - 3, value)
 
 
-def _grid(c, px, lo, hi, top, rows, signed) -> None:
-    bottom = top - rows * BAR_ROW
-    ticks = [k / 5 for k in range(6)] if not signed else [lo * 0.9, lo * 0.45, 0.0, hi * 0.45, hi * 0.9]
+def _grid(c, px, span, rows_y, signed, plot_w) -> None:
+    (lo, hi), (top, bottom) = span, rows_y
+    if plot_w >= 160:
+        ticks = [k / 5 for k in range(6)] if not signed else [lo * 0.9, lo * 0.45, 0.0, hi * 0.45, hi * 0.9]
+    else:   # a narrow panel: fewer ticks so their labels do not collide
+        ticks = [0.0, 0.5, 1.0] if not signed else [lo * 0.9, 0.0, hi * 0.9]
     c.saveState()
     c.setFont(styles.FONT, 7.5)
     for v in ticks:

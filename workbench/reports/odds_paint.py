@@ -112,11 +112,11 @@ class OddsPainter:
         ax.vline(self.q.d1, styles.DEADLINE if has_deadline else styles.TEXT, 1.8, (5, 2))
 
     def _legend(self):
-        items = [(f"Shaded: finish by {format_date(self.ctx.date_of(self.q.d1))}", _fill_swatch(styles.PROBABILITY)),
-                 ("PERT normal curve", _line_swatch(styles.TEXT, 1.6))]
+        items = [(f"Finish by {format_date(self.ctx.date_of(self.q.d1))}", _fill_swatch(styles.PROBABILITY)),
+                 ("PERT curve", _line_swatch(styles.TEXT, 1.6))]
         if self.ctx.simulation is not None:
-            items += [("Simulated finishes (histogram)", _fill_swatch(styles.FLOAT)),
-                      ("P50 / P80 / P90 of the simulation", _line_swatch(styles.TEXT, 0.8, (1.5, 1.5)))]
+            items += [("Simulated finishes", _fill_swatch(styles.FLOAT)),
+                      ("Simulated P50/P80/P90", _line_swatch(styles.TEXT, 0.8, (1.5, 1.5)))]
         if self.ctx.deadline() is not None:
             items.append(("Deadline", _line_swatch(styles.DEADLINE, 1.8, (5, 2))))
         return items
