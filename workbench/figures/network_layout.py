@@ -82,7 +82,7 @@ class Geometry:
 
     boxes: np.ndarray                   # (n, 4): x, y, w, h
     layer: np.ndarray
-    routes: dict[tuple[int, int], np.ndarray]
+    routes: dict[tuple[int, int], tuple]   # (pred row, succ row) → (points, label anchor)
     bands: list[GroupBand]
     width: float
     height: float
@@ -100,6 +100,7 @@ class NetworkLayout:
     crossings: int
     naive_crossings: int
     boxes: np.ndarray = field(repr=False)   # (n, 4) x, y, w, h in plan order
+    geometry: Geometry | None = field(default=None, repr=False)   # the cached structure part
 
     def index_of(self, act_id: str) -> int:
         for node in self.nodes:
@@ -183,7 +184,10 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
     width = float(column_x[graph.layers - 1] + o.node_width) if n else 0.0
     full_h = float((y + height / 2).max()) if n else 0.0
     bands = [GroupBand(b.name, -o.column_gap / 3, b.y, width + 2 * o.column_gap / 3, b.h) for b in bands]
-    return Geometry(boxes, layer, {tuple(map(int, p)): r for p, r in zip(arr, routes)},
+    reach = o.column_gap * 0.45
+    table = {(int(p[0]), int(p[1])): (tuple(map(tuple, r.tolist())), label_anchor(r, reach))
+             for p, r in zip(arr.tolist(), routes)}
+    return Geometry(boxes, layer, table,
                     bands, width, full_h, crossings, count_crossings(graph, start))
 
 
@@ -240,18 +244,18 @@ def layout_plan(plan, analysis=None, options: LayoutOptions | None = None) -> Ne
     geo = structure_geometry(*key)
     ids = plan.ids()
     crit = np.zeros(len(ids), dtype=bool) if schedule is None else np.asarray(schedule.critical, dtype=bool)
-    nodes = [NodeBox(a, i, *map(float, geo.boxes[i]), int(geo.layer[i]), bool(crit[i])) for i, a in enumerate(ids)]
-    driving = _driving_links(plan, schedule)
+    layer = geo.layer.tolist()
+    nodes = [NodeBox(a, i, *box, layer[i], c) for i, (a, box, c) in enumerate(zip(ids, geo.boxes.tolist(), crit.tolist()))]
+    driving = _driving_links(plan, schedule).tolist()
     row = {a: i for i, a in enumerate(ids)}
     links = []
     for k, link in enumerate(plan.links):
-        route = geo.routes[(row[link.pred], row[link.succ])]
-        label = link_label(link.type, float(link.lag))
-        links.append(LinkRoute(link.pred, link.succ, tuple(map(tuple, route.tolist())), link.type,
-                               float(link.lag), bool(driving[k]), label,
-                               label_anchor(route, options.column_gap * 0.45)))
+        points, anchor = geo.routes[(row[link.pred], row[link.succ])]
+        lag = float(link.lag)
+        links.append(LinkRoute(link.pred, link.succ, points, link.type, lag, driving[k],
+                               link_label(link.type, lag), anchor))
     return NetworkLayout(nodes, links, list(geo.bands), geo.width, geo.height, geo.crossings,
-                         geo.naive_crossings, geo.boxes)
+                         geo.naive_crossings, geo.boxes, geo)
 
 
 def _driving_links(plan, schedule) -> np.ndarray:

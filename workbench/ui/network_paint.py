@@ -56,37 +56,46 @@ class NetworkPainter:
         self._polys: list[QPolygonF] = []
         self._heads: list[QPolygonF] = []
         self._names: list[tuple[str, str]] = []
+        self._wrapped: dict[tuple[str, float, float], tuple[str, str]] = {}
+        self._key = None
+        self._seg_link = np.zeros(0, dtype=np.int64)
 
     # --- content ---------------------------------------------------------
     def set_content(self, layout, texts) -> None:
+        """Take a new layout; Qt shapes are rebuilt only when the geometry changed (a
+        duration edit keeps it), flags and texts always."""
+        key = (id(layout.geometry), tuple((l.pred, l.succ) for l in layout.links))
         self.layout, self.texts = layout, texts
-        self._rects = [QRectF(*map(float, b)) for b in layout.boxes]
+        if key != self._key:
+            self._key = key
+            self._cache_geometry(layout)
         self._crit = np.array([n.critical for n in layout.nodes], dtype=bool)
-        self._polys = [QPolygonF([QPointF(x, y) for x, y in l.points]) for l in layout.links]
-        self._heads = [self._arrow_head(l.points) for l in layout.links]
         self._link_crit = np.array([l.critical for l in layout.links], dtype=bool)
-        self._cache_segments(layout)
-        self._ends = np.array([l.points[-1] for l in layout.links]).reshape(-1, 2)
-        self._label_at = np.array([l.label_at for l in layout.links]).reshape(-1, 2)
-        self._heads_full = [QRectF(*ns.part(b, ns.HEADER)) for b in layout.boxes.tolist()]
-        self._heads_compact = [QRectF(*ns.part(b, ns.COMPACT_HEADER)) for b in layout.boxes.tolist()]
-        self._short_rects = [_two_lines(ns.part(b, ns.COMPACT_NAME)) for b in layout.boxes.tolist()]
-        self._names = [self._wrap(t.name, b[2], ns.WEIGHTS.name_font) for t, b in zip(texts, layout.boxes)]
-        self._short = [self._wrap(t.name, b[2], ns.WEIGHTS.compact_name_font) for t, b in zip(texts, layout.boxes)]
+        self._seg_crit = self._link_crit[self._seg_link] if self._seg_link.size else np.zeros(0, dtype=bool)
+        self._all_lines = {flag: [self._seg_lines[i] for i in np.flatnonzero(self._seg_crit == flag)]
+                           for flag in (False, True)}
+        width = float(layout.boxes[0, 2]) if len(layout.boxes) else 0.0
+        self._names = [self._wrap(t.name, width, ns.WEIGHTS.name_font) for t in texts]
+        self._short = [self._wrap(t.name, width, ns.WEIGHTS.compact_name_font) for t in texts]
         self.related = {r for r in self.related if r < len(self._rects)}
         self.selected = {r for r in self.selected if r < len(self._rects)}
 
-    def _cache_segments(self, layout) -> None:
-        """Every link segment once: coordinates for culling, QLineF for batched drawing."""
-        rows = [(a[0], a[1], b[0], b[1], l.critical, k) for k, l in enumerate(layout.links)
+    def _cache_geometry(self, layout) -> None:
+        boxes = layout.boxes.tolist()
+        self._rects = [QRectF(*b) for b in boxes]
+        self._polys = [QPolygonF([QPointF(x, y) for x, y in l.points]) for l in layout.links]
+        self._heads = [self._arrow_head(l.points) for l in layout.links]
+        self._ends = np.array([l.points[-1] for l in layout.links]).reshape(-1, 2)
+        self._label_at = np.array([l.label_at for l in layout.links]).reshape(-1, 2)
+        self._heads_full = [QRectF(*ns.part(b, ns.HEADER)) for b in boxes]
+        self._heads_compact = [QRectF(*ns.part(b, ns.COMPACT_HEADER)) for b in boxes]
+        self._short_rects = [_two_lines(ns.part(b, ns.COMPACT_NAME)) for b in boxes]
+        rows = [(a[0], a[1], b[0], b[1], k) for k, l in enumerate(layout.links)
                 for a, b in zip(l.points, l.points[1:])]
-        arr = np.array(rows, dtype=float).reshape(-1, 6)
+        arr = np.array(rows, dtype=float).reshape(-1, 5)
         self._segs = arr[:, :4]
-        self._seg_crit = arr[:, 4] > 0.5
-        self._seg_link = arr[:, 5].astype(np.int64)
+        self._seg_link = arr[:, 4].astype(np.int64)
         self._seg_lines = [QLineF(x0, y0, x1, y1) for x0, y0, x1, y1 in self._segs.tolist()]
-        self._all_lines = {flag: [self._seg_lines[i] for i in np.flatnonzero(self._seg_crit == flag)]
-                           for flag in (False, True)}
 
     def set_hover(self, row: int) -> None:
         self.hover = row
@@ -108,7 +117,13 @@ class NetworkPainter:
                           QPointF(base[0] + uy * s * 0.45, base[1] - ux * s * 0.45)])
 
     def _wrap(self, name: str, width: float, size: float) -> tuple[str, str]:
-        """The name on at most two lines, the second elided when it does not fit."""
+        """The name on at most two lines, the second elided when it does not fit (cached)."""
+        key = (name, width, size)
+        if key not in self._wrapped:
+            self._wrapped[key] = self._wrap_now(name, width, size)
+        return self._wrapped[key]
+
+    def _wrap_now(self, name: str, width: float, size: float) -> tuple[str, str]:
         fm = QFontMetricsF(font(size))
         room = width * (ns.NAME[2] - ns.NAME[0])
         words, first = name.split(), ""
