@@ -231,3 +231,117 @@ def test_exports(view, tmp_path):
     export_pdf(view, pdf)
     from pypdf import PdfReader
     assert len(PdfReader(str(pdf)).pages) == 1
+
+
+def test_work_bar_edge_is_light_in_grayscale(view):
+    """Counterpart of the heavy-edge test: a grayscale print tells the two apart."""
+    image = render_image(view)
+    _, row, x0, x1 = bar(view, "D")
+    centre = to_px(view, (x0 + x1) / 2, row)
+    column = [image.pixelColor(centre.x(), y) for y in range(centre.y() - 40, centre.y())]
+    assert not [c for c in column if style.gray_level(c.name()) < 0.15]
+
+
+def test_negative_float_mark_in_the_deadline_colour(qtbot):
+    session = Session(small_plan(deadline=10.0))     # the chain A, C, M needs 12: a miss of 2
+    v = TimelineView(session)
+    qtbot.addWidget(v)
+    v.resize(1200, 600)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit_all()
+    m = v.geometry.marks["negative_float"]
+    rows = {v.geometry.keys[r] for r in m.rows.tolist()}
+    # A (te 2) → C (te 10) → M takes 12 against a deadline of 10; B → D → M takes 6.
+    assert rows == {"A", "C", "M"}
+    image = render_image(v)
+    k = v.geometry.keys.index("C")
+    hit = np.flatnonzero(m.rows == k)[0]
+    x = (m.x0[hit] + m.x1[hit]) / 2
+    from workbench.ui.timeline_item import _Pixels
+    from workbench.ui.timeline_paint import bar_height
+    h = bar_height(_Pixels(v.item.deviceTransform_(), 1.0), style.SCREEN)
+    centre = to_px(v, x, k)
+    below = QPoint(centre.x(), round(centre.y() + h / 2 + 2.5))   # the dashed miss line under the bar
+    found = any(near(image, QPoint(below.x() + dx, below.y()), style.NEGATIVE_FLOAT, radius=3) for dx in range(0, 12))
+    assert found
+
+
+class FakeResult:
+    def __init__(self, ids, finish):
+        self.ids, self.finish = ids, np.asarray(finish, float)
+        self.criticality = np.linspace(0, 1, len(ids))
+
+    def percentile(self, p):
+        return float(np.percentile(self.finish, p))
+
+
+def test_simulation_adds_the_finish_band_and_criticality(view):
+    ids = view.session.analysis.schedule.ids
+    view.session.set_simulation(FakeResult(ids, np.linspace(11, 16, 51)))
+    assert view._band.scene() is not None
+    assert view._band.getRegion() == pytest.approx((11.5, 15.5))
+    from workbench.ui.timeline_tooltip import tooltip_text
+    assert "criticality 50% (simulated)" in tooltip_text(view.session.analysis, view.session.simulation, "C")
+    view.session.set_simulation(None)
+    assert view._band.scene() is None
+
+
+def test_clicking_a_group_row_collapses_it(qtbot):
+    plan = small_plan()
+    for act_id in ("A", "C"):
+        plan.replace_activity(act_id, plan.activity(act_id).with_(group="Build"))
+    v = TimelineView(Session(plan))
+    qtbot.addWidget(v)
+    v.resize(1000, 500)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit_all()
+    row = v.geometry.keys.index("Build")
+    QTest.mouseClick(v.plot.viewport(), Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, to_px(v, 1.0, row))
+    assert v.collapsed == {"Build"}
+    assert "C" not in v.geometry.row_of and v.geometry.kinds[row] == "group"
+    assert v.row_axis.label_text(row).startswith("\u25b8")
+
+
+def test_hover_shows_the_activity_numbers(view):
+    _, row, x0, x1 = bar(view, "C")
+    view._hover(QPointF((x0 + x1) / 2, row), None)
+    assert view.plot.toolTip().startswith("C  Assemble")
+    assert "estimate 6 / 9 / 18" in view.plot.toolTip()
+
+
+def test_long_labels_are_elided_to_the_column(qtbot):
+    plan = small_plan()
+    plan.replace_activity("D", plan.activity("D").with_(name="Paint every wall, door, window frame and skirting board twice"))
+    v = TimelineView(Session(plan))
+    qtbot.addWidget(v)
+    v.resize(700, 400)
+    v.show()
+    qtbot.waitExposed(v)
+    assert v.row_axis.width() <= 0.32 * 700 + 1
+    image = render_image(v)            # paints the label column
+    texts = [t for _, _, t in v.row_axis.generateDrawSpecs(__import__("PySide6.QtGui").QtGui.QPainter(image))[2]]
+    assert any(t.startswith("D  Paint") and t.endswith("\u2026") for t in texts)
+
+
+def test_only_rows_on_screen_are_painted(qtbot):
+    acts = [Activity(f"T{i}", duration=1 + i % 5) for i in range(300)]
+    plan = Plan(Settings(start=dt.date(2026, 12, 7)), acts, [Link(f"T{i}", f"T{i + 1}") for i in range(299)])
+    v = TimelineView(Session(plan))
+    qtbot.addWidget(v)
+    v.resize(1000, 600)
+    v.show()
+    qtbot.waitExposed(v)
+    v.view_box.setYRange(100, 120, padding=0)
+    render_image(v)
+    assert 15 <= v.item.painted_rows <= 25
+
+
+def test_present_mode_uses_heavier_weights(view):
+    small = view.row_axis.style["tickFont"].pointSizeF()
+    view.set_present(True)
+    assert view.item._weights is style.PRESENT
+    assert view.row_axis.style["tickFont"].pointSizeF() > small
+    view.set_present(False)
+    assert view.item._weights is style.SCREEN
