@@ -58,13 +58,13 @@ def timeline_pages(ctx, frame: tuple[float, float]) -> list:
     geo = timeline_geometry(ctx.analysis, ctx.simulation)
     width, height = frame
     chart_h = height - HEADING_SPACE
-    per_page = int((chart_h - CHROME) // ROW_H)
+    per_page = int((chart_h - CHROME) // ROW_H) - 1          # one row kept for the project finish
     cal = ctx.analysis.calendar
     chunks = row_chunks(geo.n_rows, per_page)
     tiles = [(rows, win) for rows in chunks
              for win in time_windows(*geo.x_range, cal.per_unit, row_extent(geo, *rows))]
     longest = max(hi - lo for lo, hi in chunks) or 1
-    row_h = max(ROW_H, min(MAX_ROW_H, (chart_h - CHROME) / longest))
+    row_h = max(ROW_H, min(MAX_ROW_H, (chart_h - CHROME) / (longest + 1)))
     story = []
     for k, (rows, window) in enumerate(tiles):
         story += new_page(LANDSCAPE)

@@ -31,7 +31,7 @@ class TimelineTile:
     # --- layout --------------------------------------------------------------
     def _axes(self, c, w: float, h: float) -> Axes:
         s = self.spec
-        rows_h = (s.row_hi - s.row_lo) * s.row_h
+        rows_h = (s.row_hi - s.row_lo + 1) * s.row_h      # + the project finish row
         top = h - AXIS_H
         return Axes(c, LABEL_W, top - rows_h, w - LABEL_W - 8, rows_h, s.x_lo, s.x_hi)
 
@@ -50,9 +50,11 @@ class TimelineTile:
         c.clipPath(path, stroke=0, fill=0)
         self._marks(ax)
         self._reference_lines(ax)
+        self._finish_row(ax)
         c.restoreState()
         self._reference_labels(ax)
         self._labels(ax)
+        self._finish_label(ax)
         ax.frame()
         mk.legend(c, 0, max(2.0, ax.y - AXIS_H - LEGEND_H + 4), self._legend_items())
 
@@ -128,6 +130,23 @@ class TimelineTile:
             c.line(ax.px(x0), y, ax.px(x1), y)
         c.restoreState()
 
+    def _finish_row(self, ax: Axes) -> None:
+        """The last row: the project finish on PERT means, and its P10-P90 when simulated."""
+        c, y = ax.canvas, self.yc(ax, self.spec.row_hi)
+        c.saveState()
+        c.setStrokeColor(styles.TEXT)
+        c.setLineWidth(0.6)
+        c.line(ax.x, y + self.spec.row_h / 2, ax.x + ax.w, y + self.spec.row_h / 2)
+        if self.geo.finish_whisker:
+            lo, hi = self.geo.finish_whisker
+            c.setStrokeColor(styles.PROBABILITY)
+            c.setLineWidth(2.5)
+            c.line(ax.px(lo), y, ax.px(hi), y)
+            for x in (lo, hi):
+                c.line(ax.px(x), y - 3.5, ax.px(x), y + 3.5)
+        c.restoreState()
+        mk.diamond(c, ax.px(self.geo.finish), y, self.spec.row_h * 0.35, styles.TEXT)
+
     def _whiskers(self, ax: Axes) -> None:
         c = ax.canvas
         c.saveState()
@@ -172,6 +191,13 @@ class TimelineTile:
             c.drawString(indent, self.yc(ax, r) - LABEL_SIZE * 0.35, fit(geo.labels[r], LABEL_W - indent - 6, font, LABEL_SIZE))
         c.restoreState()
 
+    def _finish_label(self, ax: Axes) -> None:
+        c = ax.canvas
+        text = "Project finish" + (" (P10-P90)" if self.geo.finish_whisker else "")
+        c.setFont(styles.BOLD, LABEL_SIZE)
+        c.setFillColor(styles.TEXT)
+        c.drawString(4, self.yc(ax, self.spec.row_hi) - LABEL_SIZE * 0.35, text)
+
     def _critical_row(self, r: int) -> bool:
         i = int(self.geo.index[r])
         return i >= 0 and bool(self.ctx.analysis.schedule.critical[i])
@@ -199,8 +225,8 @@ class TimelineTile:
             items.append(("Status date", line(styles.STATUS, 1.5, (2, 2))))
         if len(self.geo.marks["negative_float"]):
             items.append(("Negative float", line(styles.DEADLINE, 2.0, (2, 1.5))))
-        if len(self.geo.marks["whisker"]):
-            items.append(("P10-P90 finish", line(styles.PROBABILITY, 1.0)))
+        if len(self.geo.marks["whisker"]) or self.geo.finish_whisker:
+            items.append(("P10-P90 finish", line(styles.PROBABILITY, 2.0)))
         return items
 
 
