@@ -268,3 +268,19 @@ def test_find_nodes_order():
     assert find_nodes(plan, "w1") == ["W1", "W10", "R"]
     assert find_nodes(plan, "  ") == []
     assert find_nodes(plan, "zzz") == []
+
+
+def test_arrow_steps_follow_links_and_columns():
+    from workbench.figures.network_nav import step
+
+    # N0 → N1, N0 → N2, N1 → N3, N2 → N3
+    layout = layout_plan(make_plan(4, [(0, 1), (0, 2), (1, 3), (2, 3)]))
+    assert step(layout, 0, "right") in (1, 2)
+    assert step(layout, 3, "left") in (1, 2)
+    assert step(layout, 3, "right") == 3 and step(layout, 0, "left") == 0
+    upper, lower = sorted((1, 2), key=lambda r: layout.nodes[r].y)
+    assert step(layout, upper, "down") == lower and step(layout, lower, "up") == upper
+    assert step(layout, upper, "up") == upper
+    assert step(layout, -1, "down") == 0                    # nothing selected: the first node
+    with pytest.raises(ValueError, match="sideways"):
+        step(layout, 0, "sideways")

@@ -153,3 +153,36 @@ def test_selected_node_is_framed(view):
     view.session.select(["C"])
     view.graphics.repaint()
     assert close_to(pixel(view, spot), style.SELECTION, 12)
+
+
+def test_arrow_keys_walk_the_logic(view, qtbot):
+    view.session.select(["A"])
+    view.graphics.setFocus()
+    QTest.keyClick(view.graphics, Qt.Key_Right)
+    assert view.session.selected() in (["B"], ["C"])
+    first = view.session.selected()[0]
+    QTest.keyClick(view.graphics, Qt.Key_Down if first == "B" else Qt.Key_Up)
+    assert view.session.selected() == ["C" if first == "B" else "B"]
+    QTest.keyClick(view.graphics, Qt.Key_Right)
+    assert view.session.selected() == ["D"]
+    QTest.keyClick(view.graphics, Qt.Key_Right)            # D has no successor: stays
+    assert view.session.selected() == ["D"]
+    QTest.keyClick(view.graphics, Qt.Key_Left)
+    assert view.session.selected() in (["B"], ["C"])
+
+
+def test_selection_made_elsewhere_is_brought_into_view(view):
+    zoom_to(view, "A")
+    box = QRectF(*map(float, view.layout_result.boxes[view.layout_result.index_of("D")]))
+    assert not view.viewbox.viewRect().contains(box)
+    view.session.select(["D"])
+    assert view.viewbox.viewRect().contains(box)
+
+
+def test_present_mode_hides_controls_and_thickens_lines(view):
+    normal = view.item.painter.weights
+    view.set_present(True)
+    assert view.toolbar.isHidden()
+    assert view.item.painter.weights.critical_link > normal.critical_link
+    view.set_present(False)
+    assert not view.toolbar.isHidden() and view.item.painter.weights == normal

@@ -52,6 +52,10 @@ class Weights:
 
 
 WEIGHTS = Weights()
+# Present mode (projector): heavier lines, larger type where the box allows it.
+PRESENT = Weights(node_edge=2.4, critical_edge=7.0, link=2.6, critical_link=6.5, arrow=16.0,
+                  id_font=17.0, name_font=14.0, cell_font=15.0, caption_font=12.0, float_font=19.0,
+                  label_font=16.0, band_font=30.0, compact_id_font=34.0, compact_name_font=26.0)
 
 # Node parts as fractions (x0, y0, x1, y1) of the box.
 HEADER = (0.0, 0.0, 1.0, 0.21)

@@ -52,6 +52,8 @@ class NetworkPainter:
         self.related: set[int] = set()
         self.hover_links: set[int] = set()
         self.bands_visible = True
+        self.weights = ns.WEIGHTS
+        self.min_critical_px = 2.5
         self._rects: list[QRectF] = []
         self._polys: list[QPolygonF] = []
         self._heads: list[QPolygonF] = []
@@ -75,8 +77,8 @@ class NetworkPainter:
         self._all_lines = {flag: [self._seg_lines[i] for i in np.flatnonzero(self._seg_crit == flag)]
                            for flag in (False, True)}
         width = float(layout.boxes[0, 2]) if len(layout.boxes) else 0.0
-        self._names = [self._wrap(t.name, width, ns.WEIGHTS.name_font) for t in texts]
-        self._short = [self._wrap(t.name, width, ns.WEIGHTS.compact_name_font) for t in texts]
+        self._names = [self._wrap(t.name, width, self.weights.name_font) for t in texts]
+        self._short = [self._wrap(t.name, width, self.weights.compact_name_font) for t in texts]
         self.related = {r for r in self.related if r < len(self._rects)}
         self.selected = {r for r in self.selected if r < len(self._rects)}
 
@@ -97,6 +99,14 @@ class NetworkPainter:
         self._seg_link = arr[:, 4].astype(np.int64)
         self._seg_lines = [QLineF(x0, y0, x1, y1) for x0, y0, x1, y1 in self._segs.tolist()]
 
+    def set_weights(self, weights, min_critical_px: float) -> None:
+        """Switch line weights and type sizes (screen or Present); rebuilds cached shapes."""
+        self.weights, self.min_critical_px = weights, min_critical_px
+        self._key = None
+        self._wrapped.clear()
+        if self.layout is not None:
+            self.set_content(self.layout, self.texts)
+
     def set_hover(self, row: int) -> None:
         self.hover = row
         if row < 0 or self.layout is None:
@@ -111,7 +121,7 @@ class NetworkPainter:
         (x0, y0), (x1, y1) = points[-2], points[-1]
         d = np.hypot(x1 - x0, y1 - y0) or 1.0
         ux, uy = (x1 - x0) / d, (y1 - y0) / d
-        s = ns.WEIGHTS.arrow
+        s = self.weights.arrow
         base = (x1 - ux * s, y1 - uy * s)
         return QPolygonF([QPointF(x1, y1), QPointF(base[0] - uy * s * 0.45, base[1] + ux * s * 0.45),
                           QPointF(base[0] + uy * s * 0.45, base[1] - ux * s * 0.45)])
@@ -158,7 +168,7 @@ class NetworkPainter:
         return np.flatnonzero(keep)
 
     def _paint_bands(self, p: QPainter, v: QRectF, scale: float) -> None:
-        w = ns.WEIGHTS
+        w = self.weights
         for i, band in enumerate(self.layout.bands):
             rect = QRectF(band.x, band.y, band.w, band.h)
             if not rect.intersects(v):
@@ -171,7 +181,7 @@ class NetworkPainter:
             p.drawText(QRectF(left, rect.top() + 2, 40 * size, size * 1.4), Qt.AlignLeft | Qt.AlignVCenter, band.name)
 
     def _paint_links(self, p: QPainter, v: QRectF, scale: float) -> None:
-        w = ns.WEIGHTS
+        w = self.weights
         seg = self._segs
         vis = ((np.minimum(seg[:, 0], seg[:, 2]) <= v.right()) & (np.maximum(seg[:, 0], seg[:, 2]) >= v.left())
                & (np.minimum(seg[:, 1], seg[:, 3]) <= v.bottom()) & (np.maximum(seg[:, 1], seg[:, 3]) >= v.top()))
@@ -185,7 +195,7 @@ class NetworkPainter:
             p.drawLines([QLineF(*c) for c in _clip(seg[ordinary], v.adjusted(-40, -40, 40, 40)).tolist()])
         p.setRenderHint(QPainter.Antialiasing, True)
         heavy = pen(ns.CRITICAL, w.critical_link, scale)
-        heavy.setWidthF(max(2.5, heavy.widthF()))
+        heavy.setWidthF(max(self.min_critical_px, heavy.widthF()))
         p.setPen(heavy)
         for k in np.unique(self._seg_link[vis & self._seg_crit]).tolist():
             p.drawPolyline(self._polys[k])
@@ -206,7 +216,7 @@ class NetworkPainter:
                 p.drawPolygon(self._heads[k])
 
     def _paint_labels(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
-        size = min(2 * ns.WEIGHTS.label_font, max(ns.WEIGHTS.label_font, 8.0 / scale))
+        size = min(2 * self.weights.label_font, max(self.weights.label_font, 8.0 / scale))
         f = font(size, bold=True)
         p.setFont(f)
         metrics, backdrop = QFontMetricsF(f), colour(ns.NODE_FILL, 225)
@@ -240,7 +250,7 @@ class NetworkPainter:
 
     def _paint_nodes(self, p: QPainter, rows: np.ndarray, scale: float, full: bool) -> None:
         """Bodies, headers and borders in a few batched calls; texts node by node."""
-        w, crit = ns.WEIGHTS, self._crit[rows]
+        w, crit = self.weights, self._crit[rows]
         heads = self._heads_full if full else self._heads_compact
         p.setPen(Qt.NoPen)
         p.setBrush(colour(ns.NODE_FILL))
@@ -267,13 +277,13 @@ class NetworkPainter:
                     p.drawText(rect, Qt.AlignLeft | Qt.AlignVCenter, line)
         p.setBrush(Qt.NoBrush)
         edge = pen(ns.CRITICAL_EDGE, w.critical_edge, scale)
-        edge.setWidthF(max(2.5, edge.widthF()))
+        edge.setWidthF(max(self.min_critical_px, edge.widthF()))
         for flag, line in ((False, pen(ns.WORK_EDGE, w.node_edge, scale)), (True, edge)):
             p.setPen(line)
             p.drawRects([self._rects[r] for r in rows[crit == flag]])
 
     def _paint_body(self, p: QPainter, r: int, box) -> None:
-        text, w = self.texts[r], ns.WEIGHTS
+        text, w = self.texts[r], self.weights
         first, second = self._names[r]
         name = QRectF(*ns.part(box, ns.NAME))
         p.setPen(colour(ns.TEXT))

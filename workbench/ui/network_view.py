@@ -9,12 +9,15 @@ from __future__ import annotations
 
 import pyqtgraph as pg
 from PySide6.QtCore import QRectF, Qt
+from PySide6.QtGui import QKeySequence, QShortcut
 from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit,
                                QMessageBox, QPushButton, QVBoxLayout, QWidget)
 
 from workbench.core.errors import PlanError
+from workbench.figures import network_style as ns
 from workbench.figures.network_labels import find_nodes, node_texts
 from workbench.figures.network_layout import LayoutOptions, layout_plan
+from workbench.figures.network_nav import step
 
 from .network_export import print_pages, save_picture
 from .network_item import NetworkItem
@@ -51,7 +54,9 @@ class NetworkView(QWidget):
         export.clicked.connect(self.export_dialog)
         printing = QPushButton("Print\u2026")
         printing.clicked.connect(self.print_preview)
-        bar = QHBoxLayout()
+        self.toolbar = QWidget()
+        bar = QHBoxLayout(self.toolbar)
+        bar.setContentsMargins(0, 0, 0, 0)
         for w in (self.find_field, self.fit_button, self.time_box, self.band_box, export, printing):
             bar.addWidget(w)
         bar.setStretch(0, 1)
@@ -63,9 +68,12 @@ class NetworkView(QWidget):
         self.item = NetworkItem()
         self.viewbox.addItem(self.item)
         self.item.node_clicked.connect(self._clicked)
+        for key, direction in ((Qt.Key_Left, "left"), (Qt.Key_Right, "right"), (Qt.Key_Up, "up"), (Qt.Key_Down, "down")):
+            shortcut = QShortcut(QKeySequence(key), self.graphics, context=Qt.WidgetWithChildrenShortcut)
+            shortcut.activated.connect(lambda d=direction: self.move_selection(d))
         box = QVBoxLayout(self)
         box.setContentsMargins(4, 4, 4, 4)
-        box.addLayout(bar)
+        box.addWidget(self.toolbar)
         box.addWidget(self.message)
         box.addWidget(self.graphics, 1)
 
@@ -81,7 +89,7 @@ class NetworkView(QWidget):
         first = self.layout_result is None or not self.layout_result.nodes
         self.layout_result = result
         self.item.set_content(result, node_texts(plan, analysis))
-        self._follow_selection(self.session.selected())
+        self._mark_selection(self.session.selected())
         note = getattr(self.session, "analysis_error", None) if analysis is None else None
         self._show_message(f"Not scheduled: {note}" if note else "")
         if first and result.nodes:
@@ -96,6 +104,13 @@ class NetworkView(QWidget):
         self.refresh()
         self.fit()
 
+    def set_present(self, on: bool) -> None:
+        """Present mode: no controls, heavier lines and larger type, whole network in view."""
+        self.toolbar.setVisible(not on)
+        self.item.painter.set_weights(ns.PRESENT if on else ns.WEIGHTS, 4.0 if on else 2.5)
+        self.item.update()
+        self.fit()
+
     def fit(self) -> None:
         self.viewbox.autoRange(padding=0.02)
 
@@ -105,11 +120,33 @@ class NetworkView(QWidget):
             return
         self.session.select([] if row < 0 else [self.layout_result.nodes[row].id])
 
+    def _mark_selection(self, ids) -> set[int]:
+        rows = {self.layout_result.index_of(i) for i in ids} - {-1}
+        self.item.set_selected(rows)
+        return rows
+
     def _follow_selection(self, ids) -> None:
         if self.layout_result is None:
             return
-        rows = {self.layout_result.index_of(i) for i in ids} - {-1}
-        self.item.set_selected(rows)
+        rows = self._mark_selection(ids)
+        if len(rows) == 1:
+            self._bring_into_view(rows.pop())
+
+    def _bring_into_view(self, row: int) -> None:
+        """Pan (same zoom) so a node chosen elsewhere is on screen."""
+        x, y, w, h = map(float, self.layout_result.boxes[row])
+        view = self.viewbox.viewRect()
+        if view.contains(QRectF(x, y, w, h)) or view.width() <= 0:
+            return
+        self.viewbox.translateBy(t=(x + w / 2 - view.center().x(), y + h / 2 - view.center().y()))
+
+    def move_selection(self, direction: str) -> None:
+        """Arrow keys: select a successor, a predecessor, or the node above/below."""
+        if self.layout_result is None or not self.layout_result.nodes:
+            return
+        chosen = self.session.selected()
+        row = self.layout_result.index_of(chosen[0]) if chosen else -1
+        self.session.select([self.layout_result.nodes[step(self.layout_result, row, direction)].id])
 
     def find_next(self) -> None:
         """Select the next node whose id or name matches the find field, and show it."""
