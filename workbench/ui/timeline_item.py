@@ -179,15 +179,14 @@ class TimelineItem(pg.GraphicsObject):
         paint.draw_all(p, px, marks, geo, self._weights, self._preview, rows)
 
     def _draw_background(self, p: QPainter, px: _Pixels, rows, xs) -> None:
+        if self._nonworking is not None and px.unit_px >= SHADE_DAY_PX:
+            self._shade_nonworking(p, px, rows, xs)
         if self._selected_rows.size:
             sel = self._selected_rows[(self._selected_rows >= rows[0]) & (self._selected_rows <= rows[1])]
             x0, x1 = px.x(xs[0]), px.x(xs[1])
             h = px.row_px
-            p.setPen(Qt.PenStyle.NoPen)
-            p.setBrush(QColor(style.SELECTION))
-            p.drawRects([QRectF(x0, y - h / 2, x1 - x0, h) for y in px.y(sel).tolist()])
-        if self._nonworking is not None and px.unit_px >= SHADE_DAY_PX:
-            self._shade_nonworking(p, px, rows, xs)
+            paint.fill(p, style.SELECTION)
+            paint.rects(p, x0, px.y(sel) - h / 2, x1 - x0, h)
 
     def _shade_nonworking(self, p: QPainter, px: _Pixels, rows, xs) -> None:
         offsets = np.asarray(self._nonworking(xs[0], xs[1]), float)
@@ -196,6 +195,5 @@ class TimelineItem(pg.GraphicsObject):
         width = max(4.0, 0.18 * px.unit_px)
         top, bottom = px.y(max(rows[0], -0.5)), px.y(min(rows[1], self._geo.n_rows - 0.5))
         y0, h = float(min(top, bottom)), float(abs(bottom - top))
-        p.setPen(Qt.PenStyle.NoPen)
-        p.setBrush(QColor(style.NONWORKING))
-        p.drawRects([QRectF(x - width / 2, y0, width, h) for x in px.x(offsets).tolist()])
+        paint.fill(p, style.NONWORKING)
+        paint.rects(p, px.x(offsets) - width / 2, y0, width, h)

@@ -24,8 +24,11 @@ from workbench.ui.timeline_tooltip import tooltip_text
 
 HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
 GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
-LINE_NAMES = {"start": "Start", "deadline": "Deadline", "status": "Status"}
-LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style.STATUS}
+LINE_NAMES = {"start": "Start", "deadline": "Deadline", "status": "Status",
+              "p10": "Finish P10", "p90": "Finish P90"}
+LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style.STATUS,
+                "p10": style.PROBABILITY, "p90": style.PROBABILITY}
+LABEL_PLACES = {"deadline": (0.01, (1.0, 0.0)), "p10": (0.99, (1.0, 1.0)), "p90": (0.99, (1.0, 1.0))}
 
 
 class TimelineView(QWidget):
@@ -72,7 +75,7 @@ class TimelineView(QWidget):
         pi.addItem(self.item)
         self._lines: dict[str, pg.InfiniteLine] = {}
         self._band = pg.LinearRegionItem(movable=False, brush=pg.mkBrush(QColor(230, 159, 0, 40)),
-                                         pen=pg.mkPen(style.PROBABILITY, width=1.5))
+                                         pen=pg.mkPen(None))
         self._band.setZValue(-10)
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
@@ -146,7 +149,9 @@ class TimelineView(QWidget):
 
     def _update_lines(self) -> None:
         geo = self.geometry
-        wanted = {} if geo is None else geo.lines
+        wanted = {} if geo is None else dict(geo.lines)
+        if geo is not None and geo.finish_whisker is not None:
+            wanted["p10"], wanted["p90"] = geo.finish_whisker
         dates = {} if geo is None else {k: self._line_label(k, v) for k, v in wanted.items()}
         for name in list(self._lines):
             if name not in wanted:
@@ -159,17 +164,16 @@ class TimelineView(QWidget):
 
     def _line_label(self, name: str, offset: float) -> str:
         cal = self.session.analysis.calendar
-        day = cal.start_date(offset) if name == "start" else cal.finish_date(offset)
+        day = cal.start_date(offset) if name == "start" else cal.finish_date(max(offset, 0.0))
         return f"{LINE_NAMES[name]} {day.day} {day:%b}"
 
     def _new_line(self, name: str) -> pg.InfiniteLine:
         width = self._weights.reference_line
         pen = pg.mkPen(LINE_COLOURS[name], width=width,
                        style=Qt.PenStyle.DashLine if name == "status" else Qt.PenStyle.SolidLine)
-        left_of_line = name == "deadline"
-        anchor = (1.0, 0.0) if left_of_line else (0.0, 0.0)
+        position, anchor = LABEL_PLACES.get(name, (0.01, (0.0, 0.0)))
         line = pg.InfiniteLine(angle=90, movable=False, pen=pen, label=LINE_NAMES[name],
-                               labelOpts={"position": 0.01,
+                               labelOpts={"position": position,
                                           "color": LINE_COLOURS[name], "fill": pg.mkBrush(255, 255, 255, 230),
                                           "anchors": [anchor, anchor]})
         line.label.setFont(self._font(bold=True))
