@@ -141,7 +141,7 @@ def test_print_routine_writes_a_page(view, tmp_path):
     printer.setOutputFormat(QPrinter.PdfFormat)
     out = tmp_path / "net.pdf"
     printer.setOutputFileName(str(out))
-    print_pages(view.item.painter, printer)
+    assert print_pages(view.item.painter, printer) == 1     # four nodes fit one page
     data = out.read_bytes()
     assert data.startswith(b"%PDF") and b"/Type /Page" in data
 
@@ -186,3 +186,22 @@ def test_present_mode_hides_controls_and_thickens_lines(view):
     assert view.item.painter.weights.critical_link > normal.critical_link
     view.set_present(False)
     assert not view.toolbar.isHidden() and view.item.painter.weights == normal
+
+
+def test_a_large_network_prints_on_several_pages(qtbot, tmp_path):
+    from pypdf import PdfReader
+    from PySide6.QtPrintSupport import QPrinter
+
+    from workbench.ui.network_export import print_pages
+
+    acts = [Activity(id=f"K{i}", name=f"step {i}", duration=1.0) for i in range(60)]
+    links = [Link(f"K{i}", f"K{i + 1}") for i in range(59)]
+    v = NetworkView(Session(Plan(Settings(title="long chain"), acts, links)))
+    qtbot.addWidget(v)
+    printer = QPrinter(QPrinter.HighResolution)
+    printer.setOutputFormat(QPrinter.PdfFormat)
+    out = tmp_path / "chain.pdf"
+    printer.setOutputFileName(str(out))
+    pages = print_pages(v.item.painter, printer)
+    assert pages > 1
+    assert len(PdfReader(str(out)).pages) == pages

@@ -10,6 +10,7 @@ from PySide6.QtGui import QColor, QImage, QPainter
 from .network_paint import NetworkPainter
 
 MAX_PIXELS = 12000    # longest side of an exported image
+MIN_NODE_MM = 24.0    # printed nodes narrower than this are unreadable: tile instead
 PAD = 40.0
 
 
@@ -76,9 +77,35 @@ def _save_svg(net: NetworkPainter, path: Path) -> None:
         raise OSError(f"could not write {path}")
 
 
-def print_pages(net: NetworkPainter, printer) -> None:
-    """Paint the Network fitted to one page of ``printer`` (used by the print preview)."""
-    p = QPainter(printer)
+def print_pages(net: NetworkPainter, printer) -> int:
+    """Print the Network: one page when nodes stay at least ``MIN_NODE_MM`` wide, else
+    tiled over as many pages as that size needs (left to right, then down). Returns the
+    number of pages."""
     page = printer.pageLayout().paintRectPixels(printer.resolution())
-    paint_into(net, p, QRectF(0, 0, page.width(), page.height()))
+    src = _extent(net)
+    fit = min(page.width() / src.width(), page.height() / src.height())
+    node_w = float(net.layout.boxes[0, 2]) if len(net.layout.boxes) else 1.0
+    need = MIN_NODE_MM / 25.4 * printer.resolution() / node_w
+    p = QPainter(printer)
+    if fit >= need:
+        paint_into(net, p, QRectF(0, 0, page.width(), page.height()))
+        p.end()
+        return 1
+    tiles = _tiles(src, page.width() / need, page.height() / need)
+    for i, tile in enumerate(tiles):
+        if i:
+            printer.newPage()
+        p.save()
+        p.setClipRect(QRectF(0, 0, page.width(), page.height()))
+        p.scale(need, need)
+        p.translate(-tile.left(), -tile.top())
+        net.paint(p, tile, need)
+        p.restore()
     p.end()
+    return len(tiles)
+
+
+def _tiles(src: QRectF, w: float, h: float) -> list[QRectF]:
+    cols = max(1, int(-(-src.width() // w)))
+    rows = max(1, int(-(-src.height() // h)))
+    return [QRectF(src.left() + c * w, src.top() + r * h, w, h) for r in range(rows) for c in range(cols)]
