@@ -284,3 +284,14 @@ def test_arrow_steps_follow_links_and_columns():
     assert step(layout, -1, "down") == 0                    # nothing selected: the first node
     with pytest.raises(ValueError, match="sideways"):
         step(layout, 0, "sideways")
+
+
+def test_network_figures_import_no_qt():
+    import subprocess
+    import sys
+
+    code = ("import sys; import workbench.figures.network_layout, workbench.figures.network_labels, "
+            "workbench.figures.network_style, workbench.figures.network_nav; "
+            "print([m for m in sys.modules if m.split('.')[0] in ('PySide6', 'shiboken6', 'pyqtgraph')])")
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert out.stdout.strip() == "[]"
