@@ -198,3 +198,20 @@ def test_paste_with_bad_rows_changes_nothing(window):
     window.activities.paste_rows()
     assert plan_state(session.plan) == before
     assert "Nothing pasted" in window.notice.text()
+
+
+def test_plan_changes_map_one_to_one_onto_model_signals(session, qtbot):
+    from workbench.core.commands import AddActivity, MoveActivity, RemoveActivities
+    from workbench.core.model import Activity
+    model = ActivityTableModel(session)
+    seen = []
+    model.rowsInserted.connect(lambda parent, first, last: seen.append(("inserted", first, last)))
+    model.rowsRemoved.connect(lambda parent, first, last: seen.append(("removed", first, last)))
+    model.rowsMoved.connect(lambda p, first, last, d, row: seen.append(("moved", first, row)))
+    model.modelReset.connect(lambda: seen.append(("reset",)))
+    session.push(AddActivity(Activity("X", duration=1), 2))
+    session.push(MoveActivity(2, 5))
+    session.push(RemoveActivities(["X"]))
+    session.load(sample_plan())
+    assert seen == [("inserted", 2, 2), ("moved", 2, 6), ("removed", 5, 5), ("reset",)]
+    assert model.index(2, 0).data() == "D"

@@ -66,7 +66,7 @@ class ActivityFilterModel(QSortFilterProxyModel):
         model = self.sourceModel()
         if model is None:
             return True
-        act = model.plan.activities[source_row]
+        act = model.activity_at(source_row)
         if self._group and act.group != self._group:
             return False
         if self._critical_only and not model.index(source_row, 0).data(CRITICAL_ROLE):

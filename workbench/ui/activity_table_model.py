@@ -8,6 +8,8 @@ session, which applies it as one undo step and recomputes the schedule.
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelIndex, Qt
 from PySide6.QtGui import QBrush, QColor, QFont
 
@@ -21,8 +23,25 @@ from workbench.ui.session import Session
 SORT_ROLE = Qt.ItemDataRole.UserRole + 1
 ID_ROLE = Qt.ItemDataRole.UserRole + 2
 CRITICAL_ROLE = Qt.ItemDataRole.UserRole + 3
+_EDITABLE = frozenset(c.key for c in C.COLUMNS if c.editable)
 COMPUTED = tuple(i for i, c in enumerate(C.COLUMNS) if not c.editable)
 _Index = QModelIndex | QPersistentModelIndex
+_RIGHT = int(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
+_R = Qt.ItemDataRole
+_ALIGN, _TIP, _FOREGROUND, _FONT = (int(r) for r in (_R.TextAlignmentRole, _R.ToolTipRole, _R.ForegroundRole, _R.FontRole))
+_TEXT_ROLES = frozenset((int(_R.DisplayRole), int(_R.EditRole)))
+_ROLES = _TEXT_ROLES | {_ALIGN, _TIP, _FOREGROUND, _FONT, int(SORT_ROLE), int(ID_ROLE), int(CRITICAL_ROLE)}
+
+
+@lru_cache(maxsize=1)
+def _critical_brush() -> QBrush:
+    return QBrush(QColor(style.CRITICAL))
+
+
+def _bold_font() -> QFont:
+    font = QFont()
+    font.setBold(True)
+    return font
 
 
 class ActivityTableModel(QAbstractTableModel):
@@ -34,6 +53,10 @@ class ActivityTableModel(QAbstractTableModel):
         self.plan = session.plan
         self._dates: dict | None = None
         self._pending_move: tuple[int, int] | None = None
+        self._acts = self.plan.activities  # cached: Plan.activities builds a new tuple per call
+        self._links_key = None
+        self._into: dict = {}
+        self._columns: dict = {}
         self.plan.subscribe(self._on_plan_event)
         session.schedule_changed.connect(self._on_schedule_changed)
         plan = self.plan
@@ -44,6 +67,8 @@ class ActivityTableModel(QAbstractTableModel):
     def _on_plan_event(self, event: str, info: dict) -> None:
         kind, row = info.get("kind"), info.get("row")
         before = event == "about_to_change"
+        if not before:
+            self._acts = self.plan.activities
         if kind == "activity_inserted":
             self.beginInsertRows(QModelIndex(), row, row) if before else self.endInsertRows()
         elif kind == "activity_removed":
@@ -73,12 +98,17 @@ class ActivityTableModel(QAbstractTableModel):
     def _on_schedule_changed(self, emit: bool = True) -> None:
         analysis = self.session.analysis
         self._dates = analysis.dates() if analysis is not None else None
+        self._columns = {}
+        if analysis is not None:
+            s = analysis.schedule
+            self._columns = {"te": analysis.means, "sd": analysis.variances ** 0.5, "total_float": s.total_float,
+                             "free_float": s.free_float, "critical": s.critical, **self._dates}
         if emit and self.rowCount():
             self.dataChanged.emit(self.index(0, COMPUTED[0]), self.index(self.rowCount() - 1, COMPUTED[-1]))
 
     # --- shape ----------------------------------------------------------
     def rowCount(self, parent: _Index = QModelIndex()) -> int:
-        return 0 if parent.isValid() else len(self.plan)
+        return 0 if parent.isValid() else len(self._acts)
 
     def columnCount(self, parent: _Index = QModelIndex()) -> int:
         return 0 if parent.isValid() else len(C.COLUMNS)
@@ -108,33 +138,38 @@ class ActivityTableModel(QAbstractTableModel):
         if analysis is None or self._dates is None:
             return None
         ids = analysis.schedule.ids
-        if row < len(ids) and ids[row] == self.plan.activities[row].id:
+        if row < len(ids) and ids[row] == self._acts[row].id:
             return row
         return None
 
     def value(self, row: int, key: str):
         """The raw value behind a cell (numbers, dates, text, bool) for sorting and filters."""
-        act = self.plan.activities[row]
+        act = self._acts[row]
         if key == "predecessors":
-            return format_predecessors(self.plan.predecessors(act.id))
-        if C.COLUMNS[C.INDEX[key]].editable:
+            return format_predecessors(self._links_into().get(act.id, ()))
+        if key in _EDITABLE:
             return getattr(act, key)
         i = self.computed_row(row)
         if i is None:
             return None
-        a = self.session.analysis
-        if key in self._dates:
-            return self._dates[key][i]
-        s = a.schedule
-        table = {"te": a.means, "sd": a.variances ** 0.5, "total_float": s.total_float,
-                 "free_float": s.free_float, "critical": s.critical}
-        return table[key][i].item()
+        value = self._columns[key][i]
+        return value if key in self._dates else value.item()
+
+    def _links_into(self) -> dict:
+        """Incoming links by activity, rebuilt only when the link list changed."""
+        links = self.plan.links
+        if self._links_key is not links:
+            into: dict[str, list] = {}
+            for link in links:
+                into.setdefault(link.succ, []).append(link)
+            self._links_key, self._into = links, into
+        return self._into
 
     def display(self, row: int, key: str) -> str:
         if key == "predecessors":
             return self.value(row, key)
-        if C.COLUMNS[C.INDEX[key]].editable:
-            return C.edit_text(self.plan.activities[row], key)
+        if key in _EDITABLE:
+            return C.edit_text(self._acts[row], key)
         value = self.value(row, key)
         if value is None:
             return ""
@@ -145,39 +180,37 @@ class ActivityTableModel(QAbstractTableModel):
         return C.format_number(value)
 
     def data(self, index: _Index, role: int = Qt.ItemDataRole.DisplayRole):
-        if not index.isValid() or not (0 <= index.row() < self.rowCount()):
+        role = int(role)
+        if role not in _ROLES or not index.isValid():
             return None
-        row, key = index.row(), C.KEYS[index.column()]
-        if role in (Qt.ItemDataRole.DisplayRole, Qt.ItemDataRole.EditRole):
+        row = index.row()
+        if row >= len(self._acts):
+            return None
+        key = C.KEYS[index.column()]
+        if role in _TEXT_ROLES:
             return self.display(row, key)
         if role == SORT_ROLE:
             return self.value(row, key)
         if role == ID_ROLE:
-            return self.plan.activities[row].id
+            return self._acts[row].id
         if role == CRITICAL_ROLE:
             return bool(self.value(row, "critical"))
         return self._style(row, key, role)
 
     def _style(self, row: int, key: str, role: int):
-        col = C.COLUMNS[C.INDEX[key]]
-        if role == Qt.ItemDataRole.TextAlignmentRole and col.numeric:
-            return int(Qt.AlignmentFlag.AlignRight | Qt.AlignmentFlag.AlignVCenter)
-        if role == Qt.ItemDataRole.ToolTipRole:
-            return col.tip
-        critical = role in (Qt.ItemDataRole.ForegroundRole, Qt.ItemDataRole.FontRole) and bool(self.value(row, "critical"))
-        if role == Qt.ItemDataRole.ForegroundRole and key in ("critical", "id") and critical:
-            return QBrush(QColor(style.CRITICAL))
-        if role == Qt.ItemDataRole.FontRole and critical and key in ("critical", "id"):
-            font = QFont()
-            font.setBold(True)
-            return font
-        return None
+        if role == _ALIGN:
+            return _RIGHT if C.COLUMNS[C.INDEX[key]].numeric else None
+        if role == _TIP:
+            return C.COLUMNS[C.INDEX[key]].tip
+        if key not in ("critical", "id") or not self.value(row, "critical"):
+            return None
+        return _critical_brush() if role == _FOREGROUND else _bold_font()
 
     # --- editing --------------------------------------------------------
     def setData(self, index: _Index, value, role: int = Qt.ItemDataRole.EditRole) -> bool:
         if not index.isValid() or role != Qt.ItemDataRole.EditRole or not C.COLUMNS[index.column()].editable:
             return False
-        act = self.plan.activities[index.row()]
+        act = self._acts[index.row()]
         key = C.KEYS[index.column()]
         text = "" if value is None else str(value)
         if text == self.display(index.row(), key):
@@ -198,6 +231,9 @@ class ActivityTableModel(QAbstractTableModel):
                     raise PlanError(f"activity {act.id}: predecessor {link.pred!r} is not an activity of this plan", act.id)
             return SetPredecessors(act.id, links)
         return EditActivity(act.id, **C.changes_for(act, key, text))
+
+    def activity_at(self, row: int):
+        return self._acts[row]
 
     def row_of(self, act_id: str) -> int:
         return self.plan.row_of(act_id)
