@@ -205,3 +205,13 @@ def test_a_large_network_prints_on_several_pages(qtbot, tmp_path):
     pages = print_pages(v.item.painter, printer)
     assert pages > 1
     assert len(PdfReader(str(out)).pages) == pages
+
+
+def test_empty_plan_says_so_then_draws_when_a_plan_arrives(qtbot):
+    session = Session(Plan(Settings(title="empty")))
+    v = NetworkView(session)
+    qtbot.addWidget(v)
+    assert "No activities" in v.message.text() and not v.message.isHidden()
+    session.load(small_plan())
+    assert v.message.isHidden()
+    assert [n.id for n in v.layout_result.nodes] == ["A", "B", "C", "D"]

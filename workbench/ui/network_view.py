@@ -91,7 +91,10 @@ class NetworkView(QWidget):
         self.item.set_content(result, node_texts(plan, analysis))
         self._mark_selection(self.session.selected())
         note = getattr(self.session, "analysis_error", None) if analysis is None else None
-        self._show_message(f"Not scheduled: {note}" if note else "")
+        if not result.nodes:
+            self._show_message("No activities yet: the network appears here as soon as the plan has some.")
+        else:
+            self._show_message(f"Not scheduled: {note}" if note else "")
         if first and result.nodes:
             self.fit()
 
