@@ -345,3 +345,12 @@ def test_present_mode_uses_heavier_weights(view):
     assert view.row_axis.style["tickFont"].pointSizeF() > small
     view.set_present(False)
     assert view.item._weights is style.SCREEN
+
+
+def test_empty_plan_says_so(qtbot):
+    v = TimelineView(Session(Plan(Settings(start=dt.date(2026, 12, 7)))))
+    qtbot.addWidget(v)
+    assert v.geometry.n_rows == 0
+    assert v._message.isVisible() and "No activities yet" in v._message.textItem.toPlainText()
+    v.session.push(__import__("workbench.core.commands", fromlist=["AddActivity"]).AddActivity(Activity("A", duration=2)))
+    assert not v._message.isVisible() and v.geometry.keys == ["A"]

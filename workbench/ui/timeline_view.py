@@ -47,6 +47,7 @@ class TimelineView(QWidget):
         self._weights = style.SCREEN
         self._drag = None
         self.geometry = None
+        self._auto_fit = True      # refit on resize until the user zooms or pans
         self._build()
         session.schedule_changed.connect(self.refresh)
         session.simulation_changed.connect(self.refresh)
@@ -67,6 +68,7 @@ class TimelineView(QWidget):
         pi.setMenuEnabled(False)
         self.view_box = pi.getViewBox()
         self.view_box.invertY(True)
+        self.view_box.sigRangeChangedManually.connect(self._stop_auto_fit)
         for name in ("left", "bottom"):
             pi.getAxis(name).setPen(pg.mkPen(style.TEXT))
             pi.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
@@ -111,12 +113,15 @@ class TimelineView(QWidget):
             self.geometry = None
             self.item.set_geometry(None)
             self.row_axis.set_geometry(None)
-            self._show_message(self.session.analysis_error or "No schedule yet.")
+            self._show_message("The plan cannot be scheduled:\n" + (self.session.analysis_error or "no schedule yet"))
             return
         only = critical_ids(analysis) if self.critical_only else None
         self.geometry = timeline_geometry(analysis, self.session.simulation, collapsed=self.collapsed,
                                           late_bars=self.late_bars, connectors=self.connectors, only=only)
         self._message.setVisible(False)
+        if not self.geometry.n_rows:
+            self._show_message("No activities yet: add some in the Activities table." if only is None
+                               else "No critical activities to show.")
         self.date_axis.set_calendar(analysis.calendar)
         self.item.set_nonworking(self._nonworking_finder(analysis.calendar))
         self.item.set_geometry(self.geometry)
@@ -134,6 +139,11 @@ class TimelineView(QWidget):
         super().resizeEvent(event)
         if self.geometry is not None:
             self._fit_label_column()
+            if self._auto_fit:
+                self.fit_all(rows_to_fit=True)
+
+    def _stop_auto_fit(self, *args) -> None:
+        self._auto_fit = False
 
     def _font(self, bold: bool = False) -> QFont:
         font = QFont()
@@ -142,7 +152,7 @@ class TimelineView(QWidget):
         return font
 
     def _show_message(self, text: str) -> None:
-        self._message.setText(f"The plan cannot be scheduled:\n{text}")
+        self._message.setText(text)
         self._message.setPos(0, 0)
         self._message.setVisible(True)
         self._update_lines()
@@ -313,9 +323,11 @@ class TimelineView(QWidget):
         self.refresh()
 
     def zoom(self, factor: float) -> None:
+        self._auto_fit = False
         self.view_box.scaleBy((1.0 / factor, 1.0))
 
     def pan(self, dx_frac: float = 0.0, dy_rows: float = 0.0) -> None:
+        self._auto_fit = False
         (x0, x1), _ = self.view_box.viewRange()
         self.view_box.translateBy(x=dx_frac * (x1 - x0), y=dy_rows)
 
