@@ -10,7 +10,7 @@ from workbench.core.model import Activity, Link, Plan, Settings
 from workbench.ui import prompts
 
 PROMPTS = ("ask_open_path", "ask_save_path", "ask_unsaved", "ask_recovery", "ask_locked",
-           "ask_save_as_instead", "show_error", "show_info", "edit_settings", "pick_predecessors",
+           "ask_save_as_instead", "show_error", "show_info", "show_guide", "edit_settings", "pick_predecessors",
            "preview_import")
 
 

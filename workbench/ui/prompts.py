@@ -80,6 +80,23 @@ def show_info(parent: QWidget, title: str, message: str) -> None:
     QMessageBox.information(parent, title, message)
 
 
+def show_guide(parent: QWidget, markdown: str) -> None:
+    """A scrollable guide written in Markdown."""
+    from PySide6.QtWidgets import QDialog, QDialogButtonBox, QTextBrowser, QVBoxLayout
+    dialog = QDialog(parent)
+    dialog.setWindowTitle("Window guide")
+    text = QTextBrowser(dialog)
+    text.setAccessibleName("Window guide")
+    text.setMarkdown(markdown)
+    buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Close, dialog)
+    buttons.rejected.connect(dialog.reject)
+    layout = QVBoxLayout(dialog)
+    layout.addWidget(text)
+    layout.addWidget(buttons)
+    dialog.resize(760, 640)
+    dialog.exec()
+
+
 def edit_settings(parent: QWidget, settings):
     """The plan settings dialog; returns new Settings or None."""
     from workbench.ui.settings_dialog import SettingsDialog

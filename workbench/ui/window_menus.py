@@ -43,7 +43,7 @@ def import_dialog(window) -> None:
 def show_guide(window) -> None:
     guide = Path(__file__).resolve().parents[2] / "docs" / "window.md"
     text = guide.read_text(encoding="utf-8") if guide.exists() else "The window guide is not installed."
-    prompts.show_info(window, "Window guide", text)
+    prompts.show_guide(window, text)
 
 
 def show_about(window) -> None:
