@@ -186,10 +186,12 @@ def _resolve(calendar, value, finish: bool) -> float:
 
 
 def driving_links(sched: Schedule, offsets: np.ndarray) -> np.ndarray:
-    """Indices of links with zero slack between two critical activities."""
+    """Indices of links with zero slack between two critical activities (ascending)."""
     net = sched.network
-    slack = sched.es[net.dst] - sched.es[net.src] - offsets
-    return np.flatnonzero((np.abs(slack) <= EPS) & sched.critical[net.src] & sched.critical[net.dst])
+    links = net.out_links(np.flatnonzero(sched.critical))
+    src, dst = net.src[links], net.dst[links]
+    slack = sched.es[dst] - sched.es[src] - offsets[links]
+    return links[(np.abs(slack) <= EPS) & sched.critical[dst]]
 
 
 def _critical_graph(sched: Schedule, offsets: np.ndarray, driving=None):
@@ -253,12 +255,13 @@ def max_weight_indices(sched: Schedule, weights: np.ndarray) -> list[int]:
     succ, starts, pos = sched.graph
     if not starts:
         return []
-    w = np.asarray(weights, dtype=float).tolist()
-    rank = pos
-    crit = sorted(np.flatnonzero(sched.critical).tolist(), key=lambda i: -rank[i])
+    crit = np.flatnonzero(sched.critical)
+    crit = crit[np.argsort(-pos[crit], kind="stable")].tolist()   # successors first
+    w = dict(zip(crit, np.asarray(weights, dtype=float)[crit].tolist()))
+    rank = dict(zip(crit, pos[crit].tolist()))
     best: dict[int, float] = {}
     nxt: dict[int, int | None] = {}
-    for node in crit:  # reverse topological: successors first
+    for node in crit:
         options = [(round(best[t], 9), -rank[t], t) for t in succ.get(node, ()) if t in best]
         if options:
             val, _, t = max(options)

@@ -12,7 +12,7 @@ recursion. Cycles are reported as the loop in order.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 
 import numpy as np
 
@@ -55,6 +55,8 @@ class Network:
     level: np.ndarray          # longest-path level (links from the sources)
     forward: Pass
     backward: Pass
+    _fin: tuple | None = field(default=None, repr=False)
+    _out: tuple | None = field(default=None, repr=False)
 
     @property
     def size(self) -> int:
@@ -66,11 +68,45 @@ class Network:
         FS: d_pred + lag; SS: lag; FF: d_pred + lag − d_succ; SF: lag − d_succ.
         Works on 1-D durations (n,) or 2-D (n, iterations).
         """
-        d_src = durations[self.src]
-        d_dst = durations[self.dst]
-        if durations.ndim == 1:
-            return self.lag + d_src * self.src_fin - d_dst * self.dst_fin
-        return (self.lag[:, None] + d_src * self.src_fin[:, None] - d_dst * self.dst_fin[:, None])
+        durations = np.asarray(durations, dtype=float)
+        if self._fin is None:
+            self._fin = (np.flatnonzero(self.src_fin), np.flatnonzero(self.dst_fin), bool(self.lag.any()))
+        from_fin, to_fin, has_lag = self._fin
+        m = self.src.size
+        if from_fin.size == m and to_fin.size == 0:          # finish-to-start only
+            off = durations.take(self.src, axis=0)
+        else:
+            off = np.zeros((m,) + durations.shape[1:])
+            off[from_fin] = durations.take(self.src[from_fin], axis=0)
+            off[to_fin] -= durations.take(self.dst[to_fin], axis=0)
+        if has_lag:
+            off += self.lag if off.ndim == 1 else self.lag[:, None]
+        return off
+
+    def out_links(self, nodes: np.ndarray) -> np.ndarray:
+        """Indices of the links leaving ``nodes`` (original indices), ascending."""
+        p = self.backward
+        if self._out is None:
+            lo = np.empty(self.size, dtype=np.int64)
+            lo[p.origin] = p.starts
+            hi = np.empty(self.size, dtype=np.int64)
+            hi[p.origin] = np.append(p.starts[1:], p.idx.size)
+            self._out = (lo, hi)
+        lo, hi = self._out
+        entries = p.idx[_ranges(lo[nodes], hi[nodes])]
+        return np.sort(entries[entries < self.src.size])
+
+
+def group_order(key: np.ndarray, size: int) -> tuple[np.ndarray, np.ndarray]:
+    """A stable counting sort: the permutation grouping ``key`` (ints in [0, size)) and
+    each group's start (``size + 1`` bounds). Done by scipy's sparse-matrix builder in C."""
+    from scipy.sparse import coo_array
+
+    if key.size == 0 or size == 0:
+        return np.zeros(0, dtype=np.int64), np.zeros(size + 1, dtype=np.int64)
+    ones = np.ones(key.size, dtype=np.int8)
+    csr = coo_array((ones, (key, np.arange(key.size))), shape=(size, key.size)).tocsr()
+    return csr.indices.astype(np.int64), csr.indptr.astype(np.int64)
 
 
 def _ranges(lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
@@ -85,10 +121,10 @@ def _levels(n: int, src: np.ndarray, dst: np.ndarray) -> tuple[np.ndarray, np.nd
     """Longest-path level of each node by frontier sweeps (work proportional to the links
     leaving each frontier); -1 marks nodes on or behind a cycle."""
     level = np.full(n, -1, dtype=np.int64)
-    out = dst[np.argsort(src, kind="stable")]
-    starts = np.zeros(n + 1, dtype=np.int64)
-    np.cumsum(np.bincount(src, minlength=n), out=starts[1:])
+    order, starts = group_order(src, n)
+    out = dst[order]
     indeg = np.bincount(dst, minlength=n)
+    first = np.full(n, -1, dtype=np.int64)      # de-duplicates a frontier without sorting
     frontier = np.flatnonzero(indeg == 0)
     parts, depth = [], 0
     while frontier.size:
@@ -104,9 +140,11 @@ def _levels(n: int, src: np.ndarray, dst: np.ndarray) -> tuple[np.ndarray, np.nd
             indeg[t] -= 1
             frontier = targets if indeg[t] == 0 else targets[:0]
         else:
-            uniq, count = np.unique(targets, return_counts=True)
-            indeg[uniq] -= count
-            frontier = uniq[indeg[uniq] == 0]
+            np.subtract.at(indeg, targets, 1)
+            ready = targets[indeg[targets] == 0]
+            where = np.arange(ready.size)
+            first[ready[::-1]] = where[::-1]
+            frontier = ready[first[ready] == where]
         depth += 1
     topo = np.concatenate(parts) if parts else np.empty(0, dtype=np.int64)
     return level, topo
@@ -129,12 +167,10 @@ def _make_pass(near: np.ndarray, far: np.ndarray, idx: np.ndarray, position: np.
                blocks: list[tuple[int, int]], topo: np.ndarray) -> Pass:
     """Group entries by ``position[near]``, the order nodes are updated in; ``blocks``
     lists each level's renumbered node range [a, b) in that order (positions follow on)."""
-    order = np.argsort(position[near], kind="stable")
-    near, far, idx = near[order], far[order], idx[order]
     total = sum(b - a for a, b in blocks)
-    counts = np.bincount(position[near], minlength=total)
-    starts = np.cumsum(counts) - counts
-    bounds = np.append(starts, near.size)
+    order, bounds = group_order(position[near], total)
+    near, far, idx = near[order], far[order], idx[order]
+    starts = bounds[:-1]
     lo_hi = np.array(blocks, dtype=np.int64).reshape(-1, 2)
     nodes = _ranges(lo_hi[:, 0], lo_hi[:, 1])
     steps, levels, k = [], [], 0
@@ -160,9 +196,8 @@ def _passes(n: int, m: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, 
                      np.concatenate((links, m + topo[n0:])), np.arange(n, dtype=np.int64) - n0,
                      blocks[1:], topo)
     lvl = level[topo]                     # renumbered nodes' levels, non-decreasing
-    back_order = np.lexsort((np.arange(n), -lvl))
-    back_pos = np.empty(n, dtype=np.int64)
-    back_pos[back_order] = np.arange(n)
+    # Backward: levels last to first, each block's nodes in ascending order.
+    back_pos = n - edges[lvl + 1] + (np.arange(n) - edges[lvl])
     bwd = _make_pass(np.concatenate((rank[src], np.arange(n))), np.concatenate((rank[dst], np.full(n, n))),
                      np.concatenate((links, m + topo)), back_pos, blocks[::-1], topo)
     return rank, fwd, bwd
