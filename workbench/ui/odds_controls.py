@@ -68,6 +68,10 @@ class OddsControls(QGroupBox):
             self.progress.setValue(0)
             self.status.setText("Simulating…")
 
+    def set_done(self, finished: bool) -> None:
+        """A finished run fills the bar; a stopped or failed one empties it."""
+        self.progress.setValue(100 if finished else 0)
+
     def set_progress(self, done: int, total: int) -> None:
         self.progress.setValue(int(round(100.0 * done / max(1, total))))
 

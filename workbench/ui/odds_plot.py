@@ -61,17 +61,17 @@ class OddsPlot(pg.GraphicsLayoutWidget):
 
     def _make_items(self) -> None:
         d, c = self.density, self.cumulative
-        self.legend = d.addLegend(offset=(-10, 10), labelTextSize="11pt", labelTextColor=style.TEXT,
+        self.legend = d.addLegend(offset=(-10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
                                   brush=pg.mkBrush(255, 255, 255, 220))
         self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 2.0), fillLevel=0.0,
-                                    brush=_colour(style.FLOAT, 45), name="Simulation (histogram)")
+                                    brush=_colour(style.FLOAT, 45), name="Simulation")
         # a solid fill with a heavy stepped outline: pattern brushes cost ~3x more to paint
         self.sim_shade = pg.PlotDataItem(pen=_pen(style.CRITICAL, 2.5), fillLevel=0.0,
                                          brush=_colour(style.CRITICAL, 90),
-                                         name="Simulation answer (stepped)")
+                                         name="Simulation answer")
         self.pert_shade = pg.PlotDataItem(pen=pg.mkPen(None), fillLevel=0.0,
-                                          brush=_colour(style.PROBABILITY, 150), name="PERT answer (shaded)")
-        self.pert_curve = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT normal curve")
+                                          brush=_colour(style.PROBABILITY, 150), name="PERT answer")
+        self.pert_curve = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT curve")
         for item in (self.pert_shade, self.hist, self.sim_shade, self.pert_curve):
             d.addItem(item)
         self.certain = pg.InfiniteLine(angle=90, pen=_pen(style.TEXT, 3.0), movable=False,
@@ -80,7 +80,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         d.addItem(self.certain)
         self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
         self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
-        self.cum_legend = c.addLegend(offset=(10, 45), labelTextSize="11pt", labelTextColor=style.TEXT,
+        self.cum_legend = c.addLegend(offset=(10, 45), labelTextSize="10pt", labelTextColor=style.TEXT,
                                       brush=pg.mkBrush(255, 255, 255, 220))
         c.addItem(self.pert_cdf)
         c.addItem(self.ecdf)
@@ -107,7 +107,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         for colour, where in ((style.TEXT, 0.1), (style.WORK, 0.24)):
             line = pg.InfiniteLine(angle=90, movable=False, pen=_pen(colour, 2.0, dash=True), label="",
                                    labelOpts={"position": where, "color": colour, "fill": (255, 255, 255, 230),
-                                              "anchors": [(0, 0.5), (0, 0.5)]})
+                                              "anchors": [(1.02, 0.5), (1.02, 0.5)]})
             self.cumulative.addItem(line)
             self.answers.append(line)
 

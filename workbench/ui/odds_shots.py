@@ -48,6 +48,11 @@ def render(outdir, plan, seed: int = 1, iterations: int = 10_000) -> list[Path]:
         path = out / name
         view.grab().save(str(path))
         paths.append(path)
+    for view in views.values():
+        view.close()
+        view.deleteLater()
+    session.deleteLater()
+    app.processEvents()
     return paths
 
 

@@ -66,8 +66,9 @@ class OddsView(QWidget):
         self.runner.running_changed.connect(self.controls.set_running)
         self.runner.progress.connect(self.controls.set_progress)
         self.runner.finished.connect(self._on_run_finished)
-        self.runner.cancelled.connect(lambda: self.controls.set_status("Stopped: no results kept from that run."))
-        self.runner.failed.connect(lambda msg: self.controls.set_status(f"Simulation failed: {msg}", True))
+        self.runner.finished.connect(lambda _: self.controls.set_done(True))
+        self.runner.cancelled.connect(self._on_run_cancelled)
+        self.runner.failed.connect(self._on_run_failed)
 
     # --- plan and simulation changes -------------------------------------
     @property
@@ -271,6 +272,14 @@ class OddsView(QWidget):
             self._show_simulation()
             return
         self.session.set_simulation(result)
+
+    def _on_run_cancelled(self) -> None:
+        self.controls.set_done(False)
+        self.controls.set_status("Stopped: no results kept from that run.")
+
+    def _on_run_failed(self, message: str) -> None:
+        self.controls.set_done(False)
+        self.controls.set_status(f"Simulation failed: {message}", True)
 
     def closeEvent(self, event) -> None:  # noqa: N802 (Qt override)
         self.runner.stop()
