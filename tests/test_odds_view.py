@@ -167,3 +167,17 @@ def test_unschedulable_plan_names_the_loop_then_recovers(qtbot):
     assert v.panel.error.isHidden() and v.plot.isEnabled()
     x, y = v.plot.pert_curve.getData()
     assert len(x) > 0 and np.all(np.isfinite(y))
+
+
+def test_a_refused_simulation_names_the_problem(view, qtbot, monkeypatch):
+    import workbench.core.montecarlo as mc
+    from workbench.core.errors import PlanError
+
+    def refuse(plan, *args, **kwargs):
+        raise PlanError("activity C: pessimistic below optimistic", "C")
+
+    monkeypatch.setattr(mc, "simulate", refuse)
+    with qtbot.waitSignal(view.runner.failed, timeout=30_000):
+        view.controls.button.click()
+    assert "activity C" in view.controls.status.text()
+    assert view.session.simulation is None and view.controls.button.text() == "Run simulation"
