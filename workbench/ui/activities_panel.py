@@ -4,7 +4,7 @@
 from __future__ import annotations
 
 from PySide6.QtCore import QItemSelectionModel, Qt, Signal
-from PySide6.QtGui import QAction, QGuiApplication, QKeySequence
+from PySide6.QtGui import QAction, QFont, QFontMetrics, QGuiApplication, QKeySequence
 from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QComboBox, QHBoxLayout, QHeaderView,
                                QLabel, QLineEdit, QTableView, QVBoxLayout, QWidget)
 
@@ -19,6 +19,9 @@ from workbench.ui.paste_rows import paste_command
 from workbench.ui.session import Session
 
 ALL_GROUPS = "All groups"
+WIDTH_CHARS = {"id": 5, "name": 24, "group": 9, "predecessors": 12, "notes": 20, "distribution": 9,
+               "start_no_earlier": 10, "finish_no_later": 10, "early_start": 11, "early_finish": 11,
+               "late_start": 11, "late_finish": 11, "critical": 5}
 
 
 class ActivitiesPanel(QWidget):
@@ -59,10 +62,21 @@ class ActivitiesPanel(QWidget):
         header.setSectionResizeMode(QHeaderView.ResizeMode.Interactive)
         header.setStretchLastSection(False)
         table.verticalHeader().setDefaultSectionSize(table.fontMetrics().height() + 8)
-        for key, chars in (("id", 6), ("name", 26), ("group", 10), ("predecessors", 14), ("notes", 18)):
-            table.setColumnWidth(C.INDEX[key], table.fontMetrics().averageCharWidth() * chars + 16)
+        self._set_widths(table)
         table.selectionModel().selectionChanged.connect(self._on_table_selection)
         return table
+
+    @staticmethod
+    def _set_widths(table: QTableView) -> None:
+        """Wide enough for the heading and typical content, so the whole schedule fits."""
+        metrics, header = table.fontMetrics(), table.horizontalHeader()
+        bold = QFont(header.font())
+        bold.setBold(True)
+        heading = QFontMetrics(bold)
+        for i, col in enumerate(C.COLUMNS):
+            chars = WIDTH_CHARS.get(col.key, 6)
+            text = metrics.horizontalAdvance("0" * chars) + 14
+            table.setColumnWidth(i, max(text, heading.horizontalAdvance(col.title) + 16))
 
     def _make_filter_bar(self) -> QHBoxLayout:
         bar = QHBoxLayout()

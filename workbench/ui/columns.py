@@ -32,11 +32,7 @@ COLUMNS: tuple[Column, ...] = (
     Column("most_likely", "Most likely", "Most likely duration (m)", numeric=True),
     Column("pessimistic", "Pessimistic", "Longest credible duration (b)", numeric=True),
     Column("duration", "Duration", "A fixed duration instead of three estimates; 0 makes a milestone", numeric=True),
-    Column("distribution", "Distribution", "Duration distribution for simulation; empty = the plan's default"),
-    Column("start_no_earlier", "Not before", "Start no earlier than: a date (YYYY-MM-DD) or an offset"),
-    Column("finish_no_later", "Not after", "Finish no later than: a date (YYYY-MM-DD) or an offset"),
     Column("predecessors", "Predecessors", "e.g. A; B SS 2; C FF -1  (ID [type [lag]])"),
-    Column("notes", "Notes", "Free text"),
     Column("te", "te", "PERT expected duration (a + 4m + b) / 6", editable=False, numeric=True),
     Column("sd", "σ", "PERT standard deviation (b − a) / 6", editable=False, numeric=True),
     Column("early_start", "Early start", "Earliest start date", editable=False),
@@ -46,6 +42,10 @@ COLUMNS: tuple[Column, ...] = (
     Column("total_float", "Total float", "Delay possible without moving the project finish", editable=False, numeric=True),
     Column("free_float", "Free float", "Delay possible without moving any successor", editable=False, numeric=True),
     Column("critical", "Critical", "On the critical path (zero or least float)", editable=False),
+    Column("distribution", "Distribution", "Duration distribution for simulation; empty = the plan's default"),
+    Column("start_no_earlier", "Not before", "Start no earlier than: a date (YYYY-MM-DD) or an offset"),
+    Column("finish_no_later", "Not after", "Finish no later than: a date (YYYY-MM-DD) or an offset"),
+    Column("notes", "Notes", "Free text"),
 )
 KEYS = tuple(c.key for c in COLUMNS)
 INDEX = {c.key: i for i, c in enumerate(COLUMNS)}

@@ -10,7 +10,7 @@ from workbench.ui.links_text import parse_predecessors
 
 # Heading assumed for each pasted column when the rows come without a heading row.
 DEFAULT_HEADINGS = ("id", "name", "group", "optimistic", "most likely", "pessimistic", "duration",
-                    "distribution", "start no earlier", "finish no later", "predecessors", "notes")
+                    "predecessors", "distribution", "start no earlier", "finish no later", "notes")
 PRED_HEADINGS = ("predecessors", "predecessor", "preds")
 
 
