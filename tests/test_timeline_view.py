@@ -106,7 +106,7 @@ def test_milestone_diamond_is_drawn(view):
 def test_selection_follows_the_session(view):
     view.session.select(["D"])
     assert view.item._selected_rows.tolist() == [view.geometry.row_of["D"]]
-    image = render_image(view)
+    image = view.plot.grab().toImage()       # on screen (exports leave the selection out)
     (x_lo, x_hi), _ = view.view_box.viewRange()
     row = view.geometry.row_of["D"]
     assert colour_at(image, to_px(view, x_lo + 0.01 * (x_hi - x_lo), row)) == style.SELECTION
@@ -339,10 +339,10 @@ def test_only_rows_on_screen_are_painted(qtbot):
 
 
 def test_present_mode_uses_heavier_weights(view):
-    small = view.row_axis.style["tickFont"].pointSizeF()
+    small = view.row_axis.style["tickFont"].pixelSize()
     view.set_present(True)
     assert view.item._weights is style.PRESENT
-    assert view.row_axis.style["tickFont"].pointSizeF() > small
+    assert view.row_axis.style["tickFont"].pixelSize() > small
     view.set_present(False)
     assert view.item._weights is style.SCREEN
 
@@ -354,3 +354,22 @@ def test_empty_plan_says_so(qtbot):
     assert v._message.isVisible() and "No activities yet" in v._message.textItem.toPlainText()
     v.session.push(__import__("workbench.core.commands", fromlist=["AddActivity"]).AddActivity(Activity("A", duration=2)))
     assert not v._message.isVisible() and v.geometry.keys == ["A"]
+
+
+def test_svg_lines_up_with_the_screen(view, tmp_path):
+    """The SVG, drawn back at the view's size, has the critical colour inside the critical bar
+    and the float colour on the slack line, where the screen geometry puts them."""
+    from PySide6.QtGui import QColor, QImage, QPainter
+    from PySide6.QtSvg import QSvgRenderer
+    path = tmp_path / "t.svg"
+    export_svg(view, path)
+    size = view.plot.viewport().size()
+    image = QImage(size, QImage.Format.Format_ARGB32)
+    image.fill(QColor("white"))
+    painter = QPainter(image)
+    QSvgRenderer(str(path)).render(painter)
+    painter.end()
+    _, row, x0, x1 = bar(view, "C")
+    assert colour_at(image, to_px(view, (x0 + x1) / 2, row)) == style.CRITICAL
+    m = view.geometry.marks["float"]
+    assert near(image, to_px(view, (m.x0[0] + m.x1[0]) / 2, int(m.rows[0])), style.FLOAT)

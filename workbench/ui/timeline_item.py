@@ -97,6 +97,9 @@ class TimelineItem(pg.GraphicsObject):
         self._selected_rows = np.asarray(sorted(rows), dtype=np.int64)
         self._changed()
 
+    def selected_rows(self) -> list[int]:
+        return self._selected_rows.tolist()
+
     def set_preview(self, preview: tuple[int, float, float] | None) -> None:
         self._preview = preview
         self._changed()
@@ -136,7 +139,7 @@ class TimelineItem(pg.GraphicsObject):
         self.paint_ms = (time.perf_counter() - started) * 1000.0
 
     def _paint(self, p: QPainter) -> None:
-        t = p.transform()
+        t = p.combinedTransform()      # world and window/viewport: exact device pixels
         view = self.viewRect()
         rows = (-1.0, float(self._geo.n_rows)) if view is None else (view.top() - 1, view.bottom() + 1)
         xs = (self._geo.x_range if view is None else (view.left(), view.right()))

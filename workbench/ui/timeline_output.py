@@ -6,22 +6,43 @@ scaled to fit; the print preview, the printer, PDF, SVG and PNG all go through i
 
 from __future__ import annotations
 
+import datetime as dt
 from pathlib import Path
 
 from PySide6.QtCore import QRectF, QSize, Qt
-from PySide6.QtGui import QColor, QImage, QPainter
+from PySide6.QtGui import QColor, QFont, QImage, QPainter, QPicture
 from PySide6.QtWidgets import QApplication, QFileDialog, QMessageBox
 
 from workbench.figures import style
 
 
 def render_to(view, painter: QPainter, target: QRectF) -> None:
-    """Draw the view's chart into ``target`` on an active painter (keeps the aspect ratio)."""
+    """Draw the view's chart into ``target`` on an active painter (keeps the aspect ratio).
+
+    The chart is first recorded at its on-screen size (where every item, including the
+    labelled lines, works out its geometry for screen pixels) and then replayed scaled
+    as vectors: the page, the PDF, the SVG and the image get the very same drawing.
+    """
     plot = view.plot
     source = QRectF(plot.viewport().rect())
+    picture = QPicture()
+    selected = view.item.selected_rows()
+    view.item.set_selection([])            # the page shows the plan, not the pointer's state
+    recorder = QPainter(picture)
+    recorder.setRenderHint(QPainter.RenderHint.Antialiasing)
+    recorder.setRenderHint(QPainter.RenderHint.TextAntialiasing)
+    plot.render(recorder, source, source.toRect())
+    recorder.end()
+    view.item.set_selection(selected)
+    scale = min(target.width() / source.width(), target.height() / source.height())
     painter.save()
     painter.fillRect(target, QColor(style.BACKGROUND))
-    plot.render(painter, target, source.toRect(), Qt.AspectRatioMode.KeepAspectRatio)
+    painter.translate(target.left() + (target.width() - source.width() * scale) / 2,
+                      target.top() + (target.height() - source.height() * scale) / 2)
+    device = painter.device()   # playing a picture rescales it by the dpi ratio: undo that
+    painter.scale(scale * picture.logicalDpiX() / device.logicalDpiX(),
+                  scale * picture.logicalDpiY() / device.logicalDpiY())
+    picture.play(painter)
     painter.restore()
 
 
@@ -81,8 +102,25 @@ def paint_page(view, printer) -> None:
     """The printer/PDF/preview paint routine: the chart fitted to the printable page."""
     painter = QPainter(printer)
     page = QRectF(painter.viewport())
-    render_to(view, painter, page)
+    title = _page_title(view)
+    font = QFont()
+    font.setPixelSize(max(12, int(page.height() / 45)))
+    font.setBold(True)
+    painter.setFont(font)
+    head = painter.fontMetrics().height() * 1.6
+    painter.drawText(QRectF(page.left(), page.top(), page.width(), head),
+                     int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter), title)
+    render_to(view, painter, page.adjusted(0, head, 0, 0))
     painter.end()
+
+
+def _page_title(view) -> str:
+    settings = view.session.plan.settings
+    parts = [f"Timeline \u2014 {settings.title}"]
+    if settings.revision:
+        parts.append(f"revision {settings.revision}")
+    parts.append(f"printed {dt.date.today():%d %b %Y}")
+    return "   \u00b7   ".join(parts)
 
 
 def print_preview(view) -> None:

@@ -95,7 +95,7 @@ class TimelineRowAxis(pg.AxisItem):
     def paint(self, p, opt, widget):
         """On screen, blit a cached image of the labels (text is the costly part of a
         repaint); on paper and in SVG, draw the text itself."""
-        if self._geo is None or abs(p.transform().m11() - 1.0) > 1e-6 or p.device() is None \
+        if self._geo is None or abs(p.combinedTransform().m11() - 1.0) > 1e-6 or p.device() is None \
                 or not isinstance(p.device(), (QImage, QWidget)):
             super().paint(p, opt, widget)
             return

@@ -146,8 +146,10 @@ class TimelineView(QWidget):
         self._auto_fit = False
 
     def _font(self, bold: bool = False) -> QFont:
+        """Type sized in pixels (points at 96 dpi), so that print, PDF and SVG scale it
+        together with the chart instead of re-resolving points on their own resolution."""
         font = QFont()
-        font.setPointSizeF(self._weights.label_font_size)
+        font.setPixelSize(round(self._weights.label_font_size * 96.0 / 72.0))
         font.setBold(bold)
         return font
 
