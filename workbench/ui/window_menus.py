@@ -98,39 +98,43 @@ def build_menus(window) -> dict[str, QAction]:
     """Create the menu bar and tool bar; return every action by name."""
     acts = {**_file_actions(window), **_undo_actions(window)}
     panel = window.activities.actions
-    bar = window.menuBar()
-    file_menu = bar.addMenu("&File")
-    file_menu.addActions([acts["new"], acts["open"]])
-    recent = file_menu.addMenu("Open &Recent")
-    recent.aboutToShow.connect(partial(fill_recent, window, recent))
-    window.recent_menu = recent
-    file_menu.addActions([acts["save"], acts["save_as"]])
-    file_menu.addSeparator()
-    file_menu.addActions([acts["import"], acts["export"]])
-    file_menu.addSeparator()
-    file_menu.addActions([acts["settings"]])
-    file_menu.addSeparator()
-    file_menu.addActions([acts["close"], acts["quit"]])
-    edit_menu = bar.addMenu("&Edit")
+    _file_menu(window, acts)
+    edit_menu = window.menuBar().addMenu("&Edit")
     edit_menu.addActions([acts["undo"], acts["redo"]])
     edit_menu.addSeparator()
     edit_menu.addActions([panel[k] for k in ("insert", "delete", "move_up", "move_down", "paste", "predecessors")])
     edit_menu.addSeparator()
     edit_menu.addAction(acts["find"])
-    view_menu = bar.addMenu("&View")
-    for title, dock in window.docks.items():
-        toggle = dock.toggleViewAction()
-        view_menu.addAction(toggle)
-        acts[f"show_{title.lower()}"] = toggle
-    view_menu.addSeparator()
-    acts["reset_layout"] = view_menu.addAction("Reset &Layout")
-    acts["reset_layout"].triggered.connect(window.reset_layout)
-    help_menu = bar.addMenu("&Help")
+    _view_menu(window, acts)
+    help_menu = window.menuBar().addMenu("&Help")
     acts["guide"] = _action(window, "Window &Guide", partial(show_guide, window), StandardKey.HelpContents)
     acts["about"] = _action(window, "&About Slackline", partial(show_about, window))
     help_menu.addActions([acts["guide"], acts["about"]])
     _tool_bar(window, acts, panel)
     return {**acts, **{f"row_{k}": v for k, v in panel.items()}}
+
+
+def _file_menu(window, acts: dict) -> None:
+    menu = window.menuBar().addMenu("&File")
+    menu.addActions([acts["new"], acts["open"]])
+    recent = menu.addMenu("Open &Recent")
+    recent.aboutToShow.connect(partial(fill_recent, window, recent))
+    window.recent_menu = recent
+    for group in (("save", "save_as"), ("import", "export"), ("settings",), ("close", "quit")):
+        menu.addActions([acts[k] for k in group])
+        if group[0] != "close":
+            menu.addSeparator()
+
+
+def _view_menu(window, acts: dict) -> None:
+    menu = window.menuBar().addMenu("&View")
+    for title, dock in window.docks.items():
+        toggle = dock.toggleViewAction()
+        menu.addAction(toggle)
+        acts[f"show_{title.lower()}"] = toggle
+    menu.addSeparator()
+    acts["reset_layout"] = menu.addAction("Reset &Layout")
+    acts["reset_layout"].triggered.connect(window.reset_layout)
 
 
 def _tool_bar(window, acts: dict, panel: dict) -> None:
