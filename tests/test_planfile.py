@@ -266,3 +266,8 @@ def test_io_imports_no_qt():
             "print(bad); sys.exit(1 if bad else 0)")
     proc = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True)
     assert proc.returncode == 0, proc.stdout + proc.stderr
+
+
+def test_upgrade_chain_covers_every_older_version():
+    from workbench.io.plan_migrate import UPGRADES
+    assert sorted(UPGRADES) == list(range(1, VERSION))

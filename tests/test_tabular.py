@@ -258,3 +258,13 @@ def test_title_lines_above_the_header_are_skipped(tmp_path):
     assert line == "row 7, activity C, column C 'duration': 'y' is not a number"
     plan = read_table(write(tmp_path, "Harbour works; phase 2\n\nid;name;duration;preds\nA;Dig;1;\nB;Fill;2,5;A\n"))
     assert plan.ids() == ["A", "B"] and plan.activity("B").duration == 2.5 and plan.links == [Link("A", "B")]
+
+
+def test_import_report_summary(tmp_path):
+    _, report = read_table_report(DATA / "kiosk_semicolon_cp1252.csv")
+    assert report.summary() == "4 activities, 4 links (cp1252, semicolon-separated)"
+
+
+def test_unknown_predecessor_differing_only_in_case_gets_a_hint(tmp_path):
+    (line,) = problems_of(write(tmp_path, "id,duration,predecessors\nDIG,1,\nFILL,1,dig\n"))
+    assert line.startswith("row 3, activity FILL") and "unknown predecessor 'dig'" in line and "did you mean 'DIG'" in line

@@ -141,9 +141,12 @@ class RowReader:
         self.activities.append(act)
 
     def check_links(self, all_ids: set[str]) -> list[Link]:
+        folded = {i.casefold(): i for i in all_ids}
         for number, link in self.links:
             if link.pred not in all_ids:
-                self.problem(number, link.succ, "predecessors", f"unknown predecessor {link.pred!r} (no row has that id)")
+                near = folded.get(link.pred.casefold())
+                hint = f"; ids are case-sensitive: did you mean {near!r}?" if near else ""
+                self.problem(number, link.succ, "predecessors", f"unknown predecessor {link.pred!r} (no row has that id{hint})")
         return [link for _, link in self.links]
 
 
