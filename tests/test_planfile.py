@@ -211,6 +211,7 @@ def test_version_1_offset_deadline():
     (b"{\"hello\": 1}", "no 'format' field"),
     (b"{\"format\": \"something-else\", \"version\": 1}", "not a Slackline plan file"),
     (b"{\"format\": \"slackline-workbook\", \"format\": \"x\"}", "appears twice"),
+    ("{\"format\": \"slackline-workbook\"}".encode("utf-16"), "UTF-16"),
 ])
 def test_bad_files_raise_plan_file_error(tmp_path, content, message):
     path = tmp_path / "bad.slw"

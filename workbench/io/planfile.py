@@ -73,6 +73,8 @@ def loads(text: str, source: str = "plan file") -> Plan:
 def _decode(raw: bytes, name: str) -> str:
     if not raw.strip():
         raise PlanFileError(f"{name}: the file is empty")
+    if raw.startswith((b"\xff\xfe", b"\xfe\xff")):
+        raise PlanFileError(f"{name}: the file was saved as UTF-16 text; a Slackline plan file is UTF-8 JSON")
     if b"\x00" in raw[:4096]:
         raise PlanFileError(f"{name}: this is a binary file, not a Slackline plan file")
     try:
