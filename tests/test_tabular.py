@@ -268,3 +268,8 @@ def test_import_report_summary(tmp_path):
 def test_unknown_predecessor_differing_only_in_case_gets_a_hint(tmp_path):
     (line,) = problems_of(write(tmp_path, "id,duration,predecessors\nDIG,1,\nFILL,1,dig\n"))
     assert line.startswith("row 3, activity FILL") and "unknown predecessor 'dig'" in line and "did you mean 'DIG'" in line
+
+
+def test_ids_with_spaces_are_refused(tmp_path):
+    (line,) = problems_of(write(tmp_path, "id,duration\nSite survey,1\n"))
+    assert line == "row 2, activity Site survey, column A 'id': an id cannot contain spaces (a predecessor cell could not name it)"

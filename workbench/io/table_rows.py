@@ -129,6 +129,9 @@ class RowReader:
             self.problem(number, act_id, "predecessors", _strip_activity(str(exc), act_id))
 
     def _accept(self, number: int, act: Activity) -> None:
+        if any(c.isspace() for c in act.id):
+            self.problem(number, act.id, "id", "an id cannot contain spaces (a predecessor cell could not name it)")
+            return
         try:
             act.validated()
         except PlanError as exc:
