@@ -373,3 +373,16 @@ def test_svg_lines_up_with_the_screen(view, tmp_path):
     assert colour_at(image, to_px(view, (x0 + x1) / 2, row)) == style.CRITICAL
     m = view.geometry.marks["float"]
     assert near(image, to_px(view, (m.x0[0] + m.x1[0]) / 2, int(m.rows[0])), style.FLOAT)
+
+
+def test_nonworking_stretches_found_between_working_days():
+    from workbench.core import WorkCalendar
+    from workbench.ui.timeline_item import nonworking_finder
+    cal = WorkCalendar(Settings(start=dt.date(2026, 12, 7)))      # a Monday
+    # Weekends fall after the 5th and 10th working day; 25 Dec 2026 (a Friday) is a
+    # working day unless it is listed as a holiday.
+    assert nonworking_finder(cal)(0, 12).tolist() == [5.0, 10.0]
+    cal = WorkCalendar(Settings(start=dt.date(2026, 12, 7),
+                                calendar=__import__("workbench.core", fromlist=["Calendar"]).Calendar(
+                                    holidays=(dt.date(2026, 12, 9),))))
+    assert nonworking_finder(cal)(0, 6).tolist() == [2.0, 4.0]

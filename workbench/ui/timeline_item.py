@@ -12,7 +12,7 @@ import time
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QRectF, Qt
-from PySide6.QtGui import QColor, QPainter, QPicture
+from PySide6.QtGui import QPainter, QPicture
 
 from workbench.figures import style
 from workbench.figures.timeline import TimelineGeometry
@@ -200,3 +200,16 @@ class TimelineItem(pg.GraphicsObject):
         y0, h = float(min(top, bottom)), float(abs(bottom - top))
         paint.fill(p, style.NONWORKING)
         paint.rects(p, px.x(offsets) - width / 2, y0, width, h)
+
+
+def nonworking_finder(calendar):
+    """A function (lo, hi) → offsets (working time) at which a non-working stretch lies."""
+    def find(lo: float, hi: float) -> np.ndarray:
+        per = calendar.per_unit
+        days = np.arange(max(0, int(np.floor(lo * per))), int(np.ceil(hi * per)) + 1)
+        if days.size > 4000:
+            return np.zeros(0)
+        dates = calendar.start_dates(days / per).astype("datetime64[D]")
+        gap = np.flatnonzero(np.diff(dates).astype(int) > 1) + 1
+        return days[gap] / per
+    return find

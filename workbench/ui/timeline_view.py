@@ -9,16 +9,15 @@ draws it and turns gestures into session calls and core commands.
 
 from __future__ import annotations
 
-import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QEvent, QObject, Qt, Signal
-from PySide6.QtGui import QAction, QColor, QFont, QKeySequence
+from PySide6.QtGui import QAction, QColor, QFont
 from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
 from workbench.figures import style
 from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
 from workbench.ui.timeline_date_axis import TimelineDateAxis
-from workbench.ui.timeline_item import TimelineItem
+from workbench.ui.timeline_item import TimelineItem, nonworking_finder
 from workbench.ui.timeline_row_axis import TimelineRowAxis
 from workbench.ui.timeline_tooltip import tooltip_text
 
@@ -84,7 +83,8 @@ class TimelineView(QWidget):
         pi.addItem(self._message, ignoreBounds=True)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
-        layout.addWidget(self._toolbar())
+        self.toolbar = self._toolbar()
+        layout.addWidget(self.toolbar)
         layout.addWidget(self.plot)
         self._apply_weights()
 
@@ -96,8 +96,8 @@ class TimelineView(QWidget):
                 ("critical", "Critical path", self.show_critical_path, True),
                 ("late", "Late dates", self.set_late_bars, True),
                 ("links", "Links", self.set_connectors, True),
-                ("png", "Export PNG\u2026", self._export_png_dialog, False),
-                ("svg", "Export SVG\u2026", self._export_svg_dialog, False),
+                ("png", "Export PNG\u2026", lambda: self._export_dialog("png"), False),
+                ("svg", "Export SVG\u2026", lambda: self._export_dialog("svg"), False),
                 ("print", "Print\u2026", self.print_preview, False)):
             action = QAction(text, self, checkable=checkable)
             action.triggered.connect(slot)
@@ -123,12 +123,21 @@ class TimelineView(QWidget):
             self._show_message("No activities yet: add some in the Activities table." if only is None
                                else "No critical activities to show.")
         self.date_axis.set_calendar(analysis.calendar)
-        self.item.set_nonworking(self._nonworking_finder(analysis.calendar))
+        self.item.set_nonworking(nonworking_finder(analysis.calendar))
         self.item.set_geometry(self.geometry)
         self.row_axis.set_geometry(self.geometry)
+        self._set_limits()
         self._fit_label_column()
         self._update_lines()
         self._follow_selection(self.session.selected())
+
+    def _set_limits(self) -> None:
+        """Keep zoom and pan near the plan: a little beyond its dates and rows."""
+        lo, hi = self.geometry.x_range
+        n = max(self.geometry.n_rows, 1)
+        span = hi - lo
+        self.view_box.setLimits(xMin=lo - span, xMax=hi + span, minXRange=0.5,
+                                yMin=-0.5 - max(3.0, 0.05 * n), yMax=n + 2.0, minYRange=2.0)
 
     def _fit_label_column(self) -> None:
         """Label column as wide as the longest labels need, at most a third of the view."""
@@ -204,19 +213,6 @@ class TimelineView(QWidget):
         if self._band.scene() is None:
             self.plot.addItem(self._band, ignoreBounds=True)
 
-    @staticmethod
-    def _nonworking_finder(calendar):
-        """Offsets (working time) at which a non-working stretch of days lies."""
-        def find(lo: float, hi: float) -> np.ndarray:
-            per = calendar.per_unit
-            days = np.arange(max(0, int(np.floor(lo * per))), int(np.ceil(hi * per)) + 1)
-            if days.size > 4000:
-                return np.zeros(0)
-            dates = calendar.start_dates(days / per).astype("datetime64[D]")
-            gap = np.flatnonzero(np.diff(dates).astype(int) > 1) + 1
-            return days[gap] / per
-        return find
-
     # --- selection -----------------------------------------------------------------
     def _follow_selection(self, ids) -> None:
         geo = self.geometry
@@ -250,6 +246,7 @@ class TimelineView(QWidget):
         row = None if geo is None or pos is None else geo.row_at(pos.y())
         if row is None or geo.kinds[row] == "group":
             self.item.setCursor(Qt.CursorShape.ArrowCursor)
+            self.plot.setToolTip("")
             QToolTip.hideText()
             return
         near_end = self._near_bar_end(row, pos.x())
@@ -362,6 +359,8 @@ class TimelineView(QWidget):
         self._fit_label_column()
         self.date_axis.setStyle(tickFont=font)
         self.item.set_weights(self._weights)
+        if hasattr(self, "toolbar"):
+            self.toolbar.setVisible(self._weights is not style.PRESENT)
         for line in list(self._lines):
             self.plot.removeItem(self._lines.pop(line))
         self._update_lines()
@@ -378,10 +377,6 @@ class TimelineView(QWidget):
         from workbench.ui.timeline_output import print_preview
         print_preview(self)
 
-    def _export_png_dialog(self) -> None:
+    def _export_dialog(self, kind: str) -> None:
         from workbench.ui.timeline_output import ask_and_export
-        ask_and_export(self, "png")
-
-    def _export_svg_dialog(self) -> None:
-        from workbench.ui.timeline_output import ask_and_export
-        ask_and_export(self, "svg")
+        ask_and_export(self, kind)
