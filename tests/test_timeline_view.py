@@ -386,3 +386,19 @@ def test_nonworking_stretches_found_between_working_days():
                                 calendar=__import__("workbench.core", fromlist=["Calendar"]).Calendar(
                                     holidays=(dt.date(2026, 12, 9),))))
     assert nonworking_finder(cal)(0, 6).tolist() == [2.0, 4.0]
+
+
+def test_drag_released_where_it_started_leaves_no_undo_step(view):
+    _, row, es, ef = bar(view, "C")
+    start = to_px(view, ef, row)
+    drag(view, start, start + QPoint(40, 0), steps=3)
+    view.session.undo_stack.undo()
+    count = view.session.undo_stack.count()
+    _, row, es, ef = bar(view, "C")
+    start = to_px(view, ef, row)
+    vp = view.plot.viewport()
+    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
+    QTest.mouseMove(vp, start + QPoint(30, 0))
+    QTest.mouseMove(vp, start)
+    QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
+    assert view.session.undo_stack.index() == count - 1 and view.item._preview is None

@@ -278,6 +278,8 @@ class TimelineView(QWidget):
             return True
         self._drag = None
         self.item.set_preview(None)
+        if all(getattr(act, k) == v for k, v in changes.items()):
+            return True                        # released where it started: nothing to undo
         from workbench.core.commands import EditActivity
         if self.session.push(EditActivity(act_id, **changes)):
             self.duration_dragged.emit(act_id, float(value))
