@@ -130,3 +130,13 @@ def test_refuses_to_write_a_plan_it_could_not_read_back(tmp_path):
 def test_unwritable_folder_gives_clear_message(tmp_path):
     with pytest.raises(PlanFileError, match="could not save"):
         save_plan(make_plan(2, "x"), tmp_path / "missing-folder" / "plan.slw")
+
+
+def test_damaged_file_message_points_to_the_backup(tmp_path):
+    path = tmp_path / "plan.slw"
+    save_plan(make_plan(2, "one"), path)
+    save_plan(make_plan(2, "two"), path)
+    path.write_bytes(path.read_bytes()[:100])  # damaged by some other program
+    with pytest.raises(PlanFileError, match=r"not valid JSON[\s\S]*kept as plan\.slw\.bak"):
+        load_plan(path)
+    assert load_plan(tmp_path / "plan.slw.bak").settings.title == "one"

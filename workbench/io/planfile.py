@@ -94,7 +94,13 @@ def load_plan(path) -> Plan:
         raw = path.read_bytes()
     except OSError as exc:
         raise PlanFileError(f"cannot read {path}: {exc.strerror or exc}") from exc
-    return loads(_decode(raw, path.name), path.name)
+    try:
+        return loads(_decode(raw, path.name), path.name)
+    except PlanFileError as exc:
+        bak = path.with_name(path.name + ".bak")
+        if path.suffix != ".bak" and bak.is_file():
+            raise PlanFileError(f"{exc}\n(the previous save is kept as {bak.name})", exc.culprit) from exc
+        raise
 
 
 # --- saving ----------------------------------------------------------------------
