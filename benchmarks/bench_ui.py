@@ -20,6 +20,7 @@ from pathlib import Path
 ROOT = Path(__file__).resolve().parents[1]
 sys.path.insert(0, str(ROOT))
 
+HEAVY = ("PySide6.QtWidgets", "scipy.stats", "pyqtgraph")
 START_SCRIPT = """
 import sys
 from PySide6.QtCore import QTimer
@@ -27,6 +28,7 @@ from PySide6.QtWidgets import QApplication
 from workbench.ui.app import application, run_app
 def shown():
     QApplication.processEvents()
+    print("shown", flush=True)
     QApplication.quit()
 app = application()
 QTimer.singleShot(0, shown)
@@ -34,22 +36,35 @@ sys.exit(run_app([]))
 """
 
 
-def _wall(args: list[str], env: dict) -> float:
+def _wall(args: list[str], env: dict, marker: str | None = None) -> float:
+    """Seconds from launching ``args`` to its exit, or to the line ``marker`` on its output."""
     t0 = time.perf_counter()
-    subprocess.run(args, env=env, check=True, capture_output=True, timeout=300)
-    return time.perf_counter() - t0
+    proc = subprocess.Popen(args, env=env, stdout=subprocess.PIPE, stderr=subprocess.DEVNULL, text=True)
+    if marker is not None:
+        for line in proc.stdout:
+            if line.strip() == marker:
+                break
+    elapsed = time.perf_counter() - t0 if marker is not None else None
+    proc.communicate(timeout=300)
+    if proc.returncode != 0:
+        raise RuntimeError(f"{args[:2]} exited with {proc.returncode}")
+    return elapsed if elapsed is not None else time.perf_counter() - t0
 
 
-def cold_start(repeats: int) -> tuple[float, float]:
-    """Median seconds of (python -c pass, start to a shown window with the demo plan)."""
+def cold_start(repeats: int) -> tuple[float, float, dict]:
+    """Median seconds of (python -c pass, start to a shown window with the demo plan), and
+    of importing the heaviest dependencies alone, to show where the time goes."""
     with tempfile.TemporaryDirectory() as tmp:
         env = dict(os.environ, QT_QPA_PLATFORM=os.environ.get("QT_QPA_PLATFORM", "offscreen"),
                    SLACKLINE_MULTI_INSTANCE="1", SLACKLINE_DATA_DIR=tmp, XDG_CONFIG_HOME=tmp, HOME=tmp)
         ref, app = [], []
+        parts: dict[str, list[float]] = {m: [] for m in HEAVY}
         for _ in range(repeats):
             ref.append(_wall([sys.executable, "-c", "pass"], env))
-            app.append(_wall([sys.executable, "-c", START_SCRIPT], env))
-    return statistics.median(ref), statistics.median(app)
+            app.append(_wall([sys.executable, "-c", START_SCRIPT], env, marker="shown"))
+            for module in HEAVY:
+                parts[module].append(_wall([sys.executable, "-c", f"import {module}"], env))
+    return statistics.median(ref), statistics.median(app), {m: statistics.median(v) for m, v in parts.items()}
 
 
 def edit_round_trip(n: int, edits: int, views: bool = True) -> tuple[float, float]:
@@ -92,9 +107,10 @@ def edit_round_trip(n: int, edits: int, views: bool = True) -> tuple[float, floa
 
 def main() -> int:
     quick = "--quick" in sys.argv
-    ref, start = cold_start(2 if quick else 4)
+    ref, start, parts = cold_start(2 if quick else 4)
     print(f"cold start: {start:.2f} s to a shown window; python -c pass {ref:.3f} s; ratio {start / ref:.1f}x "
           f"(target <= 1.5 s: {'met' if start <= 1.5 else 'missed'})")
+    print("  importing alone: " + "; ".join(f"{m} {t:.2f} s ({t / start:.0%} of the start)" for m, t in parts.items()))
     edits = 8 if quick else 20
     for label, views in (("window with all views", True), ("window, views as placeholders", False)):
         core_ms, full_ms = edit_round_trip(2000, edits, views)

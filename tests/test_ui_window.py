@@ -265,3 +265,19 @@ def test_controls_have_accessible_names(window):
     unnamed = [w for cls in (QLineEdit, QComboBox) for w in panel.findChildren(cls)
                if not w.accessibleName() and w.parent() is panel]
     assert unnamed == []
+
+
+def test_recent_files_menu_lists_and_opens(window, ui_env, tmp_path):
+    from workbench.ui.window_menus import fill_recent
+    paths = []
+    for name in ("one.slw", "two.slw"):
+        plan = sample_plan()
+        plan.set_settings(settings_with(plan.settings, title=name))
+        save_plan(plan, tmp_path / name)
+        assert window.files.open_path(str(tmp_path / name))
+        paths.append(str((tmp_path / name).resolve()))
+    fill_recent(window, window.recent_menu)
+    entries = [a for a in window.recent_menu.actions() if a.toolTip() in paths]
+    assert [a.text() for a in entries] == ["two.slw", "one.slw"]
+    entries[1].trigger()
+    assert window.session.plan.settings.title == "one.slw"
