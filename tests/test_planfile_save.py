@@ -140,3 +140,13 @@ def test_damaged_file_message_points_to_the_backup(tmp_path):
     with pytest.raises(PlanFileError, match=r"not valid JSON[\s\S]*kept as plan\.slw\.bak"):
         load_plan(path)
     assert load_plan(tmp_path / "plan.slw.bak").settings.title == "one"
+
+
+@pytest.mark.skipif(os.name == "nt", reason="POSIX permissions")
+def test_new_file_gets_the_usual_permissions(tmp_path):
+    old = os.umask(0o027)
+    try:
+        save_plan(make_plan(2, "a"), tmp_path / "new.slw")
+    finally:
+        os.umask(old)
+    assert ((tmp_path / "new.slw").stat().st_mode & 0o777) == 0o640

@@ -10,7 +10,7 @@ from __future__ import annotations
 import hashlib
 import json
 import os
-import tempfile
+import secrets
 from pathlib import Path
 
 from workbench.core.model import Plan
@@ -125,8 +125,19 @@ def _write_all(handle, data: bytes) -> None:
         handle.write(data[i:i + CHUNK])
 
 
+def _open_temp(folder: Path, name: str) -> tuple[int, Path]:
+    """A new file beside the target, created with the usual permissions (umask applies)."""
+    flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
+    while True:
+        tmp = folder / f".{name}.{secrets.token_hex(4)}.tmp"
+        try:
+            return os.open(tmp, flags, 0o666), tmp
+        except FileExistsError:
+            continue
+
+
 def _write_temp(folder: Path, name: str, data: bytes, mode: int | None) -> Path:
-    fd, tmp = tempfile.mkstemp(dir=folder, prefix=f".{name}.", suffix=".tmp")
+    fd, tmp = _open_temp(folder, name)
     try:
         with os.fdopen(fd, "wb") as handle:
             _write_all(handle, data)
@@ -135,9 +146,9 @@ def _write_temp(folder: Path, name: str, data: bytes, mode: int | None) -> Path:
         if mode is not None:
             os.chmod(tmp, mode)
     except BaseException:
-        Path(tmp).unlink(missing_ok=True)
+        tmp.unlink(missing_ok=True)
         raise
-    return Path(tmp)
+    return tmp
 
 
 def _keep_backup(path: Path) -> None:
@@ -152,12 +163,6 @@ def _keep_backup(path: Path) -> None:
         raise
 
 
-def _default_mode() -> int:
-    umask = os.umask(0)
-    os.umask(umask)
-    return 0o666 & ~umask
-
-
 def save_plan(plan: Plan, path, backup: bool = True) -> Path:
     """Write the plan atomically: a temporary file in the same folder, flushed and
     synced, then renamed over the target (and the folder synced). The previous file is
@@ -166,10 +171,10 @@ def save_plan(plan: Plan, path, backup: bool = True) -> Path:
     if path.is_symlink():
         path = path.resolve()
     text = dumps(plan)
-    loads(text, "plan about to be saved")  # never write a file we could not read back
+    loads(text, "not saved")  # never write a file we could not read back
     try:
         existed = path.exists()
-        mode = (path.stat().st_mode & 0o7777) if existed else _default_mode()
+        mode = (path.stat().st_mode & 0o7777) if existed else None
         if existed and backup:
             _keep_backup(path)
         tmp = _write_temp(path.parent, path.name, text.encode("utf-8"), mode)
