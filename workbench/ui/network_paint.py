@@ -16,6 +16,7 @@ from workbench.figures import network_style as ns
 TINY_PX = 40       # node narrower than this on screen: coloured box only
 COMPACT_PX = 140   # narrower than this: header colour and big id only
 LABEL_SCALE = 0.2  # link labels from this zoom on
+TINY_IDS = 600     # far out, ids are written in at most this many visible boxes
 AA_SEGMENTS = 250  # smooth (antialiased) ordinary links only when this few are visible
 
 
@@ -156,7 +157,7 @@ class NetworkPainter:
         rows = self._visible_nodes(visible)
         self._paint_halos(p, rows, scale)
         if node_px < TINY_PX:
-            self._paint_tiny(p, rows)
+            self._paint_tiny(p, rows, scale)
         else:
             self._paint_nodes(p, rows, scale, node_px >= COMPACT_PX)
 
@@ -242,11 +243,22 @@ class NetworkPainter:
         for r in (self.related | ({self.hover} if self.hover >= 0 else set())) & show:
             p.drawRect(self._rects[r].adjusted(-6, -6, 6, 6))
 
-    def _paint_tiny(self, p: QPainter, rows: np.ndarray) -> None:
+    def _paint_tiny(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
+        """Far out: coloured boxes, with the id inside while it can still be read."""
         for flag, hexc in ((False, ns.WORK), (True, ns.CRITICAL)):
             p.setPen(pen(ns.CRITICAL_EDGE, 0, 1.0) if flag else Qt.NoPen)
             p.setBrush(colour(hexc))
             p.drawRects([self._rects[r] for r in rows[self._crit[rows] == flag]])
+        if not len(rows) or len(rows) > TINY_IDS:
+            return
+        box = self._rects[int(rows[0])]
+        size = min(0.5 * box.height(), 0.28 * box.width())
+        if size * scale < 7:
+            return
+        p.setPen(colour(ns.HEADER_TEXT))
+        p.setFont(font(size, bold=True))
+        for r in rows.tolist():
+            p.drawText(self._rects[r], Qt.AlignCenter, self.texts[r].id)
 
     def _paint_nodes(self, p: QPainter, rows: np.ndarray, scale: float, full: bool) -> None:
         """Bodies, headers and borders in a few batched calls; texts node by node."""
