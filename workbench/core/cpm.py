@@ -90,10 +90,12 @@ def _forward_work(net: Network, offsets: np.ndarray, floor: np.ndarray) -> np.nd
     return _sweep(net.forward.steps, work, entry[net.forward.idx], np.maximum, True)
 
 
-def _backward_work(net: Network, offsets: np.ndarray, ceiling: np.ndarray) -> np.ndarray:
-    entry = _stack(offsets, -np.asarray(ceiling, dtype=float))
+def _backward_work(net: Network, offsets: np.ndarray, ceiling: np.ndarray, keep: list | None = None):
+    entry = _stack(offsets, -np.asarray(ceiling, dtype=float))[net.backward.idx]
+    if keep is not None:
+        keep.append(entry)              # reused by the free float
     work = _work(net, None, entry.shape[1:])
-    return _sweep(net.backward.steps, work, entry[net.backward.idx], np.minimum, False)
+    return _sweep(net.backward.steps, work, entry, np.minimum, False)
 
 
 def forward(net: Network, offsets: np.ndarray, floor: np.ndarray) -> np.ndarray:
@@ -106,22 +108,30 @@ def backward(net: Network, offsets: np.ndarray, ceiling: np.ndarray) -> np.ndarr
     return _backward_work(net, offsets, ceiling)[net.rank]
 
 
-def _free_float(net: Network, es_work: np.ndarray, offsets: np.ndarray, d: np.ndarray, finish: float):
-    """Smallest slack over outgoing links and project finish − EF, per activity."""
+def _free_float(net: Network, es_work: np.ndarray, entry: np.ndarray, d: np.ndarray, finish: float):
+    """Smallest slack over outgoing links and project finish − EF, per activity.
+
+    ``entry`` holds the backward pass's per-entry offsets (overwritten here): the slack of
+    a link is ES_j − offset − ES_i, and a bound entry, read from the spare row set to the
+    finish, gives finish − d_i − ES_i."""
     p = net.backward
-    es_work[net.size] = finish          # a bound entry reads finish − ES − d = finish − EF
-    slack = es_work.take(p.far) - es_work.take(p.near) - _stack(offsets, d)[p.idx]
-    es_work[net.size] = 0.0
     ff = np.empty(net.size)
-    if net.size:
-        ff[p.origin] = np.minimum.reduceat(slack, p.starts)
+    if not net.size:
+        return ff
+    entry[p.starts] = d[p.origin]
+    es_work[net.size] = finish
+    cand = es_work.take(p.far)
+    es_work[net.size] = 0.0
+    cand -= entry
+    ff[p.origin] = np.minimum.reduceat(cand, p.starts) - es_work[p.nodes]
     return ff
 
 
 def free_float(net: Network, es: np.ndarray, ef: np.ndarray, offsets: np.ndarray, finish) -> np.ndarray:
     """Free float from early dates in plan order (see :func:`_free_float`)."""
     work = _work(net, es, ())
-    return _free_float(net, work, offsets, np.asarray(ef) - np.asarray(es), float(finish))
+    entry = _stack(offsets, np.zeros(net.size))[net.backward.idx]
+    return _free_float(net, work, entry, np.asarray(ef) - np.asarray(es), float(finish))
 
 
 class Analyzer:
@@ -155,9 +165,10 @@ class Analyzer:
         ef = es + d
         finish = float(ef.max()) if ef.size else 0.0
         ref = finish if deadline is None else float(deadline)
-        ls = _backward_work(net, offsets, np.minimum(ref, self.fnlt) - d)[net.rank]
+        kept: list = []
+        ls = _backward_work(net, offsets, np.minimum(ref, self.fnlt) - d, kept)[net.rank]
         tf = ls - es
-        ff = _free_float(net, es_work, offsets, d, finish)
+        ff = _free_float(net, es_work, kept[0], d, finish)
         critical = tf <= (ref - finish) + EPS
         sched = Schedule(net, d, es, ef, ls, ls + d, tf, ff, critical, finish,
                          None if deadline is None else float(deadline))

@@ -28,12 +28,11 @@ DST_FINISH = np.array([0.0, 0.0, 1.0, 1.0])
 class Pass:
     """Entries of one sweep (links plus one bound per activity), grouped by the activity
     they update. ``idx`` points into ``concatenate([link values, per-activity bounds])``;
-    ``far``/``near`` are renumbered nodes (``far`` = n for a bound entry).
+    ``far`` is the renumbered node read (n for a bound entry, which leads each group).
     ``steps`` per level: (first node, end node, entry lo, entry hi, segment starts, far slice);
     ``levels`` the same as (lo, hi, original node ids, segment starts)."""
 
     idx: np.ndarray
-    near: np.ndarray
     far: np.ndarray
     starts: np.ndarray          # segment start of each updated node, in ``nodes`` order
     nodes: np.ndarray           # renumbered nodes in the order their segments appear
@@ -117,11 +116,11 @@ def _ranges(lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
     return shift + np.arange(total)
 
 
-def _levels(n: int, src: np.ndarray, dst: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+def _levels(n: int, dst: np.ndarray, order: np.ndarray, starts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
     """Longest-path level of each node by frontier sweeps (work proportional to the links
-    leaving each frontier); -1 marks nodes on or behind a cycle."""
+    leaving each frontier); -1 marks nodes on or behind a cycle. ``order``/``starts``
+    group the links by predecessor (see :func:`group_order`)."""
     level = np.full(n, -1, dtype=np.int64)
-    order, starts = group_order(src, n)
     out = dst[order]
     indeg = np.bincount(dst, minlength=n)
     first = np.full(n, -1, dtype=np.int64)      # de-duplicates a frontier without sorting
@@ -163,43 +162,42 @@ def _find_loop(ids: list[str], src: np.ndarray, dst: np.ndarray, stuck: np.ndarr
     return loop + [loop[0]]
 
 
-def _make_pass(near: np.ndarray, far: np.ndarray, idx: np.ndarray, position: np.ndarray,
-               blocks: list[tuple[int, int]], topo: np.ndarray) -> Pass:
-    """Group entries by ``position[near]``, the order nodes are updated in; ``blocks``
-    lists each level's renumbered node range [a, b) in that order (positions follow on)."""
-    total = sum(b - a for a, b in blocks)
-    order, bounds = group_order(position[near], total)
-    near, far, idx = near[order], far[order], idx[order]
+def _make_pass(near_end: np.ndarray, far_end: np.ndarray, origin: np.ndarray, position: np.ndarray,
+               rank: np.ndarray, blocks: list[tuple[int, int]], topo: np.ndarray) -> Pass:
+    """Entries for the nodes ``origin`` (original indices, in update order; ``position``
+    maps a node to its place in it): per node its bound entry first, then the links whose
+    ``near_end`` it is. ``blocks`` gives each level's renumbered range [a, b)."""
+    n, m, k = rank.size, near_end.size, origin.size
+    keys = np.concatenate((np.arange(k), position[near_end]))
+    order, bounds = group_order(keys, k)           # stable: each bound entry leads its group
+    idx = np.concatenate((m + origin, np.arange(m)))[order]
+    far = np.concatenate((np.full(k, n), rank[far_end]))[order]
+    nodes = rank[origin]
     starts = bounds[:-1]
-    lo_hi = np.array(blocks, dtype=np.int64).reshape(-1, 2)
-    nodes = _ranges(lo_hi[:, 0], lo_hi[:, 1])
-    steps, levels, k = [], [], 0
+    steps, levels, j = [], [], 0
     for a, b in blocks:
-        lo, hi = int(bounds[k]), int(bounds[k + b - a])
-        seg = starts[k:k + b - a] - lo
+        lo, hi = int(bounds[j]), int(bounds[j + b - a])
+        seg = starts[j:j + b - a] - lo
         steps.append((a, b, lo, hi, seg, far[lo:hi]))
         levels.append((lo, hi, topo[a:b], seg))
-        k += b - a
-    return Pass(idx, near, far, starts, nodes, topo[nodes], steps, levels)
+        j += b - a
+    return Pass(idx, far, starts, nodes, origin, steps, levels)
 
 
-def _passes(n: int, m: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, level: np.ndarray):
+def _passes(n: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, level: np.ndarray):
     rank = np.empty(n, dtype=np.int64)
     rank[topo] = np.arange(n)
     per_level = np.bincount(level) if n else np.zeros(0, dtype=np.int64)
     edges = np.concatenate(([0], np.cumsum(per_level)))
     blocks = [(int(a), int(b)) for a, b in zip(edges[:-1], edges[1:])]
-    links = np.arange(m, dtype=np.int64)
     n0 = blocks[0][1] if blocks else 0
-    later = np.arange(n0, n, dtype=np.int64)
-    fwd = _make_pass(np.concatenate((rank[dst], later)), np.concatenate((rank[src], np.full(n - n0, n))),
-                     np.concatenate((links, m + topo[n0:])), np.arange(n, dtype=np.int64) - n0,
-                     blocks[1:], topo)
-    lvl = level[topo]                     # renumbered nodes' levels, non-decreasing
-    # Backward: levels last to first, each block's nodes in ascending order.
-    back_pos = n - edges[lvl + 1] + (np.arange(n) - edges[lvl])
-    bwd = _make_pass(np.concatenate((rank[src], np.arange(n))), np.concatenate((rank[dst], np.full(n, n))),
-                     np.concatenate((links, m + topo)), back_pos, blocks[::-1], topo)
+    fwd = _make_pass(dst, src, topo[n0:], rank - n0, rank, blocks[1:], topo)
+    # Backward: levels last to first, each block's nodes in ascending renumbered order.
+    lvl = level[topo]
+    back_pos = n - edges[lvl + 1] + (np.arange(n) - edges[lvl])   # by renumbered node
+    order = np.empty(n, dtype=np.int64)
+    order[back_pos] = np.arange(n)
+    bwd = _make_pass(src, dst, topo[order], back_pos[rank], rank, blocks[::-1], topo)
     return rank, fwd, bwd
 
 
@@ -213,10 +211,11 @@ def compile_network(ids: list[str], src: np.ndarray, dst: np.ndarray, lag: np.nd
     self_links = np.flatnonzero(src == dst)
     if self_links.size:
         raise PlanError(f"activity {ids[src[self_links[0]]]} is linked to itself", ids[src[self_links[0]]])
-    level, topo = _levels(n, src, dst)
+    by_src = group_order(src, n)
+    level, topo = _levels(n, dst, *by_src)
     if topo.size < n:
         raise CycleError(_find_loop(ids, src, dst, level < 0))
-    rank, fwd, bwd = _passes(n, src.size, src, dst, topo, level)
+    rank, fwd, bwd = _passes(n, src, dst, topo, level)
     return Network(
         ids=list(ids), src=src, dst=dst, lag=np.asarray(lag, dtype=float),
         src_fin=SRC_FINISH[types] if types.size else np.zeros(0),
