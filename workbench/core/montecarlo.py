@@ -1,0 +1,187 @@
+"""Monte Carlo schedule risk: many sets of sampled durations through the critical-path engine.
+
+``simulate(plan, iterations, seed)`` samples every activity's duration (``distributions``),
+correlates ranks (``correlation``), adds risk events (``risk_events``) and runs the same
+forward and backward passes as the critical-path engine on 2-D arrays (activities ×
+iterations), block by block so memory stays bounded. A second, cheaper pass regenerates
+the scores to compute rank sensitivities once the finish ranks are known. The method and
+every index are described in docs/simulation.md.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+from scipy.stats import rankdata
+
+from .analysis import moments
+from .calendar import WorkCalendar
+from .correlation import CorrelationModel
+from .cpm import EPS, Analyzer, backward, forward
+from .distributions import DurationModel, check_family
+from .errors import PlanError
+from .risk_events import RiskModel
+from .score_stream import CHUNK, ScoreStream
+from .sim_result import SimulationResult
+
+BLOCK_BYTES = 48 * 2**20       # working memory aimed at per block
+MAX_BLOCK = 2048               # iterations
+
+
+class SimulationCancelled(Exception):
+    """The run was cancelled between blocks; no result is produced."""
+
+
+def default_block_size(activities: int, links: int) -> int:
+    """Iterations per block so that the block's arrays take about ``BLOCK_BYTES``."""
+    per_iteration = 8 * (7 * max(activities, 1) + 3 * links)
+    chunks = max(1, BLOCK_BYTES // (per_iteration * CHUNK))
+    return int(min(chunks * CHUNK, MAX_BLOCK))
+
+
+class Accumulators:
+    """Per-activity sums over iterations, added chunk by chunk in chunk order."""
+
+    def __init__(self, n: int, scored: int, shift_d: np.ndarray, shift_f: float):
+        self.critical = np.zeros(n, dtype=np.int64)
+        self.s_d, self.s_dd, self.s_df = np.zeros(n), np.zeros(n), np.zeros(n)
+        self.s_u, self.s_uu, self.s_ur = np.zeros(scored), np.zeros(scored), np.zeros(scored)
+        self.shift_d, self.shift_f = shift_d[:, None], shift_f
+
+    def add_pass1(self, d: np.ndarray, crit: np.ndarray, finish: np.ndarray) -> None:
+        dc = d - self.shift_d
+        self.critical += crit.sum(axis=1)
+        self.s_d += dc.sum(axis=1)
+        self.s_dd += np.einsum("ij,ij->i", dc, dc)
+        self.s_df += dc @ (finish - self.shift_f)
+
+    def add_pass2(self, u: np.ndarray, centred_rank: np.ndarray) -> None:
+        self.s_u += u.sum(axis=1)
+        self.s_uu += np.einsum("ij,ij->i", u, u)
+        self.s_ur += u @ centred_rank
+
+
+class MonteCarlo:
+    """A plan prepared for simulation: compiled network, duration, correlation and risk models."""
+
+    def __init__(self, plan, distribution=None, deadline=None):
+        plan.settings.validated()
+        family = check_family(distribution or plan.settings.distribution, "distribution", "settings")
+        self.plan = plan
+        self.calendar = WorkCalendar(plan.settings)
+        self.analyzer = Analyzer.for_plan(plan, self.calendar)
+        self.net = self.analyzer.net
+        ids = self.net.ids
+        self.durations = DurationModel.for_plan(plan, family)
+        self.correlation = CorrelationModel(plan.correlations, ids, self.durations.uncertain)
+        self.risks = RiskModel(plan.risks, ids, family)
+        chosen = plan.settings.deadline if deadline is None else deadline
+        self.deadline = self.calendar.resolve(chosen, finish=True)
+        self.means, self.variances = moments(plan)
+        self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
+
+    def run_block(self, scores, occurrence, delay_scores):
+        """Durations, finish and criticality of one block (activities × iterations)."""
+        d = self.durations.sample(scores[: self.durations.uncertain.size])
+        fired = delay = None
+        if self.risks.size:
+            fired, delay = self.risks.draw(occurrence, delay_scores)
+            self.risks.apply(d, delay)
+        net, an = self.net, self.analyzer
+        offsets = net.link_offsets(d)
+        es = forward(net, offsets, np.broadcast_to(an.floor[:, None], d.shape))
+        ef = es + d
+        finish = ef.max(axis=0) if d.shape[0] else np.zeros(d.shape[1])
+        ref = finish if self.deadline is None else np.full_like(finish, self.deadline)
+        ceiling = np.minimum(ref[None, :], an.fnlt[:, None])
+        ceiling -= d
+        ls = backward(net, offsets, ceiling)
+        ls -= es                                   # total float
+        crit = ls <= (ref - finish + EPS)[None, :]
+        return d, finish, crit, fired, delay
+
+
+def _check_iterations(iterations) -> int:
+    if isinstance(iterations, bool) or not isinstance(iterations, (int, np.integer)) or iterations <= 0:
+        raise PlanError(f"iterations must be a positive whole number, not {iterations!r}", "iterations")
+    return int(iterations)
+
+
+def _chunks(iterations: int, block_size: int):
+    """(first chunk, chunk count, first iteration, last iteration) per block."""
+    total = -(-iterations // CHUNK)
+    per_block = max(1, -(-block_size // CHUNK))
+    for first in range(0, total, per_block):
+        count = min(per_block, total - first)
+        yield first, count, first * CHUNK, min((first + count) * CHUNK, iterations)
+
+
+def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, deadline=None,
+             block_size=None, progress=None, cancel=None, keep_durations: bool = False) -> SimulationResult:
+    """Simulate the plan's finish ``iterations`` times; see the module and docs/simulation.md.
+
+    ``seed`` (int) makes the run reproducible; without one a seed is drawn and recorded.
+    ``block_size`` (iterations per block, rounded up to whole chunks of 64) changes memory
+    use only, never the results. ``progress(done, total)`` is called between blocks, where
+    total counts both passes (2 × iterations); ``cancel()`` returning True raises
+    :class:`SimulationCancelled`. ``keep_durations`` also returns every sampled duration
+    (activities × iterations; for small runs and charts).
+    """
+    iterations = _check_iterations(iterations)
+    if seed is None:
+        seed = int(np.random.SeedSequence().entropy)
+    if isinstance(seed, bool) or not isinstance(seed, (int, np.integer)) or seed < 0:
+        raise PlanError(f"seed must be a non-negative whole number, not {seed!r}", "seed")
+    mc = MonteCarlo(plan, distribution, deadline)
+    n = mc.net.size
+    block = int(block_size) if block_size else default_block_size(n, mc.net.src.size)
+    if block <= 0:
+        raise PlanError(f"block size must be positive, not {block_size!r}", "block_size")
+    stream = ScoreStream(seed, mc.durations.uncertain.size, mc.correlation, mc.risks.size)
+    acc = Accumulators(n, mc.durations.uncertain.size, mc.means, mc.schedule.finish)
+    finish = np.empty(iterations)
+    kept = np.empty((n, iterations)) if keep_durations else None
+    tick = _Ticker(progress, cancel, 2 * iterations)
+    for first, count, lo, hi in _chunks(iterations, block):
+        tick.check()
+        scores, occ, dsc = stream.block(first, count)
+        d, fin, crit, fired, delay = mc.run_block(scores, occ, dsc)
+        finish[lo:hi] = fin[: hi - lo]
+        if kept is not None:
+            kept[:, lo:hi] = d[:, : hi - lo]
+        for c0 in range(0, hi - lo, CHUNK):
+            sl = slice(c0, min(c0 + CHUNK, hi - lo))
+            acc.add_pass1(d[:, sl], crit[:, sl], fin[sl])
+            if fired is not None:
+                mc.risks.record(fired[:, sl].astype(float), delay[:, sl], fin[sl])
+        tick.advance(hi - lo)
+    _sensitivity_pass(mc, stream, acc, finish, block, tick)
+    return SimulationResult.build(mc, seed, finish, acc, block, kept)
+
+
+def _sensitivity_pass(mc, stream, acc, finish, block, tick) -> None:
+    """Regenerate the scores and correlate them with the finish ranks (bounded memory)."""
+    iterations = finish.size
+    rank = rankdata(finish)
+    rank -= rank.mean()
+    acc.var_rank = float(np.mean(rank * rank))
+    for first, count, lo, hi in _chunks(iterations, block):
+        tick.check()
+        scores, _, _ = stream.block(first, count, with_risks=False)
+        for c0 in range(0, hi - lo, CHUNK):
+            c1 = min(c0 + CHUNK, hi - lo)
+            acc.add_pass2(scores[:, c0:c1], rank[lo + c0: lo + c1])
+        tick.advance(hi - lo)
+
+
+class _Ticker:
+    def __init__(self, progress, cancel, total: int):
+        self.progress, self.cancel, self.total, self.done = progress, cancel, total, 0
+
+    def check(self) -> None:
+        if self.cancel is not None and self.cancel():
+            raise SimulationCancelled("the simulation was cancelled")
+
+    def advance(self, k: int) -> None:
+        self.done += k
+        if self.progress is not None:
+            self.progress(self.done, self.total)
