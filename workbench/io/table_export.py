@@ -18,7 +18,7 @@ from workbench.core.calendar import round_offset
 
 from .predecessors import format_number, format_predecessors
 from .xlsx_write import write_xlsx as _write_xlsx
-from .table_rows import GUARDED
+from .row_reader import GUARDED
 
 PLAN_COLUMNS = ("id", "name", "group", "optimistic", "most_likely", "pessimistic", "duration", "distribution",
                 "predecessors", "start_no_earlier", "finish_no_later", "notes")

@@ -24,7 +24,7 @@ from .errors import TableImportError
 from .predecessors import format_predecessors, parse_predecessors
 from .table_columns import LOOKUP, map_header, normalise
 from .table_export import table_rows, write_csv, write_xlsx
-from .table_rows import build_plan, rows_to_plan
+from .row_reader import build_plan, rows_to_plan
 from .xlsx_safe import read_xlsx
 
 __all__ = ["ImportReport", "TableImportError", "export_table", "format_predecessors", "load_any",
