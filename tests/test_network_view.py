@@ -215,3 +215,22 @@ def test_empty_plan_says_so_then_draws_when_a_plan_arrives(qtbot):
     session.load(small_plan())
     assert v.message.isHidden()
     assert [n.id for n in v.layout_result.nodes] == ["A", "B", "C", "D"]
+
+
+def test_ctrl_click_adds_and_removes(view, qtbot):
+    zoom_to(view, "B")
+    port = view.graphics.viewport()
+    QTest.mouseClick(port, Qt.LeftButton, pos=node_point(view, "B"))
+    QTest.mouseClick(port, Qt.LeftButton, Qt.ControlModifier, pos=node_point(view, "C"))
+    assert view.session.selected() == ["B", "C"]
+    QTest.mouseClick(port, Qt.LeftButton, Qt.ControlModifier, pos=node_point(view, "B"))
+    assert view.session.selected() == ["C"]
+
+
+def test_hover_tip_names_dates_and_float(view, qtbot):
+    zoom_to(view, "C")
+    QTest.mouseMove(view.graphics.viewport(), node_point(view, "C"))
+    qtbot.waitUntil(lambda: view.graphics.toolTip() != "", timeout=2000)
+    tip = view.graphics.toolTip()
+    assert tip.startswith("C  Order lamps")
+    assert "total float 3" in tip and "critical" not in tip

@@ -54,3 +54,22 @@ def find_nodes(plan, text: str) -> list[str]:
     seen = set(exact) | set(prefix)
     named = [a.id for a in acts if needle in a.name.casefold() and a.id not in seen]
     return exact + prefix + named
+
+
+def node_tooltip(plan, analysis, row: int) -> str:
+    """A few lines about one activity for a hover tip: name, dates and floats."""
+    act = plan.activities[row]
+    lines = [f"{act.id}  {act.name}".rstrip()]
+    if act.group:
+        lines.append(f"group {act.group}")
+    if analysis is None:
+        return "\n".join(lines + [f"te {number(act.mean)} (not scheduled)"])
+    s, dates = analysis.schedule, analysis.dates()
+    day = {k: str(v[row]) for k, v in dates.items()}
+    lines += [f"te {number(act.mean)}   \u03c3 {number(act.variance ** 0.5)}",
+              f"early {day['early_start']} \u2192 {day['early_finish']}",
+              f"late  {day['late_start']} \u2192 {day['late_finish']}",
+              f"total float {number(s.total_float[row])}   free float {number(s.free_float[row])}"]
+    if s.critical[row]:
+        lines.append("on the critical path")
+    return "\n".join(lines)

@@ -11,10 +11,10 @@ MARGIN = 60.0
 
 
 class NetworkItem(pg.GraphicsObject):
-    """All nodes, links and bands of a layout in one item; emits ``node_clicked(row)``
-    (−1 for empty space) and ``hovered(row)``."""
+    """All nodes, links and bands of a layout in one item; emits ``node_clicked(row,
+    adding)`` (row −1 for empty space; adding with Ctrl or Shift) and ``hovered(row)``."""
 
-    node_clicked = Signal(int)
+    node_clicked = Signal(int, bool)      # row (−1: empty space), add to the selection
     hovered = Signal(int)
 
     def __init__(self):
@@ -63,7 +63,8 @@ class NetworkItem(pg.GraphicsObject):
         if ev.button() != Qt.LeftButton:
             return
         ev.accept()
-        self.node_clicked.emit(self._row_at(ev.pos()))
+        adding = bool(ev.modifiers() & (Qt.ControlModifier | Qt.ShiftModifier))
+        self.node_clicked.emit(self._row_at(ev.pos()), adding)
 
     def _row_at(self, pos) -> int:
         layout = self.painter.layout

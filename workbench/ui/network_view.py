@@ -15,7 +15,7 @@ from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLin
 
 from workbench.core.errors import PlanError
 from workbench.figures import network_style as ns
-from workbench.figures.network_labels import find_nodes, node_texts
+from workbench.figures.network_labels import find_nodes, node_texts, node_tooltip
 from workbench.figures.network_layout import LayoutOptions, layout_plan
 from workbench.figures.network_nav import step
 
@@ -68,6 +68,7 @@ class NetworkView(QWidget):
         self.item = NetworkItem()
         self.viewbox.addItem(self.item)
         self.item.node_clicked.connect(self._clicked)
+        self.item.hovered.connect(self._hovered)
         for key, direction in ((Qt.Key_Left, "left"), (Qt.Key_Right, "right"), (Qt.Key_Up, "up"), (Qt.Key_Down, "down")):
             shortcut = QShortcut(QKeySequence(key), self.graphics, context=Qt.WidgetWithChildrenShortcut)
             shortcut.activated.connect(lambda d=direction: self.move_selection(d))
@@ -118,10 +119,24 @@ class NetworkView(QWidget):
         self.viewbox.autoRange(padding=0.02)
 
     # --- selection, hover, find -------------------------------------------
-    def _clicked(self, row: int) -> None:
+    def _clicked(self, row: int, adding: bool = False) -> None:
+        """Click selects one node; Ctrl/Shift-click adds or removes it; empty space clears."""
         if self.layout_result is None:
             return
-        self.session.select([] if row < 0 else [self.layout_result.nodes[row].id])
+        if row < 0:
+            self.session.select([] if not adding else self.session.selected())
+            return
+        act_id = self.layout_result.nodes[row].id
+        if not adding:
+            self.session.select([act_id])
+            return
+        chosen = self.session.selected()
+        self.session.select([i for i in chosen if i != act_id] if act_id in chosen else chosen + [act_id])
+
+    def _hovered(self, row: int) -> None:
+        plan = self.session.plan
+        tip = node_tooltip(plan, self.session.analysis, row) if 0 <= row < len(plan) else ""
+        self.graphics.setToolTip(tip)
 
     def _mark_selection(self, ids) -> set[int]:
         rows = {self.layout_result.index_of(i) for i in ids} - {-1}
