@@ -281,3 +281,24 @@ def test_recent_files_menu_lists_and_opens(window, ui_env, tmp_path):
     assert [a.text() for a in entries] == ["two.slw", "one.slw"]
     entries[1].trigger()
     assert window.session.plan.settings.title == "one.slw"
+
+
+def test_predecessor_picker_editors_and_exact_lags(window, qtbot):
+    from PySide6.QtWidgets import QStyleOptionViewItem
+    from workbench.core.commands import SetPredecessors
+    from workbench.core.model import Link
+    from workbench.ui.predecessor_dialog import PredecessorDialog
+    window.session.push(SetPredecessors("F", [Link("W", "F", "SS", 1 / 3)]))
+    dialog = PredecessorDialog(window.session.plan, "F")
+    qtbot.addWidget(dialog)
+    assert [(l.pred, l.type, l.lag) for l in dialog.links()] == [("W", "SS", 1 / 3)]  # untouched: exact
+    row = [a.id for a in dialog.candidates].index("D")
+    dialog.table.item(row, 0).setCheckState(Qt.CheckState.Checked)
+    for col, set_value in ((2, lambda e: e.setCurrentIndex(2)), (3, lambda e: e.setValue(-1.5))):
+        index = dialog.table.model().index(row, col)
+        delegate = dialog.table.itemDelegateForColumn(col)
+        editor = delegate.createEditor(dialog.table, QStyleOptionViewItem(), index)
+        delegate.setEditorData(editor, index)
+        set_value(editor)
+        delegate.setModelData(editor, dialog.table.model(), index)
+    assert ("D", "FF", -1.5) in [(l.pred, l.type, l.lag) for l in dialog.links()]

@@ -1,10 +1,9 @@
-"""The predecessor cell syntax (``A; B SS 2; C FF -1``), read and written by io."""
+"""The predecessor cell syntax (``A; B SS 2; C FF -1``), read and written by io; lags
+written so that they read back exactly."""
 
 from __future__ import annotations
 
-try:  # the tabular module re-exports these once it lands
-    from workbench.io.tabular import format_predecessors, parse_predecessors
-except ImportError:  # pragma: no cover - depends on what has landed in io
-    from workbench.io.predecessors import format_predecessors, parse_predecessors
+from workbench.io.predecessors import format_number
+from workbench.io.tabular import format_predecessors, parse_predecessors
 
-__all__ = ["format_predecessors", "parse_predecessors"]
+__all__ = ["format_number", "format_predecessors", "parse_predecessors"]

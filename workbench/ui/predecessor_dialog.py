@@ -4,9 +4,11 @@ from __future__ import annotations
 
 from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QComboBox, QDialog, QDialogButtonBox, QDoubleSpinBox, QHeaderView,
-                               QLabel, QLineEdit, QTableWidget, QTableWidgetItem, QVBoxLayout)
+                               QLabel, QLineEdit, QStyledItemDelegate, QTableWidget, QTableWidgetItem,
+                               QVBoxLayout)
 
 from workbench.core.model import LINK_TYPES, Link, Plan
+from workbench.ui.links_text import format_number
 
 TYPE_TEXT = {"FS": "FS  finish → start", "SS": "SS  start → start",
              "FF": "FF  finish → finish", "SF": "SF  start → finish"}
@@ -43,27 +45,20 @@ class PredecessorDialog(QDialog):
         table.setHorizontalHeaderLabels(["ID", "Activity", "Link", "Lag"])
         table.verticalHeader().hide()
         table.horizontalHeader().setSectionResizeMode(1, QHeaderView.ResizeMode.Stretch)
+        table.setItemDelegateForColumn(2, _LinkEditor(table))
+        table.setItemDelegateForColumn(3, _LagEditor(table))
+        fixed = Qt.ItemFlag.ItemIsEnabled
         for row, act in enumerate(self.candidates):
             link = current.get(act.id)
             item = QTableWidgetItem(act.id)
-            item.setFlags(Qt.ItemFlag.ItemIsEnabled | Qt.ItemFlag.ItemIsUserCheckable)
+            item.setFlags(fixed | Qt.ItemFlag.ItemIsUserCheckable)
             item.setCheckState(Qt.CheckState.Checked if link else Qt.CheckState.Unchecked)
             table.setItem(row, 0, item)
             name = QTableWidgetItem(act.name)
-            name.setFlags(Qt.ItemFlag.ItemIsEnabled)
+            name.setFlags(fixed)
             table.setItem(row, 1, name)
-            kind = QComboBox(table)
-            kind.setAccessibleName(f"Link type from {act.id}")
-            for t in LINK_TYPES:
-                kind.addItem(TYPE_TEXT[t], t)
-            kind.setCurrentIndex(LINK_TYPES.index(link.type) if link else 0)
-            table.setCellWidget(row, 2, kind)
-            lag = QDoubleSpinBox(table)
-            lag.setAccessibleName(f"Lag after {act.id}")
-            lag.setRange(-9999, 9999)
-            lag.setDecimals(1)
-            lag.setValue(link.lag if link else 0.0)
-            table.setCellWidget(row, 3, lag)
+            table.setItem(row, 2, QTableWidgetItem(link.type if link else "FS"))
+            table.setItem(row, 3, QTableWidgetItem(format_number(link.lag if link else 0.0)))
         return table
 
     def _filter(self, text: str) -> None:
@@ -75,13 +70,56 @@ class PredecessorDialog(QDialog):
     def set_checked(self, act_id: str, on: bool = True, kind: str = "FS", lag: float = 0.0) -> None:
         row = [a.id for a in self.candidates].index(act_id)
         self.table.item(row, 0).setCheckState(Qt.CheckState.Checked if on else Qt.CheckState.Unchecked)
-        self.table.cellWidget(row, 2).setCurrentIndex(LINK_TYPES.index(kind))
-        self.table.cellWidget(row, 3).setValue(lag)
+        self.table.item(row, 2).setText(kind)
+        self.table.item(row, 3).setText(format_number(lag))
 
     def links(self) -> list[Link]:
         out = []
         for row, act in enumerate(self.candidates):
             if self.table.item(row, 0).checkState() == Qt.CheckState.Checked:
-                kind = self.table.cellWidget(row, 2).currentData()
-                out.append(Link(act.id, self.act_id, kind, float(self.table.cellWidget(row, 3).value())))
+                kind = self.table.item(row, 2).text().strip().upper()
+                kind = kind if kind in LINK_TYPES else "FS"
+                try:
+                    lag = float(self.table.item(row, 3).text().replace(",", "."))
+                except ValueError:
+                    lag = 0.0
+                out.append(Link(act.id, self.act_id, kind, lag))
         return out
+
+
+class _LinkEditor(QStyledItemDelegate):
+    """Edits a link type cell with a list of the four types."""
+
+    def createEditor(self, parent, option, index):
+        box = QComboBox(parent)
+        box.setAccessibleName("Link type")
+        for t in LINK_TYPES:
+            box.addItem(TYPE_TEXT[t], t)
+        return box
+
+    def setEditorData(self, editor, index):
+        text = str(index.data() or "FS")
+        editor.setCurrentIndex(LINK_TYPES.index(text) if text in LINK_TYPES else 0)
+
+    def setModelData(self, editor, model, index):
+        model.setData(index, editor.currentData())
+
+
+class _LagEditor(QStyledItemDelegate):
+    """Edits a lag cell with a number box (negative lags allowed)."""
+
+    def createEditor(self, parent, option, index):
+        box = QDoubleSpinBox(parent)
+        box.setAccessibleName("Lag")
+        box.setRange(-9999, 9999)
+        box.setDecimals(3)
+        return box
+
+    def setEditorData(self, editor, index):
+        try:
+            editor.setValue(float(index.data() or 0))
+        except ValueError:
+            editor.setValue(0.0)
+
+    def setModelData(self, editor, model, index):
+        model.setData(index, format_number(editor.value()))
