@@ -402,3 +402,21 @@ def test_drag_released_where_it_started_leaves_no_undo_step(view):
     QTest.mouseMove(vp, start)
     QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
     assert view.session.undo_stack.index() == count - 1 and view.item._preview is None
+
+
+def test_dense_spans_merge_per_pixel_row_without_losing_coverage():
+    from workbench.ui.timeline_paint import merge_runs
+    rng = np.random.default_rng(3)
+    x0 = rng.uniform(0, 300, 400)
+    x1 = x0 + rng.uniform(0, 40, 400)
+    y = rng.integers(0, 20, 400).astype(float)
+    a, b, r = merge_runs(x0, x1, y)
+    assert len(a) < len(x0)
+    covered = np.zeros((20, 400), bool)
+    for s, e, row in zip(np.round(x0), np.maximum(np.round(x1), np.round(x0) + 1), y):
+        covered[int(row), int(s):int(e)] = True
+    merged = np.zeros_like(covered)
+    for s, e, row in zip(a, b, r):
+        assert not merged[int(row), int(s):int(e)].any()          # runs never overlap
+        merged[int(row), int(s):int(e)] = True
+    assert (merged == covered).all()

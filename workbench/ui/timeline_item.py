@@ -1,8 +1,9 @@
 """The Timeline's one chart item: every bar, slack line and mark in a few batched calls.
 
 Draws a :class:`~workbench.figures.timeline.TimelineGeometry` in device pixels (so line
-widths and mark sizes stay crisp at any zoom), only the rows on screen, and keeps the
-result in a QPicture until the geometry, the options or the view change.
+widths and mark sizes stay crisp at any zoom), only the rows on screen. Once the view has
+settled the drawing is recorded in a QPicture and replayed until the geometry, the
+options or the view change.
 """
 
 from __future__ import annotations
@@ -19,7 +20,7 @@ from workbench.figures.timeline import TimelineGeometry
 from workbench.ui import timeline_paint as paint
 
 SHADE_DAY_PX = 7.0      # shade non-working days once a working day is this wide
-PICTURE_ROWS = 400      # above this many rows on screen, draw directly instead of recording
+PICTURE_ROWS = 400      # above this many rows on screen, always draw directly
 
 
 class _Pixels:
@@ -82,7 +83,7 @@ class TimelineItem(pg.GraphicsObject):
 
     # --- options (each clears the cached picture) --------------------------
     def _changed(self, geometry: bool = False) -> None:
-        self._picture = None
+        self._picture = self._picture_key = None
         if geometry:
             self.prepareGeometryChange()
             self.informViewBoundsChanged()
@@ -145,15 +146,18 @@ class TimelineItem(pg.GraphicsObject):
         xs = (self._geo.x_range if view is None else (view.left(), view.right()))
         p.save()
         p.resetTransform()
-        if self._visible_rows(rows) > PICTURE_ROWS:
-            # Thousands of rows on screen: a recording would cost more than it saves.
-            self._picture = None
-            self._draw(p, t, rows, xs)
-        else:
-            key = (t.m11(), t.m12(), t.m21(), t.m22(), t.m31(), t.m32(), rows, xs)
-            if self._picture is None or key != self._picture_key:
-                self._picture, self._picture_key = self._record(t, rows, xs), key
+        key = (t.m11(), t.m12(), t.m21(), t.m22(), t.m31(), t.m32(), rows, xs)
+        if self._picture is not None and key == self._picture_key:
             self._picture.play(p)
+        elif key == self._picture_key and self._visible_rows(rows) <= PICTURE_ROWS:
+            # Painted again with nothing changed: worth recording for the repaints to come.
+            self._picture = self._record(t, rows, xs)
+            self._picture.play(p)
+        else:
+            # Something changed (data, zoom, pan): draw straight away, record only once the
+            # view has settled; never with thousands of rows on screen.
+            self._picture, self._picture_key = None, key
+            self._draw(p, t, rows, xs)
         p.restore()
 
     def _visible_rows(self, rows) -> int:

@@ -74,7 +74,21 @@ def lines(p: QPainter, x0, y0, x1, y1) -> None:
 def spans(p: QPainter, px, m, h: float, shift: float = 0.0) -> None:
     """Marks as rectangles [x0, x1] × (row centre + shift ± h/2), in the current pen/brush."""
     x0, x1, y = px.x(m.x0), px.x(m.x1), px.y(m.rows) + shift
+    if px.row_px < 1.0 and x0.size:      # several rows per pixel: merge what overlaps
+        x0, x1, y = merge_runs(x0, x1, y)
     rects(p, x0, y - h / 2, np.maximum(x1 - x0, 0.0), h)
+
+
+def merge_runs(x0, x1, y):
+    """Join spans that land on the same pixel row and overlap or touch (whole pixels)."""
+    x0, x1, y = np.round(x0), np.maximum(np.round(x1), np.round(x0) + 1), np.round(y)
+    order = np.lexsort((x0, y))
+    x0, x1, y = x0[order], x1[order], y[order]
+    base = (y - y.min()) * (x1.max() - x0.min() + 2)   # keeps each pixel row's values apart
+    reach = np.maximum.accumulate(base + x1 - x0.min()) - base + x0.min()
+    start = np.r_[True, (y[1:] != y[:-1]) | (x0[1:] > reach[:-1])]
+    first = np.flatnonzero(start)
+    return x0[first], np.maximum.reduceat(x1, first), y[first]
 
 
 def fill(p: QPainter, colour: str) -> None:
@@ -92,7 +106,7 @@ def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float
     if not len(m):
         return
     if px.row_px < DENSE_ROW_PX:   # too dense for outlines: a one-colour strip per bar
-        fill(p, edge if edge_width > 1.5 * px.scale else fill_colour)
+        fill(p, fill_colour)
         spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
     p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
