@@ -57,3 +57,25 @@ def test_selection_drops_removed_ids(qtbot):
         session.select(["B", "Z", "B"])
     assert sig.args == [["B"]]
     assert session.selected() == ["B"]
+
+
+def test_engine_fault_refuses_the_edit_without_a_traceback(qtbot, monkeypatch):
+    import workbench.ui.session as session_module
+    session = Session(chain_plan())
+
+    def broken(plan):
+        raise FloatingPointError("overflow in the forward pass")
+
+    monkeypatch.setattr(session_module, "analyze", broken)
+    assert not session.push(EditActivity("B", duration=5))
+    assert session.plan.activity("B").duration == 3
+    assert "could not be computed" in session.last_refusal and "overflow" in session.last_refusal
+
+
+def test_unschedulable_plan_still_accepts_edits(qtbot):
+    plan = chain_plan()
+    plan.set_links(plan.links + [Link("C", "A")])  # a loop left in by a script
+    session = Session(plan)
+    assert session.analysis is None and "loop" in session.analysis_error
+    assert session.push(SetPredecessors("A", []))  # the fix is accepted
+    assert session.analysis is not None and session.analysis.schedule.finish == 9

@@ -98,6 +98,8 @@ class Session(QObject):
             result, error = analyze(self.plan), None
         except PlanError as exc:
             result, error = None, str(exc)
+        except Exception as exc:  # an engine fault must not take the window (or the edit) with it
+            result, error = None, f"the schedule could not be computed ({type(exc).__name__}: {exc})"
         return result, error, (time.perf_counter() - t0) * 1000.0
 
     def _set_analysis(self, analysis, error, ms, emit: bool = True) -> None:
