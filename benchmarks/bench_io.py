@@ -2,7 +2,7 @@
 as ratios to json.dumps/json.loads of the same plan data (measured in the same run)."""
 import json, sys, tempfile, time
 from pathlib import Path
-sys.path.insert(0, "/work/main/benchmarks")
+sys.path.insert(0, str(Path(__file__).resolve().parent))
 from random_networks import layered_network, to_plan
 from workbench.core import analyze
 from workbench.io.planfile import save_plan, load_plan, plan_to_dict, plan_hash
