@@ -27,6 +27,9 @@ def test_every_menu_action_triggers(window, ui_env, tmp_path):
             action.trigger()
             triggered += 1
     assert triggered >= 20
+    present = getattr(window, "_present_window", None)
+    if present is not None:  # Present mode opened full screen; leave it again
+        present.close()
     # the unsaved question came up for New Plan (answered Cancel: still the same plan)
     assert ui_env.names()[0] == "ask_unsaved"
     assert "R" in window.session.plan

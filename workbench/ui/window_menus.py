@@ -40,6 +40,16 @@ def import_dialog(window) -> None:
         window.files.open_path(path)
 
 
+def start_present(window) -> None:
+    """Present mode (one chart per screen for a projector), when it is installed."""
+    try:
+        from workbench.ui.present_window import open_present
+    except ImportError:
+        prompts.show_info(window, "Present", "Present mode is not available in this installation.")
+        return
+    open_present(window.session, window)
+
+
 def show_guide(window) -> None:
     guide = Path(__file__).resolve().parents[2] / "docs" / "window.md"
     text = guide.read_text(encoding="utf-8") if guide.exists() else "The window guide is not installed."
@@ -135,6 +145,10 @@ def _view_menu(window, acts: dict) -> None:
     menu.addSeparator()
     acts["reset_layout"] = menu.addAction("Reset &Layout")
     acts["reset_layout"].triggered.connect(window.reset_layout)
+    menu.addSeparator()
+    acts["present"] = _action(window, "&Present", partial(start_present, window), "F5")
+    acts["present"].setToolTip("Show the charts full screen, one per slide, for a projector")
+    menu.addAction(acts["present"])
 
 
 def _tool_bar(window, acts: dict, panel: dict) -> None:
