@@ -295,3 +295,16 @@ def test_network_figures_import_no_qt():
             "print([m for m in sys.modules if m.split('.')[0] in ('PySide6', 'shiboken6', 'pyqtgraph')])")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "[]"
+
+
+def test_wide_fan_gets_wider_gaps_so_links_are_not_steep():
+    # N0 fans out to 30 activities that all feed N31
+    pairs = [(0, k) for k in range(1, 31)] + [(k, 31) for k in range(1, 31)]
+    layout = layout_plan(make_plan(32, pairs))
+    slopes = []
+    for link in layout.links:
+        for (x0, y0), (x1, y1) in zip(link.points, link.points[1:]):
+            if x1 > x0:
+                slopes.append(abs(y1 - y0) / (x1 - x0))
+    assert max(slopes) <= 1 / 0.45 * 1.15
+    assert layout.nodes[1].x - (layout.nodes[0].x + layout.nodes[0].w) > LayoutOptions().column_gap

@@ -24,6 +24,8 @@ from functools import lru_cache
 import numpy as np
 
 from ..core.network import compile_network
+
+STEEPNESS = 0.45   # a column gap at least this share of the rise most of its links make
 from .network_coords import Placer, label_anchor, route_links
 from .network_order import MAX_SWEEPS, LayeredGraph, Sweeper, count_crossings, expand, naive_positions
 
@@ -177,7 +179,7 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
     top = float((y - height / 2).min()) if n else 0.0
     y = y - top
     bands = [GroupBand(b.name, b.x, b.y - top, b.w, b.h) for b in bands]
-    column_x = np.arange(graph.layers + 1) * (o.node_width + o.column_gap)
+    column_x = _column_x(graph, y, o, uniform=es is not None)
     routes = route_links(graph, y, column_x, o.node_width, o.node_height)
     boxes = np.column_stack((column_x[layer], y[:n] - o.node_height / 2,
                              np.full(n, o.node_width), np.full(n, o.node_height)))
@@ -189,6 +191,20 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
              for p, r in zip(arr.tolist(), routes)}
     return Geometry(boxes, layer, table,
                     bands, width, full_h, crossings, count_crossings(graph, start))
+
+
+def _column_x(graph: LayeredGraph, y: np.ndarray, o: LayoutOptions, uniform: bool) -> np.ndarray:
+    """Left edge of every column. A gap widens where its links travel far up or down, so
+    nine links in ten slope no steeper than 1 : ``1/STEEPNESS`` (at most 10 gaps wide);
+    time-scaled columns keep equal gaps."""
+    gaps = np.full(max(graph.layers, 1), o.column_gap)
+    if not uniform and graph.seg_u.size:
+        lay = graph.layer[graph.seg_u]
+        rise = np.abs(y[graph.seg_v] - y[graph.seg_u])
+        for l in np.unique(lay).tolist():
+            wanted = STEEPNESS * float(np.quantile(rise[lay == l], 0.9))
+            gaps[l] = min(max(o.column_gap, wanted), 10 * o.column_gap)
+    return np.concatenate(([0.0], np.cumsum(o.node_width + gaps)))
 
 
 def _place(graph: LayeredGraph, pos: np.ndarray, height: np.ndarray, o: LayoutOptions) -> np.ndarray:
