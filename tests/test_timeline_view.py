@@ -420,3 +420,21 @@ def test_dense_spans_merge_per_pixel_row_without_losing_coverage():
         assert not merged[int(row), int(s):int(e)].any()          # runs never overlap
         merged[int(row), int(s):int(e)] = True
     assert (merged == covered).all()
+
+
+def test_picture_recorded_once_settled_and_cleared_by_set_methods(view):
+    from workbench.ui.timeline_output import render_image as draw
+    view.item.set_preview(None)               # any set_* clears the recording
+    assert view.item._picture is None
+    draw(view)                                # first paint after a change: drawn directly
+    assert view.item._picture is None
+    draw(view)                                # same view again: now recorded
+    assert view.item._picture is not None
+    view.item.set_preview((0, 0.0, 1.0))
+    assert view.item._picture is None
+    view.item.set_preview(None)
+    draw(view)
+    draw(view)
+    assert view.item._picture is not None
+    view.session.push(EditActivity("D", duration=5))
+    assert view.item._picture is None

@@ -84,8 +84,8 @@ class TimelineItem(pg.GraphicsObject):
     # --- options (each clears the cached picture) --------------------------
     def _changed(self, geometry: bool = False) -> None:
         self._picture = self._picture_key = None
+        self.prepareGeometryChange()
         if geometry:
-            self.prepareGeometryChange()
             self.informViewBoundsChanged()
         self.update()
 
@@ -95,8 +95,10 @@ class TimelineItem(pg.GraphicsObject):
         self._changed(geometry=True)
 
     def set_selection(self, rows) -> None:
-        self._selected_rows = np.asarray(sorted(rows), dtype=np.int64)
-        self._changed()
+        rows = np.asarray(sorted(rows), dtype=np.int64)
+        if not np.array_equal(rows, self._selected_rows):
+            self._selected_rows = rows
+            self._changed()
 
     def selected_rows(self) -> list[int]:
         return self._selected_rows.tolist()
