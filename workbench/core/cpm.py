@@ -134,6 +134,12 @@ def free_float(net: Network, es: np.ndarray, ef: np.ndarray, offsets: np.ndarray
     return _free_float(net, work, entry, np.asarray(ef) - np.asarray(es), float(finish))
 
 
+def _snap(values: np.ndarray) -> np.ndarray:
+    """Floats within rounding noise of zero become exactly zero (no "-0.0" floats)."""
+    values[np.abs(values) <= EPS] = 0.0
+    return values
+
+
 class Analyzer:
     """Compiles a network once and re-runs the passes cheaply for new durations."""
 
@@ -167,8 +173,8 @@ class Analyzer:
         ref = finish if deadline is None else float(deadline)
         kept: list = []
         ls = _backward_work(net, offsets, np.minimum(ref, self.fnlt) - d, kept)[net.rank]
-        tf = ls - es
-        ff = _free_float(net, es_work, kept[0], d, finish)
+        tf = _snap(ls - es)
+        ff = _snap(_free_float(net, es_work, kept[0], d, finish))
         critical = tf <= (ref - finish) + EPS
         sched = Schedule(net, d, es, ef, ls, ls + d, tf, ff, critical, finish,
                          None if deadline is None else float(deadline))
