@@ -152,7 +152,7 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
             sl = slice(c0, min(c0 + CHUNK, hi - lo))
             acc.add_pass1(d[:, sl], crit[:, sl], fin[sl])
             if fired is not None:
-                mc.risks.record(fired[:, sl].astype(float), delay[:, sl], fin[sl])
+                mc.risks.record(fired[:, sl], delay[:, sl], fin[sl])
         tick.advance(hi - lo)
     _sensitivity_pass(mc, stream, acc, finish, block, tick)
     return SimulationResult.build(mc, seed, finish, acc, block, kept)
