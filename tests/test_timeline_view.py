@@ -423,7 +423,13 @@ def test_dense_spans_merge_per_pixel_row_without_losing_coverage():
 
 
 def test_picture_recorded_once_settled_and_cleared_by_set_methods(view):
-    from workbench.ui.timeline_output import render_image as draw
+    from PySide6.QtGui import QImage, QPainter
+    image = QImage(view.plot.size(), QImage.Format.Format_ARGB32_Premultiplied)
+
+    def draw(v):                              # one paint, no event processing in between
+        painter = QPainter(image)
+        v.plot.render(painter)
+        painter.end()
     view.item.set_preview(None)               # any set_* clears the recording
     assert view.item._picture is None
     draw(view)                                # first paint after a change: drawn directly
