@@ -234,3 +234,18 @@ def test_hover_tip_names_dates_and_float(view, qtbot):
     tip = view.graphics.toolTip()
     assert tip.startswith("C  Order lamps")
     assert "total float 3" in tip and "critical" not in tip
+
+
+def test_print_preview_is_landscape_and_paints(view, qtbot, tmp_path):
+    from PySide6.QtGui import QPageLayout
+    from PySide6.QtPrintSupport import QPrinter
+
+    dialog = view.make_print_preview()
+    qtbot.addWidget(dialog)
+    assert dialog.printer().pageLayout().orientation() == QPageLayout.Landscape
+    printer = QPrinter(QPrinter.HighResolution)
+    printer.setOutputFormat(QPrinter.PdfFormat)
+    printer.setOutputFileName(str(tmp_path / "preview.pdf"))
+    printer.setPageOrientation(QPageLayout.Landscape)
+    dialog.paintRequested.emit(printer)
+    assert (tmp_path / "preview.pdf").read_bytes().startswith(b"%PDF")

@@ -206,10 +206,16 @@ class NetworkView(QWidget):
             QMessageBox.warning(self, "Export network", str(exc))
 
     def print_preview(self) -> None:
+        self.make_print_preview().exec()
+
+    def make_print_preview(self):
+        """A print preview (landscape) whose pages come from the one paint routine."""
+        from PySide6.QtGui import QPageLayout
         from PySide6.QtPrintSupport import QPrintPreviewDialog, QPrinter
 
         printer = QPrinter(QPrinter.HighResolution)
-        printer.setPageOrientation(printer.pageLayout().orientation().Landscape)
+        printer.setPageOrientation(QPageLayout.Landscape)
         dialog = QPrintPreviewDialog(printer, self)
+        dialog.setWindowTitle("Print network")
         dialog.paintRequested.connect(lambda pr: print_pages(self.item.painter, pr))
-        dialog.exec()
+        return dialog
