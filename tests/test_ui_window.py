@@ -48,7 +48,7 @@ def test_title_shows_modified_state_and_save_cleans_it(window, ui_env, tmp_path)
     assert "[*]" in window.windowTitle() and not window.isWindowModified()
     window.session.push(EditActivity("R", name="Survey"))
     assert window.isWindowModified()
-    assert window.save_label.text() == "Unsaved new plan"
+    assert window.save_label.text() == "Not saved to a file yet"
     assert window.files.save()
     assert not window.isWindowModified()
     assert window.windowTitle().startswith("refit.slw[*]")

@@ -165,10 +165,12 @@ class MainWindow(QMainWindow):
         self.setWindowTitle(f"{name}[*]{ro} — Slackline")
         modified = self.files.modified
         self.setWindowModified(modified)
-        where = self.files.path or "not saved to a file yet"
-        self.save_label.setText(("Unsaved changes" if modified else "All changes saved") if self.files.path
-                                else ("Unsaved new plan" if modified or len(self.session.plan) else "New plan"))
-        self.save_label.setToolTip(where)
+        if self.files.path:
+            text = "Unsaved changes" if modified else "All changes saved"
+        else:
+            text = "Not saved to a file yet" if modified or len(self.session.plan) else "New plan"
+        self.save_label.setText(text)
+        self.save_label.setToolTip(self.files.path or "Use File → Save As to keep this plan")
 
     # --- layout persistence ------------------------------------------------------
     def save_layout(self) -> None:
