@@ -45,3 +45,11 @@ def test_file_argument_opens_it_then_it_is_the_last_plan(tmp_path):
     assert out["COUNT"].startswith("7 VISIBLE True")
     again = launch(tmp_path)  # no argument: the last plan from the settings
     assert again["TITLE"].startswith("refit.slw")
+
+
+def test_first_run_shows_the_demo_plan(tmp_path):
+    from workbench.ui.app import demo_plan
+    demo = demo_plan()
+    out = launch(tmp_path)
+    assert out["COUNT"].startswith(f"{len(demo)} VISIBLE True")
+    assert out["TITLE"].startswith(demo.settings.title)
