@@ -444,3 +444,16 @@ def test_picture_recorded_once_settled_and_cleared_by_set_methods(view):
     assert view.item._picture is not None
     view.session.push(EditActivity("D", duration=5))
     assert view.item._picture is None
+
+
+def test_escape_cancels_a_drag(view):
+    _, row, es, ef = bar(view, "C")
+    start = to_px(view, ef, row)
+    vp = view.plot.viewport()
+    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
+    for k in range(1, 4):
+        QTest.mouseMove(vp, start + QPoint(30 * k, 0))
+    assert view.item._preview is not None
+    QTest.keyClick(view.plot, Qt.Key.Key_Escape)
+    QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start + QPoint(90, 0))
+    assert view.item._preview is None and view.session.undo_stack.count() == 0

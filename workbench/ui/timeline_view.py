@@ -285,6 +285,11 @@ class TimelineView(QWidget):
             self.duration_dragged.emit(act_id, float(value))
         return True
 
+    def cancel_drag(self) -> None:
+        """Forget a duration drag in progress (Escape): the plan stays as it was."""
+        self._drag = None
+        self.item.set_preview(None)
+
     def _drag_start(self, pos) -> bool:
         geo = self.geometry
         row = None if geo is None else geo.row_at(pos.y())
@@ -343,7 +348,7 @@ class TimelineView(QWidget):
                    K.Key_Minus: lambda: self.zoom(0.8), K.Key_Left: lambda: self.pan(-0.1),
                    K.Key_Right: lambda: self.pan(0.1), K.Key_Up: lambda: self.pan(dy_rows=-3),
                    K.Key_Down: lambda: self.pan(dy_rows=3), K.Key_Home: self.fit_all,
-                   K.Key_0: self.fit_all}
+                   K.Key_0: self.fit_all, K.Key_Escape: self.cancel_drag}
         if key in actions:
             actions[key]()
             return True
