@@ -176,3 +176,26 @@ def test_headline_names_the_deadline():
     day = fo.format_date(cal.finish_date(10.0))
     assert fo.question_headline(fo.Question("by", 10.0), cal, 10.0) == f"Finish by the deadline, {day}?"
     assert fo.question_headline(fo.Question("by", 10.0), cal, 12.0) == f"Finish by {day}?"
+
+
+def test_geometry_agrees_with_a_real_simulation():
+    from workbench.core.analysis import analyze
+    from workbench.core.montecarlo import simulate
+    from test_odds_view import house_plan
+
+    plan = house_plan()
+    odds = analyze(plan).pert
+    result = simulate(plan, 4000, seed=21)
+    q = fo.Question("by", 47.0)
+    assert fo.sim_probability(result, q) == pytest.approx(result.prob_by(47.0)[0], abs=1e-12)
+    fig = fo.sim_figure(result)
+    assert fig.markers["P90"] == result.percentile(90) and fig.seed == 21
+    assert float(np.sum(fig.heights * np.diff(fig.edges))) == pytest.approx(1.0)
+    # merge bias on the published network (reference R1): later mean, lower P(T <= 47)
+    rows = fo.comparison_rows(odds, result, q)
+    assert rows[0].sim > rows[0].pert and rows[-1].sim < rows[-1].pert
+    lo, hi = fo.Question("between", 42.0, 47.0).bounds()
+    between = fo.sim_probability(result, fo.Question("between", lo, hi))
+    assert between == pytest.approx(result.prob_between(lo, hi), abs=1e-12)
+    after = fo.sim_probability(result, fo.Question("after", 44.0))
+    assert after == pytest.approx(1.0 - result.prob_by(44.0)[0], abs=1e-12)

@@ -18,6 +18,7 @@ from scipy.stats import norm
 MODES = ("by", "after", "between")
 PRESETS = (0.8, 0.9)
 MARKERS = ("P50", "P80", "P90")
+TOLERANCE = 1e-9  # a finish within this of a date counts as by that date (sums of sixths)
 CAUTION = (
     "Caution: these odds are only as good as the three-point estimates, which are "
     "judgement. PERT assumes one path decides the finish and that durations are "
@@ -70,7 +71,7 @@ def sim_probability(result, question: Question) -> float:
     """The simulation's answer: the share of iterations finishing in the question's range."""
     finish = np.asarray(result.finish, dtype=float)
     lo, hi = question.validated().bounds()
-    inside = (finish > lo) & (finish <= hi)
+    inside = (finish > lo + TOLERANCE) & (finish <= hi + TOLERANCE)  # as SimulationResult.prob_by
     return float(np.count_nonzero(inside)) / max(1, finish.size)
 
 

@@ -1,0 +1,80 @@
+"""Drivers view: placeholder, ranked bars from a real simulation, click selects, stale."""
+
+import pytest
+import pyqtgraph as pg
+from PySide6.QtCore import QPointF, Qt
+
+from workbench.core.commands import EditActivity
+from workbench.core.montecarlo import simulate
+from workbench.figures import drivers as fdr
+from workbench.ui.drivers_view import DriversView
+from workbench.ui.session import Session
+
+from test_odds_view import house_plan
+
+
+@pytest.fixture
+def drivers(qtbot):
+    session = Session(house_plan())
+    v = DriversView(session)
+    qtbot.addWidget(v)
+    v.resize(1400, 800)
+    v.show()
+    qtbot.waitExposed(v)
+    return v
+
+
+def test_placeholder_until_a_simulation_exists(drivers):
+    assert drivers.stack.currentWidget() is drivers.placeholder
+    assert "Run a simulation in the Odds view" in drivers.placeholder.text()
+
+
+def test_bars_follow_the_simulation_top_n_in_order(drivers):
+    session = drivers.session
+    result = simulate(session.plan, 3000, seed=4)
+    drivers.top.setValue(5)
+    session.set_simulation(result)
+    bars = drivers.criticality.bars
+    assert len(bars) == 6 and bars[-1].is_folded and bars[-1].label == "9 others"
+    values = [b.value for b in bars[:5]]
+    assert values == sorted(values, reverse=True)
+    # the published critical path A-B-C-E-F-J-L-N is critical in most iterations
+    assert set(b.act_id for b in bars[:5]) <= set("ABCEFJLN")
+    sens = drivers.sensitivity.bars
+    assert [abs(b.value) for b in sens[:5]] == sorted((abs(b.value) for b in sens[:5]), reverse=True)
+    assert sens[0].act_id == "C"  # the widest estimate on the critical path
+    axis_labels = [t[1] for t in drivers.criticality.getPlotItem().getAxis("left")._tickLevels[0]]
+    assert axis_labels[0].startswith(bars[0].act_id)
+
+
+def _click_row(qtbot, chart, row):
+    rect = chart.rects[row]
+    scene = chart.getPlotItem().vb.mapViewToScene(QPointF((rect.x0 + rect.x1) / 2, rect.y))
+    pos = chart.mapFromScene(scene)
+    qtbot.mouseClick(chart.viewport(), Qt.LeftButton, pos=pos)
+
+
+def test_click_selects_the_activity_everywhere(drivers, qtbot):
+    drivers.session.set_simulation(simulate(drivers.session.plan, 2000, seed=2))
+    chart = drivers.criticality
+    with qtbot.waitSignal(drivers.session.selection_changed) as sig:
+        _click_row(qtbot, chart, 1)
+    assert sig.args == [[chart.bars[1].act_id]]
+    assert chart.selected == {chart.bars[1].act_id}
+    assert drivers.sensitivity.selected == {chart.bars[1].act_id}
+
+
+def test_edit_marks_drivers_stale(drivers):
+    drivers.session.set_simulation(simulate(drivers.session.plan, 1000, seed=3))
+    drivers.session.push(EditActivity("B", most_likely=4.0))
+    assert drivers.stale and "Stale" in drivers.note.text()
+    assert drivers.stack.currentIndex() == 1
+    assert pg.mkBrush(drivers.criticality.graph.opts["brush"]).color().name() == "#a0a0a0"
+
+
+def test_folding_matches_the_geometry(drivers):
+    result = simulate(drivers.session.plan, 1000, seed=5)
+    drivers.top.setValue(4)
+    drivers.session.set_simulation(result)
+    expect = fdr.criticality_bars(result, drivers.session.plan, 4)
+    assert drivers.criticality.bars == expect
