@@ -215,6 +215,7 @@ class NetworkView(QWidget):
 
         printer = QPrinter(QPrinter.HighResolution)
         printer.setPageOrientation(QPageLayout.Landscape)
+        self._printer = printer          # the dialog does not own it: keep it alive
         dialog = QPrintPreviewDialog(printer, self)
         dialog.setWindowTitle("Print network")
         dialog.paintRequested.connect(lambda pr: print_pages(self.item.painter, pr))
