@@ -457,3 +457,21 @@ def test_escape_cancels_a_drag(view):
     QTest.keyClick(view.plot, Qt.Key.Key_Escape)
     QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start + QPoint(90, 0))
     assert view.item._preview is None and view.session.undo_stack.count() == 0
+
+
+def test_print_preview_uses_the_shared_page_routine(view, monkeypatch, tmp_path):
+    from PySide6.QtPrintSupport import QPrintPreviewDialog, QPrinter
+    from pypdf import PdfReader
+    out = tmp_path / "preview.pdf"
+
+    def fake_exec(dialog):                    # what the preview does when it draws a page
+        printer = QPrinter(QPrinter.PrinterMode.HighResolution)
+        printer.setOutputFormat(QPrinter.OutputFormat.PdfFormat)
+        printer.setOutputFileName(str(out))
+        dialog.paintRequested.emit(printer)
+        return 0
+
+    monkeypatch.setattr(QPrintPreviewDialog, "exec", fake_exec)
+    view.print_preview()
+    text = PdfReader(str(out)).pages[0].extract_text()
+    assert "Timeline" in text and "Assemble" in text
