@@ -215,3 +215,15 @@ def test_plan_changes_map_one_to_one_onto_model_signals(session, qtbot):
     session.load(sample_plan())
     assert seen == [("inserted", 2, 2), ("moved", 2, 6), ("removed", 5, 5), ("reset",)]
     assert model.index(2, 0).data() == "D"
+
+
+def test_rename_refreshes_successor_cells(session, qtbot):
+    from workbench.core.commands import EditActivity
+    model = ActivityTableModel(session)
+    pred_col = C.INDEX["predecessors"]
+    changed = []
+    model.dataChanged.connect(lambda tl, br, roles=(): changed.append((tl.row(), br.row(), tl.column(), br.column())))
+    session.push(EditActivity("D", id="D9"))
+    w_row = session.plan.row_of("W")
+    assert any(r0 <= w_row <= r1 and c0 <= pred_col <= c1 for r0, r1, c0, c1 in changed)
+    assert text(model, "W", "predecessors") == "D9"

@@ -79,6 +79,8 @@ class ActivityTableModel(QAbstractTableModel):
             self.beginResetModel() if before else self.endResetModel()
         elif not before and kind == "activity_changed":
             self.dataChanged.emit(self.index(row, 0), self.index(row, self.columnCount() - 1))
+            pred = C.INDEX["predecessors"]  # a rename shows in its successors' cells too
+            self.dataChanged.emit(self.index(0, pred), self.index(self.rowCount() - 1, pred))
         elif not before and kind in ("links_changed", "settings_changed"):
             self._all_changed()
 
