@@ -9,9 +9,10 @@ import pyqtgraph as pg
 from PySide6.QtGui import QFont, QFontMetricsF
 
 from workbench.figures.ticks import date_ticks
+from workbench.ui.timeline_axis_cache import TimelineAxisCache
 
 
-class TimelineDateAxis(pg.AxisItem):
+class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
     def __init__(self, orientation: str = "bottom", **kwargs):
         super().__init__(orientation, **kwargs)
         self._calendar = None
@@ -22,6 +23,9 @@ class TimelineDateAxis(pg.AxisItem):
         self._calendar = calendar
         self.picture = None
         self.update()
+
+    def cache_content(self):
+        return None if self._calendar is None else id(self._calendar)
 
     def _label_px(self) -> float:
         font = self.style.get("tickFont") or QFont()

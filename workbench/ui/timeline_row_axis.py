@@ -12,20 +12,19 @@ import math
 
 import pyqtgraph as pg
 from PySide6.QtCore import QPointF, QRectF, Qt
-from PySide6.QtGui import QFont, QFontMetricsF, QImage, QPainter, QPen
-from PySide6.QtWidgets import QWidget
+from PySide6.QtGui import QFont, QFontMetricsF, QPen
+
+from workbench.ui.timeline_axis_cache import TimelineAxisCache
 
 INDENT = 14.0
 PADDING = 6.0
 
 
-class TimelineRowAxis(pg.AxisItem):
+class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
     def __init__(self, width: float = 300.0, **kwargs):
         super().__init__("left", **kwargs)
         self._geo = None
         self._bold_rows: set[int] = set()
-        self._image: QImage | None = None
-        self._image_key = None
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
@@ -92,27 +91,8 @@ class TimelineRowAxis(pg.AxisItem):
         need = max(metrics.horizontalAdvance(self.label_text(r)) + INDENT * int(self._geo.depth[r]) for r in longest)
         return int(min(limit, need + 2 * PADDING + 2))
 
-    def paint(self, p, opt, widget):
-        """On screen, blit a cached image of the labels (text is the costly part of a
-        repaint); on paper and in SVG, draw the text itself."""
-        if self._geo is None or abs(p.combinedTransform().m11() - 1.0) > 1e-6 or p.device() is None \
-                or not isinstance(p.device(), (QImage, QWidget)):
-            super().paint(p, opt, widget)
-            return
-        rect = self.boundingRect()
-        ratio = p.device().devicePixelRatioF()
-        key = (tuple(self.range), rect.width(), rect.height(), id(self._geo), self.picture is None, ratio)
-        if self._image is None or key != self._image_key:
-            self._image = QImage(int(rect.width() * ratio) + 1, int(rect.height() * ratio) + 1,
-                                 QImage.Format.Format_ARGB32_Premultiplied)
-            self._image.setDevicePixelRatio(ratio)
-            self._image.fill(Qt.GlobalColor.transparent)
-            painter = QPainter(self._image)
-            painter.translate(-rect.topLeft())
-            super().paint(painter, opt, widget)
-            painter.end()
-            self._image_key = (tuple(self.range), rect.width(), rect.height(), id(self._geo), False, ratio)
-        p.drawImage(rect.topLeft(), self._image)
+    def cache_content(self):
+        return None if self._geo is None else id(self._geo)
 
     def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
         """Like the base class, with group rows in bold."""
