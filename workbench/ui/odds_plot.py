@@ -80,7 +80,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         d.addItem(self.certain)
         self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
         self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
-        self.cum_legend = c.addLegend(offset=(10, 45), labelTextSize="10pt", labelTextColor=style.TEXT,
+        self.cum_legend = c.addLegend(offset=(-10, -10), labelTextSize="10pt", labelTextColor=style.TEXT,
                                       brush=pg.mkBrush(255, 255, 255, 220))
         c.addItem(self.pert_cdf)
         c.addItem(self.ecdf)

@@ -32,7 +32,7 @@ class OddsView(QWidget):
         self._generation = 0      # counts plan changes, to spot runs overtaken by edits
         self._run_generation = -1
         self._deadline_seen = object()
-        self._offset_rows, self._answer_dates = [], ("", "")
+        self._offset_rows, self._answer_dates = [], []
         self._build()
         self._connect()
         self.refresh()
@@ -47,7 +47,7 @@ class OddsView(QWidget):
         side = QScrollArea()
         side.setWidget(self.panel)
         side.setWidgetResizable(True)
-        side.setMinimumWidth(470)
+        side.setMinimumWidth(540)
         side.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
         lay = QHBoxLayout(self)
         lay.addWidget(self.plot, 1)
@@ -138,6 +138,7 @@ class OddsView(QWidget):
             self.controls.set_status("Stale: the plan changed since this run (shown in grey). Run again.", True)
         else:
             self.controls.set_status(f"{len(r.finish):,} iterations, seed {getattr(r, 'seed', None)}.")
+            self.controls.set_done(True)
 
     # --- the question ------------------------------------------------------
     def set_mode(self, mode: str) -> None:
@@ -187,7 +188,6 @@ class OddsView(QWidget):
 
     def _marker_labels(self, q: fo.Question) -> tuple[str, str]:
         cal = self.analysis.calendar
-        lo, hi = (q.d1, q.d2) if q.mode != "between" else q.bounds()
         first = {"by": "by ", "after": "after ", "between": "after "}[q.mode]
         texts = [first + fo.format_date(fo.date_of(cal, q.d1))]
         texts.append("by " + fo.format_date(fo.date_of(cal, q.d2)) if q.d2 is not None else "")
@@ -206,25 +206,33 @@ class OddsView(QWidget):
         self.panel.sim_readout.setEnabled(not self.stale)
 
     def _headline(self, q: fo.Question) -> None:
+        """The question and both answers as a small table: readable at a glance."""
         a = self.analysis
-        text = fo.question_headline(q, a.calendar, a.deadline)
-        pert = f"{100 * fo.pert_probability(a.pert, q):.1f} %"
-        sim = self._sim_percent(q)
-        p = round(100 * self.confidence, 1)
-        d_pert, d_sim = self._answer_dates
+        rows = [("Chance", f"{100 * fo.pert_probability(a.pert, q):.1f} %", self._sim_percent(q))]
+        rows += [(f"{p} date", d_pert, d_sim) for p, d_pert, d_sim in self._answer_dates]
+        cells = "".join(f"<tr><td>{r}</td><td>{p}</td><td>{s}</td></tr>" for r, p, s in rows)
         self.panel.headline.setText(
-            f"{text}<br><span style='color:#000'>PERT {pert} &nbsp;·&nbsp; simulation {sim}</span>"
-            f"<br>{p:g} % date: PERT {d_pert} &nbsp;·&nbsp; simulation {d_sim}")
+            f"{fo.question_headline(q, a.calendar, a.deadline)}"
+            "<table cellspacing='0' cellpadding='3' style='font-size:13pt'>"
+            "<tr><td></td><td><u>PERT</u></td><td><u>Simulation</u></td></tr>"
+            f"{cells}</table>")
 
     def _sim_percent(self, q) -> str:
         if self.result is None:
             return "not run"
         return "stale" if self.stale else f"{100 * fo.sim_probability(self.result, q):.1f} %"
 
-    def _sim_date(self, sim_x) -> str:
+    def _dates_at(self, p: float) -> tuple[str, str, str]:
+        """Headline texts for a confidence: (percentage, PERT date, simulation date)."""
+        cal = self.analysis.calendar
+        d_pert = fo.format_date(fo.date_of(cal, fo.pert_offset_at(self.analysis.pert, p)))
         if self.result is None:
-            return "not run"
-        return "stale" if self.stale else fo.format_date(fo.date_of(self.analysis.calendar, sim_x))
+            d_sim = "not run"
+        elif self.stale:
+            d_sim = "stale"
+        else:
+            d_sim = fo.format_date(fo.date_of(cal, fo.sim_offset_at(self.result, p)))
+        return f"{100 * p:g} %", d_pert, d_sim
 
     # --- the inverse question -----------------------------------------------
     def ask_confidence(self, text: str) -> None:
@@ -252,7 +260,7 @@ class OddsView(QWidget):
         labels = (f"PERT {pct}: {fo.format_date(fo.date_of(a.calendar, pert_x))}",
                   f"Simulation {pct}: {fo.format_date(fo.date_of(a.calendar, sim_x))}" if live else "")
         self.plot.set_answers(p, pert_x, sim_x, labels)
-        self._answer_dates = (fo.format_date(fo.date_of(a.calendar, pert_x)), self._sim_date(sim_x))
+        self._answer_dates = [self._dates_at(q) for q in dict.fromkeys((p, 0.9))]
         lines = [f"<b>{pct}</b> — PERT: {labels[0].split(': ', 1)[1]} (offset {pert_x:.2f})"]
         if live:
             lines.append(f"Simulation: {labels[1].split(': ', 1)[1]} (offset {sim_x:.2f})")
