@@ -58,18 +58,13 @@ class Analysis:
     def to_dict(self) -> dict:
         """The JSON contract of ``slackline analyze --json``."""
         s, p = self.schedule, self.pert
-        dates = self.dates()
-        acts = {}
-        for i, act_id in enumerate(s.ids):
-            acts[act_id] = {
-                "es": round_offset(s.es[i]), "ef": round_offset(s.ef[i]),
-                "ls": round_offset(s.ls[i]), "lf": round_offset(s.lf[i]),
-                "total_float": round_offset(s.total_float[i]),
-                "free_float": round_offset(s.free_float[i]),
-                "critical": bool(s.critical[i]),
-                "mean": round_offset(self.means[i]), "variance": round_offset(self.variances[i]),
-                **{k: str(v[i]) for k, v in dates.items()},
-            }
+        columns = {k: _rounded(v) for k, v in (("es", s.es), ("ef", s.ef), ("ls", s.ls), ("lf", s.lf),
+                                                ("total_float", s.total_float), ("free_float", s.free_float))}
+        columns["critical"] = s.critical.tolist()
+        columns["mean"], columns["variance"] = _rounded(self.means), _rounded(self.variances)
+        columns.update({k: np.datetime_as_string(v, unit="D").tolist() for k, v in self.dates().items()})
+        names = list(columns)
+        acts = {act_id: dict(zip(names, row)) for act_id, row in zip(s.ids, zip(*columns.values()))}
         pert = {"mean": round_offset(p.mean), "variance": round_offset(p.variance),
                 "sd": round_offset(p.sd), "path": list(p.path)}
         if p.note:
@@ -92,6 +87,13 @@ class Analysis:
         }
 
 
+def _rounded(values: np.ndarray) -> list[float]:
+    """:func:`round_offset` over an array: binary noise rounded away, no negative zeros."""
+    r = np.round(np.asarray(values, dtype=float), 9)
+    r[r == 0] = 0.0
+    return r.tolist()
+
+
 def _finite(value: float):
     if np.isfinite(value):
         return round_offset(value)
@@ -101,8 +103,14 @@ def _finite(value: float):
 def moments(plan) -> tuple[np.ndarray, np.ndarray]:
     """PERT mean and variance of every activity, in plan order."""
     acts = plan.activities
-    means = np.fromiter((a.mean for a in acts), dtype=float, count=len(acts))
-    variances = np.fromiter((a.variance for a in acts), dtype=float, count=len(acts))
+    n = len(acts)
+    fixed = np.fromiter((a.duration if a.duration is not None else np.nan for a in acts), float, n)
+    three = [np.fromiter((np.nan if getattr(a, k) is None else getattr(a, k) for a in acts), float, n)
+             for k in ("optimistic", "most_likely", "pessimistic")]
+    a, m, b = three
+    has = ~(np.isnan(a) | np.isnan(m) | np.isnan(b))
+    means = np.where(has, (a + 4.0 * m + b) / 6.0, np.nan_to_num(fixed))
+    variances = np.where(has, ((b - a) / 6.0) ** 2, 0.0)
     return means, variances
 
 

@@ -17,6 +17,8 @@ LINK_TYPES = ("FS", "SS", "FF", "SF")
 UNITS = ("days", "weeks")
 DISTRIBUTIONS = ("beta-pert", "triangular", "uniform", "normal", "fixed")
 
+_PLAIN = (float, int)  # number types accepted as they are (bool is not one of them)
+
 Offset = float | dt.date  # a constraint or deadline: plan-unit offset or a calendar date
 
 
@@ -116,6 +118,9 @@ class Link:
     lag: float = 0.0
 
     def validated(self) -> "Link":
+        lag = self.lag
+        if self.type in LINK_TYPES and self.pred != self.succ and type(lag) in _PLAIN and math.isfinite(lag):
+            return self                     # the common case, checked cheaply
         if self.type not in LINK_TYPES:
             raise PlanError(f"link {self.pred} \u2192 {self.succ}: unknown link type {self.type!r} (use FS, SS, FF or SF)", self.succ)
         if self.pred == self.succ:

@@ -13,6 +13,7 @@ recursion. Cycles are reported as the loop in order.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from operator import attrgetter
 
 import numpy as np
 
@@ -228,14 +229,22 @@ def compile_plan(plan) -> Network:
     """Compile a :class:`~workbench.core.model.Plan` (validates unknown ids, self links, cycles)."""
     ids = plan.ids()
     index = {a: i for i, a in enumerate(ids)}
-    src, dst, lag, types = [], [], [], []
-    for link in plan.links:
+    links = plan.links
+    m = len(links)
+    try:
+        src, dst, types = (np.fromiter(map(table.__getitem__, map(attrgetter(name), links)), np.int64, m)
+                           for table, name in ((index, "pred"), (index, "succ"), (TYPE_CODES, "type")))
+    except KeyError:
+        raise _unknown_end(links, index) from None
+    lag = np.fromiter(map(attrgetter("lag"), links), dtype=float, count=m)
+    return compile_network(ids, src, dst, lag, types)
+
+
+def _unknown_end(links, index) -> PlanError:
+    for link in links:
         for end in (link.pred, link.succ):
             if end not in index:
-                raise PlanError(f"link {link.pred} \u2192 {link.succ}: unknown activity {end!r}", end)
-        src.append(index[link.pred])
-        dst.append(index[link.succ])
-        lag.append(float(link.lag))
-        types.append(TYPE_CODES[link.type])
-    return compile_network(ids, np.array(src, dtype=np.int64), np.array(dst, dtype=np.int64),
-                           np.array(lag, dtype=float), np.array(types, dtype=np.int64))
+                return PlanError(f"link {link.pred} \u2192 {link.succ}: unknown activity {end!r}", end)
+        if link.type not in TYPE_CODES:
+            return PlanError(f"link {link.pred} \u2192 {link.succ}: unknown link type {link.type!r}", link.succ)
+    return PlanError("a link is invalid")

@@ -11,7 +11,7 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.stats import norm
+from scipy.special import ndtr, ndtri  # the standard normal CDF and its inverse
 
 
 @dataclass(frozen=True)
@@ -37,13 +37,13 @@ class PertOdds:
         """P(T ≤ duration)."""
         if self.variance <= 0.0:
             return 1.0 if duration >= self.mean - 1e-12 else 0.0
-        return float(norm.cdf(duration, loc=self.mean, scale=self.sd))
+        return float(ndtr((duration - self.mean) / self.sd))
 
     def prob_after(self, duration: float) -> float:
         """P(T > duration)."""
         if self.variance <= 0.0:
             return 1.0 - self.prob_by(duration)
-        return float(norm.sf(duration, loc=self.mean, scale=self.sd))
+        return float(ndtr((self.mean - duration) / self.sd))
 
     def prob_between(self, low: float, high: float) -> float:
         """P(low < T ≤ high); zero when high ≤ low."""
@@ -57,7 +57,7 @@ class PertOdds:
             raise ValueError(f"probability must lie strictly between 0 and 1, not {probability}")
         if self.variance <= 0.0:
             return self.mean
-        return float(norm.ppf(probability, loc=self.mean, scale=self.sd))
+        return float(self.mean + self.sd * ndtri(probability))
 
 
 def pert_odds(schedule, variances) -> PertOdds:
