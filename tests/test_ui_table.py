@@ -227,3 +227,24 @@ def test_rename_refreshes_successor_cells(session, qtbot):
     w_row = session.plan.row_of("W")
     assert any(r0 <= w_row <= r1 and c0 <= pred_col <= c1 for r0, r1, c0, c1 in changed)
     assert text(model, "W", "predecessors") == "D9"
+
+
+def test_typing_into_a_cell_edits_through_the_undo_stack(window, qtbot):
+    from PySide6.QtTest import QTest
+    from PySide6.QtWidgets import QLineEdit
+    window.show()
+    qtbot.waitExposed(window)
+    panel = window.activities
+    source = panel.model.index(window.session.plan.row_of("R"), C.INDEX["name"])
+    index = panel.proxy.mapFromSource(source)
+    panel.table.setCurrentIndex(index)
+    panel.table.edit(index)  # what a double-click or F2 does
+    editors = panel.table.viewport().findChildren(QLineEdit)
+    assert len(editors) == 1 and editors[0].text() == "Survey rooms"
+    editors[0].selectAll()
+    QTest.keyClicks(editors[0], "Measure rooms")
+    QTest.keyClick(editors[0], Qt.Key.Key_Return)
+    qtbot.waitUntil(lambda: window.session.undo_stack.count() == 1)  # the delegate commits queued
+    assert window.session.plan.activity("R").name == "Measure rooms"
+    assert window.session.undo_stack.count() == 1
+    assert window.session.selected() == ["R"]
