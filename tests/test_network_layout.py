@@ -308,3 +308,23 @@ def test_wide_fan_gets_wider_gaps_so_links_are_not_steep():
                 slopes.append(abs(y1 - y0) / (x1 - x0))
     assert max(slopes) <= 1 / 0.45 * 1.15
     assert layout.nodes[1].x - (layout.nodes[0].x + layout.nodes[0].w) > LayoutOptions().column_gap
+
+
+def test_column_dates_head_time_scaled_columns():
+    import datetime as dt
+
+    from workbench.figures.network_labels import column_dates
+
+    acts = [Activity(id="A", duration=5.0), Activity(id="B", duration=2.0), Activity(id="C", duration=1.0)]
+    plan = Plan(Settings(title="t", start=dt.date(2027, 3, 1)), acts, [Link("A", "B"), Link("B", "C")])
+    analysis = analyze(plan)
+    layout = layout_plan(plan, analysis, LayoutOptions(time_scaled=True))
+    heads = column_dates(layout, analysis)
+    # Early starts 0, 5, 7 over 3 logic columns: 4.5 time columns, one every 7/3.5 = 2
+    # working days from Monday 1 March 2027 (Mon–Fri): A in column 0 (1 Mar), B in
+    # column 2 (offset 4 = Fri 5 Mar), C in column 3 (offset 6 = Tue 9 Mar)
+    assert [n.layer for n in layout.nodes] == [0, 2, 3]
+    assert [t for _, t in heads] == ["1 Mar 2027", "5 Mar 2027", "9 Mar 2027"]
+    assert [x for x, _ in heads] == sorted(x for x, _ in heads)
+    assert column_dates(layout, None) == []
+    assert column_dates(layout_plan(plan, analysis), analysis) == []     # logic columns: no dates

@@ -73,3 +73,18 @@ def node_tooltip(plan, analysis, row: int) -> str:
     if s.critical[row]:
         lines.append("on the critical path")
     return "\n".join(lines)
+
+
+def column_dates(layout, analysis) -> list[tuple[float, str]]:
+    """Headings of columns placed by early start: per occupied column, its centre x and
+    the date of its nominal start (columns are early starts binned in equal steps)."""
+    geo = getattr(layout, "geometry", None)
+    if analysis is None or geo is None or geo.column_start is None or not layout.nodes:
+        return []
+    width = layout.nodes[0].w
+    used = sorted({n.layer for n in layout.nodes})
+    out = []
+    for col in used:
+        day = analysis.calendar.start_date(round(geo.column_start[col], 6))
+        out.append((float(geo.column_x[col] + width / 2), f"{day.day} {day:%b %Y}"))
+    return out

@@ -33,7 +33,7 @@ from .network_order import MAX_SWEEPS, LayeredGraph, Sweeper, count_crossings, e
 @dataclass(frozen=True)
 class LayoutOptions:
     node_width: float = 216.0
-    node_height: float = 124.0
+    node_height: float = 132.0
     column_gap: float = 120.0
     row_gap: float = 36.0
     lane: float = 12.0          # height kept free in a column for a link passing through
@@ -90,6 +90,8 @@ class Geometry:
     height: float
     crossings: int
     naive_crossings: int
+    column_x: np.ndarray = field(default_factory=lambda: np.zeros(0))   # left edge per column
+    column_start: tuple | None = None   # time-scaled: nominal start offset per column
 
 
 @dataclass
@@ -135,22 +137,25 @@ def link_label(link_type: str, lag: float) -> str:
     return f"{link_type} {sign}{abs(lag):g}"
 
 
-def _layers(n: int, src: np.ndarray, dst: np.ndarray, es: tuple | None) -> np.ndarray:
+def _layers(n: int, src: np.ndarray, dst: np.ndarray, es: tuple | None) -> tuple[np.ndarray, tuple | None]:
+    """Column of every node; in time-scaled mode also the nominal start offset of each
+    column (early starts binned, then pushed right where the logic needs it)."""
     ids = [str(i) for i in range(n)]
     net = compile_network(ids, src, dst, np.zeros(src.size), np.zeros(src.size, dtype=np.int64))
     level = net.level.astype(np.int64)
     if es is None or not n:
-        return level
+        return level, None
     es_arr = np.asarray(es, dtype=float)
     span = max(float(es_arr.max() - es_arr.min()), 1e-9)
     columns = 1.5 * (int(level.max()) + 1)
-    layer = np.floor((es_arr - es_arr.min()) / span * (columns - 1)).astype(np.int64)
+    step = span / max(columns - 1, 1.0)
+    layer = np.floor((es_arr - es_arr.min()) / step).astype(np.int64)
     for depth in range(1, int(level.max()) + 1):       # push right where the logic needs it
         into = level[dst] == depth
         need = np.zeros(n, dtype=np.int64)
         np.maximum.at(need, dst[into], layer[src[into]] + 1)
         layer = np.maximum(layer, need)
-    return layer
+    return layer, tuple(float(es_arr.min()) + step * np.arange(int(layer.max()) + 1))
 
 
 def _band_ranks(groups: tuple | None, n: int) -> tuple[np.ndarray, list[str]]:
@@ -167,7 +172,7 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
     """Layout of ``n`` nodes and the (pred row, succ row) pairs; cached by its arguments."""
     arr = np.array(pairs, dtype=np.int64).reshape(-1, 2)
     src, dst = arr[:, 0], arr[:, 1]
-    layer = _layers(n, src, dst, es)
+    layer, starts = _layers(n, src, dst, es)
     band, names = _band_ranks(groups, n)
     graph = expand(layer, src, dst, band)
     start = naive_positions(graph, src)
@@ -189,8 +194,8 @@ def structure_geometry(n: int, pairs: tuple[tuple[int, int], ...], groups: tuple
     reach = o.column_gap * 0.45
     table = {(int(p[0]), int(p[1])): (tuple(map(tuple, r.tolist())), label_anchor(r, reach))
              for p, r in zip(arr.tolist(), routes)}
-    return Geometry(boxes, layer, table,
-                    bands, width, full_h, crossings, count_crossings(graph, start))
+    return Geometry(boxes, layer, table, bands, width, full_h, crossings,
+                    count_crossings(graph, start), column_x[:graph.layers], starts)
 
 
 def _column_x(graph: LayeredGraph, y: np.ndarray, o: LayoutOptions, uniform: bool) -> np.ndarray:

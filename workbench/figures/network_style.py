@@ -33,7 +33,7 @@ BAND_TEXT = "#6B6B6B"
 
 @dataclass(frozen=True)
 class Weights:
-    """Line widths and fonts in layout units (a node is 216 × 124 by default)."""
+    """Line widths and fonts in layout units (a node is 216 × 132 by default)."""
 
     node_edge: float = 1.2
     critical_edge: float = 4.0
@@ -58,15 +58,15 @@ PRESENT = Weights(node_edge=2.4, critical_edge=7.0, link=2.6, critical_link=6.5,
                   label_font=16.0, band_font=30.0, compact_id_font=34.0, compact_name_font=26.0)
 
 # Node parts as fractions (x0, y0, x1, y1) of the box.
-HEADER = (0.0, 0.0, 1.0, 0.21)
-NAME = (0.04, 0.23, 0.96, 0.49)
-CAPTIONS = (0.0, 0.49, 1.0, 0.60)
-EARLY = (0.0, 0.60, 1.0, 0.77)
-LATE = (0.0, 0.77, 1.0, 0.94)
+HEADER = (0.0, 0.0, 1.0, 0.20)
+NAME = (0.04, 0.215, 0.96, 0.495)
+CAPTIONS = (0.0, 0.505, 1.0, 0.61)
+EARLY = (0.0, 0.61, 1.0, 0.78)
+LATE = (0.0, 0.78, 1.0, 0.95)
 COMPACT_HEADER = (0.0, 0.0, 1.0, 0.34)
 COMPACT_NAME = (0.04, 0.38, 0.96, 0.96)
 GRID_COLUMNS = (0.04, 0.27, 0.51, 0.75, 0.96)   # edges: label | start | finish | float
-GRID_TOP = 0.51
+GRID_TOP = 0.52
 
 
 def part(box: tuple[float, float, float, float], frac: tuple[float, float, float, float]):

@@ -27,8 +27,9 @@ class NetworkItem(pg.GraphicsObject):
         self.prepareGeometryChange()
         self.painter.set_content(layout, texts)
         left = min([b.x for b in layout.bands], default=0.0)
-        self._bounds = QRectF(left - MARGIN, -MARGIN, layout.width - 2 * left + 2 * MARGIN,
-                              layout.height + 2 * MARGIN)
+        top = MARGIN + (60.0 if self.painter.column_labels else 0.0)
+        self._bounds = QRectF(left - MARGIN, -top, layout.width - 2 * left + 2 * MARGIN,
+                              layout.height + top + MARGIN)
         self.update()
 
     def set_selected(self, rows) -> None:

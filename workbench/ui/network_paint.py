@@ -53,6 +53,7 @@ class NetworkPainter:
         self.related: set[int] = set()
         self.hover_links: set[int] = set()
         self.bands_visible = True
+        self.column_labels: list[tuple[float, str]] = []   # (centre x, text) above the columns
         self.weights = ns.WEIGHTS
         self.min_critical_px = 2.5
         self._rects: list[QRectF] = []
@@ -154,12 +155,29 @@ class NetworkPainter:
         if self.bands_visible:
             self._paint_bands(p, visible, scale)
         self._paint_links(p, visible, scale)
+        if self.column_labels:
+            self._paint_column_labels(p, scale)
         rows = self._visible_nodes(visible)
         self._paint_halos(p, rows, scale)
         if node_px < TINY_PX:
             self._paint_tiny(p, rows, scale)
         else:
             self._paint_nodes(p, rows, scale, node_px >= COMPACT_PX)
+
+    def _paint_column_labels(self, p: QPainter, scale: float) -> None:
+        """Column headings, skipping any that would run into the one before."""
+        size = min(40.0, max(self.weights.label_font, 9.0 / scale))
+        f = font(size, bold=True)
+        metrics = QFontMetricsF(f)
+        p.setPen(colour(ns.MUTED))
+        p.setFont(f)
+        free_from = -float("inf")
+        for centre, text in self.column_labels:
+            half = metrics.horizontalAdvance(text) / 2 + size * 0.6
+            if centre - half < free_from:
+                continue
+            p.drawText(QRectF(centre - half, -1.6 * size - 8, 2 * half, 1.5 * size), Qt.AlignCenter, text)
+            free_from = centre + half
 
     def _visible_nodes(self, v: QRectF) -> np.ndarray:
         b = self.layout.boxes

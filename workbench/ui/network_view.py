@@ -15,7 +15,7 @@ from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLin
 
 from workbench.core.errors import PlanError
 from workbench.figures import network_style as ns
-from workbench.figures.network_labels import find_nodes, node_texts, node_tooltip
+from workbench.figures.network_labels import column_dates, find_nodes, node_texts, node_tooltip
 from workbench.figures.network_layout import LayoutOptions, layout_plan
 from workbench.figures.network_nav import step
 
@@ -89,6 +89,7 @@ class NetworkView(QWidget):
             return
         first = self.layout_result is None or not self.layout_result.nodes
         self.layout_result = result
+        self.item.painter.column_labels = column_dates(result, analysis) if self.options.time_scaled else []
         self.item.set_content(result, node_texts(plan, analysis))
         self._mark_selection(self.session.selected())
         note = getattr(self.session, "analysis_error", None) if analysis is None else None
