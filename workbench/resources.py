@@ -1,0 +1,17 @@
+"""Where the bundled resources live (the source tree, an installed copy or a frozen build)."""
+
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+
+
+def resources_dir() -> Path:
+    frozen = getattr(sys, "_MEIPASS", None)
+    if frozen:
+        return Path(frozen) / "resources"
+    return Path(__file__).resolve().parent.parent / "resources"
+
+
+def demo_path() -> Path:
+    return resources_dir() / "demo.slw"
