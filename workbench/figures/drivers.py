@@ -96,10 +96,10 @@ def bar_rects(bars: list[DriverBar]) -> list[BarRect]:
 def value_span(bars: list[DriverBar], signed: bool) -> tuple[float, float]:
     """The x range to show: [0, 1] for an index, symmetric [−m, m] for a tornado."""
     if not signed:
-        return 0.0, 1.0
+        return 0.0, 1.18
     m = max((abs(b.value) for b in bars), default=0.0)
     m = max(m, 0.05)
-    return -1.1 * m, 1.1 * m
+    return -1.3 * m, 1.3 * m  # room for the value printed beyond the longest bar
 
 
 def row_at(bars: list[DriverBar], y: float) -> int | None:

@@ -57,13 +57,13 @@ class DriversChart(pg.PlotWidget):
         self._draw_labels()
         lo, hi = fdr.value_span(bars, self.signed)
         item = self.getPlotItem()
-        item.setXRange(lo, hi * (1.18 if not self.signed else 1.0), padding=0.0)
+        item.setXRange(lo, hi, padding=0.0)
         item.setYRange(-max(1, len(bars)) + 0.4, 0.6, padding=0.02)
-        ticks = [(r.y, r.bar.label) for r in self.rects]
+        ticks = [(r.y, _elide(r.bar.label)) for r in self.rects]
         left = item.getAxis("left")
         left.setTicks([ticks, []])
         metrics = QFontMetrics(self._font)
-        left.setWidth(min(360, 24 + max((metrics.horizontalAdvance(t) for _, t in ticks), default=40)))
+        left.setWidth(24 + max((metrics.horizontalAdvance(t) for _, t in ticks), default=40))
 
     def _split(self, folded: bool):
         rs = [r for r in self.rects if r.bar.is_folded == folded]
@@ -93,7 +93,10 @@ class DriversChart(pg.PlotWidget):
         colour = STALE if self.stale else style.TEXT
         for r in self.rects:
             value = r.bar.value
-            text = pg.TextItem(f"{value:+.2f}" if self.signed else f"{value:.2f}", color=colour,
+            shown = f"{value:+.2f}" if self.signed else f"{value:.2f}"
+            if r.bar.is_folded:  # the folded row carries the largest value among the rest
+                shown = f"each ≤ {abs(value):.2f}" if not self.signed else f"each |r| ≤ {abs(value):.2f}"
+            text = pg.TextItem(shown, color=colour,
                                anchor=(0.0, 0.5) if value >= 0 else (1.0, 0.5))
             text.setPos(r.x1 if value >= 0 else r.x0, r.y)
             item.addItem(text)
@@ -107,3 +110,8 @@ class DriversChart(pg.PlotWidget):
         row = self.row_at_scene(event.scenePos())
         if row is not None and not self.bars[row].is_folded:
             self.activity_clicked.emit(self.bars[row].act_id)
+
+
+def _elide(label: str, most: int = 42) -> str:
+    """Long activity names shortened so the axis never drops a label for lack of room."""
+    return label if len(label) <= most else label[: most - 1].rstrip() + "…"
