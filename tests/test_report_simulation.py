@@ -10,11 +10,11 @@ import pytest
 from pypdf import PdfReader
 
 from test_report_plans import footbridge_plan
+from workbench.core import montecarlo
 from workbench.figures.drivers import sensitivity_bars
 from workbench.figures.odds import format_probability
 from workbench.reports.pack import build_pack
 
-montecarlo = pytest.importorskip("workbench.core.montecarlo")
 
 WHEN = dt.datetime(2027, 2, 23, 9, 30, tzinfo=dt.timezone.utc)
 ITERATIONS = 2000
