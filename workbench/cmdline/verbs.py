@@ -139,11 +139,18 @@ def render_simulation(plan, data: dict) -> str:
             out.append(f"{key:<14} {dates.get(key, '')}  ({num(data['percentiles'][key])} {unit})")
     if "probability" in data:
         out.append(f"P(finish by deadline) = {pct(data['probability'])}")
-    crit, sens = data["criticality"], data["sensitivity"]
-    top = sorted(crit, key=lambda k: (-crit[k], -abs(sens.get(k, 0.0)), k))[:10]
-    rows = [[k, elide(plan.activity(k).name, 32), f"{crit[k]:.3f}", f"{sens.get(k, 0.0):+.3f}"] for k in top]
-    out += ["", "Top drivers", table(["id", "name", "criticality", "sensitivity"], rows, right={2, 3}), "", CAUTION]
+    out += ["", "Top drivers (uncertain activities by rank correlation with the finish)",
+            drivers_table(plan, data), "", CAUTION]
     return "\n".join(out)
+
+
+def drivers_table(plan, data: dict, top: int = 10) -> str:
+    crit, sens = data["criticality"], data["sensitivity"]
+    uncertain = [a.id for a in plan.activities if a.variance > 0 or a.id in {i for r in plan.risks for i in r.activities}]
+    ranked = sorted(uncertain, key=lambda k: (-abs(sens.get(k, 0.0)), -crit.get(k, 0.0), k))[:top]
+    rows = [[k, elide(plan.activity(k).name, 32), f"{sens.get(k, 0.0):+.3f}", f"{crit.get(k, 0.0):.3f}"]
+            for k in ranked]
+    return table(["id", "name", "sensitivity", "criticality"], rows, right={2, 3})
 
 
 # --- import / export / report ----------------------------------------------
