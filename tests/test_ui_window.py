@@ -2,14 +2,13 @@
 
 import datetime as dt
 import pytest
-from PySide6.QtCore import QMimeData, QPoint, QPointF, Qt, QUrl
+from PySide6.QtCore import QMimeData, QPointF, Qt, QUrl
 from PySide6.QtGui import QDropEvent
 from PySide6.QtWidgets import QLabel
 
 from test_ui_support import plan_state, sample_plan, ui_env, window  # noqa: F401 (fixtures)
 from workbench.core.commands import EditActivity, settings_with
 from workbench.io.planfile import load_plan, save_plan
-from workbench.ui import columns as C
 
 SKIP = {"quit", "close"}
 
@@ -261,7 +260,7 @@ def test_export_writes_a_table(window, ui_env, tmp_path):
 
 
 def test_controls_have_accessible_names(window):
-    from PySide6.QtWidgets import QAbstractButton, QComboBox, QLineEdit
+    from PySide6.QtWidgets import QComboBox, QLineEdit
     panel = window.activities
     for widget in (panel.search, panel.group_box, panel.critical_box, panel.table, window.summary):
         assert widget.accessibleName()

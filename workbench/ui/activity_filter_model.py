@@ -5,7 +5,7 @@ from __future__ import annotations
 import datetime as dt
 
 import numpy as np
-from PySide6.QtCore import QModelIndex, QPersistentModelIndex, QSortFilterProxyModel, Qt
+from PySide6.QtCore import QModelIndex, QPersistentModelIndex, QSortFilterProxyModel
 
 from workbench.ui import columns as C
 from workbench.ui.activity_table_model import CRITICAL_ROLE, SORT_ROLE

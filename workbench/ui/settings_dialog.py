@@ -6,7 +6,7 @@ import datetime as dt
 
 from PySide6.QtCore import QDate
 from PySide6.QtWidgets import (QCheckBox, QComboBox, QDateEdit, QDialog, QDialogButtonBox,
-                               QDoubleSpinBox, QFormLayout, QHBoxLayout, QLineEdit, QPushButton,
+                               QFormLayout, QHBoxLayout, QLineEdit, QPushButton,
                                QSpinBox, QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout,
                                QWidget)
 
@@ -69,6 +69,14 @@ class SettingsDialog(QDialog):
         self.has_deadline.setChecked(s.deadline is not None)
         self.deadline.setEnabled(s.deadline is not None)
         self.has_deadline.toggled.connect(self.deadline.setEnabled)
+        form.addRow("Title", self.title)
+        form.addRow("Start", self.start)
+        form.addRow("Unit", self.unit)
+        form.addRow(self.has_deadline, self.deadline)
+        self._odds_rows(page, form, s)
+        return page
+
+    def _odds_rows(self, page: QWidget, form: QFormLayout, s: Settings) -> None:
         self.confidence = QSpinBox(page)
         self.confidence.setAccessibleName("Target confidence")
         self.confidence.setRange(1, 99)
@@ -78,13 +86,8 @@ class SettingsDialog(QDialog):
         self.distribution.setAccessibleName("Default distribution")
         self.distribution.addItems(list(DISTRIBUTIONS))
         self.distribution.setCurrentText(s.distribution)
-        form.addRow("Title", self.title)
-        form.addRow("Start", self.start)
-        form.addRow("Unit", self.unit)
-        form.addRow(self.has_deadline, self.deadline)
         form.addRow("Target confidence", self.confidence)
         form.addRow("Default distribution", self.distribution)
-        return page
 
     def _deadline_date(self, s: Settings) -> dt.date:
         if isinstance(s.deadline, dt.date):
