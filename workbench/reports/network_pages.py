@@ -12,10 +12,13 @@ from workbench.figures.network_layout import layout_plan
 from . import styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
-from .network_paint import DETAIL_SCALE, NetworkPainter, View, link_bounds
+from .network_paint import DETAIL_SCALE, MIN_DETAIL_SCALE, NetworkPainter, View, link_bounds
 
 HEADING_SPACE = 30.0
 NOTE_SPACE = 30.0
+DETAIL_NOTE_SPACE = 16.0
+DETAIL_NOTE = ("Each box: id and PERT te; name; ES, EF, total float TF / LS, LF, free float FF (plan units "
+               "from the start). Critical: vermillion, heavy outline.")
 MARGIN_UNITS = 12.0
 
 
@@ -75,22 +78,31 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
     story = new_page(LANDSCAPE) + [Section("Network", "network"), Paragraph("Network", styles.H1),
                                    ChartFlowable(width, chart_h, NetworkPainter(ctx, layout, overview).paint),
                                    Paragraph(_note(fit), styles.SMALL)]
-    if fit >= DETAIL_SCALE:
+    if fit >= MIN_DETAIL_SCALE:
         return story
-    views = [v for v in tiles(layout, width, chart_h, DETAIL_SCALE) if _occupied(layout, v)]
+    detail_h = height - HEADING_SPACE - DETAIL_NOTE_SPACE
+    scale = detail_scale(layout, detail_h)
+    views = [v for v in tiles(layout, width, detail_h, scale) if _occupied(layout, v)]
     boxes = link_bounds(layout)
     for k, view in enumerate(views):
         story += new_page(LANDSCAPE) + [
             Paragraph(f"Network, detail {k + 1} of {len(views)}", styles.H1),
-            ChartFlowable(width, chart_h, NetworkPainter(ctx, layout, view, boxes).paint),
-            Paragraph(_note(DETAIL_SCALE), styles.SMALL)]
+            ChartFlowable(width, detail_h, NetworkPainter(ctx, layout, view, boxes).paint),
+            Paragraph(DETAIL_NOTE, styles.SMALL)]
     return story
+
+
+def detail_scale(layout, page_h: float) -> float:
+    """DETAIL_SCALE, or a little less (not below MIN_DETAIL_SCALE) when that lets the whole
+    height of the diagram fit one page: fewer pages for wide, shallow networks."""
+    fits = page_h / (layout.height + 2 * MARGIN_UNITS)
+    return DETAIL_SCALE if fits >= DETAIL_SCALE else max(MIN_DETAIL_SCALE, fits)
 
 
 def _note(scale: float) -> str:
     base = ("Boxes are activities (id and PERT te on top; early/late start and finish, total float TF "
             "and free float FF below, in plan units from the start). Critical activities and the links "
             "that drive them are vermillion with a heavy outline.")
-    if scale < DETAIL_SCALE:
+    if scale < MIN_DETAIL_SCALE:
         return "Overview: ids only; the detail pages that follow show every box's numbers. " + base
     return base

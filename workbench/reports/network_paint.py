@@ -14,7 +14,8 @@ from . import styles
 from .tables import fit
 from .text import clean, format_number
 
-DETAIL_SCALE = 0.5     # points per layout unit from which a node's numbers are legible
+DETAIL_SCALE = 0.5     # points per layout unit preferred for the detail pages
+MIN_DETAIL_SCALE = 0.38  # smallest scale at which a box still shows its numbers (type has floors)
 
 
 @dataclass(frozen=True)
@@ -43,7 +44,7 @@ def link_bounds(layout) -> np.ndarray:
 class NetworkPainter:
     def __init__(self, ctx, layout, view: View, link_boxes=None):
         self.ctx, self.layout, self.view = ctx, layout, view
-        self.detail = view.scale >= DETAIL_SCALE * 0.999
+        self.detail = view.scale >= MIN_DETAIL_SCALE * 0.999
         self.link_boxes = link_bounds(layout) if link_boxes is None else link_boxes
 
     def paint(self, c, w: float, h: float) -> None:
@@ -80,9 +81,13 @@ class NetworkPainter:
         _arrow(c, pts[-2], pts[-1], max(3.0, 9 * self.view.scale))
         if link.label and self.detail:
             x, y = self.view.page(*link.label_at, top)
+            text = clean(link.label)
+            width = c.stringWidth(text, styles.BOLD, 7.5)
+            c.setFillColor(_WHITE)
+            c.rect(x - width / 2 - 1.5, y + 1, width + 3, 9, stroke=0, fill=1)
             c.setFont(styles.BOLD, 7.5)
             c.setFillColor(styles.TEXT)
-            c.drawCentredString(x, y + 3, clean(link.label))
+            c.drawCentredString(x, y + 3, text)
         c.restoreState()
 
     # --- nodes -----------------------------------------------------------------
@@ -105,7 +110,7 @@ class NetworkPainter:
         c.restoreState()
 
     def _head_text(self, c, node, x, y_top, w, head) -> None:
-        size = min(10.0, head * 0.55, 20 * self.view.scale) if self.detail else min(9.0, head * 0.5)
+        size = max(7.0, min(10.0, head * 0.55, 20 * self.view.scale)) if self.detail else min(9.0, head * 0.5)
         if size < 3.0:
             return
         i = node.row
@@ -118,13 +123,13 @@ class NetworkPainter:
 
     def _body_text(self, c, node, x, y_top, w, h) -> None:
         s, i = self.ctx.analysis.schedule, node.row
-        name_size = min(8.0, 16 * self.view.scale)
+        name_size = max(6.5, min(8.0, 16 * self.view.scale))
         c.setFillColor(styles.TEXT)
         c.setFont(styles.FONT, name_size)
         c.drawString(x + 3, y_top - name_size * 1.2, fit(self.ctx.plan.activities[i].name, w - 6, styles.FONT, name_size))
         cells = (("ES", s.es[i]), ("EF", s.ef[i]), ("TF", s.total_float[i]),
                  ("LS", s.ls[i]), ("LF", s.lf[i]), ("FF", s.free_float[i]))
-        num = min(7.5, 14 * self.view.scale)
+        num = max(6.0, min(7.5, 14 * self.view.scale))
         grid_top = y_top - name_size * 1.9
         row_h, col_w = (grid_top - (y_top - h)) / 2, w / 3
         c.setStrokeColor(styles.GRID)

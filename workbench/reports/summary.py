@@ -5,7 +5,7 @@ from __future__ import annotations
 
 from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 
-from workbench.figures.odds import format_probability
+from workbench.figures.odds import format_probability, merge_bias_note
 
 from . import styles
 from .context import PackContext
@@ -15,15 +15,22 @@ from .layout import Section
 from .text import format_date, format_number, format_percent, para
 
 CONFIDENCES = (0.5, 0.8, 0.9)
-PATH_NAMES_SHOWN = 12
+PATH_NAMES_SHOWN = 20
 DRIVERS_SHOWN = 5
 PATH_JOIN = " \u2013 "
 
 
 def summary(ctx: PackContext, width: float) -> list:
     return [Section("Summary", "summary"), Paragraph("Summary", styles.H1),
-            key_figures(ctx, width), Spacer(1, 6), *critical_path(ctx, width),
+            key_figures(ctx, width), Spacer(1, 4), *reading(ctx), *critical_path(ctx, width),
             *drivers(ctx, width)]
+
+
+def reading(ctx: PackContext) -> list:
+    """One line on why PERT and the simulation differ (the Odds view's wording)."""
+    if ctx.simulation is None:
+        return []
+    return [Paragraph(para(merge_bias_note(ctx.analysis.pert, ctx.simulation, ctx.unit)), styles.SMALL)]
 
 
 def deadline_text(ctx: PackContext) -> str:
