@@ -19,7 +19,7 @@ from workbench.ui.paste_rows import paste_command
 from workbench.ui.session import Session
 
 ALL_GROUPS = "All groups"
-WIDTH_CHARS = {"id": 5, "name": 24, "group": 9, "predecessors": 12, "notes": 20, "distribution": 9,
+WIDTH_CHARS = {"id": 5, "name": 32, "group": 13, "predecessors": 12, "notes": 20, "distribution": 9,
                "start_no_earlier": 10, "finish_no_later": 10, "early_start": 11, "early_finish": 11,
                "late_start": 11, "late_finish": 11, "critical": 5}
 
