@@ -249,3 +249,29 @@ def test_print_preview_is_landscape_and_paints(view, qtbot, tmp_path):
     printer.setPageOrientation(QPageLayout.Landscape)
     dialog.paintRequested.emit(printer)
     assert (tmp_path / "preview.pdf").read_bytes().startswith(b"%PDF")
+
+
+def test_far_out_picture_follows_edits_and_pans(qtbot):
+    acts = [Activity(id=f"K{i}", duration=1.0) for i in range(40)] + [Activity(id="S", duration=5.0)]
+    links = [Link(f"K{i}", f"K{i + 1}") for i in range(39)] + [Link("K0", "S"), Link("S", "K39")]
+    v = NetworkView(Session(Plan(Settings(title="far"), acts, links)))
+    qtbot.addWidget(v)
+    v.resize(900, 500)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit()
+    v.graphics.repaint()
+    assert v.item.painter.node_px(v.viewbox.viewPixelSize()[0] ** -1) < 40     # far out
+    assert close_to(pixel(v, node_point(v, "S")), style.WORK)
+    assert close_to(pixel(v, node_point(v, "K5")), style.CRITICAL)
+    v.session.push(EditActivity("S", duration=60.0))                         # S now drives the finish
+    v.graphics.repaint()
+    assert close_to(pixel(v, node_point(v, "S")), style.CRITICAL)
+    v.viewbox.translateBy(t=(300.0, 0.0))
+    v.graphics.repaint()
+    assert close_to(pixel(v, node_point(v, "S")), style.CRITICAL)
+    v.session.select(["K5"])
+    v.graphics.repaint()
+    x, y, w, h = v.layout_result.boxes[v.layout_result.index_of("K5")]
+    frame = v.graphics.mapFromScene(v.viewbox.mapViewToScene(QPointF(x + w / 2, y - 4.0 * v.viewbox.viewPixelSize()[1])))
+    assert close_to(pixel(v, frame), style.TEXT, 60)                           # selection frame drawn on top

@@ -3,11 +3,14 @@
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import QRectF, Qt, Signal
+from PySide6.QtCore import QPointF, QRectF, Qt, QTimer, Signal
+from PySide6.QtGui import QPainter, QPixmap
 
-from .network_paint import NetworkPainter
+from .network_paint import TINY_PX, NetworkPainter
 
 MARGIN = 60.0
+CACHE_PIXELS = 4096   # far out, the drawing is cached as a picture up to this size
+SETTLE_MS = 150       # redraw the picture sharp this long after zooming stops
 
 
 class NetworkItem(pg.GraphicsObject):
@@ -21,6 +24,12 @@ class NetworkItem(pg.GraphicsObject):
         super().__init__()
         self.painter = NetworkPainter()
         self._bounds = QRectF()
+        self._cache: QPixmap | None = None
+        self._cache_scale = 0.0
+        self._cache_version = -1
+        self._settled = False
+        self._settle_timer = QTimer(self, singleShot=True, interval=SETTLE_MS)
+        self._settle_timer.timeout.connect(self._settle)
 
     # --- content ---------------------------------------------------------
     def set_content(self, layout, texts) -> None:
@@ -38,6 +47,7 @@ class NetworkItem(pg.GraphicsObject):
 
     def set_bands_visible(self, on: bool) -> None:
         self.painter.bands_visible = on
+        self.painter.version += 1
         self.update()
 
     # --- QGraphicsItem / pyqtgraph ----------------------------------------
@@ -51,7 +61,51 @@ class NetworkItem(pg.GraphicsObject):
     def paint(self, p, option, widget=None) -> None:
         visible = self.viewRect() or self._bounds
         scale = abs(p.transform().m11()) or 1.0
-        self.painter.paint(p, visible, scale)
+        dpr = widget.devicePixelRatioF() if widget is not None else 1.0
+        if self.painter.node_px(scale) < TINY_PX and self._fits(scale * dpr):
+            self._paint_cached(p, scale, dpr)
+            self.painter.paint_overlay(p, visible, scale)
+        else:
+            self.painter.paint(p, visible, scale)
+
+    # --- far-out picture cache ---------------------------------------------
+    def _fits(self, px_per_unit: float) -> bool:
+        return max(self._bounds.width(), self._bounds.height()) * px_per_unit <= CACHE_PIXELS
+
+    def _paint_cached(self, p, scale: float, dpr: float) -> None:
+        """Far out, the whole drawing is one picture: panning only copies it. While the
+        zoom changes the picture is stretched; it is redrawn sharp once zooming pauses."""
+        stale = self._cache is None or self._cache_version != self.painter.version
+        rescaled = not stale and abs(self._cache_scale - scale * dpr) > 1e-9 * scale
+        if stale or (rescaled and self._settled):
+            self._render_cache(scale, dpr)
+        elif rescaled:
+            self._settle_timer.start()
+        self._settled = False
+        if abs(self._cache_scale - scale * dpr) > 1e-9 * scale:    # stretched while zooming
+            p.drawPixmap(self._bounds, self._cache, QRectF(self._cache.rect()))
+            return
+        corner = p.transform().map(self._bounds.topLeft())       # same scale: a plain copy
+        p.save()
+        p.resetTransform()
+        p.drawPixmap(QPointF(round(corner.x()), round(corner.y())), self._cache)
+        p.restore()
+
+    def _render_cache(self, scale: float, dpr: float) -> None:
+        b = self._bounds
+        pixmap = QPixmap(max(1, int(b.width() * scale * dpr) + 1), max(1, int(b.height() * scale * dpr) + 1))
+        pixmap.fill(Qt.transparent)
+        q = QPainter(pixmap)
+        q.scale(scale * dpr, scale * dpr)
+        q.translate(-b.left(), -b.top())
+        self.painter.paint(q, b, scale, base_only=True)
+        q.end()
+        pixmap.setDevicePixelRatio(dpr)
+        self._cache, self._cache_scale, self._cache_version = pixmap, scale * dpr, self.painter.version
+
+    def _settle(self) -> None:
+        self._settled = True
+        self.update()
 
     def hoverEvent(self, ev) -> None:
         row = -1 if ev.isExit() else self._row_at(ev.pos())

@@ -9,37 +9,17 @@ from __future__ import annotations
 
 import numpy as np
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPainter, QPen, QPolygonF
+from PySide6.QtGui import QFontMetricsF, QPainter, QPen, QPolygonF
 
 from workbench.figures import network_style as ns
+
+from .network_shapes import clip, colour, font, inside, pen, two_lines
 
 TINY_PX = 40       # node narrower than this on screen: coloured box only
 COMPACT_PX = 140   # narrower than this: header colour and big id only
 LABEL_SCALE = 0.2  # link labels from this zoom on
 TINY_IDS = 600     # far out, ids are written in at most this many visible boxes
 AA_SEGMENTS = 250  # smooth (antialiased) ordinary links only when this few are visible
-
-
-def colour(hex_text: str, alpha: int = 255) -> QColor:
-    c = QColor(hex_text)
-    c.setAlpha(alpha)
-    return c
-
-
-def font(size: float, bold: bool = False) -> QFont:
-    f = QFont()
-    f.setPixelSize(max(1, int(round(size))))
-    f.setBold(bold)
-    return f
-
-
-def pen(hex_text: str, units: float, scale: float, style=Qt.SolidLine) -> QPen:
-    """A cosmetic pen as wide as ``units`` at this scale, never thinner than one pixel."""
-    p = QPen(colour(hex_text), max(1.0, units * scale))
-    p.setCosmetic(True)
-    p.setStyle(style)
-    p.setJoinStyle(Qt.MiterJoin)
-    return p
 
 
 class NetworkPainter:
@@ -63,6 +43,7 @@ class NetworkPainter:
         self._wrapped: dict[tuple[str, float, float], tuple[str, str]] = {}
         self._key = None
         self._seg_link = np.zeros(0, dtype=np.int64)
+        self.version = 0          # bumped whenever the base picture would change
 
     # --- content ---------------------------------------------------------
     def set_content(self, layout, texts) -> None:
@@ -70,6 +51,7 @@ class NetworkPainter:
         duration edit keeps it), flags and texts always."""
         key = (id(layout.geometry), tuple((l.pred, l.succ) for l in layout.links))
         self.layout, self.texts = layout, texts
+        self.version += 1
         if key != self._key:
             self._key = key
             self._cache_geometry(layout)
@@ -93,7 +75,7 @@ class NetworkPainter:
         self._label_at = np.array([l.label_at for l in layout.links]).reshape(-1, 2)
         self._heads_full = [QRectF(*ns.part(b, ns.HEADER)) for b in boxes]
         self._heads_compact = [QRectF(*ns.part(b, ns.COMPACT_HEADER)) for b in boxes]
-        self._short_rects = [_two_lines(ns.part(b, ns.COMPACT_NAME)) for b in boxes]
+        self._short_rects = [two_lines(ns.part(b, ns.COMPACT_NAME)) for b in boxes]
         rows = [(a[0], a[1], b[0], b[1], k) for k, l in enumerate(layout.links)
                 for a, b in zip(l.points, l.points[1:])]
         arr = np.array(rows, dtype=float).reshape(-1, 5)
@@ -105,6 +87,7 @@ class NetworkPainter:
         """Switch line weights and type sizes (screen or Present); rebuilds cached shapes."""
         self.weights, self.min_critical_px = weights, min_critical_px
         self._key = None
+        self.version += 1
         self._wrapped.clear()
         if self.layout is not None:
             self.set_content(self.layout, self.texts)
@@ -146,10 +129,12 @@ class NetworkPainter:
         return first, fm.elidedText(" ".join(words), Qt.ElideRight, room)
 
     # --- painting --------------------------------------------------------
-    def paint(self, p: QPainter, visible: QRectF, scale: float) -> None:
+    def paint(self, p: QPainter, visible: QRectF, scale: float, base_only: bool = False) -> None:
+        """Paint what meets ``visible``; ``base_only`` leaves out hover and selection marks
+        (for a cached picture that ``paint_overlay`` completes)."""
         if self.layout is None:
             return
-        node_px = float(self.layout.boxes[0, 2] * scale) if len(self._rects) else 0.0
+        node_px = self.node_px(scale)
         p.setRenderHint(QPainter.Antialiasing, node_px >= TINY_PX)
         p.setRenderHint(QPainter.TextAntialiasing, True)
         if self.bands_visible:
@@ -158,11 +143,35 @@ class NetworkPainter:
         if self.column_labels:
             self._paint_column_labels(p, scale)
         rows = self._visible_nodes(visible)
-        self._paint_halos(p, rows, scale)
+        if not base_only:
+            self._paint_hover_links(p, scale)
+            if node_px >= TINY_PX:
+                self._paint_halos(p, rows, scale, fill=True)
         if node_px < TINY_PX:
             self._paint_tiny(p, rows, scale)
         else:
             self._paint_nodes(p, rows, scale, node_px >= COMPACT_PX)
+        if not base_only and node_px < TINY_PX:
+            self._paint_halos(p, rows, scale, fill=False)
+
+    def paint_overlay(self, p: QPainter, visible: QRectF, scale: float) -> None:
+        """Hover and selection marks over a cached base picture (far-out zoom only)."""
+        if self.layout is None:
+            return
+        p.setRenderHint(QPainter.Antialiasing, False)
+        self._paint_hover_links(p, scale)
+        self._paint_halos(p, self._visible_nodes(visible), scale, fill=False)
+
+    def node_px(self, scale: float) -> float:
+        """Width of a node on the device at this scale."""
+        return float(self.layout.boxes[0, 2] * scale) if len(self._rects) else 0.0
+
+    def _paint_hover_links(self, p: QPainter, scale: float) -> None:
+        if self.hover_links:
+            p.setBrush(Qt.NoBrush)
+            p.setPen(pen(ns.HOVER, self.weights.critical_link * 0.8, scale))
+            for k in self.hover_links:
+                p.drawPolyline(self._polys[k])
 
     def _paint_column_labels(self, p: QPainter, scale: float) -> None:
         """Column headings, skipping any that would run into the one before."""
@@ -211,21 +220,17 @@ class NetworkPainter:
         if ordinary.size > 0.6 * len(self._all_lines[False]):
             p.drawLines(self._all_lines[False])
         elif ordinary.size:     # clipped first: long lines are slow to stroke
-            p.drawLines([QLineF(*c) for c in _clip(seg[ordinary], v.adjusted(-40, -40, 40, 40)).tolist()])
+            p.drawLines([QLineF(*c) for c in clip(seg[ordinary], v.adjusted(-40, -40, 40, 40)).tolist()])
         p.setRenderHint(QPainter.Antialiasing, True)
         heavy = pen(ns.CRITICAL, w.critical_link, scale)
         heavy.setWidthF(max(self.min_critical_px, heavy.widthF()))
         p.setPen(heavy)
         for k in np.unique(self._seg_link[vis & self._seg_crit]).tolist():
             p.drawPolyline(self._polys[k])
-        if self.hover_links:
-            p.setPen(pen(ns.HOVER, w.critical_link * 0.8, scale))
-            for k in self.hover_links:
-                p.drawPolyline(self._polys[k])
         if w.arrow * scale >= 3:
-            self._paint_heads(p, _inside(self._ends, v, w.arrow), self._link_crit)
+            self._paint_heads(p, inside(self._ends, v, w.arrow), self._link_crit)
         if scale >= LABEL_SCALE:
-            self._paint_labels(p, _inside(self._label_at, v, 60.0), scale)
+            self._paint_labels(p, inside(self._label_at, v, 60.0), scale)
 
     def _paint_heads(self, p: QPainter, rows: np.ndarray, crit: np.ndarray) -> None:
         p.setPen(Qt.NoPen)
@@ -250,16 +255,20 @@ class NetworkPainter:
             p.setPen(colour(ns.CRITICAL if link.critical else ns.TEXT))
             p.drawText(rect, Qt.AlignCenter, link.label)
 
-    def _paint_halos(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
+    def _paint_halos(self, p: QPainter, rows: np.ndarray, scale: float, fill: bool) -> None:
+        """Selection (a pale field behind the node, or a heavy frame when drawn on top)
+        and hover marks (dashed frames); at least a few pixels clear of the box."""
         show = set(rows.tolist())
-        p.setBrush(colour(ns.SELECTED))
-        p.setPen(pen(ns.TEXT, 1.5, scale))
+        pad = max(10.0, 4.0 / scale)
+        p.setBrush(colour(ns.SELECTED) if fill else Qt.NoBrush)
+        p.setPen(pen(ns.TEXT, 1.5 if fill else 3.0, scale))
         for r in self.selected & show:
-            p.drawRect(self._rects[r].adjusted(-10, -10, 10, 10))
+            p.drawRect(self._rects[r].adjusted(-pad, -pad, pad, pad))
         p.setBrush(Qt.NoBrush)
         p.setPen(pen(ns.HOVER, 3.0, scale, Qt.DashLine))
+        pad = max(6.0, 2.5 / scale)
         for r in (self.related | ({self.hover} if self.hover >= 0 else set())) & show:
-            p.drawRect(self._rects[r].adjusted(-6, -6, 6, 6))
+            p.drawRect(self._rects[r].adjusted(-pad, -pad, pad, pad))
 
     def _paint_tiny(self, p: QPainter, rows: np.ndarray, scale: float) -> None:
         """Far out: coloured boxes, with the id inside while it can still be read."""
@@ -345,32 +354,3 @@ class NetworkPainter:
         p.setFont(font(w.float_font, bold=True))
         p.drawText(float_rect, Qt.AlignCenter, text.total_float)
 
-
-def _two_lines(rect) -> tuple[QRectF, QRectF]:
-    x, y, w, h = rect
-    return QRectF(x, y, w, h / 2), QRectF(x, y + h / 2, w, h / 2)
-
-
-def _inside(points: np.ndarray, v: QRectF, pad: float) -> np.ndarray:
-    """Indices of points within the visible rectangle grown by ``pad``."""
-    if not len(points):
-        return np.zeros(0, dtype=np.int64)
-    x, y = points[:, 0], points[:, 1]
-    return np.flatnonzero((x >= v.left() - pad) & (x <= v.right() + pad) & (y >= v.top() - pad) & (y <= v.bottom() + pad))
-
-
-def _clip(seg: np.ndarray, r: QRectF) -> np.ndarray:
-    """Segments (m, 4) clipped to a rectangle (Liang–Barsky, vectorised); misses dropped."""
-    x0, y0, x1, y1 = seg.T
-    dx, dy = x1 - x0, y1 - y0
-    lo, hi = np.zeros(len(seg)), np.ones(len(seg))
-    for d, start, a, b in ((dx, x0, r.left(), r.right()), (dy, y0, r.top(), r.bottom())):
-        flat = np.abs(d) < 1e-12
-        safe = np.where(flat, 1.0, d)
-        t0, t1 = (a - start) / safe, (b - start) / safe
-        lo = np.where(flat, lo, np.maximum(lo, np.minimum(t0, t1)))
-        hi = np.where(flat, hi, np.minimum(hi, np.maximum(t0, t1)))
-    keep = lo <= hi
-    lo, hi = lo[keep], hi[keep]
-    return np.column_stack((x0[keep] + lo * dx[keep], y0[keep] + lo * dy[keep],
-                            x0[keep] + hi * dx[keep], y0[keep] + hi * dy[keep]))
