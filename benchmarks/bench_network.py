@@ -85,7 +85,7 @@ def bench_frames() -> None:
         v.resize(1600, 900)
         v.show()
     app.processEvents()
-    base = frame_ms(empty, app, "pan")
+    base = frame_ms(empty, app, "pan", steps=24)
     report = []
     for kind in ("pan", "zoom", "settle"):
         report.append((f"whole network fitted, {kind}", frame_ms(full, app, kind)))
