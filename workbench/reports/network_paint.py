@@ -110,12 +110,15 @@ class NetworkPainter:
         c.restoreState()
 
     def _head_text(self, c, node, x, y_top, w, head) -> None:
-        size = max(7.0, min(10.0, head * 0.55, 20 * self.view.scale)) if self.detail else min(9.0, head * 0.5)
+        if self.detail:
+            size = max(7.0, min(10.0, head * 0.55, 20 * self.view.scale))
+        else:   # overview: the id as large as its box allows
+            size = min(14.0, head * 0.6, (w - 4) / max(c.stringWidth(node.id, styles.BOLD, 1.0), 1e-6))
         if size < 3.0:
             return
         i = node.row
         c.setFillColor(_WHITE)
-        _label_box(c, x + 2, y_top - head / 2 - size * 0.35, w * 0.6, size, node.id, styles.BOLD)
+        _label_box(c, x + 2, y_top - head / 2 - size * 0.35, w * (0.6 if self.detail else 1.0) - 2, size, node.id, styles.BOLD)
         if self.detail:
             te = self.ctx.analysis.means[i]
             c.setFont(styles.BOLD, size * 0.8)

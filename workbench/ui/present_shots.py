@@ -7,6 +7,7 @@ from __future__ import annotations
 import argparse
 import os
 import sys
+import time
 from pathlib import Path
 
 SIZE = (1024, 768)
@@ -40,7 +41,9 @@ def shoot(outdir, plan, simulation=None, size=SIZE) -> list[Path]:
     out = []
     for index in range(window.slide_count()):
         window.go(index)
-        app.processEvents()
+        for _ in range(5):              # let the charts lay out their axes before grabbing
+            app.processEvents()
+            time.sleep(0.05)
         path = Path(outdir) / f"present-{index + 1}-{window.current_title().lower()}.png"
         window.grab().save(str(path))
         out.append(path)
