@@ -99,14 +99,25 @@ class Network:
 
 def group_order(key: np.ndarray, size: int) -> tuple[np.ndarray, np.ndarray]:
     """A stable counting sort: the permutation grouping ``key`` (ints in [0, size)) and
-    each group's start (``size + 1`` bounds). Done by scipy's sparse-matrix builder in C."""
-    from scipy.sparse import coo_array
-
+    each group's start (``size + 1`` bounds), in linear time. scipy's sparse-matrix
+    builder does the counting in C: a matrix with one entry per key (row = key, column =
+    position) converted to row-compressed form lists the positions row by row."""
+    key = np.asarray(key, dtype=np.int64)
     if key.size == 0 or size == 0:
         return np.zeros(0, dtype=np.int64), np.zeros(size + 1, dtype=np.int64)
-    ones = np.ones(key.size, dtype=np.int8)
-    csr = coo_array((ones, (key, np.arange(key.size))), shape=(size, key.size)).tocsr()
-    return csr.indices.astype(np.int64), csr.indptr.astype(np.int64)
+    try:
+        from scipy.sparse import _sparsetools
+        it = np.int32 if max(size, key.size) < 2**31 - 1 else np.int64
+        ptr = np.empty(size + 1, dtype=it)
+        order = np.empty(key.size, dtype=it)
+        _sparsetools.coo_tocsr(size, key.size, key.size, key.astype(it), np.arange(key.size, dtype=it),
+                               np.zeros(key.size, np.int8), ptr, order, np.empty(key.size, np.int8))
+        return order.astype(np.int64), ptr.astype(np.int64)
+    except (ImportError, AttributeError, TypeError, ValueError):  # the public, slower route
+        from scipy.sparse import coo_array
+        ones = np.ones(key.size, dtype=np.int8)
+        csr = coo_array((ones, (key, np.arange(key.size))), shape=(size, key.size)).tocsr()
+        return csr.indices.astype(np.int64), csr.indptr.astype(np.int64)
 
 
 def _ranges(lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
