@@ -92,3 +92,13 @@ def test_without_a_seed_one_is_chosen_and_printed(tmp_path):
     again = build_pack(footbridge_plan(), tmp_path / "q.pdf", iterations=500, seed=info.seed, generated_at=WHEN)
     assert (tmp_path / "q.pdf").read_bytes() == (tmp_path / "p.pdf").read_bytes()
     assert again.seed == info.seed
+
+
+@pytest.mark.parametrize("paper", ["a4", "letter"])
+def test_each_simulation_chart_fills_exactly_one_page(tmp_path, paper):
+    path = tmp_path / f"{paper}.pdf"
+    build_pack(footbridge_plan(), path, iterations=500, seed=3, paper=paper, generated_at=WHEN)
+    found = _sections(PdfReader(str(path)))
+    assert found["S-curve"] - found["Odds"] == 1
+    assert found["Drivers"] - found["S-curve"] == 1
+    assert found["Activities"] - found["Drivers"] == 1
