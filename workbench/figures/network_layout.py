@@ -105,6 +105,7 @@ class NetworkLayout:
     naive_crossings: int
     boxes: np.ndarray = field(repr=False)   # (n, 4) x, y, w, h in plan order
     geometry: Geometry | None = field(default=None, repr=False)   # the cached structure part
+    band_title: float = 0.0     # height of the strip for a band's name above its nodes
 
     def index_of(self, act_id: str) -> int:
         for node in self.nodes:
@@ -276,7 +277,7 @@ def layout_plan(plan, analysis=None, options: LayoutOptions | None = None) -> Ne
         links.append(LinkRoute(link.pred, link.succ, points, link.type, lag, driving[k],
                                link_label(link.type, lag), anchor))
     return NetworkLayout(nodes, links, list(geo.bands), geo.width, geo.height, geo.crossings,
-                         geo.naive_crossings, geo.boxes, geo)
+                         geo.naive_crossings, geo.boxes, geo, options.band_title)
 
 
 def _driving_links(plan, schedule) -> np.ndarray:

@@ -202,11 +202,12 @@ class NetworkPainter:
             if not rect.intersects(v):
                 continue
             p.fillRect(rect, colour(ns.BAND_FILLS[i % 2]))
-            size = min(3 * w.band_font, max(w.band_font, 11.0 / scale))
+            room = self.layout.band_title         # the strip above the band's first nodes
+            size = min(0.62 * room, max(w.band_font, 11.0 / scale))
             p.setPen(colour(ns.BAND_TEXT))
             p.setFont(font(size, bold=True))
             left = max(rect.left(), v.left()) + 8
-            p.drawText(QRectF(left, rect.top() + 2, 40 * size, size * 1.4), Qt.AlignLeft | Qt.AlignVCenter, band.name)
+            p.drawText(QRectF(left, rect.top(), 40 * size, room), Qt.AlignLeft | Qt.AlignVCenter, band.name)
 
     def _paint_links(self, p: QPainter, v: QRectF, scale: float) -> None:
         w = self.weights
