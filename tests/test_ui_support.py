@@ -60,6 +60,7 @@ def ui_env(qapp, tmp_path, monkeypatch):
     """Temporary settings and data folder; every dialog patched (tests set the answers)."""
     monkeypatch.setenv("SLACKLINE_DATA_DIR", str(tmp_path / "data"))
     monkeypatch.setenv("SLACKLINE_AUTOSAVE_MS", "3600000")
+    names = (qapp.organizationName(), qapp.applicationName())
     QSettings.setDefaultFormat(QSettings.Format.IniFormat)
     QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, str(tmp_path / "settings"))
     qapp.setOrganizationName("SlacklineTest")
@@ -70,6 +71,8 @@ def ui_env(qapp, tmp_path, monkeypatch):
         monkeypatch.setattr(prompts, name, answers.make(name))
     yield answers
     QSettings().clear()
+    qapp.setOrganizationName(names[0])
+    qapp.setApplicationName(names[1])
 
 
 @pytest.fixture
