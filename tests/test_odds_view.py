@@ -181,3 +181,16 @@ def test_a_refused_simulation_names_the_problem(view, qtbot, monkeypatch):
         view.controls.button.click()
     assert "activity C" in view.controls.status.text()
     assert view.session.simulation is None and view.controls.button.text() == "Run simulation"
+
+
+def test_loading_another_plan_opens_on_its_deadline(view):
+    view.plot.markers[0].setValue(45.0)
+    other = house_plan(deadline=None)
+    for act in other.activities:
+        other.replace_activity(act.id, act.with_(optimistic=10 * act.optimistic,
+                                                 most_likely=10 * act.most_likely,
+                                                 pessimistic=10 * act.pessimistic))
+    view.session.load(other)
+    assert view.dates[0] == pytest.approx(440.0)      # the new PERT mean, ten times longer
+    lo, hi = view.plot.density.viewRange()[0]
+    assert lo > 300 and hi < 600                      # the axis follows the new curve

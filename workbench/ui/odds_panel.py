@@ -35,7 +35,7 @@ class OddsPanel(QWidget):
 
     def __init__(self, parent=None):
         super().__init__(parent)
-        self.headline = _label(size=13, bold=True)
+        self.headline = _label(size=12, bold=True)
         self.headline.setTextFormat(Qt.RichText)
         self.mode = QComboBox()
         for key in MODES:

@@ -141,6 +141,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         for label in self.p_labels:
             self.cumulative.removeItem(label)
         self.p_labels = []
+        self._legend_for_sim(fig is not None)
         if fig is None:
             self.hist.setData([], [])
             self.ecdf.setData([], [])
@@ -162,6 +163,17 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             self.cumulative.addItem(text)
             self.p_labels.append(text)
         self._y_top(float(np.max(fig.heights)))
+
+    def _legend_for_sim(self, shown: bool) -> None:
+        """List the simulation's items in the legends only when there is a simulation."""
+        for legend, item, name in ((self.legend, self.hist, "Simulation"),
+                                   (self.legend, self.sim_shade, "Simulation answer"),
+                                   (self.cum_legend, self.ecdf, "Simulation (S-curve)")):
+            listed = any(sample.item is item for sample, _ in legend.items)
+            if shown and not listed:
+                legend.addItem(item, name)
+            elif not shown and listed:
+                legend.removeItem(item)
 
     def _y_top(self, sim_top: float) -> None:
         top = max(getattr(self, "_pert_top", 0.0), sim_top)

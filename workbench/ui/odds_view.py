@@ -8,7 +8,7 @@ All numbers come from ``workbench.core`` (analysis, simulation) through the geom
 from __future__ import annotations
 
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QWidget
+from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QSplitter, QWidget
 
 from workbench.figures import odds as fo
 from workbench.ui.odds_controls import OddsControls
@@ -47,11 +47,16 @@ class OddsView(QWidget):
         side = QScrollArea()
         side.setWidget(self.panel)
         side.setWidgetResizable(True)
-        side.setMinimumWidth(540)
-        side.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        side.setMinimumWidth(400)
+        self.splitter = QSplitter(Qt.Horizontal)
+        self.splitter.addWidget(self.plot)
+        self.splitter.addWidget(side)
+        self.splitter.setStretchFactor(0, 1)
+        self.splitter.setStretchFactor(1, 0)
+        self.splitter.setChildrenCollapsible(False)
         lay = QHBoxLayout(self)
-        lay.addWidget(self.plot, 1)
-        lay.addWidget(side)
+        lay.setContentsMargins(2, 2, 2, 2)
+        lay.addWidget(self.splitter)
 
     def _connect(self) -> None:
         s = self.session
@@ -100,11 +105,13 @@ class OddsView(QWidget):
         self._show_simulation()
 
     def _default_dates(self, a) -> None:
-        if self._deadline_seen != a.deadline or self.dates[0] is None:
+        """Open on the deadline (or the PERT mean); start again when the deadline changes
+        or the question's date falls outside the new curve (another plan was loaded)."""
+        lo, hi = fo.axis_span(a.pert, None, (a.deadline,))
+        d1 = self.dates[0]
+        if self._deadline_seen != a.deadline or d1 is None or not lo <= d1 <= hi:
             self._deadline_seen = a.deadline
-            first = a.deadline if a.deadline is not None else fo.day_end(a.calendar, a.pert.mean)
-            self.dates[0] = first
-        if self.dates[1] is None:
+            self.dates[0] = a.deadline if a.deadline is not None else fo.day_end(a.calendar, a.pert.mean)
             self.dates[1] = self.dates[0] + max(1.0, fo.snap_offset(a.calendar, 1.5 * a.pert.sd))
 
     def _span(self) -> tuple[float, float]:
@@ -213,7 +220,7 @@ class OddsView(QWidget):
         cells = "".join(f"<tr><td>{r}</td><td>{p}</td><td>{s}</td></tr>" for r, p, s in rows)
         self.panel.headline.setText(
             f"{fo.question_headline(q, a.calendar, a.deadline)}"
-            "<table cellspacing='0' cellpadding='3' style='font-size:13pt'>"
+            "<table cellspacing='0' cellpadding='3' style='font-size:12pt'>"
             "<tr><td></td><td><u>PERT</u></td><td><u>Simulation</u></td></tr>"
             f"{cells}</table>")
 
