@@ -94,6 +94,8 @@ class DurationModel:
 
     def sample(self, scores: np.ndarray) -> np.ndarray:
         """Durations (n, k) for scores (n_uncertain, k) in [0, 1); fixed rows get te."""
+        if self.uncertain.size == self.size:
+            return self.quantiles(scores)
         k = scores.shape[1]
         out = np.empty((self.size, k))
         if self.fixed.size:

@@ -10,6 +10,8 @@ every index are described in docs/simulation.md.
 
 from __future__ import annotations
 
+import functools
+
 import numpy as np
 from scipy.stats import rankdata
 
@@ -25,6 +27,24 @@ from .sim_result import SimulationResult
 
 BLOCK_BYTES = 48 * 2**20       # working memory aimed at per block
 MAX_BLOCK = 2048               # iterations
+
+
+@functools.lru_cache(maxsize=1)
+def keep_heap() -> bool:
+    """Ask glibc to keep freed block-sized arrays on the heap instead of returning them to
+    the system after every block (by default it unmaps or trims them, and the next block
+    pays page faults for fresh memory: measured ~40 % of the run time). The process keeps
+    up to 128 MB of freed heap for reuse. Once per process; a no-op elsewhere."""
+    try:
+        import ctypes
+        import ctypes.util
+        libc = ctypes.CDLL(ctypes.util.find_library("c") or "libc.so.6")
+        mallopt = libc.mallopt
+    except (OSError, AttributeError):
+        return False
+    m_trim_threshold, m_top_pad, m_mmap_threshold = -1, -2, -3
+    return bool(mallopt(m_mmap_threshold, 32 * 2**20) and mallopt(m_trim_threshold, 128 * 2**20)
+                and mallopt(m_top_pad, 64 * 2**20))
 
 
 class SimulationCancelled(Exception):
@@ -132,6 +152,7 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     if isinstance(seed, bool) or not isinstance(seed, (int, np.integer)) or seed < 0:
         raise PlanError(f"seed must be a non-negative whole number, not {seed!r}", "seed")
     mc = MonteCarlo(plan, distribution, deadline)
+    keep_heap()
     n = mc.net.size
     block = int(block_size) if block_size else default_block_size(n, mc.net.src.size)
     if block <= 0:

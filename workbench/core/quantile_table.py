@@ -53,17 +53,21 @@ class QuantileTable:
         values = exact_quantile(s, u)
         step = np.zeros_like(values)          # difference to the next shape row
         step[:-1] = values[1:] - values[:-1]
-        # Each cell stores its two ends as one complex number (low + i·high), so one
-        # gather fetches both; the row at shape s is values + w·step.
-        self.pairs = (values[:, :-1] + 1j * values[:, 1:]).ravel()
-        self.step_pairs = (step[:, :-1] + 1j * step[:, 1:]).ravel()
+        # Each cell stores its start and width as one complex number (x_k + i·(x_k+1 − x_k)),
+        # single precision, so one gather fetches both; the row at shape s is cells + w·steps.
+        self.pairs = self._cells(values)
+        self.step_pairs = self._cells(step)
         self.tail_limit = 0.5 - tail_cells / cells
+
+    @staticmethod
+    def _cells(values: np.ndarray) -> np.ndarray:
+        return (values[:, :-1] + 1j * np.diff(values, axis=1)).astype(np.complex64).ravel()
 
     def rows(self, shape) -> tuple[np.ndarray, np.ndarray]:
         """Per shape: offset of its lower table row in the flat table and the weight of the next."""
         q = np.clip(np.asarray(shape, dtype=float), 0.0, 1.0) * (self.shapes - 1)
         r = np.minimum(q.astype(np.int64), self.shapes - 2)
-        return r * self.cells, q - r
+        return r * self.cells, (q - r).astype(np.float32)
 
     def quantile(self, shape, u: np.ndarray) -> np.ndarray:
         """x(s, u) for shapes (k,) and probabilities u (k, m) in [0, 1); returns (k, m)."""
@@ -78,20 +82,15 @@ class QuantileTable:
         np.minimum(k, self.cells - 1, out=k)
         t -= k                                   # fraction within the cell
         k += base
-        ends = self.step_pairs.take(k)
-        ends *= weight
-        ends += self.pairs.take(k)
-        x = ends.real.copy()
-        hi = ends.imag
-        hi -= x                                  # width of the cell in x
+        cell = self.step_pairs.take(k)
+        cell *= weight
+        cell += self.pairs.take(k)               # start (real) and width (imag) of the cell
+        x = np.multiply(cell.imag, t, out=t)
+        x += cell.real
         tail = self._tail_fractions(shape, u)
         if tail is not None:
             cells, frac = tail
-            tail_x = x.ravel()[cells] + frac * hi.ravel()[cells]
-        hi *= t
-        x += hi
-        if tail is not None:
-            x.ravel()[cells] = tail_x
+            x.ravel()[cells] = cell.real.ravel()[cells] + frac * cell.imag.ravel()[cells]
         return x
 
     def _tail_fractions(self, shape: np.ndarray, u: np.ndarray):
