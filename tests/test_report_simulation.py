@@ -102,3 +102,17 @@ def test_each_simulation_chart_fills_exactly_one_page(tmp_path, paper):
     assert found["S-curve"] - found["Odds"] == 1
     assert found["Drivers"] - found["S-curve"] == 1
     assert found["Activities"] - found["Drivers"] == 1
+
+
+def test_fixed_durations_give_a_certain_finish_without_nan(tmp_path):
+    from workbench.core.model import Activity, Link, Plan, Settings
+
+    plan = Plan(Settings(title="Fixed", start=dt.date(2027, 1, 4), deadline=9.0),
+                [Activity("A", duration=3), Activity("B", duration=4), Activity("M", duration=0)],
+                [Link("A", "B"), Link("B", "M")])
+    path = tmp_path / "fixed.pdf"
+    build_pack(plan, path, iterations=300, seed=2, generated_at=WHEN)
+    reader = PdfReader(str(path))
+    summary = _text(reader, [_sections(reader)["Summary"]])
+    assert format_probability(1.0) in summary
+    assert "nan" not in _text(reader, range(len(reader.pages))).lower()

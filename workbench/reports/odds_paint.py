@@ -83,7 +83,7 @@ class OddsPainter:
         ax = self._panel(c, y, w, h, max(float(curve.density.max()), 1e-12) * 1.12)
         shade = og.pert_shade(pert, self.q, self.lo, self.hi)
         if curve.step:
-            ax.vline(curve.mean, styles.TEXT, 2.0, label="certain finish (no spread)")
+            ax.vline(curve.mean, styles.TEXT, 2.0, label="certain finish (no spread)", top=False)
         else:
             ax.polyline(shade.x, shade.y, close=True, fill=styles.PROBABILITY)
             ax.polyline(curve.x, curve.density, stroke=styles.TEXT, width=1.6)
