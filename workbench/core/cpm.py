@@ -226,7 +226,7 @@ def _critical_graph(sched: Schedule, offsets: np.ndarray, driving=None):
     pos = net.rank
     # Start where nothing critical drives the activity, in topological order.
     starts = sorted((i for i in crit.tolist() if i not in has_pred), key=lambda i: pos[i])
-    return succ, starts, pos
+    return succ, starts, pos, {}   # the dict remembers max-weight paths per weights
 
 
 def critical_paths(sched: Schedule, offsets: np.ndarray, limit: int = MAX_PATHS, graph=None):
@@ -236,7 +236,7 @@ def critical_paths(sched: Schedule, offsets: np.ndarray, limit: int = MAX_PATHS,
     costs linear time; each branch ends at the project finish, so the walk stops after
     ``limit`` paths.
     """
-    succ, starts, pos = graph or _critical_graph(sched, offsets)
+    succ, starts, pos, _ = graph or _critical_graph(sched, offsets)
     children = {s: sorted(t, key=lambda i: pos[i]) for s, t in succ.items()}
     ids = sched.network.ids
     paths: list[list[str]] = []
@@ -269,12 +269,23 @@ def max_weight_indices(sched: Schedule, weights: np.ndarray) -> list[int]:
     net = sched.network
     if sched.graph is None:
         sched.graph = _critical_graph(sched, net.link_offsets(sched.durations))
-    succ, starts, pos = sched.graph
+    succ, starts, pos, memo = sched.graph
     if not starts:
         return []
-    crit = np.flatnonzero(sched.critical)
+    w = np.asarray(weights, dtype=float)
+    if "weights" in memo and np.array_equal(memo["weights"], w):
+        return list(memo["path"])
+    memo["path"] = _heaviest(succ, starts, pos, sched.critical, w)
+    memo["weights"] = w.copy()
+    return list(memo["path"])
+
+
+def _heaviest(succ, starts, pos, critical, weights) -> list[int]:
+    """Dynamic programme over the critical subgraph, successors first; ties go to the
+    earlier activity in topological order."""
+    crit = np.flatnonzero(critical)
     crit = crit[np.argsort(-pos[crit], kind="stable")].tolist()   # successors first
-    w = dict(zip(crit, np.asarray(weights, dtype=float)[crit].tolist()))
+    w = dict(zip(crit, weights[crit].tolist()))
     rank = dict(zip(crit, pos[crit].tolist()))
     best: dict[int, float] = {}
     nxt: dict[int, int | None] = {}
