@@ -40,11 +40,11 @@ def demo_plan() -> Plan:
 
 
 def first_plan(window, argv_paths: list[str]) -> None:
-    """Open what the window starts with: the argument, recovered work, the last plan, the demo."""
-    if argv_paths:
-        if window.files.open_path(argv_paths[0], ask=False):
-            return
+    """Open what the window starts with: recovered work if the planner wants it back, else
+    the file argument, else the last plan, else the demo."""
     if window.files.offer_recovery():
+        return
+    if argv_paths and window.files.open_path(argv_paths[0], ask=False):
         return
     last = QSettings().value("files/last")
     if isinstance(last, str) and last and Path(last).exists() and window.files.open_path(last, ask=False):
