@@ -41,6 +41,15 @@ class NetworkView(QWidget):
 
     # --- widgets ---------------------------------------------------------
     def _build(self) -> None:
+        self._build_toolbar()
+        self._build_canvas()
+        box = QVBoxLayout(self)
+        box.setContentsMargins(4, 4, 4, 4)
+        box.addWidget(self.toolbar)
+        box.addWidget(self.message)
+        box.addWidget(self.graphics, 1)
+
+    def _build_toolbar(self) -> None:
         self.find_field = QLineEdit(placeholderText="Find id or name \u21b5")
         self.find_field.setClearButtonEnabled(True)
         self.find_field.returnPressed.connect(self.find_next)
@@ -60,6 +69,8 @@ class NetworkView(QWidget):
         for w in (self.find_field, self.fit_button, self.time_box, self.band_box, export, printing):
             bar.addWidget(w)
         bar.setStretch(0, 1)
+
+    def _build_canvas(self) -> None:
         self.message = QLabel(alignment=Qt.AlignCenter, wordWrap=True)
         self.message.hide()
         self.graphics = pg.GraphicsView(background="w")
@@ -72,11 +83,6 @@ class NetworkView(QWidget):
         for key, direction in ((Qt.Key_Left, "left"), (Qt.Key_Right, "right"), (Qt.Key_Up, "up"), (Qt.Key_Down, "down")):
             shortcut = QShortcut(QKeySequence(key), self.graphics, context=Qt.WidgetWithChildrenShortcut)
             shortcut.activated.connect(lambda d=direction: self.move_selection(d))
-        box = QVBoxLayout(self)
-        box.setContentsMargins(4, 4, 4, 4)
-        box.addWidget(self.toolbar)
-        box.addWidget(self.message)
-        box.addWidget(self.graphics, 1)
 
     # --- content ---------------------------------------------------------
     def refresh(self) -> None:
