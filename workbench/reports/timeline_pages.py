@@ -80,6 +80,6 @@ def _heading(ctx, geo, rows, window, k: int, count: int) -> str:
     if count == 1:
         return "Timeline"
     cal = ctx.analysis.calendar
-    span = f"{format_date(cal.start_date(max(window[0], 0.0)))} to {format_date(cal.finish_date(max(window[1], 0.0)))}"
+    span = f"{format_date(cal.start_date(window[0]))} to {format_date(cal.start_date(window[1]))}"
     text = (f"Timeline ({k + 1} of {count}): rows {rows[0] + 1}-{rows[1]} of {geo.n_rows}, {span}")
     return para(text)
