@@ -54,6 +54,8 @@ class OddsView(QWidget):
         self.splitter.setStretchFactor(0, 1)
         self.splitter.setStretchFactor(1, 0)
         self.splitter.setChildrenCollapsible(False)
+        self._user_split = False
+        self.splitter.splitterMoved.connect(lambda *_: setattr(self, "_user_split", True))
         lay = QHBoxLayout(self)
         lay.setContentsMargins(2, 2, 2, 2)
         lay.addWidget(self.splitter)
@@ -287,6 +289,12 @@ class OddsView(QWidget):
             self._show_simulation()
             return
         self.session.set_simulation(result)
+
+    def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        if not self._user_split:  # the panel takes ~30 % (400–600 px) until the user drags
+            side = max(400, min(600, int(0.3 * self.width())))
+            self.splitter.setSizes([max(1, self.width() - side), side])
 
     def _on_run_cancelled(self) -> None:
         self.controls.set_done(False)
