@@ -4,6 +4,7 @@ import datetime as dt
 
 import numpy as np
 import pytest
+from PySide6.QtCore import QPointF
 from scipy.stats import norm
 
 from workbench.core.commands import EditActivity, SetPredecessors
@@ -194,3 +195,22 @@ def test_loading_another_plan_opens_on_its_deadline(view):
     assert view.dates[0] == pytest.approx(440.0)      # the new PERT mean, ten times longer
     lo, hi = view.plot.density.viewRange()[0]
     assert lo > 300 and hi < 600                      # the axis follows the new curve
+
+
+def _pixel(view, x, y):
+    vb = view.plot.density.getViewBox()
+    scene = vb.mapViewToScene(QPointF(x, y))
+    point = view.plot.mapFromScene(scene)
+    return view.plot.grab().toImage().pixelColor(point.x(), point.y()).name()
+
+
+def test_shading_is_orange_left_of_the_date_and_clear_right_of_it(view, qtbot):
+    view.show()
+    qtbot.waitExposed(view)
+    view.plot.markers[0].setValue(45.0)
+    height = 0.3 * norm.pdf(44, 44, 3)
+    assert _pixel(view, 42.5, height) == "#e69f00"        # under the curve, before the date
+    assert _pixel(view, 46.5, height) == "#ffffff"        # under the curve, after the date
+    view.set_mode("after")
+    assert _pixel(view, 42.5, height) == "#ffffff"
+    assert _pixel(view, 46.5, height) == "#e69f00"

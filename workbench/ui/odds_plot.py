@@ -70,7 +70,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                                          brush=_colour(style.CRITICAL, 90),
                                          name="Simulation answer")
         self.pert_shade = pg.PlotDataItem(pen=pg.mkPen(None), fillLevel=0.0,
-                                          brush=_colour(style.PROBABILITY, 150), name="PERT answer")
+                                          brush=_colour(style.PROBABILITY), name="PERT answer")
         self.pert_curve = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT curve")
         for item in (self.pert_shade, self.hist, self.sim_shade, self.pert_curve):
             d.addItem(item)
