@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import datetime as dt
 import math
+import re
 from dataclasses import dataclass, field, replace
 from typing import Callable, Iterable
 
@@ -18,6 +19,7 @@ UNITS = ("days", "weeks")
 DISTRIBUTIONS = ("beta-pert", "triangular", "uniform", "normal", "fixed")
 
 _PLAIN = (float, int)  # number types accepted as they are (bool is not one of them)
+_BAD_ID = re.compile("[;,\n\t]")
 
 Offset = float | dt.date  # a constraint or deadline: plan-unit offset or a calendar date
 
@@ -52,8 +54,26 @@ class Activity:
     start_no_earlier: Offset | None = None
     finish_no_later: Offset | None = None
 
+    def _plainly_valid(self) -> bool:
+        """The common case, checked cheaply: a clean id, plain finite numbers in order."""
+        i, a, m, b, d = self.id, self.optimistic, self.most_likely, self.pessimistic, self.duration
+        if type(i) is not str or not i or i != i.strip() or _BAD_ID.search(i):
+            return False
+        if self.start_no_earlier is not None or self.finish_no_later is not None:
+            return False
+        if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
+            return False
+        if d is not None and not (type(d) in _PLAIN and 0 <= d < math.inf):
+            return False
+        if a is None and m is None and b is None:
+            return d is not None
+        return (type(a) in _PLAIN and type(m) in _PLAIN and type(b) in _PLAIN
+                and 0 <= a <= m <= b < math.inf)
+
     def validated(self) -> "Activity":
         """Return self if valid, else raise PlanError naming the activity and field."""
+        if self._plainly_valid():
+            return self
         if not isinstance(self.id, str) or not self.id.strip():
             raise PlanError("an activity has an empty id", "id")
         if self.id != self.id.strip() or any(c in self.id for c in ";,\n\t"):
