@@ -128,7 +128,7 @@ def test_edit_marks_results_stale(view, qtbot):
     _run(view, qtbot)
     view.session.push(EditActivity("C", pessimistic=30.0))
     assert view.session.simulation is None and view.stale
-    assert "Stale" in view.controls.status.text()
+    assert "Stale" in view.controls.status.text() and view.controls.progress.value() == 0
     assert not view.panel.compare_box.isEnabled()
     assert view.plot.hist.opts["pen"].color().name() == "#9a9a9a"
     _run(view, qtbot, seed=12)
@@ -141,7 +141,7 @@ def test_run_overtaken_by_an_edit_is_not_stored(view, qtbot):
         view.controls.button.click()
         view.session.push(EditActivity("A", name="changed while running"))
     assert view.session.simulation is None
-    assert view.stale and view.result is not None
+    assert view.stale and view.result is not None and view.controls.progress.value() == 0
 
 
 def test_zero_variance_plan_shows_a_certain_finish(qtbot):

@@ -73,7 +73,6 @@ class OddsView(QWidget):
         self.runner.running_changed.connect(self.controls.set_running)
         self.runner.progress.connect(self.controls.set_progress)
         self.runner.finished.connect(self._on_run_finished)
-        self.runner.finished.connect(lambda _: self.controls.set_done(True))
         self.runner.cancelled.connect(self._on_run_cancelled)
         self.runner.failed.connect(self._on_run_failed)
 
@@ -143,8 +142,10 @@ class OddsView(QWidget):
         r = self.result
         if r is None:
             self.controls.set_status("No simulation yet: press Run to compare PERT with a Monte Carlo run.")
+            self.controls.set_done(False)
         elif self.stale:
             self.controls.set_status("Stale: the plan changed since this run (shown in grey). Run again.", True)
+            self.controls.set_done(False)
         else:
             self.controls.set_status(f"{len(r.finish):,} iterations, seed {getattr(r, 'seed', None)}.")
             self.controls.set_done(True)
