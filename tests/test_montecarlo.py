@@ -152,6 +152,8 @@ def test_cancel_raises_and_progress_is_reported():
         simulate(r1_plan(), 5000, seed=1, block_size=1000, progress=lambda d, t: calls.append((d, t)),
                  cancel=lambda: len(calls) >= 2)
     assert calls == [(1024, 10000), (2048, 10000)]
+    # nothing is left behind: a later run is the same as one in a fresh process would be
+    assert np.array_equal(simulate(r1_plan(), 300, seed=1).finish, simulate(r1_plan(), 300, seed=1, block_size=64).finish)
     seen = []
     simulate(r1_plan(), 1000, seed=1, block_size=512, progress=lambda d, t: seen.append((d, t)))
     assert seen == [(512, 2000), (1000, 2000), (1512, 2000), (2000, 2000)]
@@ -204,6 +206,15 @@ def test_percentile_interval_covers_a_known_quantile():
     plan = Plan(Settings(start=MONDAY), [Activity("U", optimistic=0, most_likely=50, pessimistic=100, distribution="uniform")])
     hits = sum(lo <= 80 <= hi for lo, hi in (simulate(plan, 400, seed=s).percentile_interval(80) for s in range(40)))
     assert hits >= 34  # binomial(40, 0.95): P(hits < 34) < 0.01
+
+
+def test_deadline_as_a_date_uses_the_plan_calendar():
+    plan = r1_plan()                       # weeks, starting Monday 2027-01-04
+    by_date = simulate(plan, 2000, seed=6, deadline=dt.date(2027, 11, 26))
+    # 2027-11-26 is a Friday: the end of week 47 counted from the start (WorkCalendar.offset_through)
+    assert by_date.deadline == pytest.approx(47.0)
+    assert by_date.to_dict()["deadline_date"] == "2027-11-26"
+    assert by_date.prob_by(47) == simulate(plan, 2000, seed=6, deadline=47).prob_by(47)
 
 
 def test_to_dict_is_json_with_the_contract_keys():
