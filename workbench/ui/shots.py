@@ -13,6 +13,7 @@ import tempfile
 from pathlib import Path
 
 SIZE = (1920, 1080)
+SEED = 20270301
 VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png"}
 
 
@@ -25,8 +26,20 @@ def _grab(widget, path: Path, app) -> None:
     widget.resize(*SIZE)
     widget.show()
     _settle(app)
+    fit = getattr(widget, "fit_all", None)
+    if callable(fit):  # a chart shows the whole plan, as after "Fit all"
+        fit()
+        _settle(app)
     if not widget.grab().save(str(path)):
         raise OSError(f"could not write {path}")
+
+
+def _simulate(session, seed: int = SEED, iterations: int = 10_000) -> None:
+    """Views are shown with a simulation at a fixed seed, so shots are repeatable."""
+    from workbench.core.montecarlo import simulate
+
+    if session.analysis is not None:
+        session.set_simulation(simulate(session.plan, iterations, seed=seed))
 
 
 def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
@@ -45,6 +58,7 @@ def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
         window.session.load(demo_plan())
     written = [outdir / "main.png"]
     _grab(window, written[0], app)
+    _simulate(window.session)
     for title, module, cls, _promise in VIEWS:
         view = make_view(module, cls, window.session)
         if view is not None:
