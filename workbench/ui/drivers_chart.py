@@ -59,11 +59,21 @@ class DriversChart(pg.PlotWidget):
         item = self.getPlotItem()
         item.setXRange(lo, hi, padding=0.0)
         item.setYRange(-max(1, len(bars)) + 0.4, 0.6, padding=0.02)
-        ticks = [(r.y, _elide(r.bar.label)) for r in self.rects]
-        left = item.getAxis("left")
-        left.setTicks([ticks, []])
+        self._set_row_labels()
+
+    def _set_row_labels(self) -> None:
+        """Row labels elided to fit about 35 % of the chart's width, so the bars keep room."""
         metrics = QFontMetrics(self._font)
+        room = max(6, int(0.35 * self.width() / max(1, metrics.averageCharWidth())))
+        ticks = [(r.y, _elide(r.bar.label, min(42, room))) for r in self.rects]
+        left = self.getPlotItem().getAxis("left")
+        left.setTicks([ticks, []])
         left.setWidth(24 + max((metrics.horizontalAdvance(t) for _, t in ticks), default=40))
+
+    def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        if getattr(self, "_font", None) is not None and self.__dict__.get("rects"):
+            self._set_row_labels()
 
     def _split(self, folded: bool):
         rs = [r for r in self.rects if r.bar.is_folded == folded]

@@ -31,10 +31,10 @@ class DriversView(QWidget):
         self.placeholder = QLabel(PLACEHOLDER)
         self.placeholder.setWordWrap(True)
         self.placeholder.setStyleSheet("font-size: 16pt; color: #555555; padding: 40px;")
-        self.criticality = DriversChart("Criticality index: share of iterations on the critical path",
-                                        "criticality index (0 – 1)", signed=False)
-        self.sensitivity = DriversChart("Sensitivity: correlation of duration with the finish",
-                                        "correlation (− earlier finish · + later finish)", signed=True)
+        self.criticality = DriversChart("Criticality index",
+                                        "share of iterations critical", signed=False)
+        self.sensitivity = DriversChart("Sensitivity",
+                                        "correlation with the finish", signed=True)
         for chart in (self.criticality, self.sensitivity):
             chart.activity_clicked.connect(lambda act_id: self.session.select([act_id]))
         self.top = QSpinBox()
