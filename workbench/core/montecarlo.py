@@ -147,10 +147,7 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     (activities × iterations; for small runs and charts).
     """
     iterations = _check_iterations(iterations)
-    if seed is None:
-        seed = int(np.random.SeedSequence().entropy)
-    if isinstance(seed, bool) or not isinstance(seed, (int, np.integer)) or seed < 0:
-        raise PlanError(f"seed must be a non-negative whole number, not {seed!r}", "seed")
+    seed = _check_seed(seed)
     mc = MonteCarlo(plan, distribution, deadline)
     keep_heap()
     n = mc.net.size
@@ -159,13 +156,27 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
         raise PlanError(f"block size must be positive, not {block_size!r}", "block_size")
     stream = ScoreStream(seed, mc.durations.uncertain.size, mc.correlation, mc.risks.size)
     acc = Accumulators(n, mc.durations.uncertain.size, mc.means, mc.schedule.finish)
-    finish = np.empty(iterations)
     kept = np.empty((n, iterations)) if keep_durations else None
     tick = _Ticker(progress, cancel, 2 * iterations)
+    finish = _main_pass(mc, stream, acc, iterations, block, tick, kept)
+    _sensitivity_pass(mc, stream, acc, finish, block, tick)
+    return SimulationResult.build(mc, seed, finish, acc, block, kept)
+
+
+def _check_seed(seed) -> int:
+    if seed is None:
+        return int(np.random.SeedSequence().entropy)
+    if isinstance(seed, bool) or not isinstance(seed, (int, np.integer)) or seed < 0:
+        raise PlanError(f"seed must be a non-negative whole number, not {seed!r}", "seed")
+    return int(seed)
+
+
+def _main_pass(mc, stream, acc, iterations, block, tick, kept) -> np.ndarray:
+    """Schedule every block; keep the finishes; add per-chunk sums in chunk order."""
+    finish = np.empty(iterations)
     for first, count, lo, hi in _chunks(iterations, block):
         tick.check()
-        scores, occ, dsc = stream.block(first, count)
-        d, fin, crit, fired, delay = mc.run_block(scores, occ, dsc)
+        d, fin, crit, fired, delay = mc.run_block(*stream.block(first, count))
         finish[lo:hi] = fin[: hi - lo]
         if kept is not None:
             kept[:, lo:hi] = d[:, : hi - lo]
@@ -175,8 +186,7 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
             if fired is not None:
                 mc.risks.record(fired[:, sl], delay[:, sl], fin[sl])
         tick.advance(hi - lo)
-    _sensitivity_pass(mc, stream, acc, finish, block, tick)
-    return SimulationResult.build(mc, seed, finish, acc, block, kept)
+    return finish
 
 
 def _sensitivity_pass(mc, stream, acc, finish, block, tick) -> None:
