@@ -112,6 +112,11 @@ def test_rerun_after_duration_change_matches_a_fresh_compile():
     for field in ("es", "ls", "total_float", "free_float", "critical"):
         np.testing.assert_array_equal(getattr(again, field), getattr(fresh, field))
     assert again.paths == fresh.paths and again.finish == fresh.finish
+    from workbench.core.pert import pert_odds
+    variances = ((net["pessimistic"] - net["optimistic"]) / 6.0) ** 2
+    for _ in range(2):   # the second call is answered from the remembered path
+        assert pert_odds(again, variances) == pert_odds(fresh, variances)
+    assert pert_odds(again, variances * 0 + 1).path == pert_odds(fresh, variances * 0 + 1).path
 
 
 def test_two_dimensional_durations_match_column_by_column():

@@ -5,6 +5,7 @@ rules of precedence diagramming (common practice) checked one link at a time.
 """
 
 import datetime as dt
+import os
 
 import networkx as nx
 import numpy as np
@@ -18,7 +19,9 @@ from workbench.core.calendar import WorkCalendar
 TOL = 1e-7
 TYPES = ("FS", "SS", "FF", "SF")
 MONDAY = dt.date(2027, 1, 4)
-FAST = settings(max_examples=120, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+# SLACKLINE_EXAMPLES=2000 runs a deeper search than the default.
+EXAMPLES = int(os.environ.get("SLACKLINE_EXAMPLES", "120"))
+FAST = settings(max_examples=EXAMPLES, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 
 
 @st.composite
@@ -141,7 +144,7 @@ def test_fs_duration_equals_networkx_longest_path(plan):
     assert abs(analyze(plan).schedule.finish - nx.dag_longest_path_length(graph)) <= TOL
 
 
-@settings(max_examples=25, deadline=None)
+@settings(max_examples=max(25, EXAMPLES // 5), deadline=None)
 @given(st.integers(0, 10_000), st.integers(20, 400), st.integers(1, 4))
 def test_layered_network_matches_networkx(seed, n, preds):
     # Reference: networkx.dag_longest_path_length on te weights, generated FS networks.
@@ -156,7 +159,7 @@ def test_layered_network_matches_networkx(seed, n, preds):
     _check_paths(to_plan(net), s)
 
 
-@settings(max_examples=15, deadline=None)
+@settings(max_examples=max(15, EXAMPLES // 8), deadline=None)
 @given(st.integers(0, 10_000), st.integers(20, 300))
 def test_layered_network_with_all_link_types(seed, n):
     net = layered_network(n, seed=seed, link_types=True)
