@@ -214,3 +214,12 @@ def test_shading_is_orange_left_of_the_date_and_clear_right_of_it(view, qtbot):
     view.set_mode("after")
     assert _pixel(view, 42.5, height) == "#ffffff"
     assert _pixel(view, 46.5, height) == "#e69f00"
+
+
+def test_progress_reaches_the_window_while_the_worker_runs(view, qtbot):
+    seen = []
+    view.runner.progress.connect(lambda done, total: seen.append((done, total, view.controls.progress.value())))
+    _run(view, qtbot, iterations=12_000)
+    assert len(seen) >= 2                                   # the event loop ran during the run
+    assert [d for d, _, _ in seen] == sorted(d for d, _, _ in seen) and seen[-1][0] == seen[-1][1]
+    assert view.controls.progress.value() == 100 and view.controls.button.text() == "Run simulation"

@@ -57,7 +57,9 @@ class OddsRunner(QObject):
         super().__init__(parent)
         self.pool = QThreadPool(self)
         self.pool.setMaxThreadCount(1)
-        self._signals = _Signals(self)
+        # No parent: a job still running when the runner goes away keeps its own reference,
+        # and Qt drops the queued connections to the deleted runner.
+        self._signals = _Signals()
         self._signals.progress.connect(self._on_progress)
         self._signals.finished.connect(self._on_finished)
         self._signals.cancelled.connect(self._on_cancelled)

@@ -7,7 +7,7 @@ All numbers come from ``workbench.core`` (analysis, simulation) through the geom
 
 from __future__ import annotations
 
-from PySide6.QtCore import Qt
+from PySide6.QtCore import QCoreApplication, Qt
 from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QSplitter, QWidget
 
 from workbench.figures import odds as fo
@@ -70,6 +70,9 @@ class OddsView(QWidget):
         self.panel.confidence_requested.connect(self.ask_confidence)
         self.controls.run_requested.connect(self.run_simulation)
         self.controls.stop_requested.connect(self.runner.stop)
+        app = QCoreApplication.instance()
+        if app is not None:  # quitting must not wait for a long run to finish
+            app.aboutToQuit.connect(self.runner.stop)
         self.runner.running_changed.connect(self.controls.set_running)
         self.runner.progress.connect(self.controls.set_progress)
         self.runner.finished.connect(self._on_run_finished)
