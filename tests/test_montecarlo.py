@@ -68,14 +68,17 @@ def test_long_chain_mean_is_the_sum_of_te():
 
 def test_two_identical_parallel_chains_follow_clark():
     # Clark 1961 (R5): max of two independent N(μ, σ²) has mean μ + σ/√π, variance σ²(1 − 1/π).
-    # Each chain is one normal activity: te = 100, sd = (b − a)/6 = 10 (truncation negligible).
-    acts = [Activity(x, optimistic=70, most_likely=100, pessimistic=130, distribution="normal") for x in "PQ"]
+    # Each chain is two normal activities (te = 50, sd = (b − a)/6 = 5; truncation at zero is
+    # 10 sd away), so a chain is exactly normal with μ = 100, σ² = 50.
+    acts = [Activity(x, optimistic=35, most_likely=50, pessimistic=65, distribution="normal") for x in ("P1", "P2", "Q1", "Q2")]
     acts.append(Activity("End", duration=0))
-    plan = Plan(Settings(start=MONDAY), acts, [Link("P", "End"), Link("Q", "End")])
-    res = simulate(plan, 40_000, seed=21)
-    assert abs(res.mean - (100 + 10 / math.sqrt(math.pi))) < 4 * res.mean_stderr
-    assert res.sd ** 2 == pytest.approx(100 * (1 - 1 / math.pi), rel=0.04)
-    assert res.criticality[:2] == pytest.approx([0.5, 0.5], abs=0.02)
+    links = [Link("P1", "P2"), Link("Q1", "Q2"), Link("P2", "End"), Link("Q2", "End")]
+    res = simulate(Plan(Settings(start=MONDAY), acts, links), 40_000, seed=21)
+    sigma = math.sqrt(50)
+    assert abs(res.mean - (100 + sigma / math.sqrt(math.pi))) < 4 * res.mean_stderr
+    assert res.sd ** 2 == pytest.approx(50 * (1 - 1 / math.pi), rel=0.04)
+    assert res.criticality[:4] == pytest.approx([0.5] * 4, abs=0.02)
+    assert res.merge_bias > 0.9 * sigma / math.sqrt(math.pi)
 
 
 def test_kleindorfer_bounds_hold_on_r1():
