@@ -60,7 +60,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         return plot
 
     def _make_items(self) -> None:
-        d, c = self.density, self.cumulative
+        d, c = self.density, self.cumulative  # density items here, cumulative ones below
         self.legend = d.addLegend(offset=(-10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
                                   brush=pg.mkBrush(255, 255, 255, 220))
         self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 2.0), fillLevel=0.0,
@@ -78,6 +78,9 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                                        label="certain finish", labelOpts={"position": 0.9})
         self.certain.setVisible(False)
         d.addItem(self.certain)
+        self._make_cumulative_items(c)
+
+    def _make_cumulative_items(self, c: pg.PlotItem) -> None:
         self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
         self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
         self.cum_legend = c.addLegend(offset=(-10, -10), labelTextSize="10pt", labelTextColor=style.TEXT,
