@@ -197,10 +197,10 @@ def _sensitivity_pass(mc, stream, acc, finish, block, tick) -> None:
     acc.var_rank = float(np.mean(rank * rank))
     for first, count, lo, hi in _chunks(iterations, block):
         tick.check()
-        scores, _, _ = stream.block(first, count, with_risks=False)
-        for c0 in range(0, hi - lo, CHUNK):
-            c1 = min(c0 + CHUNK, hi - lo)
-            acc.add_pass2(scores[:, c0:c1], rank[lo + c0: lo + c1])
+        for j, scores in enumerate(stream.chunks(first, count)):
+            c0 = lo + j * CHUNK
+            c1 = min(c0 + CHUNK, hi)
+            acc.add_pass2(scores[:, : c1 - c0], rank[c0:c1])
         tick.advance(hi - lo)
 
 

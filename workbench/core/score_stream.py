@@ -33,6 +33,13 @@ class ScoreStream:
         if corr is not None and corr.active:
             corr.apply(out, rng.standard_normal((corr.rows.size, CHUNK)))
 
+    def chunks(self, first_chunk: int, chunks: int):
+        """The activities' scores chunk by chunk (one reused buffer; no risk draws)."""
+        buf = np.empty((self.activities, CHUNK))
+        for j in range(chunks):
+            self._scores(self._generator(first_chunk + j), buf)
+            yield buf
+
     def block(self, first_chunk: int, chunks: int, with_risks: bool = True):
         """Scores (activities, chunks·CHUNK) and, if asked, risk occurrence and delay scores."""
         width = chunks * CHUNK
