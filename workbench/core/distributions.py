@@ -29,13 +29,30 @@ def check_family(name, culprit: str, what: str) -> str:
     return name
 
 
-def _check_estimate(a: float, m: float, b: float, culprit: str, what: str) -> None:
-    values = (a, m, b)
-    if not all(isinstance(v, (int, float)) and not isinstance(v, bool) and np.isfinite(v) for v in values):
-        raise PlanError(f"{what}: the three-point estimate must be three finite numbers, not {values}", culprit)
-    if min(values) < 0 or not a <= m <= b:
-        raise PlanError(f"{what}: estimates must satisfy 0 \u2264 optimistic {a:g} \u2264 most likely {m:g} "
-                        f"\u2264 pessimistic {b:g}", culprit)
+def _is_number(v) -> bool:
+    return isinstance(v, (int, float, np.floating, np.integer)) and not isinstance(v, bool) and bool(np.isfinite(v))
+
+
+def _check_rows(families, a, m, b, names, what: str) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Validate all rows at once; the first bad one is named in a PlanError."""
+    unknown = [i for i, f in enumerate(families) if f not in DISTRIBUTIONS]
+    if unknown:
+        check_family(families[unknown[0]], names[unknown[0]], f"{what} {names[unknown[0]]}")
+    try:
+        arrays = tuple(np.asarray(v, dtype=float).reshape(len(families)) for v in (a, m, b))
+    except (TypeError, ValueError):
+        arrays = None
+    if arrays is None or not all(np.isfinite(x).all() for x in arrays):
+        i = next(i for i in range(len(families)) if not all(_is_number(v) for v in (a[i], m[i], b[i])))
+        raise PlanError(f"{what} {names[i]}: the three-point estimate must be three finite numbers, "
+                        f"not {(a[i], m[i], b[i])}", names[i])
+    x, y, z = arrays
+    bad = np.flatnonzero((x < 0) | (x > y) | (y > z))
+    if bad.size:
+        i = int(bad[0])
+        raise PlanError(f"{what} {names[i]}: estimates must satisfy 0 \u2264 optimistic {x[i]:g} \u2264 most likely "
+                        f"{y[i]:g} \u2264 pessimistic {z[i]:g}", names[i])
+    return arrays
 
 
 class DurationModel:
@@ -44,11 +61,8 @@ class DurationModel:
     def __init__(self, families, a, m, b, names=None, what="activity"):
         n = len(families)
         names = list(names) if names is not None else [str(i) for i in range(n)]
-        for i in range(n):
-            check_family(families[i], names[i], f"{what} {names[i]}")
-            _check_estimate(a[i], m[i], b[i], names[i], f"{what} {names[i]}")
+        self.a, self.m, self.b = _check_rows(list(families), a, m, b, names, what)
         self.names = names
-        self.a, self.m, self.b = (np.asarray(v, dtype=float).reshape(n) for v in (a, m, b))
         self.te = (self.a + 4.0 * self.m + self.b) / 6.0
         fam = np.array(families, dtype=object)
         self.family = np.where(self.b - self.a <= 0.0, "fixed", fam).astype(object) if n else fam
@@ -64,7 +78,6 @@ class DurationModel:
         default = check_family(distribution or plan.settings.distribution, "distribution", "settings")
         fams, a, m, b, names = [], [], [], [], []
         for act in plan.activities:
-            act.validated()
             fams.append(act.distribution or default)
             if act.has_estimate:
                 a.append(act.optimistic), m.append(act.most_likely), b.append(act.pessimistic)
