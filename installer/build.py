@@ -59,6 +59,20 @@ def run_pyinstaller(clean: bool) -> float:
     return time.perf_counter() - started
 
 
+def strip_interpreter(folder: Path) -> int:
+    """Drop the debug sections of the bundled Python itself (libpython and its extension
+    modules, often built with them); other libraries are left alone (stripping wheel
+    libraries rewritten by auditwheel can break them). Returns the bytes saved."""
+    strip = shutil.which("strip")
+    internal = folder / "_internal"
+    targets = list(internal.glob("libpython3*.so*")) + list(internal.glob("python3*/lib-dynload/*.so"))
+    if not strip or not targets:
+        return 0
+    before = sum(p.stat().st_size for p in targets)
+    subprocess.run([strip, "--strip-debug", *map(str, targets)], check=True)
+    return before - sum(p.stat().st_size for p in targets)
+
+
 def package_linux(folder: Path) -> Path:
     machine = os.uname().machine
     archive = DIST / f"Slackline-{version()}-linux-{machine}.tar.gz"
@@ -102,6 +116,7 @@ def main(argv: list[str] | None = None) -> int:
     folder = app_folder()
     if sys.platform.startswith("linux"):  # the installer script travels inside the folder too
         shutil.copy2(INSTALLER / "linux" / "install.sh", folder / "install.sh")
+        print(f"stripped {strip_interpreter(folder) / 2**20:.0f} MiB of debug data from the bundled Python")
     print(f"built {folder.relative_to(ROOT)} in {seconds:.0f} s; {folder_size(folder) / 2**20:.0f} MiB")
     if args.package:
         out = package(folder)

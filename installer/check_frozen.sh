@@ -96,6 +96,8 @@ if echo "$MAPS" | grep -E -q "$ROOT/|/usr/lib/python3|/usr/local/lib/python3"; t
   echo "$MAPS" | grep -E "$ROOT/|/usr/lib/python3|/usr/local/lib/python3" | head -n 5 >&2
   fail "the launcher mapped files of the build machine's Python or source tree"
 fi
+[ -s "$WORK/gui.txt" ] && sed 's/^/      launcher said: /' "$WORK/gui.txt" | head -n 5
+grep -q "QFontDatabase" "$WORK/gui.txt" "$WORK/selftest.txt" && fail "Qt found no fonts (see the lines above)"
 grep -q Traceback "$WORK/gui.txt" && { cat "$WORK/gui.txt"; fail "the windowed launcher printed a traceback"; }
 ok "windowed launcher up for 12 s on a plan, only bundled Python and Qt mapped ($(since "$T") s)"
 
