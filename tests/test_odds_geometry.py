@@ -199,3 +199,12 @@ def test_geometry_agrees_with_a_real_simulation():
     assert between == pytest.approx(result.prob_between(lo, hi), abs=1e-12)
     after = fo.sim_probability(result, fo.Question("after", 44.0))
     assert after == pytest.approx(1.0 - result.prob_by(44.0)[0], abs=1e-12)
+
+
+def test_curve_height_follows_the_density():
+    lo, hi = fo.axis_span(R1)
+    curve = fo.pert_curve(R1, lo, hi)
+    assert fo.curve_height(curve, 47.0) == pytest.approx(norm.pdf(47, 44, 3), rel=1e-3)
+    assert fo.curve_height(curve, hi + 5) == 0.0
+    step = fo.pert_curve(PertOdds(5.0, 0.0, ("A",)), 0, 10)
+    assert fo.curve_height(step, 5.0) == 0.0

@@ -84,6 +84,9 @@ def test_typed_confidence_marks_its_date(view):
     day = fo.format_date(view.analysis.calendar.finish_date(x))
     assert day in view.panel.inverse.text() and f"<td>95 % date</td><td>{day}</td>" in view.panel.headline.text()
     assert view.plot.level.value() == pytest.approx(0.95)
+    (dx,), (dy,) = view.plot.answer_dot.getData()
+    assert dx == pytest.approx(x) and dy == pytest.approx(norm.pdf(x, 44, 3), rel=1e-3)
+    assert day in view.plot.answer_text.toPlainText()
 
 
 def test_bad_confidence_is_named_not_raised(view):

@@ -142,6 +142,13 @@ def pert_curve(odds, lo: float, hi: float, samples: int = 401) -> OddsCurve:
     return OddsCurve(x, dens, cum, float(odds.mean), float(odds.sd), False)
 
 
+def curve_height(curve: OddsCurve, x: float) -> float:
+    """The density drawn at ``x`` (zero off the curve and for a certain finish)."""
+    if curve.step:
+        return 0.0
+    return float(np.interp(x, curve.x, curve.density, left=0.0, right=0.0))
+
+
 def _clip(question: Question, lo: float, hi: float) -> tuple[float, float] | None:
     a, b = question.bounds()
     a, b = max(a, lo), min(b, hi)

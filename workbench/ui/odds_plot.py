@@ -78,6 +78,12 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                                        label="certain finish", labelOpts={"position": 0.9})
         self.certain.setVisible(False)
         d.addItem(self.certain)
+        self.answer_dot = pg.ScatterPlotItem(size=14, symbol="d", brush=_colour(style.BACKGROUND),
+                                             pen=_pen(style.TEXT, 2.5))
+        self.answer_text = pg.TextItem("", color=style.TEXT, anchor=(-0.15, 1.0), fill=(255, 255, 255, 220))
+        for item in (self.answer_dot, self.answer_text):
+            item.setZValue(15)
+            d.addItem(item)
         self._make_cumulative_items(c)
 
     def _make_cumulative_items(self, c: pg.PlotItem) -> None:
@@ -199,9 +205,14 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                 mirror.setValue(values[i])
                 line.label.setFormat(labels[i])
 
-    def set_answers(self, probability: float, pert_x, sim_x, labels: tuple[str, str]) -> None:
-        """The inverse question on the S-curve: a level line and the two dates."""
+    def set_answers(self, probability: float, pert_x, sim_x, labels: tuple[str, str],
+                    pert_y: float = 0.0) -> None:
+        """The inverse question: on the S-curve a level line and the two dates; on the
+        density curve a diamond at the PERT date."""
         self.level.setValue(probability)
+        self.answer_dot.setData([pert_x], [pert_y])
+        self.answer_text.setText(labels[0])
+        self.answer_text.setPos(pert_x, pert_y)
         for line, x, text in zip(self.answers, (pert_x, sim_x), labels):
             line.setVisible(x is not None)
             if x is not None:

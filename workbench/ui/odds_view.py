@@ -272,7 +272,7 @@ class OddsView(QWidget):
         pct = f"{100 * p:g} %"
         labels = (f"PERT {pct}: {fo.format_date(fo.date_of(a.calendar, pert_x))}",
                   f"Simulation {pct}: {fo.format_date(fo.date_of(a.calendar, sim_x))}" if live else "")
-        self.plot.set_answers(p, pert_x, sim_x, labels)
+        self.plot.set_answers(p, pert_x, sim_x, labels, fo.curve_height(self.curve, pert_x))
         self._answer_dates = [self._dates_at(q) for q in dict.fromkeys((p, 0.9))]
         lines = [f"<b>{pct}</b> — PERT: {labels[0].split(': ', 1)[1]} (offset {pert_x:.2f})"]
         if live:
