@@ -170,6 +170,12 @@ def test_metainfo_passes_appstream_validation():
     assert result.returncode == 0, result.stdout + result.stderr
 
 
+@pytest.mark.skipif(not shutil.which("desktop-file-validate"), reason="desktop-file-validate is not installed")
+def test_desktop_entry_passes_validation():
+    result = subprocess.run(["desktop-file-validate", str(LINUX / f"{APP_ID}.desktop")], capture_output=True, text=True)
+    assert result.returncode == 0 and "error" not in result.stdout, result.stdout + result.stderr
+
+
 def fake_app_folder(tmp_path: Path) -> Path:
     folder = tmp_path / "Slackline"
     resources = folder / "_internal" / "resources"
