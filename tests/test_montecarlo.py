@@ -246,6 +246,8 @@ def test_near_critical_paths_of_r1():
     ({"iterations": 2.5}, None, "iterations"),
     ({"iterations": 10, "distribution": "lognormal"}, None, "unknown distribution"),
     ({"iterations": 10, "seed": -1}, None, "seed"),
+    ({"iterations": 10, "deadline": "soon"}, None, "deadline"),
+    ({"iterations": 10, "deadline": float("inf")}, None, "deadline"),
     ({"iterations": 10}, Risk("Flood", "", 1.5, 1, 2, 3, ("A",)), "probability"),
     ({"iterations": 10}, Risk("Flood", "", 0.5, 1, 2, 3, ("Nowhere",)), "unknown activity 'Nowhere'"),
     ({"iterations": 10}, Risk("Flood", "", 0.5, 3, 2, 1, ("A",)), "estimates must satisfy"),

@@ -10,6 +10,7 @@ every index are described in docs/simulation.md.
 
 from __future__ import annotations
 
+import datetime as dt
 import functools
 
 import numpy as np
@@ -95,7 +96,7 @@ class MonteCarlo:
         self.correlation = CorrelationModel(plan.correlations, ids, self.durations.uncertain)
         self.risks = RiskModel(plan.risks, ids, family)
         chosen = plan.settings.deadline if deadline is None else deadline
-        self.deadline = self.calendar.resolve(chosen, finish=True)
+        self.deadline = self.calendar.resolve(_check_deadline(chosen), finish=True)
         self.means, self.variances = moments(plan)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
 
@@ -118,6 +119,14 @@ class MonteCarlo:
         ls -= es                                   # total float
         crit = ls <= (ref - finish + EPS)[None, :]
         return d, finish, crit, fired, delay
+
+
+def _check_deadline(value):
+    if value is None or isinstance(value, dt.date):
+        return value
+    if isinstance(value, bool) or not isinstance(value, (int, float, np.integer, np.floating)) or not np.isfinite(value):
+        raise PlanError(f"deadline must be an offset or a date, not {value!r}", "deadline")
+    return float(value)
 
 
 def _check_iterations(iterations) -> int:
