@@ -25,7 +25,7 @@ def spearman(durations, i, j):
 
 
 def test_rank_to_normal_map_inverts_the_bivariate_normal_spearman():
-    # Spearman of a bivariate normal with correlation r is (6/π)·arcsin(r/2) (Pearson 1907; Kruskal 1958).
+    # Spearman of a bivariate normal with correlation r is (6/π)·arcsin(r/2) (Pearson 1907; Kruskal 1958) [memory].
     for rho in (-0.9, -0.3, 0.0, 0.5, 0.8, 1.0):
         r = normal_from_rank(rho)
         assert 6 / np.pi * np.arcsin(r / 2) == pytest.approx(rho)
