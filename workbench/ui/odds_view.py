@@ -35,6 +35,7 @@ class OddsView(QWidget):
         self._offset_rows, self._answer_dates = [], []
         self._build()
         self._connect()
+        self.result = session.simulation   # a view opened after a run shows it at once
         self.refresh()
 
     # --- construction ----------------------------------------------------
