@@ -101,6 +101,16 @@ grep -q "QFontDatabase" "$WORK/gui.txt" "$WORK/selftest.txt" && fail "Qt found n
 grep -q Traceback "$WORK/gui.txt" && { cat "$WORK/gui.txt"; fail "the windowed launcher printed a traceback"; }
 ok "windowed launcher up for 12 s on a plan, only bundled Python and Qt mapped ($(since "$T") s)"
 
+# The Linux installer script, for this (empty) HOME: the app on PATH through a symlink.
+clean env XDG_DATA_HOME="$WORK/data" sh "$APP/install.sh" > /dev/null || fail "install.sh"
+OUT=$(clean "$WORK/home/.local/bin/slackline" --version) || fail "the installed slackline did not start"
+[ "$OUT" = "slackline $VERSION" ] || fail "the installed slackline said '$OUT'"
+grep -q "Exec=\"$WORK/data/slackline/slackline-gui\" %f" "$WORK/data/applications/org.slackline.Slackline.desktop" \
+  || fail "the installed menu entry does not run the installed copy"
+clean env XDG_DATA_HOME="$WORK/data" sh "$WORK/data/slackline/install.sh" --uninstall > /dev/null || fail "install.sh --uninstall"
+[ ! -e "$WORK/data/slackline" ] || fail "install.sh --uninstall left the app folder"
+ok "install.sh: installed for a user, ran through ~/.local/bin, uninstalled"
+
 # Start times: the frozen --version against the source tree's, alternating, three each.
 : > "$WORK/frozen.t"; : > "$WORK/source.t"
 for i in 1 2 3; do

@@ -202,6 +202,8 @@ def test_linux_install_script_installs_and_removes_for_this_user(tmp_path):
     assert (data / "mime" / "packages" / "slackline-workbook.xml").exists()
     assert (data / "icons" / "hicolor" / "48x48" / "apps" / f"{APP_ID}.png").exists()
     assert (data / "icons" / "hicolor" / "48x48" / "mimetypes" / "application-x-slackline-workbook.png").exists()
+    if shutil.which("update-mime-database"):  # the shared MIME database took the type and its glob
+        assert f"{MIME}:*.slw" in (data / "mime" / "globs2").read_text(encoding="utf-8")
     subprocess.run(["sh", str(folder / "install.sh"), "--uninstall"], env=env, check=True, capture_output=True)
     assert not installed.exists() and not (data / "applications" / f"{APP_ID}.desktop").exists()
     assert not (home / ".local" / "bin" / "slackline").exists()
