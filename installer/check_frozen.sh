@@ -50,6 +50,9 @@ for plugin in platforms/libqoffscreen.so platforms/libqxcb.so imageformats/libqs
   [ -f "$APP/_internal/PySide6/Qt/plugins/$plugin" ] || fail "Qt plugin $plugin is missing"
 done
 [ -d "$APP/_internal/resources/icons" ] || fail "resources/ is not bundled"
+if [ -f "$ROOT/resources/demo.slw" ]; then
+  cmp -s "$ROOT/resources/demo.slw" "$APP/_internal/resources/demo.slw" || fail "resources/demo.slw is not bundled (or is stale): rebuild"
+fi
 ok "Qt plugins (offscreen, xcb, svg image format and icon engine) and resources/ bundled"
 
 VERSION=$(sed -n 's/^__version__ = "\(.*\)"/\1/p' "$ROOT/workbench/__init__.py")

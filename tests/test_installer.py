@@ -287,7 +287,10 @@ def test_launcher_without_a_console_writes_messages_to_a_log(monkeypatch, tmp_pa
 
 
 def test_build_script_reads_the_package_version():
-    import build
+    import importlib.util
 
+    spec = importlib.util.spec_from_file_location("slackline_build", INSTALLER / "build.py")
+    build = importlib.util.module_from_spec(spec)  # not `import build`: a PyPI package has that name
+    spec.loader.exec_module(build)
     assert build.version() == workbench.__version__
     assert build.app_folder().parent == ROOT / "dist"
