@@ -135,3 +135,24 @@ def test_empty_plan():
     a = analyze(_plan([], []))
     assert a.schedule.finish == 0.0 and a.pert.path == ()
     assert a.finish_date == MONDAY
+
+
+def test_reanalysis_of_an_edited_plan_matches_a_fresh_one():
+    from benchmarks.random_networks import to_plan
+    from workbench.core import Link
+    plan = to_plan(layered_network(400, seed=11, link_types=True))
+    first = analyze(plan)
+    edits = [
+        lambda p: p.replace_activity("A17", p.activity("A17").with_(most_likely=40.0, pessimistic=60.0)),
+        lambda p: p.replace_activity("A200", p.activity("A200").with_(start_no_earlier=30.0)),
+        lambda p: p.set_links(p.links[:-5]),
+        lambda p: p.links.append(Link("A0", "A399", "FS", 500.0)),     # changed in place
+        lambda p: p.replace_activity("A3", p.activity("A3").with_(id="A3x")),
+    ]
+    for edit in edits:
+        edit(plan)
+        again, fresh = analyze(plan), analyze(plan.copy())
+        assert again.schedule.finish == fresh.schedule.finish
+        np.testing.assert_array_equal(again.schedule.total_float, fresh.schedule.total_float)
+        assert again.schedule.paths == fresh.schedule.paths and again.pert == fresh.pert
+    assert analyze(plan).schedule.finish >= 500.0 > first.schedule.finish

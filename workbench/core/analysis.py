@@ -119,12 +119,15 @@ def analyze(plan, deadline=None) -> Analysis:
 
     ``deadline`` (an offset or a date) overrides the plan's own deadline setting.
     Raises :class:`~workbench.core.errors.PlanError` (or CycleError) naming the culprit.
+    Re-analysing the same plan after edits that keep its ids and links (estimates, names,
+    constraints, settings) reuses the compiled network.
     """
     plan.settings.validated()
     calendar = WorkCalendar(plan.settings)
     chosen = plan.settings.deadline if deadline is None else deadline
     dl = calendar.resolve(chosen, finish=True)
-    analyzer = Analyzer.for_plan(plan, calendar)
+    analyzer = Analyzer.reusing(getattr(plan, "_analyzer", None), plan, calendar)
+    plan._analyzer = analyzer           # the next analysis of this plan starts from here
     means, variances = moments(plan)
     schedule = analyzer.run(means, deadline=dl)
     return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl)

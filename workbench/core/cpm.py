@@ -149,18 +149,25 @@ class Analyzer:
         self.floor = np.zeros(n) if floor is None else np.maximum(np.asarray(floor, float), 0.0)
         self.fnlt = np.full(n, np.inf) if fnlt is None else np.asarray(fnlt, float)
         self._cache: tuple | None = None   # (driving links, critical flags, graph, paths, truncated)
+        self.links: list | None = None     # the plan links compiled, when made by ``reusing``
 
     @classmethod
     def for_plan(cls, plan, calendar=None) -> "Analyzer":
-        net = compile_plan(plan)
-        floor = np.zeros(net.size)
-        fnlt = np.full(net.size, np.inf)
-        for i, act in enumerate(plan.activities):
-            if act.start_no_earlier is not None:
-                floor[i] = max(0.0, _resolve(calendar, act.start_no_earlier, finish=False))
-            if act.finish_no_later is not None:
-                fnlt[i] = _resolve(calendar, act.finish_no_later, finish=True)
-        return cls(net, floor, fnlt)
+        return cls(compile_plan(plan), *constraint_bounds(plan, calendar))
+
+    @classmethod
+    def reusing(cls, previous: "Analyzer | None", plan, calendar=None) -> "Analyzer":
+        """An analyzer for ``plan``, reusing ``previous`` (its compiled network and remembered
+        critical paths) when the activity ids and links are unchanged."""
+        floor, fnlt = constraint_bounds(plan, calendar)
+        if previous is None or previous.net.ids != plan.ids() or previous.links != plan.links:
+            fresh = cls(compile_plan(plan), floor, fnlt)
+        elif np.array_equal(previous.floor, floor) and np.array_equal(previous.fnlt, fnlt):
+            return previous
+        else:
+            fresh = cls(previous.net, floor, fnlt)
+        fresh.links = list(plan.links)
+        return fresh
 
     def run(self, durations, deadline: float | None = None, paths: bool = True) -> Schedule:
         net = self.net
@@ -192,6 +199,19 @@ class Analyzer:
             c = self._cache = (driving, sched.critical.copy(), graph, found, cut)
         sched.graph = c[2]
         sched.paths, sched.paths_truncated = list(c[3]), c[4]
+
+
+def constraint_bounds(plan, calendar=None) -> tuple[np.ndarray, np.ndarray]:
+    """Per activity the start-no-earlier offset (floor, ≥ 0) and the finish-no-later
+    offset (+inf when none), dates resolved through ``calendar``."""
+    n = len(plan.activities)
+    floor, fnlt = np.zeros(n), np.full(n, np.inf)
+    for i, act in enumerate(plan.activities):
+        if act.start_no_earlier is not None:
+            floor[i] = max(0.0, _resolve(calendar, act.start_no_earlier, finish=False))
+        if act.finish_no_later is not None:
+            fnlt[i] = _resolve(calendar, act.finish_no_later, finish=True)
+    return floor, fnlt
 
 
 def _resolve(calendar, value, finish: bool) -> float:

@@ -243,6 +243,7 @@ class Plan:
         self.risks: list[Risk] = list(risks)
         self.correlations: list[CorrelationGroup] = list(correlations)
         self._listeners: list[Listener] = []
+        self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         for act in activities:
             self._append(act.validated())
         for link in links:
