@@ -66,21 +66,29 @@ def _stack(values: np.ndarray, bounds) -> np.ndarray:
 
 
 def _sweep(steps, work: np.ndarray, entry: np.ndarray, reduce, add: bool) -> np.ndarray:
-    for a, b, lo, hi, seg, far in steps:
+    """One pass, level by level. 1-D: an unbuffered ``reduce.at`` into the level's nodes
+    (their start values are already bounds); 2-D: a segmented ``reduceat`` per level."""
+    flat = work.ndim == 1
+    for a, b, lo, hi, seg, far, near in steps:
         cand = work.take(far, axis=0)
         if add:
             cand += entry[lo:hi]
         else:
             cand -= entry[lo:hi]
-        reduce.reduceat(cand, seg, axis=0, out=work[a:b])
+        if flat:
+            reduce.at(work, near, cand)
+        else:
+            reduce.reduceat(cand, seg, axis=0, out=work[a:b])
     return work
 
 
 def _work(net: Network, init, trailing) -> np.ndarray:
-    """Renumbered working array with the spare row n set to zero."""
+    """Renumbered working array starting from ``init`` (its spare row n is zero)."""
     work = np.zeros((net.size + 1,) + trailing)
-    if init is not None:
-        work[:net.size] = np.asarray(init, dtype=float)[net.topo]
+    init = np.asarray(init, dtype=float)
+    if trailing and init.ndim == 1:
+        init = init[:, None]
+    work[:net.size] = init[net.topo]
     return work
 
 
@@ -94,7 +102,7 @@ def _backward_work(net: Network, offsets: np.ndarray, ceiling: np.ndarray, keep:
     entry = _stack(offsets, -np.asarray(ceiling, dtype=float))[net.backward.idx]
     if keep is not None:
         keep.append(entry)              # reused by the free float
-    work = _work(net, None, entry.shape[1:])
+    work = _work(net, ceiling, entry.shape[1:])
     return _sweep(net.backward.steps, work, entry, np.minimum, False)
 
 
@@ -123,7 +131,9 @@ def _free_float(net: Network, es_work: np.ndarray, entry: np.ndarray, d: np.ndar
     cand = es_work.take(p.far)
     es_work[net.size] = 0.0
     cand -= entry
-    ff[p.origin] = np.minimum.reduceat(cand, p.starts) - es_work[p.nodes]
+    least = np.full(net.size + 1, np.inf)
+    np.minimum.at(least, p.near, cand)             # unbuffered, faster than reduceat in 1-D
+    ff[p.origin] = least[p.nodes] - es_work[p.nodes]
     return ff
 
 

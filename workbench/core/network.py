@@ -30,11 +30,13 @@ class Pass:
     """Entries of one sweep (links plus one bound per activity), grouped by the activity
     they update. ``idx`` points into ``concatenate([link values, per-activity bounds])``;
     ``far`` is the renumbered node read (n for a bound entry, which leads each group).
-    ``steps`` per level: (first node, end node, entry lo, entry hi, segment starts, far slice);
+    ``steps`` per level: (first node, end node, entry lo, entry hi, segment starts, far slice,
+    near slice);
     ``levels`` the same as (lo, hi, original node ids, segment starts)."""
 
     idx: np.ndarray
     far: np.ndarray
+    near: np.ndarray            # the renumbered node each entry updates
     starts: np.ndarray          # segment start of each updated node, in ``nodes`` order
     nodes: np.ndarray           # renumbered nodes in the order their segments appear
     origin: np.ndarray          # the same nodes as original indices
@@ -123,9 +125,14 @@ def group_order(key: np.ndarray, size: int) -> tuple[np.ndarray, np.ndarray]:
 def _ranges(lo: np.ndarray, hi: np.ndarray) -> np.ndarray:
     """Concatenation of arange(lo[k], hi[k]) for all k."""
     count = hi - lo
-    total = int(count.sum())
-    shift = np.repeat(lo - (np.cumsum(count) - count), count)
-    return shift + np.arange(total)
+    ends = np.cumsum(count)
+    if not ends.size:
+        return ends
+    lo = lo - ends
+    lo += count                        # lo[k] minus the entries before group k
+    out = np.repeat(lo, count)
+    out += np.arange(int(ends[-1]))
+    return out
 
 
 def _levels(n: int, dst: np.ndarray, order: np.ndarray, starts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
@@ -186,14 +193,15 @@ def _make_pass(near_end: np.ndarray, far_end: np.ndarray, origin: np.ndarray, po
     far = np.concatenate((np.full(k, n), rank[far_end]))[order]
     nodes = rank[origin]
     starts = bounds[:-1]
+    near = np.repeat(nodes, np.diff(bounds))
     steps, levels, j = [], [], 0
     for a, b in blocks:
         lo, hi = int(bounds[j]), int(bounds[j + b - a])
         seg = starts[j:j + b - a] - lo
-        steps.append((a, b, lo, hi, seg, far[lo:hi]))
+        steps.append((a, b, lo, hi, seg, far[lo:hi], near[lo:hi]))
         levels.append((lo, hi, topo[a:b], seg))
         j += b - a
-    return Pass(idx, far, starts, nodes, origin, steps, levels)
+    return Pass(idx, far, near, starts, nodes, origin, steps, levels)
 
 
 def _passes(n: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, level: np.ndarray):
