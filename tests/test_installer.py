@@ -17,6 +17,8 @@ from pathlib import Path
 from xml.etree import ElementTree
 
 import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
 
 import workbench
 
@@ -83,6 +85,24 @@ def test_ico_directory_points_at_png_images_of_the_stated_sizes():
         assert png_size(data[offset:offset + length]) == (side, side)
         sizes.append(side)
     assert sorted(sizes) == sorted(make_icons.ICO_SIZES)
+
+
+def fake_png(size: int, payload: bytes) -> bytes:
+    """Enough of a PNG for the writers: signature, IHDR with the size, then any bytes."""
+    return b"\x89PNG\r\n\x1a\n" + struct.pack(">I4sII", 13, b"IHDR", size, size) + payload
+
+
+@settings(max_examples=50, deadline=None)
+@given(st.dictionaries(st.integers(1, 256), st.binary(max_size=64), min_size=1, max_size=12))
+def test_ico_writer_directory_finds_every_image(images):
+    pngs = {size: fake_png(size, payload) for size, payload in images.items()}
+    data = make_icons.ico_bytes(pngs)
+    count = struct.unpack("<HHH", data[:6])[2]
+    found = {}
+    for i in range(count):
+        w, h, _, _, _, _, length, offset = struct.unpack("<BBBBHHII", data[6 + 16 * i:22 + 16 * i])
+        found[w or 256] = data[offset:offset + length]
+    assert found == pngs
 
 
 def test_icns_entries_chain_to_the_end_of_the_file_and_hold_pngs():
