@@ -52,7 +52,7 @@ class Network:
     lag: np.ndarray
     src_fin: np.ndarray
     dst_fin: np.ndarray
-    topo: np.ndarray           # nodes in a topological order (by level, then index)
+    topo: np.ndarray           # nodes in a topological order (level by level)
     rank: np.ndarray           # position of each node in ``topo`` (its renumbered index)
     level: np.ndarray          # longest-path level (links from the sources)
     forward: Pass
