@@ -314,3 +314,11 @@ def test_build_script_reads_the_package_version():
     spec.loader.exec_module(build)
     assert build.version() == workbench.__version__
     assert build.app_folder().parent == ROOT / "dist"
+
+
+def test_windows_version_numbers_come_from_the_package_version():
+    import win_version  # the resource itself is built on Windows only (PyInstaller needs pywin32 there)
+
+    assert win_version.version_numbers("1.12.3rc4") == (1, 12, 3, 4)
+    assert win_version.version_numbers("2.0") == (2, 0, 0, 0)
+    assert len(win_version.version_numbers(workbench.__version__)) == 4
