@@ -139,33 +139,40 @@ def _levels(n: int, dst: np.ndarray, order: np.ndarray, starts: np.ndarray) -> t
     """Longest-path level of each node by frontier sweeps (work proportional to the links
     leaving each frontier); -1 marks nodes on or behind a cycle. ``order``/``starts``
     group the links by predecessor (see :func:`group_order`)."""
-    level = np.full(n, -1, dtype=np.int64)
     out = dst[order]
+    degree = np.diff(starts)
     indeg = np.bincount(dst, minlength=n)
     first = np.full(n, -1, dtype=np.int64)      # de-duplicates a frontier without sorting
     frontier = np.flatnonzero(indeg == 0)
-    parts, depth = [], 0
+    parts = []
     while frontier.size:
-        level[frontier] = depth
         parts.append(frontier)
         if frontier.size == 1:
             f = int(frontier[0])
             targets = out[starts[f]:starts[f + 1]]
         else:
-            targets = out[_ranges(starts[frontier], starts[frontier + 1])]
-        if targets.size == 1:               # a chain: stay scalar
-            t = int(targets[0])
-            indeg[t] -= 1
-            frontier = targets if indeg[t] == 0 else targets[:0]
-        else:
-            np.subtract.at(indeg, targets, 1)
-            ready = targets[indeg[targets] == 0]
-            where = np.arange(ready.size)
-            first[ready[::-1]] = where[::-1]
-            frontier = ready[first[ready] == where]
-        depth += 1
-    topo = np.concatenate(parts) if parts else np.empty(0, dtype=np.int64)
+            targets = out[_ranges(starts[frontier], starts[frontier] + degree[frontier])]
+        frontier = _released(targets, indeg, first)
+    level = np.full(n, -1, dtype=np.int64)
+    if parts:
+        topo = np.concatenate(parts)
+        level[topo] = np.repeat(np.arange(len(parts)), [p.size for p in parts])
+    else:
+        topo = np.empty(0, dtype=np.int64)
     return level, topo
+
+
+def _released(targets: np.ndarray, indeg: np.ndarray, first: np.ndarray) -> np.ndarray:
+    """Count one link into each target; return the targets left with none, once each."""
+    if targets.size == 1:                    # a chain: stay scalar
+        t = int(targets[0])
+        indeg[t] -= 1
+        return targets if indeg[t] == 0 else targets[:0]
+    np.subtract.at(indeg, targets, 1)
+    ready = targets[indeg[targets] == 0]
+    where = np.arange(ready.size)
+    first[ready[::-1]] = where[::-1]
+    return ready[first[ready] == where]
 
 
 def _find_loop(ids: list[str], src: np.ndarray, dst: np.ndarray, stuck: np.ndarray) -> list[str]:
