@@ -66,8 +66,9 @@ def _stack(values: np.ndarray, bounds) -> np.ndarray:
 
 
 def _sweep(steps, work: np.ndarray, entry: np.ndarray, reduce, add: bool) -> np.ndarray:
-    """One pass, level by level. 1-D: an unbuffered ``reduce.at`` into the level's nodes
-    (their start values are already bounds); 2-D: a segmented ``reduceat`` per level."""
+    """One pass, level by level, each node starting from its own bound in ``work``.
+    1-D: an unbuffered ``reduce.at`` into the level's nodes; 2-D: a segmented
+    ``reduceat`` per level, then combined with the nodes' bounds."""
     flat = work.ndim == 1
     for a, b, lo, hi, seg, far, near in steps:
         cand = work.take(far, axis=0)
@@ -78,7 +79,8 @@ def _sweep(steps, work: np.ndarray, entry: np.ndarray, reduce, add: bool) -> np.
         if flat:
             reduce.at(work, near, cand)
         else:
-            reduce.reduceat(cand, seg, axis=0, out=work[a:b])
+            block = work[a:b]
+            reduce(block, reduce.reduceat(cand, seg, axis=0), out=block)
     return work
 
 
@@ -93,9 +95,14 @@ def _work(net: Network, init, trailing) -> np.ndarray:
 
 
 def _forward_work(net: Network, offsets: np.ndarray, floor: np.ndarray) -> np.ndarray:
-    entry = _stack(offsets, floor)
-    work = _work(net, floor, entry.shape[1:])
-    return _sweep(net.forward.steps, work, entry[net.forward.idx], np.maximum, True)
+    offsets = np.asarray(offsets, dtype=float)
+    floor = np.asarray(floor, dtype=float)
+    trailing = offsets.shape[1:] or floor.shape[1:]
+    if offsets.ndim == 1 and trailing:
+        offsets = offsets[:, None]
+    work = _work(net, floor, trailing)
+    entry = offsets.take(net.forward.idx, axis=0)   # links only: the floor starts in ``work``
+    return _sweep(net.forward.steps, work, entry, np.maximum, True)
 
 
 def _backward_work(net: Network, offsets: np.ndarray, ceiling: np.ndarray, keep: list | None = None):

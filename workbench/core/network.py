@@ -27,9 +27,10 @@ DST_FINISH = np.array([0.0, 0.0, 1.0, 1.0])
 
 @dataclass
 class Pass:
-    """Entries of one sweep (links plus one bound per activity), grouped by the activity
-    they update. ``idx`` points into ``concatenate([link values, per-activity bounds])``;
-    ``far`` is the renumbered node read (n for a bound entry, which leads each group).
+    """Entries of one sweep, grouped by the activity they update: its links, led by one
+    bound entry per activity in the backward pass (where some activities have no links).
+    ``idx`` points into ``concatenate([link values, per-activity bounds])``; ``far`` is
+    the renumbered node read (n for a bound entry).
     ``steps`` per level: (first node, end node, entry lo, entry hi, segment starts, far slice,
     near slice);
     ``levels`` the same as (lo, hi, original node ids, segment starts)."""
@@ -189,26 +190,31 @@ def _find_loop(ids: list[str], src: np.ndarray, dst: np.ndarray, stuck: np.ndarr
 
 
 def _make_pass(near_end: np.ndarray, far_end: np.ndarray, origin: np.ndarray, position: np.ndarray,
-               rank: np.ndarray, blocks: list[tuple[int, int]], topo: np.ndarray) -> Pass:
+               rank: np.ndarray, blocks: list[tuple[int, int]], topo: np.ndarray, bounds: bool) -> Pass:
     """Entries for the nodes ``origin`` (original indices, in update order; ``position``
-    maps a node to its place in it): per node its bound entry first, then the links whose
-    ``near_end`` it is. ``blocks`` gives each level's renumbered range [a, b)."""
+    maps a node to its place in it): the links whose ``near_end`` it is, led by one bound
+    entry per node when ``bounds``. ``blocks`` gives each level's renumbered range [a, b)."""
     n, m, k = rank.size, near_end.size, origin.size
-    keys = np.concatenate((np.arange(k), position[near_end]))
-    order, bounds = group_order(keys, k)           # stable: each bound entry leads its group
-    idx = np.concatenate((m + origin, np.arange(m)))[order]
-    far = np.concatenate((np.full(k, n), rank[far_end]))[order]
+    b = k if bounds else 0
+    keys = np.concatenate((np.arange(b), position[near_end]))
+    order, cut = group_order(keys, k)           # stable: a bound entry leads its group
+    idx = np.concatenate((m + origin[:b], np.arange(m)))[order]
+    far = np.concatenate((np.full(b, n), rank[far_end]))[order]
     nodes = rank[origin]
-    starts = bounds[:-1]
-    near = np.repeat(nodes, np.diff(bounds))
+    near = np.repeat(nodes, np.diff(cut))
+    return Pass(idx, far, near, cut[:-1], nodes, origin, *_steps(cut, far, near, blocks, topo))
+
+
+def _steps(cut: np.ndarray, far: np.ndarray, near: np.ndarray, blocks, topo):
+    starts = cut[:-1]
     steps, levels, j = [], [], 0
     for a, b in blocks:
-        lo, hi = int(bounds[j]), int(bounds[j + b - a])
+        lo, hi = int(cut[j]), int(cut[j + b - a])
         seg = starts[j:j + b - a] - lo
         steps.append((a, b, lo, hi, seg, far[lo:hi], near[lo:hi]))
         levels.append((lo, hi, topo[a:b], seg))
         j += b - a
-    return Pass(idx, far, near, starts, nodes, origin, steps, levels)
+    return steps, levels
 
 
 def _passes(n: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, level: np.ndarray):
@@ -218,13 +224,13 @@ def _passes(n: int, src: np.ndarray, dst: np.ndarray, topo: np.ndarray, level: n
     edges = np.concatenate(([0], np.cumsum(per_level)))
     blocks = [(int(a), int(b)) for a, b in zip(edges[:-1], edges[1:])]
     n0 = blocks[0][1] if blocks else 0
-    fwd = _make_pass(dst, src, topo[n0:], rank - n0, rank, blocks[1:], topo)
+    fwd = _make_pass(dst, src, topo[n0:], rank - n0, rank, blocks[1:], topo, bounds=False)
     # Backward: levels last to first, each block's nodes in ascending renumbered order.
     lvl = level[topo]
     back_pos = n - edges[lvl + 1] + (np.arange(n) - edges[lvl])   # by renumbered node
     order = np.empty(n, dtype=np.int64)
     order[back_pos] = np.arange(n)
-    bwd = _make_pass(src, dst, topo[order], back_pos[rank], rank, blocks[::-1], topo)
+    bwd = _make_pass(src, dst, topo[order], back_pos[rank], rank, blocks[::-1], topo, bounds=True)
     return rank, fwd, bwd
 
 
