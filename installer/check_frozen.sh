@@ -86,6 +86,9 @@ clean "$APP/slackline-gui" plan.slw > "$WORK/gui.txt" 2>&1 &
 GUI=$!
 sleep 12
 kill -0 "$GUI" 2>/dev/null || { cat "$WORK/gui.txt"; fail "the windowed launcher exited early"; }
+# The window records the plan it opened in its settings (files/last) once the plan is open.
+grep -q "^last=$WORK/cwd/plan.slw$" "$WORK/home/.config/Slackline/Slackline.conf" 2>/dev/null \
+  || fail "the window did not record plan.slw as opened (files/last in ~/.config/Slackline/Slackline.conf)"
 # The launcher's own processes (the subshell and env exec into it; a bootloader may fork).
 PIDS=$(for exe in /proc/[0-9]*/exe; do
          [ "$(readlink "$exe" 2>/dev/null)" = "$APP/slackline-gui" ] && basename "$(dirname "$exe")"
@@ -102,7 +105,7 @@ fi
 [ -s "$WORK/gui.txt" ] && sed 's/^/      launcher said: /' "$WORK/gui.txt" | head -n 5
 grep -q "QFontDatabase" "$WORK/gui.txt" "$WORK/selftest.txt" && fail "Qt found no fonts (see the lines above)"
 grep -q Traceback "$WORK/gui.txt" && { cat "$WORK/gui.txt"; fail "the windowed launcher printed a traceback"; }
-ok "windowed launcher up for 12 s on a plan, only bundled Python and Qt mapped ($(since "$T") s)"
+ok "windowed launcher up for 12 s with the plan open, only bundled Python and Qt mapped ($(since "$T") s)"
 
 # The Linux installer script, for this (empty) HOME: the app on PATH through a symlink.
 clean env XDG_DATA_HOME="$WORK/data" sh "$APP/install.sh" > /dev/null || fail "install.sh"
