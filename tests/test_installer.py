@@ -211,7 +211,7 @@ def fake_app_folder(tmp_path: Path) -> Path:
 
 def test_linux_install_script_installs_and_removes_for_this_user(tmp_path):
     folder = fake_app_folder(tmp_path)
-    home, data = tmp_path / "home", tmp_path / "data"
+    home, data = tmp_path / "home", tmp_path / "my data"  # a space, as in many home folders
     env = {"HOME": str(home), "XDG_DATA_HOME": str(data), "PATH": "/usr/bin:/bin"}
     subprocess.run(["sh", str(folder / "install.sh")], env=env, check=True, capture_output=True)
     installed = data / "slackline"
@@ -222,6 +222,10 @@ def test_linux_install_script_installs_and_removes_for_this_user(tmp_path):
     assert (data / "mime" / "packages" / "slackline-workbook.xml").exists()
     assert (data / "icons" / "hicolor" / "48x48" / "apps" / f"{APP_ID}.png").exists()
     assert (data / "icons" / "hicolor" / "48x48" / "mimetypes" / "application-x-slackline-workbook.png").exists()
+    if shutil.which("desktop-file-validate"):  # the rewritten Exec line is still a valid entry
+        check = subprocess.run(["desktop-file-validate", str(data / "applications" / f"{APP_ID}.desktop")],
+                               capture_output=True, text=True)
+        assert check.returncode == 0, check.stdout
     if shutil.which("update-mime-database"):  # the shared MIME database took the type and its glob
         assert f"{MIME}:*.slw" in (data / "mime" / "globs2").read_text(encoding="utf-8")
     subprocess.run(["sh", str(folder / "install.sh"), "--uninstall"], env=env, check=True, capture_output=True)
