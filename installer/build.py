@@ -91,9 +91,15 @@ def package_windows(folder: Path) -> Path:
 
 
 def package_macos(folder: Path) -> Path:
+    """A disk image holding Slackline.app beside a link to /Applications to drag it onto."""
     image = DIST / f"Slackline-{version()}.dmg"
+    stage = WORK / "dmg"
+    shutil.rmtree(stage, ignore_errors=True)
+    stage.mkdir(parents=True)
+    subprocess.run(["ditto", str(folder), str(stage / folder.name)], check=True)  # keeps bundle metadata
+    (stage / "Applications").symlink_to("/Applications")
     image.unlink(missing_ok=True)
-    subprocess.run(["hdiutil", "create", "-volname", "Slackline", "-srcfolder", str(folder), "-ov",
+    subprocess.run(["hdiutil", "create", "-volname", "Slackline", "-srcfolder", str(stage), "-ov",
                     "-format", "UDZO", str(image)], check=True)
     return image
 
