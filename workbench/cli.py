@@ -69,6 +69,15 @@ def _dispatch(args) -> int:
     return handlers[args.verb](args)
 
 
+def _not_a_plan(word: str) -> str | None:
+    """Why ``slackline WORD`` cannot open WORD in the window (a typo of a verb, a missing file)."""
+    if os.path.exists(word):
+        return None
+    if os.path.splitext(word)[1].lower() in (".slw", ".csv", ".xlsx"):
+        return f"{word}: no such file"
+    return f"unknown verb or file {word!r} (verbs: {', '.join(VERBS)}; or give a plan file to open)"
+
+
 def _fail(message: str, code: int) -> int:
     print(f"slackline: error: {message}", file=sys.stderr)
     return code
@@ -77,7 +86,8 @@ def _fail(message: str, code: int) -> int:
 def main(argv: list[str] | None = None) -> int:
     argv = sys.argv[1:] if argv is None else list(argv)
     if not argv or (argv[0] not in VERBS and not argv[0].startswith("-")):
-        return open_window(argv)
+        problem = _not_a_plan(argv[0]) if argv else None
+        return _fail(problem, 2) if problem else open_window(argv)
     args = build_parser().parse_args(argv)  # exits 2 with usage on malformed arguments
     try:
         if args.self_test:
@@ -90,6 +100,9 @@ def main(argv: list[str] | None = None) -> int:
         return _fail(str(exc), 2)
     except (OSError, UnicodeError) as exc:
         return _fail(f"{getattr(exc, 'filename', None) or ''} {exc.strerror if isinstance(exc, OSError) and exc.strerror else exc}".strip(), 2)
+    except BrokenPipeError:  # output piped into a pager or `head` that stopped reading
+        sys.stderr.close()
+        return 0
     except KeyboardInterrupt:
         return _fail("interrupted", 130)
     except Exception as exc:  # an internal fault: say so plainly, keep the trace for developers

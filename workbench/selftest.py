@@ -51,19 +51,9 @@ def _check_pack(state):
 
 
 def _check_qt(state):
-    import os
+    from .ui.self_check import check_qt
 
-    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
-    from PySide6.QtGui import QImage, QPainter
-    from PySide6.QtSvg import QSvgRenderer  # noqa: F401  (the SVG plugin ships)
-    from PySide6.QtWidgets import QApplication
-
-    app = QApplication.instance() or QApplication([])
-    image = QImage(64, 64, QImage.Format_ARGB32)
-    painter = QPainter(image)
-    painter.drawText(4, 30, "Slackline")
-    painter.end()
-    return f"Qt {app.applicationVersion() or 'ok'} on {app.platformName()}"
+    return check_qt()
 
 
 CHECKS = [("analysis", _check_analysis), ("simulation", _check_simulation),

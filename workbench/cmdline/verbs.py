@@ -14,9 +14,18 @@ from pathlib import Path
 
 from ..core.analysis import analyze
 from ..core.errors import PlanError
+from ..figures.odds import confidence_label
 from .text import CAUTION, elide, num, pct, table
 
 PLAN_SUFFIXES = (".slw", ".csv", ".xlsx")
+MAX_ITERATIONS = 10_000_000
+
+
+def check_iterations(n: int) -> None:
+    if n <= 0:
+        raise PlanError(f"--iterations must be a positive whole number, not {n}", "--iterations")
+    if n > MAX_ITERATIONS:
+        raise PlanError(f"--iterations {n} is more than {MAX_ITERATIONS:,} (the percentiles settle long before)", "--iterations")
 
 
 def parse_offset_or_date(text: str, what: str):
@@ -97,17 +106,17 @@ def summary_lines(result, unit: str) -> list[str]:
                      f"({num(result.deadline)} {unit}): z = {num(z, 4)}, "
                      f"P(finish by deadline) = {pct(p.prob_by(result.deadline))}")
     conf = result.plan.settings.target_confidence
-    for q in sorted({0.5, 0.8, 0.9, conf}):
+    shown = {confidence_label(q): q for q in sorted({0.5, 0.8, 0.9, conf})}
+    for label, q in shown.items():
         d = p.duration_at(q)
-        lines.append(f"P{round(q * 100):<13d} {result.date_of_duration(d).isoformat()}  ({num(d)} {unit})")
+        lines.append(f"{label:<14} {result.date_of_duration(d).isoformat()}  ({num(d)} {unit})")
     lines += ["", CAUTION]
     return lines
 
 
 # --- simulate --------------------------------------------------------------
 def cmd_simulate(args) -> int:
-    if args.iterations <= 0:
-        raise PlanError(f"--iterations must be a positive whole number, not {args.iterations}", "--iterations")
+    check_iterations(args.iterations)
     plan = load_plan_file(args.plan)
     from ..core.montecarlo import simulate
 
@@ -139,6 +148,8 @@ def render_simulation(plan, data: dict) -> str:
             out.append(f"{key:<14} {dates.get(key, '')}  ({num(data['percentiles'][key])} {unit})")
     if "probability" in data:
         out.append(f"P(finish by deadline) = {pct(data['probability'])}")
+    for note in data.get("notes", []) + ([data["correlation_note"]] if data.get("correlation_note") else []):
+        out.append(f"Note: {note}")
     out += ["", "Top drivers (uncertain activities by rank correlation with the finish)",
             drivers_table(plan, data), "", CAUTION]
     return "\n".join(out)
@@ -194,8 +205,7 @@ def cmd_export(args) -> int:
 def cmd_report(args) -> int:
     from ..reports.pack import build_pack
 
-    if args.iterations <= 0:
-        raise PlanError(f"--iterations must be a positive whole number, not {args.iterations}", "--iterations")
+    check_iterations(args.iterations)
     if Path(args.output).suffix.lower() != ".pdf":
         raise PlanError(f"-o {args.output}: the approval pack is written as .pdf", "-o")
     plan = load_plan_file(args.plan)

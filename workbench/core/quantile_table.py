@@ -43,6 +43,44 @@ def exact_quantile(shape, u) -> np.ndarray:
     return out
 
 
+def _cache_file(shapes: int, cells: int):
+    import os
+    import scipy
+    from pathlib import Path
+
+    folder = os.environ.get("SLACKLINE_CACHE_DIR")
+    if not folder:
+        from platformdirs import user_cache_dir
+        folder = user_cache_dir("Slackline", appauthor=False)
+    return Path(folder) / f"beta-pert-quantiles-{shapes}x{cells}-scipy-{scipy.__version__}.npy"
+
+
+def _cached(shapes: int, cells: int, compute) -> np.ndarray:
+    """The table's exact values, from the user's cache folder when a previous run saved them.
+
+    Building them takes about half a second; a damaged or foreign cache file is ignored.
+    """
+    import os
+
+    path = _cache_file(shapes, cells)
+    try:
+        values = np.load(path, allow_pickle=False)
+        if values.shape == (shapes, cells + 1) and np.isfinite(values).all():
+            return values
+    except (OSError, ValueError):
+        pass
+    values = compute()
+    try:
+        path.parent.mkdir(parents=True, exist_ok=True)
+        tmp = path.with_suffix(f".{os.getpid()}.tmp")
+        with open(tmp, "wb") as fh:
+            np.save(fh, values, allow_pickle=False)
+        os.replace(tmp, path)
+    except OSError:
+        pass  # a read-only home folder only costs the half second next time
+    return values
+
+
 class QuantileTable:
     """Interpolated beta-PERT quantiles x(s, u) ∈ [0, 1]; build once with :func:`beta_pert_table`."""
 
@@ -50,7 +88,7 @@ class QuantileTable:
         self.shapes, self.cells, self.tail_cells = shapes, cells, tail_cells
         s = np.linspace(0.0, 1.0, shapes)[:, None]
         u = (np.arange(cells + 1) / cells)[None, :]
-        values = exact_quantile(s, u)
+        values = _cached(shapes, cells, lambda: exact_quantile(s, u))
         step = np.zeros_like(values)          # difference to the next shape row
         step[:-1] = values[1:] - values[:-1]
         # Each cell stores its start and width as one complex number (x_k + i·(x_k+1 − x_k)),

@@ -265,6 +265,11 @@ def format_probability(p: float) -> str:
     return f"{p:.4f} ({100 * p:.1f} %)"
 
 
+def confidence_label(q: float) -> str:
+    """'P80', 'P97.5', 'P99.9999': as many decimals as the confidence needs (never 'P100')."""
+    return "P" + f"{100.0 * float(q):.4f}".rstrip("0").rstrip(".")
+
+
 def date_of(calendar, offset: float) -> dt.date:
     """The calendar day by whose end a finish at ``offset`` has happened."""
     return calendar.finish_date(float(offset))

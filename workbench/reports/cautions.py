@@ -21,7 +21,9 @@ def _simulation_text(ctx: PackContext) -> str:
             f"three-point estimate; fixed durations do not vary. {groups} correlation group(s) make "
             f"listed durations move together; all other durations are drawn independently. "
             f"{risks} risk event(s) add delays with their stated probabilities. Percentiles carry "
-            f"sampling error; a different seed gives slightly different figures.")
+            f"sampling error; a different seed gives slightly different figures."
+            + (f" The correlations as entered cannot all hold at once, so the nearest consistent set was "
+               f"used: {sim.correlation_note}" if getattr(sim, "correlation_repaired", False) else ""))
 
 
 def cautions(ctx: PackContext, width: float) -> list:

@@ -133,8 +133,10 @@ class OddsView(QWidget):
         self.sim_fig = fo.sim_figure(r) if r is not None else None
         self._offset_rows = fo.offset_rows(a.pert, r) if r is not None else []
         unit = a.plan.settings.unit
-        self.panel.merge_note.setText(fo.merge_bias_note(a.pert, r, unit) if r is not None
-                                      else "Run a simulation to compare PERT with it.")
+        note = fo.merge_bias_note(a.pert, r, unit) if r is not None else "Run a simulation to compare PERT with it."
+        if r is not None and getattr(r, "correlation_repaired", False):
+            note += f"\nCorrelations adjusted to the nearest consistent set: {r.correlation_note}"
+        self.panel.merge_note.setText(note)
         self.plot.show_sim(self.sim_fig, self.stale)
         self.plot.fit_y(self.sim_fig is not None)
         self.panel.compare_box.setEnabled(self.result is not None and not self.stale)

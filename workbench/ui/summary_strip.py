@@ -3,6 +3,8 @@ confidence and the critical path — large enough to read across a meeting room.
 
 from __future__ import annotations
 
+from workbench.figures.odds import confidence_label
+
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
 from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QSizePolicy
@@ -82,7 +84,7 @@ class SummaryStrip(QFrame):
         return {
             "finish": a.finish_date.strftime(DATE),
             "odds": "no deadline set" if odds is None else f"{_percent(odds)}{deadline}",
-            "target": f"{a.date_at(conf).strftime(DATE)} (P{round(conf * 100)})",
+            "target": f"{a.date_at(conf).strftime(DATE)} ({confidence_label(conf)})",
             "path": shown or "—",
         }
 
