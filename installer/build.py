@@ -41,6 +41,17 @@ def folder_size(path: Path) -> int:
     return sum(p.stat().st_size for p in path.rglob("*") if p.is_file() and not p.is_symlink())
 
 
+def uncommitted() -> list[str]:
+    """Files of the app (workbench/, resources/) that differ from the last commit: a release
+    should be built from a clean checkout, or it ships work nobody has committed."""
+    try:
+        result = subprocess.run(["git", "status", "--porcelain", "--", "workbench", "resources"], cwd=ROOT,
+                                capture_output=True, text=True, check=True)
+    except (OSError, subprocess.CalledProcessError):
+        return []
+    return [line[3:] for line in result.stdout.splitlines() if line.strip()]
+
+
 def ensure_icons() -> None:
     import make_icons
 
@@ -117,6 +128,10 @@ def main(argv: list[str] | None = None) -> int:
     parser.add_argument("--clean", action="store_true", help="drop PyInstaller's cache first")
     parser.add_argument("--package", action="store_true", help="also wrap the folder for hand-out")
     args = parser.parse_args(argv)
+    changed = uncommitted()
+    if changed:
+        print(f"warning: building with {len(changed)} uncommitted file(s) in workbench/ or resources/, "
+              f"e.g. {', '.join(changed[:3])}; build releases from a clean checkout")
     ensure_icons()
     seconds = run_pyinstaller(args.clean)
     folder = app_folder()
