@@ -68,7 +68,7 @@ def test_analyze_text_names_path_and_odds(capsys, r1_csv):
     code, out, _ = run(capsys, "analyze", str(r1_csv), "--deadline", "47")
     assert code == 0
     assert "A - B - C - E - F - J - L - N" in out
-    assert "0.8413" in out and "Caution" in out
+    assert "0.8413" in out and "Caution" in out  # R1 published: P(T ≤ 47) = Φ(1) = 0.8413
 
 
 def test_analyze_deadline_as_date(capsys, r1_csv):

@@ -13,6 +13,7 @@ from workbench.core.model import Settings
 from workbench.core.pert import PertOdds
 from workbench.figures import odds as fo
 
+# R1 (reference-cases.md): Hillier & Lieberman, PERT/CPM chapter — published mean 44, variance 9.
 R1 = PertOdds(44.0, 9.0, ("A", "B", "C", "E", "F", "J", "L", "N"))
 
 
@@ -131,7 +132,7 @@ def test_sim_figure_bars_share_the_density_axis():
     assert float(np.sum(fig.heights * np.diff(fig.edges))) == pytest.approx(1.0)
     assert fig.ecdf_y[-1] == 1.0 and np.all(np.diff(fig.ecdf_x) >= 0)
     assert fig.markers["P50"] < fig.markers["P80"] < fig.markers["P90"]
-    assert fig.markers["P90"] == pytest.approx(44 + 3 * 1.2816, abs=0.15)
+    assert fig.markers["P90"] == pytest.approx(44 + 3 * 1.2816, abs=0.15)  # R4: Φ⁻¹(0.9) = 1.281552 (scipy.stats.norm)
 
 
 @pytest.mark.parametrize("question", [fo.Question("by", 46.0), fo.Question("after", 42.3),
@@ -153,7 +154,7 @@ def test_comparison_rows_and_merge_bias_note():
     labels = [r.label for r in rows]
     assert labels == ["Mean finish", "P50", "P80", "P90", "P(finish by)"]
     assert rows[0].pert == 44.0 and rows[0].sim == pytest.approx(45.0, abs=0.1)
-    assert rows[-1].pert == pytest.approx(0.8413, abs=1e-4)
+    assert rows[-1].pert == pytest.approx(0.8413, abs=1e-4)  # R1/R4: P(T ≤ 47) = Φ(1) = 0.841345
     assert rows[-1].sim == pytest.approx(norm.cdf(47, 45, 2.8), abs=0.01)
     note = fo.merge_bias_note(R1, res, "weeks")
     assert "later than PERT" in note and "merge" in note
@@ -167,7 +168,7 @@ def test_readout_names_path_and_tie_note():
     cal = WorkCalendar(Settings(start=dt.date(2026, 3, 2)))
     lines = fo.readout_lines(odds, fo.Question("by", 12.0), cal, "days")
     text = "\n".join(lines)
-    assert "0.8413 (84.1 %)" in text and "+1.000" in text
+    assert "0.8413 (84.1 %)" in text and "+1.000" in text  # R4: Φ(1) = 0.841345 (scipy.stats.norm)
     assert "Path: A-C" in text and "tie" in text
 
 

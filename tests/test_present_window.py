@@ -117,7 +117,13 @@ def odds_slide(qtbot):
 def test_window_odds_slide_keeps_a_draggable_marker(window):
     window.go(3)
     slide = window.stack.currentWidget()
-    assert isinstance(slide, PresentOddsSlide) or hasattr(slide, "set_present")
+    assert isinstance(slide, PresentOddsSlide)
+    before = slide.probability()
+    slide.move_marker_to(slide.width() * 0.2)
+    assert slide.probability() != before          # the marker moved and the odds followed
+    assert window.caution.isVisible() and "judgement" in window.caution.text()
+    window.go(0)
+    assert not window.caution.isVisible()
 
 
 def test_odds_marker_drags_and_the_probability_follows(odds_slide, qtbot):

@@ -16,6 +16,7 @@ class PresentOddsSlide(PresentChartSlide):
     """Holds the question's date; a press or drag on the chart moves it there."""
 
     present_hint = "drag the date line, or [ and ]"
+    present_caution = og.CAUTION
 
     def __init__(self, session, parent=None):
         super().__init__(session, self._paint_odds, parent)

@@ -37,7 +37,10 @@ class PresentWindow(QWidget):
     def _build(self) -> None:
         self.title = QLabel()
         self.counter = QLabel()
-        for label, size in ((self.title, 34), (self.counter, 18)):
+        self.caution = QLabel()
+        self.caution.setWordWrap(True)
+        self.caution.setAccessibleName("Caution")
+        for label, size in ((self.title, 34), (self.caution, 16), (self.counter, 18)):
             label.setStyleSheet(f"color: {style.TEXT}; background: {style.BACKGROUND}; font-size: {size}px;"
                                 f" font-weight: {'bold' if label is self.title else 'normal'}; padding: 6px 16px;")
         self.stack = QStackedWidget()
@@ -48,6 +51,7 @@ class PresentWindow(QWidget):
         layout.setSpacing(0)
         layout.addWidget(self.title)
         layout.addWidget(self.stack, 1)
+        layout.addWidget(self.caution)
         layout.addWidget(self.counter)
         pal = self.palette()
         pal.setColor(self.backgroundRole(), QColor(style.BACKGROUND))
@@ -70,6 +74,9 @@ class PresentWindow(QWidget):
         title = self.slides[index][0]
         self.title.setText(f"{self.session.plan.settings.title}  \u2013  {title}")
         extra = getattr(self.stack.currentWidget(), "present_hint", "")
+        caution = getattr(self.stack.currentWidget(), "present_caution", "")
+        self.caution.setText(caution)
+        self.caution.setVisible(bool(caution))
         self.counter.setText(f"{index + 1} / {self.slide_count()}    {HINT}" + (f"  \u00b7  {extra}" if extra else ""))
         self.stack.currentWidget().setFocus()
 

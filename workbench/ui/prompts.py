@@ -11,7 +11,7 @@ from PySide6.QtWidgets import QFileDialog, QMessageBox, QWidget
 PLAN_FILTER = "Slackline plans (*.slw)"
 OPEN_FILTER = "Plans and tables (*.slw *.csv *.xlsx);;Slackline plans (*.slw);;Tables (*.csv *.xlsx)"
 TABLE_FILTER = "Tables (*.csv *.xlsx)"
-EXPORT_FILTER = "CSV table (*.csv);;Excel workbook (*.xlsx)"
+EXPORT_FILTER = "CSV table (*.csv);;XLSX workbook (*.xlsx)"
 
 
 def ask_open_path(parent: QWidget, title: str = "Open plan", filters: str = OPEN_FILTER,

@@ -26,7 +26,7 @@ def _percent(p: float) -> str:
 class SummaryStrip(QFrame):
     """Four figures, each a caption over a large value; refreshed on ``schedule_changed``."""
 
-    FIELDS = (("finish", "Project finish (PERT mean)"), ("odds", "Chance of meeting the deadline"),
+    FIELDS = (("finish", "Project finish (PERT mean)"), ("odds", "Chance of meeting the deadline (PERT)"),
               ("target", "Finish at target confidence"), ("path", "Critical path:"))
 
     def __init__(self, session: Session, parent=None):
