@@ -17,7 +17,6 @@ import os
 import sys
 
 from . import __version__
-from .core.errors import PlanError
 
 VERBS = ("analyze", "simulate", "report", "import", "export")
 DISTRIBUTION_CHOICES = ("beta-pert", "triangular", "uniform", "normal")
@@ -89,6 +88,8 @@ def main(argv: list[str] | None = None) -> int:
         problem = _not_a_plan(argv[0]) if argv else None
         return _fail(problem, 2) if problem else open_window(argv)
     args = build_parser().parse_args(argv)  # exits 2 with usage on malformed arguments
+    from .core.errors import PlanError  # after parsing: `--version` and `--help` stay instant
+
     try:
         if args.self_test:
             from .selftest import run_self_test
