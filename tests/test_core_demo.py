@@ -30,6 +30,9 @@ def test_size_groups_and_link_types(plan):
     assert any(l.lag < 0 for l in plan.links) and any(l.lag > 0 for l in plan.links)
     assert all(a.name for a in plan.activities)
     assert sum(a.is_milestone for a in plan.activities) >= 2
+    ids = set(plan.ids())
+    assert plan.risks and all(set(r.activities) <= ids for r in plan.risks)
+    assert plan.correlations and all(set(c.activities) <= ids for c in plan.correlations)
 
 
 def test_settings(plan):

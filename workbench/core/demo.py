@@ -118,7 +118,7 @@ def demo_settings() -> Settings:
 
 def demo_plan() -> Plan:
     """A fresh copy of the demo plan (safe to edit)."""
-    risks: list[Risk] = []
+    risks = [Risk("R1", "Asbestos found behind the banking-hall panelling", 0.2, 5.0, 10.0, 20.0, ("B2",))]
     together = [CorrelationGroup("Fit-out contractor's productivity", ("B3", "B4", "B5", "B6"), 0.5)]
     return Plan(demo_settings(), [_activity(r) for r in ACTIVITIES], [_link(r) for r in LINKS],
                 risks, together)
