@@ -198,8 +198,11 @@ def _make_pass(near_end: np.ndarray, far_end: np.ndarray, origin: np.ndarray, po
     b = k if bounds else 0
     keys = np.concatenate((np.arange(b), position[near_end]))
     order, cut = group_order(keys, k)           # stable: a bound entry leads its group
-    idx = np.concatenate((m + origin[:b], np.arange(m)))[order]
-    far = np.concatenate((np.full(b, n), rank[far_end]))[order]
+    if b:
+        idx = np.concatenate((m + origin, np.arange(m)))[order]
+        far = np.concatenate((np.full(b, n), rank[far_end]))[order]
+    else:
+        idx, far = order, rank[far_end[order]]
     nodes = rank[origin]
     near = np.repeat(nodes, np.diff(cut))
     return Pass(idx, far, near, cut[:-1], nodes, origin, *_steps(cut, far, near, blocks, topo))
