@@ -22,6 +22,11 @@ class TimelineAxisCache:
         """What else the picture depends on (override); None means: do not cache."""
         return None
 
+    def drop_cache(self) -> None:
+        """Redraw from scratch at the next paint."""
+        self.picture = self._image = self._image_key = None
+        self.update()
+
     def paint(self, p, opt, widget):
         content = self.cache_content()
         device = p.device()

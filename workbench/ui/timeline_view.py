@@ -372,6 +372,13 @@ class TimelineView(QWidget):
             self.plot.removeItem(self._lines.pop(line))
         self._update_lines()
 
+    def drop_paint_caches(self) -> None:
+        """Forget every cached drawing (chart, label column, date axis): the next paint
+        starts from scratch, as after a change (used by the benchmark)."""
+        self.item._changed()
+        for axis in (self.row_axis, self.date_axis):
+            axis.drop_cache()
+
     def export_png(self, path, size=None) -> None:
         from workbench.ui.timeline_output import export_png
         export_png(self, path, size)
