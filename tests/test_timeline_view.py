@@ -422,7 +422,7 @@ def test_dense_spans_merge_per_pixel_row_without_losing_coverage():
     assert (merged == covered).all()
 
 
-def test_picture_recorded_once_settled_and_cleared_by_set_methods(view):
+def test_image_kept_once_settled_and_cleared_by_set_methods(view):
     from PySide6.QtGui import QImage, QPainter
     image = QImage(view.plot.size(), QImage.Format.Format_ARGB32_Premultiplied)
 
@@ -431,19 +431,19 @@ def test_picture_recorded_once_settled_and_cleared_by_set_methods(view):
         v.plot.render(painter)
         painter.end()
     view.item.set_preview(None)               # any set_* clears the recording
-    assert view.item._picture is None
+    assert view.item._cache is None
     draw(view)                                # first paint after a change: drawn directly
-    assert view.item._picture is None
+    assert view.item._cache is None
     draw(view)                                # same view again: now recorded
-    assert view.item._picture is not None
+    assert view.item._cache is not None
     view.item.set_preview((0, 0.0, 1.0))
-    assert view.item._picture is None
+    assert view.item._cache is None
     view.item.set_preview(None)
     draw(view)
     draw(view)
-    assert view.item._picture is not None
+    assert view.item._cache is not None
     view.session.push(EditActivity("D", duration=5))
-    assert view.item._picture is None
+    assert view.item._cache is None
 
 
 def test_escape_cancels_a_drag(view):

@@ -50,9 +50,19 @@ class Marks:
     def take(self, mask) -> "Marks":
         return Marks(self.rows[mask], self.x0[mask], self.x1[mask], self.index[mask])
 
+    def __post_init__(self):
+        if self.rows.size > 1 and (np.diff(self.rows) < 0).any():    # kept in row order
+            order = np.argsort(self.rows, kind="stable")
+            self.rows, self.x0, self.x1, self.index = (a[order] for a in (self.rows, self.x0, self.x1, self.index))
+
     def within(self, lo_row: float, hi_row: float) -> "Marks":
-        """Only the marks on rows lo_row..hi_row (for skipping rows off screen)."""
-        return self.take((self.rows >= lo_row) & (self.rows <= hi_row))
+        """Only the marks on rows lo_row..hi_row (for skipping rows off screen): a slice,
+        found by bisection since marks are kept in row order."""
+        a = int(np.searchsorted(self.rows, lo_row, side="left"))
+        b = int(np.searchsorted(self.rows, hi_row, side="right"))
+        if a == 0 and b == self.rows.size:
+            return self
+        return Marks(self.rows[a:b], self.x0[a:b], self.x1[a:b], self.index[a:b])
 
 
 @dataclass

@@ -2,7 +2,7 @@
 
 Draws a :class:`~workbench.figures.timeline.TimelineGeometry` in device pixels (so line
 widths and mark sizes stay crisp at any zoom), only the rows on screen. Once the view has
-settled the drawing is recorded in a QPicture and replayed until the geometry, the
+settled the drawing is kept as an image (on screen) and blitted until the geometry, the
 options or the view change.
 """
 
@@ -12,25 +12,27 @@ import time
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import QRectF, Qt
-from PySide6.QtGui import QPainter, QPicture
+from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtGui import QImage, QPainter, QPixmap
+from PySide6.QtWidgets import QWidget
 
 from workbench.figures import style
 from workbench.figures.timeline import TimelineGeometry
 from workbench.ui import timeline_paint as paint
 
 SHADE_DAY_PX = 7.0      # shade non-working days once a working day is this wide
-PICTURE_ROWS = 400      # above this many rows on screen, always draw directly
 
 
 class _Pixels:
     """Maps data (offset, row) to device pixels for one paint."""
 
-    def __init__(self, transform, scale: float):
+    def __init__(self, transform, scale: float, xs=None):
         self.t = transform
         self.scale = scale                      # device pixels per screen pixel (print/export)
         self.row_px = abs(transform.m22())      # pixels per row
         self.unit_px = abs(transform.m11())     # pixels per plan unit
+        ends = sorted(float(v) for v in self.x(xs)) if xs is not None else (-1e6, 1e6)
+        self.clip = (ends[0] - 16.0, ends[1] + 16.0)   # marks beyond these pixels are culled
 
     def x(self, x, row=0.0):
         return self.t.m11() * np.asarray(x, float) + self.t.m21() * np.asarray(row, float) + self.t.m31()
@@ -49,9 +51,10 @@ class TimelineItem(pg.GraphicsObject):
         self._selected_rows = np.zeros(0, dtype=np.int64)
         self._preview: tuple[int, float, float] | None = None   # row, x0, x1 of a dragged bar
         self._nonworking = None     # callable(lo, hi) -> offsets where a non-working stretch lies
-        self._picture: QPicture | None = None
-        self._picture_key = None
-        self.painted_rows = 0       # rows drawn in the last recording (for tests and benchmarks)
+        self._cache: QImage | None = None    # the settled drawing, for repaints on screen
+        self._cache_key = None
+        self._cache_at = QPointF()
+        self.painted_rows = 0       # rows drawn in the last drawing (for tests and benchmarks)
         self.paint_ms = 0.0         # time of the last paint (for benchmarks)
         self.on_click = self.on_drag = self.on_hover = None   # set by the view
 
@@ -83,7 +86,7 @@ class TimelineItem(pg.GraphicsObject):
 
     # --- options (each clears the cached picture) --------------------------
     def _changed(self, geometry: bool = False) -> None:
-        self._picture = self._picture_key = None
+        self._cache = self._cache_key = None
         self.prepareGeometryChange()
         if geometry:
             self.informViewBoundsChanged()
@@ -149,16 +152,18 @@ class TimelineItem(pg.GraphicsObject):
         p.save()
         p.resetTransform()
         key = (t.m11(), t.m12(), t.m21(), t.m22(), t.m31(), t.m32(), rows, xs)
-        if self._picture is not None and key == self._picture_key:
-            self._picture.play(p)
-        elif key == self._picture_key and self._visible_rows(rows) <= PICTURE_ROWS:
-            # Painted again with nothing changed: worth recording for the repaints to come.
-            self._picture = self._record(t, rows, xs)
-            self._picture.play(p)
+        if view is None or not isinstance(p.device(), (QImage, QPixmap, QWidget)):
+            self._draw(p, t, rows, xs)         # paper, PDF, SVG, recordings: vectors, no cache
+        elif self._cache is not None and key == self._cache_key:
+            p.drawImage(self._cache_at, self._cache)
+        elif key == self._cache_key:
+            # Painted again with nothing changed: worth keeping an image for the repaints to come.
+            self._cache, self._cache_at = self._record(p, t, rows, xs, t.mapRect(view))
+            p.drawImage(self._cache_at, self._cache)
         else:
-            # Something changed (data, zoom, pan): draw straight away, record only once the
-            # view has settled; never with thousands of rows on screen.
-            self._picture, self._picture_key = None, key
+            # Something changed (data, zoom, pan): draw straight away, keep an image only
+            # once the view has settled.
+            self._cache, self._cache_key = None, key
             self._draw(p, t, rows, xs)
         p.restore()
 
@@ -171,16 +176,23 @@ class TimelineItem(pg.GraphicsObject):
             return 1.0
         return max(1.0, abs(t.m22() / screen.m22()))
 
-    def _record(self, t, rows, xs) -> QPicture:
-        picture = QPicture()
-        p = QPainter(picture)
-        self._draw(p, t, rows, xs)
-        p.end()
-        return picture
+    def _record(self, p: QPainter, t, rows, xs, area: QRectF) -> tuple[QImage, QPointF]:
+        """Draw into an image covering ``area`` (device pixels) at the device's pixel ratio."""
+        area = area.toAlignedRect()
+        ratio = p.device().devicePixelRatioF()
+        image = QImage(int(area.width() * ratio) + 1, int(area.height() * ratio) + 1,
+                       QImage.Format.Format_ARGB32_Premultiplied)
+        image.setDevicePixelRatio(ratio)
+        image.fill(Qt.GlobalColor.transparent)
+        painter = QPainter(image)
+        painter.translate(-area.left(), -area.top())
+        self._draw(painter, t, rows, xs)
+        painter.end()
+        return image, QPointF(area.topLeft())
 
     def _draw(self, p: QPainter, t, rows, xs) -> None:
         """Draw the rows on screen in device pixels (p has an identity transform)."""
-        px = _Pixels(t, self._scale(t))
+        px = _Pixels(t, self._scale(t), xs)
         geo = self._geo
         self.painted_rows = self._visible_rows(rows)
         self._draw_background(p, px, rows, xs)

@@ -38,6 +38,7 @@ def bar_height(px, w: style.Weights) -> float:
 
 _RECTS = PrimitiveArray(QRectF, 4) if PrimitiveArray is not None else None
 _LINES = PrimitiveArray(QLineF, 4) if PrimitiveArray is not None else None
+_POINTS = PrimitiveArray(QPointF, 2) if PrimitiveArray is not None else None
 
 
 def rects(p: QPainter, x, y, w, h) -> None:
@@ -71,18 +72,53 @@ def lines(p: QPainter, x0, y0, x1, y1) -> None:
     p.drawLines(*_LINES.drawargs())
 
 
+def points(p: QPainter, x, y) -> None:
+    """Draw many points in one call (a round-capped pen makes them discs)."""
+    x, y = np.broadcast_arrays(np.asarray(x, float), np.asarray(y, float))
+    if not x.size:
+        return
+    if _POINTS is None:
+        p.drawPoints([QPointF(a, b) for a, b in zip(x.tolist(), y.tolist())])
+        return
+    _POINTS.resize(x.size)
+    m = _POINTS.ndarray()
+    m[:, 0], m[:, 1] = x, y
+    p.drawPoints(*_POINTS.drawargs())
+
+
+def visible_x(px, m):
+    """Pixel ends of the marks that reach into the view, clipped a little beyond its
+    edges (culls marks left or right of the view, keeps coordinates small)."""
+    x0, x1 = px.x(m.x0), px.x(m.x1)
+    lo, hi = px.clip
+    keep = (np.maximum(x0, x1) >= lo) & (np.minimum(x0, x1) <= hi)
+    if keep.all():
+        return np.clip(x0, lo, hi), np.clip(x1, lo, hi), m.rows
+    return np.clip(x0[keep], lo, hi), np.clip(x1[keep], lo, hi), m.rows[keep]
+
+
 def spans(p: QPainter, px, m, h: float, shift: float = 0.0) -> None:
     """Marks as rectangles [x0, x1] × (row centre + shift ± h/2), in the current pen/brush."""
-    x0, x1, y = px.x(m.x0), px.x(m.x1), px.y(m.rows) + shift
+    x0, x1, rows = visible_x(px, m)
+    y = px.y(rows) + shift
     if px.row_px < 1.0 and x0.size:      # several rows per pixel: merge what overlaps
         x0, x1, y = merge_runs(x0, x1, y)
     rects(p, x0, y - h / 2, np.maximum(x1 - x0, 0.0), h)
 
 
+def _pixel_order(x0, y):
+    """Order by pixel row, then by left end: two stable radix sorts on small integers."""
+    xi, yi = x0 - x0.min(), y - y.min()
+    if xi.max() >= 65536 or yi.max() >= 65536:
+        return np.lexsort((x0, y))
+    order = np.argsort(xi.astype(np.uint16), kind="stable")
+    return order[np.argsort(yi[order].astype(np.uint16), kind="stable")]
+
+
 def merge_runs(x0, x1, y):
     """Join spans that land on the same pixel row and overlap or touch (whole pixels)."""
     x0, x1, y = np.round(x0), np.maximum(np.round(x1), np.round(x0) + 1), np.round(y)
-    order = np.lexsort((x0, y))
+    order = _pixel_order(x0, y)
     x0, x1, y = x0[order], x1[order], y[order]
     base = (y - y.min()) * (x1.max() - x0.min() + 2)   # keeps each pixel row's values apart
     reach = np.maximum.accumulate(base + x1 - x0.min()) - base + x0.min()
@@ -196,10 +232,16 @@ def draw_free_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     if not len(m) or px.row_px < DENSE_ROW_PX:
         return
     r = max(2.5, h * 0.2)
-    p.setPen(pen(style.WORK_EDGE, 1.5 * px.scale))
-    p.setBrush(QColor(style.BACKGROUND))
-    for x, y in zip(px.x(m.x0).tolist(), px.y(m.rows).tolist()):
-        p.drawEllipse(QPointF(x, y), r, r)
+    ring = 1.5 * px.scale
+    x, y = px.x(m.x0), px.y(m.rows)
+    lo, hi = px.clip
+    keep = (x >= lo) & (x <= hi)
+    x, y = x[keep], y[keep]
+    for colour, diameter in ((style.WORK_EDGE, 2 * r + ring), (style.BACKGROUND, 2 * r - ring)):
+        disc = pen(colour, diameter)        # a ring: a dark disc, then a paler one inside
+        disc.setCapStyle(Qt.PenCapStyle.RoundCap)
+        p.setPen(disc)
+        points(p, x, y)
 
 
 def draw_connectors(p: QPainter, px, segments: np.ndarray, rows, w: style.Weights) -> None:
