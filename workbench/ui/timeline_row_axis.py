@@ -11,13 +11,14 @@ import heapq
 import math
 
 import pyqtgraph as pg
-from PySide6.QtCore import QPointF, QRectF, Qt
-from PySide6.QtGui import QFont, QFontMetricsF, QPen
+from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
+from PySide6.QtGui import QFont, QFontMetricsF, QPen, QStaticText, QTransform
 
-from workbench.ui.timeline_axis_cache import TimelineAxisCache
+from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
 
 INDENT = 14.0
 PADDING = 6.0
+LABEL_CACHE = 4000     # laid-out labels kept (a few screens' worth)
 
 
 class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
@@ -25,6 +26,8 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         super().__init__("left", **kwargs)
         self._geo = None
         self._bold_rows: set[int] = set()
+        self._statics: list[QStaticText] = []     # laid-out labels of the last draw specs
+        self._laid_out: dict[tuple, tuple[str, QStaticText]] = {}   # (text, width, bold) → label
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
@@ -35,6 +38,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
 
     def set_font(self, font: QFont) -> None:
         self.setStyle(tickFont=font)
+        self._laid_out.clear()
         self.picture = None
         self.update()
 
@@ -67,20 +71,39 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         bounds = self.mapRectFromParent(self.geometry())
         axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
         texts, ticks = [], []
-        self._bold_rows = set()
+        self._bold_rows, self._statics = set(), []
         h = metrics.height()
         tick_pen = QPen(self.pen())
         for row in self.visible_rows(bounds, h):
+            y = self._row_to_local(bounds, row)
+            if not bounds.top() - h / 2 <= y <= bounds.bottom() + h / 2:
+                continue
             indent = INDENT * int(self._geo.depth[row])
             width = bounds.width() - 2 * PADDING - indent
-            text = metrics.elidedText(self.label_text(row), Qt.TextElideMode.ElideRight, width)
-            y = self._row_to_local(bounds, row)
+            bold = self._geo.kinds[row] == "group"
+            text, static = self._label(self.label_text(row), width, bold)
+            self._statics.append(static)
             rect = QRectF(bounds.left() + PADDING + indent, y - h / 2, width, h)
-            if bounds.top() - h / 2 <= y <= bounds.bottom() + h / 2:
-                texts.append((rect, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, text))
-                ticks.append((tick_pen, QPointF(bounds.right() - 4, y), QPointF(bounds.right(), y)))
-                self._bold_rows.add(len(texts) - 1) if self._geo.kinds[row] == "group" else None
+            texts.append((rect, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, text))
+            ticks.append((tick_pen, QPointF(bounds.right() - 4, y), QPointF(bounds.right(), y)))
+            self._bold_rows.add(len(texts) - 1) if bold else None
         return axis, ticks, texts
+
+    def _label(self, text: str, width: float, bold: bool) -> tuple[str, QStaticText]:
+        """The label cut to ``width`` and laid out once (kept across repaints and zooms)."""
+        key = (text, round(width), bold)
+        found = self._laid_out.get(key)
+        if found is None:
+            if len(self._laid_out) >= LABEL_CACHE:
+                self._laid_out.clear()
+            font = QFont(self.style.get("tickFont") or QFont())
+            font.setBold(bold)
+            cut = QFontMetricsF(font).elidedText(text, Qt.TextElideMode.ElideRight, width)
+            static = QStaticText(cut)
+            static.setTextFormat(Qt.TextFormat.PlainText)
+            static.prepare(QTransform(), font)
+            found = self._laid_out[key] = (cut, static)
+        return found
 
     def preferred_width(self, font: QFont, limit: float) -> int:
         """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
@@ -102,11 +125,16 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         font = QFont(self.style.get("tickFont") or QFont())
         bold = QFont(font)
         bold.setBold(True)
-        for tick_pen, a, b in tickSpecs:
-            p.setPen(tick_pen)
-            p.drawLine(a, b)
+        if tickSpecs:
+            p.setPen(tickSpecs[0][0])
+            p.drawLines([QLineF(a, b) for _, a, b in tickSpecs])
         p.setPen(self.textPen())
         p.setClipRect(self.boundingRect().toAlignedRect())
+        laid_out = isinstance(p.device(), RASTER) and len(self._statics) == len(textSpecs)
         for k, (rect, flags, text) in enumerate(textSpecs):
             p.setFont(bold if k in self._bold_rows else font)
-            p.drawText(rect, int(flags), text)
+            if laid_out:     # on paper and SVG: plain vector text
+                static = self._statics[k]
+                p.drawStaticText(QPointF(rect.left(), rect.center().y() - static.size().height() / 2), static)
+            else:
+                p.drawText(rect, int(flags), text)
