@@ -9,6 +9,7 @@ from PySide6.QtWidgets import QHBoxLayout, QLabel, QSpinBox, QStackedLayout, QVB
 
 from workbench.figures import drivers as fdr
 from workbench.ui.drivers_chart import DriversChart
+from workbench.ui.session import WhenShown
 
 PLACEHOLDER = "No simulation yet. Run a simulation in the Odds view to see what drives the finish."
 STALE_NOTE = "Stale: the plan changed since this simulation (shown in grey). Run it again in the Odds view."
@@ -22,6 +23,7 @@ class DriversView(QWidget):
         self.session = session
         self.result = None
         self.stale = False
+        self.when_shown = WhenShown(self)   # while hidden, redraws wait until it is shown
         self._build()
         session.simulation_changed.connect(self._on_simulation_changed)
         session.selection_changed.connect(self._on_selection_changed)
@@ -71,7 +73,7 @@ class DriversView(QWidget):
             self.result, self.stale = sim, False
         elif self.result is not None:
             self.stale = True
-        self._redraw()
+        self.when_shown.call(self._redraw)
 
     def _redraw(self) -> None:
         if self.result is None:
@@ -92,5 +94,7 @@ class DriversView(QWidget):
                 "with that activity's duration in this run.")
 
     def _on_selection_changed(self, ids) -> None:
+        if self.when_shown.dirty:   # the pending redraw marks the selection
+            return
         for chart in (self.criticality, self.sensitivity):
             chart.set_selected(ids)

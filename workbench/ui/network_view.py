@@ -21,6 +21,7 @@ from workbench.figures.network_nav import step
 
 from .network_export import print_pages, save_picture
 from .network_item import NetworkItem
+from .session import refresh_when_shown
 
 READABLE_SCALE = 0.9     # zoom used when jumping to a found node from far out
 
@@ -34,10 +35,9 @@ class NetworkView(QWidget):
         self._matches: list[str] = []
         self._match_at = -1
         self._build()
-        session.schedule_changed.connect(self.refresh)
+        refresh_when_shown(self, self.refresh, session.schedule_changed)   # hidden: catch up when shown
         session.selection_changed.connect(self._follow_selection)
-        self.refresh()
-        self.fit()
+        self.when_shown.call(self.refresh)
 
     # --- widgets ---------------------------------------------------------
     def _build(self) -> None:
@@ -151,7 +151,7 @@ class NetworkView(QWidget):
         return rows
 
     def _follow_selection(self, ids) -> None:
-        if self.layout_result is None:
+        if self.layout_result is None or self.when_shown.dirty:   # the pending refresh marks it
             return
         rows = self._mark_selection(ids)
         if len(rows) == 1:

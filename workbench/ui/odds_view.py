@@ -15,6 +15,7 @@ from workbench.ui.odds_controls import OddsControls
 from workbench.ui.odds_panel import OddsPanel
 from workbench.ui.odds_plot import OddsPlot
 from workbench.ui.odds_runner import OddsRunner
+from workbench.ui.session import WhenShown
 
 
 class OddsView(QWidget):
@@ -33,10 +34,11 @@ class OddsView(QWidget):
         self._run_generation = -1
         self._deadline_seen = object()
         self._offset_rows, self._answer_dates = [], []
+        self.when_shown = WhenShown(self)   # while hidden, redraws wait until it is shown
         self._build()
         self._connect()
         self.result = session.simulation   # a view opened after a run shows it at once
-        self.refresh()
+        self.when_shown.call(self.refresh)
 
     # --- construction ----------------------------------------------------
     def _build(self) -> None:
@@ -87,7 +89,7 @@ class OddsView(QWidget):
 
     def _on_schedule_changed(self) -> None:
         self._generation += 1
-        self.refresh()
+        self.when_shown.call(self.refresh)
 
     def _on_simulation_changed(self) -> None:
         sim = self.session.simulation
@@ -95,7 +97,7 @@ class OddsView(QWidget):
             self.result, self.stale = sim, False
         elif self.result is not None:
             self.stale = True
-        self._show_simulation()
+        self.when_shown.call(self._show_simulation)
 
     def refresh(self) -> None:
         """Redraw everything from the session's analysis."""
@@ -293,7 +295,7 @@ class OddsView(QWidget):
     def _on_run_finished(self, result) -> None:
         if self._run_generation != self._generation:
             self.result, self.stale = result, True   # overtaken by an edit: show, but stale
-            self._show_simulation()
+            self.when_shown.call(self._show_simulation)
             return
         self.session.set_simulation(result)
 

@@ -11,8 +11,9 @@ from __future__ import annotations
 
 import time
 
-from PySide6.QtCore import QObject, Signal
+from PySide6.QtCore import QEvent, QObject, QTimer, Signal
 from PySide6.QtGui import QUndoCommand, QUndoStack
+from PySide6.QtWidgets import QDockWidget
 
 from workbench.core.analysis import Analysis, analyze
 from workbench.core.errors import PlanError
@@ -131,3 +132,93 @@ class Session(QObject):
 
     def selected(self) -> list[str]:
         return list(self._selected)
+
+
+class WhenShown(QObject):
+    """Redraws of one view: run now while the view is on screen, else remembered and run
+    once when it comes on screen (a dock tab brought forward, a closed dock reopened, a
+    Present slide reached).
+
+    On screen means shown and not covered: a dock behind another dock's tab stays
+    "visible" to Qt but has an empty visible region. A view with no parent (a standalone
+    widget, as in tests and picture exports) is always brought up to date at once."""
+
+    def __init__(self, view):
+        super().__init__(view)
+        self.view = view
+        self._pending: dict = {}          # slot -> None, in the order first asked for
+        self._dock = None
+        self._check = QTimer(self, singleShot=True, interval=0)
+        self._check.timeout.connect(self._catch_up_if_on_screen)
+        view.installEventFilter(self)
+
+    def on_screen(self) -> bool:
+        view = self.view
+        return view.isWindow() or (view.isVisible() and not view.visibleRegion().isEmpty())
+
+    def call(self, slot) -> None:
+        """Run ``slot()`` now if the view is on screen, else once when it comes on screen."""
+        if self.on_screen():
+            self._pending.pop(slot, None)
+            slot()
+            return
+        self._pending.setdefault(slot, None)
+        self._watch_dock()
+
+    @property
+    def dirty(self) -> bool:
+        """True while redraws wait for the view to come on screen."""
+        return bool(self._pending)
+
+    def catch_up(self) -> None:
+        pending, self._pending = list(self._pending), {}
+        for slot in pending:
+            slot()
+
+    def wrap(self, slot) -> "_Relay":
+        """An object whose ``fire`` runs ``slot`` through :meth:`call`; connect signals to
+        ``wrap(slot).fire`` (a QObject's method, so Qt drops the link when the view goes)."""
+        return _Relay(self, slot)
+
+    def _watch_dock(self) -> None:
+        """Follow the dock holding the view: its tab being selected shows no widget anew."""
+        dock = self.view.parentWidget()
+        while dock is not None and not isinstance(dock, QDockWidget):
+            dock = dock.parentWidget()
+        if dock is not None and dock is not self._dock:
+            self._dock = dock
+            dock.visibilityChanged.connect(self._dock_visibility)
+
+    def _dock_visibility(self, visible: bool) -> None:
+        if visible and self._pending:
+            self.catch_up()
+
+    def _catch_up_if_on_screen(self) -> None:
+        if self._pending and self.on_screen():
+            self.catch_up()
+
+    def eventFilter(self, watched, event) -> bool:  # noqa: N802 (Qt override)
+        if watched is self.view and self._pending and event.type() in (QEvent.Type.Show, QEvent.Type.Resize):
+            self._check.start()   # once the layout has settled: is it really on screen?
+        return False
+
+
+class _Relay(QObject):
+    def __init__(self, helper: WhenShown, slot):
+        super().__init__(helper)
+        self.helper, self.slot = helper, slot
+
+    def fire(self, *_) -> None:
+        self.helper.call(self.slot)
+
+
+def refresh_when_shown(view, slot, *signals) -> WhenShown:
+    """Connect ``signals`` to ``slot`` so a hidden ``view`` does no work until it is shown.
+    One line for a view: ``refresh_when_shown(self, self.refresh, session.schedule_changed)``.
+    Returns the view's WhenShown (also kept as ``view.when_shown``)."""
+    helper = getattr(view, "when_shown", None) or WhenShown(view)
+    view.when_shown = helper
+    relay = helper.wrap(slot)
+    for signal in signals:
+        signal.connect(relay.fire)
+    return helper
