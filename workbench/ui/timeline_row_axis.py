@@ -11,10 +11,12 @@ import heapq
 import math
 
 import pyqtgraph as pg
-from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
+import numpy as np
+from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QFont, QFontMetricsF, QPen, QStaticText, QTransform
 
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
+from workbench.ui.timeline_paint import lines
 
 INDENT = 14.0
 PADDING = 6.0
@@ -25,8 +27,6 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
     def __init__(self, width: float = 300.0, **kwargs):
         super().__init__("left", **kwargs)
         self._geo = None
-        self._bold_rows: set[int] = set()
-        self._statics: list[QStaticText] = []     # laid-out labels of the last draw specs
         self._laid_out: dict[tuple, tuple[str, QStaticText]] = {}   # (text, width, bold) → label
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
@@ -49,9 +49,9 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
             return ("\u25b8 " if geo.keys[row] in geo.collapsed else "\u25be ") + geo.labels[row]
         return geo.labels[row]
 
-    def _row_to_local(self, bounds: QRectF, row: float) -> float:
+    def _rows_to_local(self, bounds: QRectF, rows: np.ndarray) -> np.ndarray:
         r0, r1 = self.range          # reversed by pyqtgraph when the view's y is inverted
-        frac = (row - r0) / (r1 - r0) if r1 != r0 else 0.0
+        frac = (rows - r0) / (r1 - r0) if r1 != r0 else np.zeros(len(rows))
         return bounds.bottom() - frac * bounds.height()
 
     def visible_rows(self, bounds: QRectF, font_px: float) -> range:
@@ -63,31 +63,30 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         return range(first, min(self._geo.n_rows, math.floor(hi + 0.5) + 1), step)
 
     def generateDrawSpecs(self, p):
+        """Axis line, tick heights and labels ``(x, top, width, height, text, laid out, bold)``."""
         if self._geo is None:
             return super().generateDrawSpecs(p)
         font = self.style.get("tickFont") or QFont()
-        p.setFont(font)
-        metrics = QFontMetricsF(font)
+        h = QFontMetricsF(font).height()
         bounds = self.mapRectFromParent(self.geometry())
         axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
-        texts, ticks = [], []
-        self._bold_rows, self._statics = set(), []
-        h = metrics.height()
-        tick_pen = QPen(self.pen())
-        for row in self.visible_rows(bounds, h):
-            y = self._row_to_local(bounds, row)
-            if not bounds.top() - h / 2 <= y <= bounds.bottom() + h / 2:
-                continue
+        shown = self.visible_rows(bounds, h)
+        rows = np.arange(shown.start, shown.stop, shown.step)
+        ys = self._rows_to_local(bounds, rows)
+        keep = (ys >= bounds.top() - h / 2) & (ys <= bounds.bottom() + h / 2)
+        rows, ys = rows[keep], ys[keep]
+        texts = []
+        for row, y in zip(rows.tolist(), ys.tolist()):
             indent = INDENT * int(self._geo.depth[row])
             width = bounds.width() - 2 * PADDING - indent
             bold = self._geo.kinds[row] == "group"
             text, static = self._label(self.label_text(row), width, bold)
-            self._statics.append(static)
-            rect = QRectF(bounds.left() + PADDING + indent, y - h / 2, width, h)
-            texts.append((rect, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter, text))
-            ticks.append((tick_pen, QPointF(bounds.right() - 4, y), QPointF(bounds.right(), y)))
-            self._bold_rows.add(len(texts) - 1) if bold else None
-        return axis, ticks, texts
+            texts.append((bounds.left() + PADDING + indent, y - h / 2, width, h, text, static, bold))
+        return axis, (bounds.right(), ys), texts
+
+    def shown_labels(self) -> list[str]:
+        """The label texts as they are drawn now (cut to the column), top to bottom."""
+        return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2]]
 
     def _label(self, text: str, width: float, bold: bool) -> tuple[str, QStaticText]:
         """The label cut to ``width`` and laid out once (kept across repaints and zooms)."""
@@ -118,23 +117,24 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         return None if self._geo is None else id(self._geo)
 
     def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
-        """Like the base class, with group rows in bold."""
+        """Like the base class, with group rows in bold and labels laid out once."""
+        if self._geo is None:
+            return super().drawPicture(p, axisSpec, tickSpecs, textSpecs)
         pen, p1, p2 = axisSpec
         p.setPen(pen)
         p.drawLine(p1, p2)
+        right, ys = tickSpecs
+        lines(p, right - 4, ys, right, ys)
+        p.setPen(self.textPen())
+        p.setClipRect(self.boundingRect().toAlignedRect())
         font = QFont(self.style.get("tickFont") or QFont())
         bold = QFont(font)
         bold.setBold(True)
-        if tickSpecs:
-            p.setPen(tickSpecs[0][0])
-            p.drawLines([QLineF(a, b) for _, a, b in tickSpecs])
-        p.setPen(self.textPen())
-        p.setClipRect(self.boundingRect().toAlignedRect())
-        laid_out = isinstance(p.device(), RASTER) and len(self._statics) == len(textSpecs)
-        for k, (rect, flags, text) in enumerate(textSpecs):
-            p.setFont(bold if k in self._bold_rows else font)
-            if laid_out:     # on paper and SVG: plain vector text
-                static = self._statics[k]
-                p.drawStaticText(QPointF(rect.left(), rect.center().y() - static.size().height() / 2), static)
+        laid_out = isinstance(p.device(), RASTER)     # on paper and SVG: plain vector text
+        flags = int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
+        for x, top, width, h, text, static, is_bold in textSpecs:
+            p.setFont(bold if is_bold else font)
+            if laid_out:
+                p.drawStaticText(QPointF(x, top + (h - static.size().height()) / 2), static)
             else:
-                p.drawText(rect, int(flags), text)
+                p.drawText(QRectF(x, top, width, h), flags, text)
