@@ -19,7 +19,8 @@ from scipy.stats import rankdata
 from .analysis import moments
 from .calendar import WorkCalendar
 from .correlation import CorrelationModel
-from .cpm import EPS, Analyzer, backward, forward
+from .block_passes import BlockPasses
+from .cpm import Analyzer
 from .distributions import DurationModel, check_family
 from .errors import PlanError
 from .risk_events import RiskModel
@@ -68,9 +69,8 @@ class Accumulators:
         self.s_u, self.s_uu, self.s_ur = np.zeros(scored), np.zeros(scored), np.zeros(scored)
         self.shift_d, self.shift_f = shift_d[:, None], shift_f
 
-    def add_pass1(self, d: np.ndarray, crit: np.ndarray, finish: np.ndarray) -> None:
+    def add_pass1(self, d: np.ndarray, finish: np.ndarray) -> None:
         dc = d - self.shift_d
-        self.critical += crit.sum(axis=1)
         self.s_d += dc.sum(axis=1)
         self.s_dd += np.einsum("ij,ij->i", dc, dc)
         self.s_df += dc @ (finish - self.shift_f)
@@ -99,26 +99,18 @@ class MonteCarlo:
         self.deadline = self.calendar.resolve(_check_deadline(chosen), finish=True)
         self.means, self.variances = moments(plan)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
+        self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt)
 
-    def run_block(self, scores, occurrence, delay_scores):
-        """Durations, finish and criticality of one block (activities × iterations)."""
+    def run_block(self, scores, occurrence, delay_scores, valid=None):
+        """Durations and finish of one block (activities × iterations), and per activity
+        the number of its first ``valid`` iterations (all by default) in which it is critical."""
         d = self.durations.sample(scores[: self.durations.uncertain.size])
         fired = delay = None
         if self.risks.size:
             fired, delay = self.risks.draw(occurrence, delay_scores)
             self.risks.apply(d, delay)
-        net, an = self.net, self.analyzer
-        offsets = net.link_offsets(d)
-        es = forward(net, offsets, np.broadcast_to(an.floor[:, None], d.shape))
-        ef = es + d
-        finish = ef.max(axis=0) if d.shape[0] else np.zeros(d.shape[1])
-        ref = finish if self.deadline is None else np.full_like(finish, self.deadline)
-        ceiling = np.minimum(ref[None, :], an.fnlt[:, None])
-        ceiling -= d
-        ls = backward(net, offsets, ceiling)
-        ls -= es                                   # total float
-        crit = ls <= (ref - finish + EPS)[None, :]
-        return d, finish, crit, fired, delay
+        finish, critical = self.passes.run(d, self.deadline, valid)
+        return d, finish, critical, fired, delay
 
 
 def _check_deadline(value):
@@ -185,13 +177,14 @@ def _main_pass(mc, stream, acc, iterations, block, tick, kept) -> np.ndarray:
     finish = np.empty(iterations)
     for first, count, lo, hi in _chunks(iterations, block):
         tick.check()
-        d, fin, crit, fired, delay = mc.run_block(*stream.block(first, count))
+        d, fin, critical, fired, delay = mc.run_block(*stream.block(first, count), valid=hi - lo)
         finish[lo:hi] = fin[: hi - lo]
+        acc.critical += critical
         if kept is not None:
             kept[:, lo:hi] = d[:, : hi - lo]
         for c0 in range(0, hi - lo, CHUNK):
             sl = slice(c0, min(c0 + CHUNK, hi - lo))
-            acc.add_pass1(d[:, sl], crit[:, sl], fin[sl])
+            acc.add_pass1(d[:, sl], fin[sl])
             if fired is not None:
                 mc.risks.record(fired[:, sl], delay[:, sl], fin[sl])
         tick.advance(hi - lo)
