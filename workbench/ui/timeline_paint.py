@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import numpy as np
 from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QColor, QPainter, QPainterPath, QPen
+from PySide6.QtGui import QColor, QPainter, QPaintEngine, QPainterPath, QPen, QPixmap
 
 from workbench.figures import style
 
@@ -38,7 +38,8 @@ def bar_height(px, w: style.Weights) -> float:
 
 _RECTS = PrimitiveArray(QRectF, 4) if PrimitiveArray is not None else None
 _LINES = PrimitiveArray(QLineF, 4) if PrimitiveArray is not None else None
-_POINTS = PrimitiveArray(QPointF, 2) if PrimitiveArray is not None else None
+_STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
+_RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
 
 
 def rects(p: QPainter, x, y, w, h) -> None:
@@ -70,20 +71,6 @@ def lines(p: QPainter, x0, y0, x1, y1) -> None:
     m = _LINES.ndarray()
     m[:, 0], m[:, 1], m[:, 2], m[:, 3] = x0, y0, x1, y1
     p.drawLines(*_LINES.drawargs())
-
-
-def points(p: QPainter, x, y) -> None:
-    """Draw many points in one call (a round-capped pen makes them discs)."""
-    x, y = np.broadcast_arrays(np.asarray(x, float), np.asarray(y, float))
-    if not x.size:
-        return
-    if _POINTS is None:
-        p.drawPoints([QPointF(a, b) for a, b in zip(x.tolist(), y.tolist())])
-        return
-    _POINTS.resize(x.size)
-    m = _POINTS.ndarray()
-    m[:, 0], m[:, 1] = x, y
-    p.drawPoints(*_POINTS.drawargs())
 
 
 def visible_x(px, m):
@@ -227,21 +214,61 @@ def draw_milestones(p: QPainter, px, m, critical: bool, w: style.Weights, h: flo
     p.drawPath(_diamonds(px, m, r))
 
 
+def ring_pixmap(r: float, ring: float, ratio: float = 1.0) -> QPixmap:
+    """A small open circle (dark ring, background inside), drawn once per size."""
+    key = (round(r, 2), round(ring, 2), ratio)
+    if key not in _RINGS:
+        side = int(np.ceil((2 * r + ring + 2) * ratio))
+        pixmap = QPixmap(side, side)
+        pixmap.fill(Qt.GlobalColor.transparent)
+        painter = QPainter(pixmap)
+        painter.setRenderHint(QPainter.RenderHint.Antialiasing)
+        painter.setPen(pen(style.WORK_EDGE, ring * ratio))
+        painter.setBrush(QColor(style.BACKGROUND))
+        painter.drawEllipse(QPointF(side / 2, side / 2), r * ratio, r * ratio)
+        painter.end()
+        pixmap.setDevicePixelRatio(ratio)
+        _RINGS[key] = pixmap
+    return _RINGS[key]
+
+
+def stamps(p: QPainter, pixmap: QPixmap, x, y) -> None:
+    """The same small picture centred on many points, in one call."""
+    x, y = np.asarray(x, float), np.asarray(y, float)
+    if not x.size:
+        return
+    side = pixmap.width()
+    if _STAMPS is None:
+        half = side / pixmap.devicePixelRatio() / 2
+        for a, b in zip(x.tolist(), y.tolist()):
+            p.drawPixmap(QPointF(a - half, b - half), pixmap)
+        return
+    _STAMPS.resize(x.size)
+    m = _STAMPS.ndarray()
+    m[:, 0], m[:, 1] = x, y                     # centre
+    m[:, 2:4] = 0.0                             # source left, top
+    m[:, 4:6] = side                            # source width, height
+    m[:, 6:8] = 1.0 / pixmap.devicePixelRatio()  # scale
+    m[:, 8], m[:, 9] = 0.0, 1.0                 # rotation, opacity
+    p.drawPixmapFragments(*_STAMPS.drawargs(), pixmap)
+
+
 def draw_free_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     """Free float: a small open circle on the slack line."""
     if not len(m) or px.row_px < DENSE_ROW_PX:
         return
     r = max(2.5, h * 0.2)
-    ring = 1.5 * px.scale
     x, y = px.x(m.x0), px.y(m.rows)
     lo, hi = px.clip
     keep = (x >= lo) & (x <= hi)
-    x, y = x[keep], y[keep]
-    for colour, diameter in ((style.WORK_EDGE, 2 * r + ring), (style.BACKGROUND, 2 * r - ring)):
-        disc = pen(colour, diameter)        # a ring: a dark disc, then a paler one inside
-        disc.setCapStyle(Qt.PenCapStyle.RoundCap)
-        p.setPen(disc)
-        points(p, x, y)
+    if p.paintEngine().type() == QPaintEngine.Type.Raster:   # screen and images: one blit call
+        ratio = p.device().devicePixelRatioF()
+        stamps(p, ring_pixmap(r, 1.5 * px.scale, ratio), x[keep], y[keep])
+        return
+    p.setPen(pen(style.WORK_EDGE, 1.5 * px.scale))      # paper, PDF, SVG: true circles
+    p.setBrush(QColor(style.BACKGROUND))
+    for a, b in zip(x[keep].tolist(), y[keep].tolist()):
+        p.drawEllipse(QPointF(a, b), r, r)
 
 
 def draw_connectors(p: QPainter, px, segments: np.ndarray, rows, w: style.Weights) -> None:
