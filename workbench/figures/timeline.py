@@ -58,11 +58,15 @@ class Marks:
     def within(self, lo_row: float, hi_row: float) -> "Marks":
         """Only the marks on rows lo_row..hi_row (for skipping rows off screen): a slice,
         found by bisection since marks are kept in row order."""
-        a = int(np.searchsorted(self.rows, lo_row, side="left"))
-        b = int(np.searchsorted(self.rows, hi_row, side="right"))
+        if not self.rows.size:
+            return self
+        a = int(self.rows.searchsorted(lo_row, side="left"))
+        b = int(self.rows.searchsorted(hi_row, side="right"))
         if a == 0 and b == self.rows.size:
             return self
-        return Marks(self.rows[a:b], self.x0[a:b], self.x1[a:b], self.index[a:b])
+        part = object.__new__(Marks)      # a slice of sorted rows stays sorted: no re-check
+        part.rows, part.x0, part.x1, part.index = self.rows[a:b], self.x0[a:b], self.x1[a:b], self.index[a:b]
+        return part
 
 
 @dataclass

@@ -35,9 +35,13 @@ class _Pixels:
         self.clip = (ends[0] - 16.0, ends[1] + 16.0)   # marks beyond these pixels are culled
 
     def x(self, x, row=0.0):
+        if self.t.m21() == 0.0:          # no rotation or shear: the usual case, cheaper
+            return self.t.m11() * np.asarray(x, float) + self.t.m31()
         return self.t.m11() * np.asarray(x, float) + self.t.m21() * np.asarray(row, float) + self.t.m31()
 
     def y(self, row, x=0.0):
+        if self.t.m12() == 0.0:
+            return self.t.m22() * np.asarray(row, float) + self.t.m32()
         return self.t.m12() * np.asarray(x, float) + self.t.m22() * np.asarray(row, float) + self.t.m32()
 
 

@@ -42,32 +42,38 @@ _STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not N
 _RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
 
 
+def _size(*values) -> int:
+    return max(np.size(v) for v in values) if all(np.size(v) for v in values) else 0
+
+
 def rects(p: QPainter, x, y, w, h) -> None:
     """Draw many rectangles in one call (numpy-backed when the Qt binding allows it)."""
-    x, y, w, h = np.broadcast_arrays(*(np.asarray(v, float) for v in (x, y, w, h)))
-    if not x.size:
+    n = _size(x, y, w, h)
+    if not n:
         return
+    x0, x1 = np.round(x), np.round(np.add(x, w))          # whole pixels: crisp, even lines
+    hh = np.maximum(np.round(h), 1.0)
+    top = np.round(np.add(y, np.subtract(h, hh) / 2))
     if _RECTS is None:
-        x, y, w, h = np.round(x), np.round(y), np.round(w), np.maximum(np.round(h), 1.0)
-        p.drawRects([QRectF(*v) for v in zip(x.tolist(), y.tolist(), w.tolist(), h.tolist())])
+        x0, top, w, hh = np.broadcast_arrays(x0, top, x1 - x0, hh)
+        p.drawRects([QRectF(*v) for v in zip(x0.tolist(), top.tolist(), w.tolist(), hh.tolist())])
         return
-    _RECTS.resize(x.size)
+    _RECTS.resize(n)
     m = _RECTS.ndarray()
-    x0, hh = np.round(x), np.maximum(np.round(h), 1.0)    # whole pixels: crisp, even lines
-    m[:, 0], m[:, 1] = x0, np.round(y + (h - hh) / 2)
-    m[:, 2], m[:, 3] = np.round(x + w) - x0, hh
+    m[:, 0], m[:, 1], m[:, 2], m[:, 3] = x0, top, x1 - x0, hh
     p.drawRects(*_RECTS.drawargs())
 
 
 def lines(p: QPainter, x0, y0, x1, y1) -> None:
     """Draw many line segments in one call."""
-    x0, y0, x1, y1 = np.broadcast_arrays(*(np.asarray(v, float) for v in (x0, y0, x1, y1)))
-    if not x0.size:
+    n = _size(x0, y0, x1, y1)
+    if not n:
         return
     if _LINES is None:
+        x0, y0, x1, y1 = np.broadcast_arrays(*(np.asarray(v, float) for v in (x0, y0, x1, y1)))
         p.drawLines([QLineF(*v) for v in zip(x0.tolist(), y0.tolist(), x1.tolist(), y1.tolist())])
         return
-    _LINES.resize(x0.size)
+    _LINES.resize(n)
     m = _LINES.ndarray()
     m[:, 0], m[:, 1], m[:, 2], m[:, 3] = x0, y0, x1, y1
     p.drawLines(*_LINES.drawargs())

@@ -132,8 +132,11 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         bold.setBold(True)
         laid_out = isinstance(p.device(), RASTER)     # on paper and SVG: plain vector text
         flags = int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
+        current = None
         for x, top, width, h, text, static, is_bold in textSpecs:
-            p.setFont(bold if is_bold else font)
+            if is_bold is not current:        # a label laid out for another font is laid out again
+                p.setFont(bold if is_bold else font)
+                current = is_bold
             if laid_out:
                 p.drawStaticText(QPointF(x, top + (h - static.size().height()) / 2), static)
             else:
