@@ -49,8 +49,8 @@ def render_plot_only(plot, image: QImage) -> None:
     painter.end()
 
 
-def interleaved(subjects: dict, rounds: int) -> dict[str, float]:
-    """Median ms per subject, measured in alternating rounds (fair on a noisy machine).
+def interleaved(subjects: dict, rounds: int) -> dict[str, list[float]]:
+    """Ms per subject and round, measured in alternating rounds (fair on a noisy machine).
 
     ``subjects``: name → (widget, render function, callable run before each render or None).
     """
@@ -65,7 +65,17 @@ def interleaved(subjects: dict, rounds: int) -> dict[str, float]:
             render(widget, images[name])
             if r:                       # round 0 warms up
                 times[name].append((time.perf_counter() - t0) * 1000.0)
-    return {k: statistics.median(v) for k, v in times.items()}
+    return times
+
+
+def median(times: list[float]) -> float:
+    return statistics.median(times)
+
+
+def ratio(times: dict, subject: str, reference: str) -> float:
+    """Median over rounds of subject / reference within the same round: a burst of load
+    from elsewhere on the machine hits both sides of each ratio alike."""
+    return statistics.median(a / b for a, b in zip(times[subject], times[reference]))
 
 
 def timeline_for(n: int, size):
@@ -118,12 +128,13 @@ def new_method(full, zoom, blank, rounds: int) -> None:
     changed = interleaved({k: (v, render_widget, drop[k]) for k, v in views.items()}, rounds)
     still = interleaved({k: (v, render_widget, None) for k, v in views.items()}, rounds)
     print(f"whole TimelineView at {SIZE[0]}x{SIZE[1]} (QWidget.render), reference: empty Timeline "
-          f"{changed['blank']:.2f} ms after a change, {still['blank']:.2f} ms repaint")
+          f"{median(changed['blank']):.2f} ms after a change, {median(still['blank']):.2f} ms repaint")
     for name, label, target in (("full", "10,000 activities, all rows", "<= 20 ms, <= 2.5x"),
                                 ("zoom", f"10,000 activities, {zoom.item.painted_rows} rows in view", "<= 1.3x")):
         print(f"  {label} (target {target}):")
         for case, t in (("after a change", changed), ("repaint", still)):
-            print(f"    {case}: {t[name]:.1f} ms = {t[name] / t['blank']:.2f}x empty Timeline")
+            print(f"    {case}: {median(t[name]):.1f} ms, {ratio(t, name, 'blank'):.2f}x empty Timeline "
+                  f"(ratio of medians {median(t[name]) / median(t['blank']):.2f}x)")
 
 
 def old_method(full, zoom, blank, rounds: int) -> None:
@@ -132,11 +143,11 @@ def old_method(full, zoom, blank, rounds: int) -> None:
                      "blank": (blank.plot, render_plot_only, None),
                      "full": (full.plot, render_plot_only, full.item._changed),
                      "zoom": (zoom.plot, render_plot_only, zoom.item._changed)}, rounds)
-    print(f"earlier method (plot area only, chart picture dropped): empty pyqtgraph plot {t['bare']:.2f} ms, "
-          f"empty Timeline plot {t['blank']:.2f} ms")
+    print(f"earlier method (plot area only, chart picture dropped): empty pyqtgraph plot "
+          f"{median(t['bare']):.2f} ms, empty Timeline plot {median(t['blank']):.2f} ms")
     for name in ("full", "zoom"):
-        print(f"  {name}: {t[name]:.1f} ms = {t[name] / t['bare']:.1f}x empty plot, "
-              f"{t[name] / t['blank']:.2f}x empty Timeline plot")
+        print(f"  {name}: {median(t[name]):.1f} ms = {ratio(t, name, 'bare'):.1f}x empty plot, "
+              f"{ratio(t, name, 'blank'):.2f}x empty Timeline plot")
     bare.close()
 
 
