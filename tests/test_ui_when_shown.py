@@ -18,6 +18,9 @@ from workbench.ui.session import Session, WhenShown, refresh_when_shown
 def shown(window, qtbot):
     window.show()
     qtbot.waitExposed(window)
+    # the front views are built once the window has painted, then come on screen
+    qtbot.waitUntil(lambda: {"Timeline", "Odds"} <= set(window.built_views()))
+    qtbot.waitUntil(lambda: window.view("Odds").when_shown.on_screen() and not window.view("Odds").when_shown.dirty)
     return window
 
 
@@ -65,6 +68,14 @@ def test_helper_connects_signals_in_one_line(qtbot):
     assert runs == [len(session.plan)]
 
 
+def test_views_behind_tabs_are_not_built_until_needed(shown, qtbot):
+    assert "Network" not in shown.built_views() and "Drivers" not in shown.built_views()
+    shown.docks["Drivers"].raise_()
+    qtbot.waitUntil(lambda: "Drivers" in shown.built_views())
+    assert type(shown.view("Drivers")).__name__ == "DriversView"
+    assert "Network" not in shown.built_views()
+
+
 def test_network_behind_a_tab_waits_and_is_right_when_raised(shown, qtbot, monkeypatch):
     view = shown.views["Network"]
     assert not view.when_shown.on_screen()   # the default layout puts it behind the Timeline
@@ -73,8 +84,7 @@ def test_network_behind_a_tab_waits_and_is_right_when_raised(shown, qtbot, monke
     shown.session.push(EditActivity("W", duration=30))
     assert layouts == [] and view.when_shown.dirty
     shown.docks["Network"].raise_()
-    qtbot.waitUntil(lambda: not view.when_shown.dirty)
-    assert view.when_shown.on_screen()
+    qtbot.waitUntil(lambda: view.when_shown.on_screen() and not view.when_shown.dirty)
     assert len(layouts) == 1             # two edits, one catch-up
     critical = shown.session.analysis.schedule.critical
     assert [n.critical for n in view.layout_result.nodes] == [bool(c) for c in critical]

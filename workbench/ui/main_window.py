@@ -4,9 +4,10 @@ views in docks around it, menus, a status bar; files through the FileController.
 from __future__ import annotations
 
 import importlib
+from functools import partial
 from pathlib import Path
 
-from PySide6.QtCore import QByteArray, QSettings, Qt
+from PySide6.QtCore import QByteArray, QSettings, Qt, QTimer
 from PySide6.QtGui import QCloseEvent
 from PySide6.QtWidgets import QDockWidget, QLabel, QMainWindow, QUndoView, QVBoxLayout, QWidget
 
@@ -16,7 +17,7 @@ from workbench.ui.file_controller import TABLE_SUFFIXES, FileController
 from workbench.ui.icons import icon
 from workbench.ui.notice_bar import NoticeBar
 from workbench.ui.recovery_store import RecoveryStore
-from workbench.ui.session import Session
+from workbench.ui.session import Session, WhenShown
 from workbench.ui.summary_strip import SummaryStrip
 from workbench.ui.window_menus import build_menus
 
@@ -67,7 +68,9 @@ class MainWindow(QMainWindow):
                             | QMainWindow.DockOption.AllowNestedDocks)
         self._build_centre()
         self.docks: dict[str, QDockWidget] = {}
-        self.views: dict[str, QWidget] = {}
+        self._slots: dict[str, QWidget] = {}       # dock content holders, filled on demand
+        self._built: dict[str, QWidget] = {}
+        self._watching = False
         self._build_docks()
         self._build_status()
         self.menu_actions = build_menus(self)
@@ -99,11 +102,16 @@ class MainWindow(QMainWindow):
         return dock
 
     def _build_docks(self) -> None:
-        for title, module, cls, promise in VIEWS:
-            view = make_view(module, cls, self.session, self)
-            widget = view if view is not None else placeholder(promise, self)
-            self.views[title] = widget
-            self._add_dock(title, widget, Qt.DockWidgetArea.BottomDockWidgetArea)
+        """Docks get an empty holder; a view (and the modules it needs) is built the first
+        time its dock comes on screen after the window's first paint, so the window shows
+        without waiting for the views, and those behind a tab or in a closed dock wait until
+        they are brought forward."""
+        for title, *_ in VIEWS:
+            holder = QWidget(self)
+            holder.setAccessibleName(f"{title} view")
+            QVBoxLayout(holder).setContentsMargins(0, 0, 0, 0)
+            self._slots[title] = holder
+            self._add_dock(title, holder, Qt.DockWidgetArea.BottomDockWidgetArea)
         self.history = QUndoView(self.session.undo_stack, self)
         self.history.setEmptyLabel("Opened plan")
         self.history.setAccessibleName("Edit history")
@@ -131,6 +139,36 @@ class MainWindow(QMainWindow):
         self.resizeDocks([self.docks["Timeline"], self.docks["Odds"]],
                          [int(self.width() * 0.58), int(self.width() * 0.42)], Qt.Orientation.Horizontal)
         self.resizeDocks([self.docks["Timeline"]], [int(self.height() * 0.48)], Qt.Orientation.Vertical)
+
+    def view(self, title: str) -> QWidget:
+        """The view in the dock ``title`` (built now if it has not been yet)."""
+        if title not in self._built:
+            module, cls, promise = next(v[1:] for v in VIEWS if v[0] == title)
+            holder = self._slots[title]
+            widget = make_view(module, cls, self.session, holder) or placeholder(promise, holder)
+            self._built[title] = widget
+            holder.layout().addWidget(widget)
+        return self._built[title]
+
+    def _watch_views(self) -> None:
+        for title, holder in self._slots.items():
+            if title not in self._built:
+                WhenShown(holder).call(partial(self.view, title))
+
+    def showEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        super().showEvent(event)
+        if not self._watching:
+            self._watching = True
+            QTimer.singleShot(0, self._watch_views)   # once the window has painted
+
+    def built_views(self) -> dict[str, QWidget]:
+        """The views built so far (those whose docks have been on screen, or asked for)."""
+        return dict(self._built)
+
+    @property
+    def views(self) -> dict[str, QWidget]:
+        """Every dock's view by title (builds those not built yet)."""
+        return {title: self.view(title) for title, *_ in VIEWS}
 
     def _build_status(self) -> None:
         bar = self.statusBar()
