@@ -7,6 +7,9 @@ predecessors and successors, the find field jumps to an id or a name.
 
 from __future__ import annotations
 
+from dataclasses import replace
+
+import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QKeySequence, QShortcut
@@ -16,7 +19,7 @@ from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLin
 from workbench.core.errors import PlanError
 from workbench.figures import network_style as ns
 from workbench.figures.network_labels import column_dates, find_nodes, node_texts, node_tooltip
-from workbench.figures.network_layout import LayoutOptions, layout_plan
+from workbench.figures.network_layout import LayoutOptions, _driving_links, layout_plan, structure_key
 from workbench.figures.network_nav import step
 
 from .network_export import print_pages, save_picture
@@ -31,6 +34,7 @@ class NetworkView(QWidget):
         super().__init__(parent)
         self.session = session
         self.layout_result = None
+        self._layout_key = None
         self.options = LayoutOptions()
         self._matches: list[str] = []
         self._match_at = -1
@@ -89,7 +93,7 @@ class NetworkView(QWidget):
         """Redraw from the session's plan and analysis (on every schedule change)."""
         plan, analysis = self.session.plan, self.session.analysis
         try:
-            result = layout_plan(plan, analysis, self.options)
+            result = self._layout(plan, analysis)
         except PlanError as exc:
             self._show_message(f"The network cannot be drawn: {exc}")
             return
@@ -105,6 +109,18 @@ class NetworkView(QWidget):
             self._show_message(f"Not scheduled: {note}" if note else "")
         if first and result.nodes:
             self.fit()
+
+    def _layout(self, plan, analysis):
+        """The plan laid out. An edit that keeps the drawing's structure (a duration, an
+        estimate, a name) reuses the last layout with its critical marks brought up to date."""
+        key = None
+        if analysis is not None and not self.options.time_scaled:
+            key = (structure_key(plan, self.options), plan.ids(), list(plan.links))
+            if key == self._layout_key and self.layout_result is not None:
+                return _reflagged(self.layout_result, plan, analysis.schedule)
+        result = layout_plan(plan, analysis, self.options)
+        self._layout_key = key
+        return result
 
     def _show_message(self, text: str) -> None:
         self.message.setText(text)
@@ -227,3 +243,12 @@ class NetworkView(QWidget):
         dialog.setWindowTitle("Print network")
         dialog.paintRequested.connect(lambda pr: print_pages(self.item.painter, pr))
         return dialog
+
+
+def _reflagged(layout, plan, schedule):
+    """``layout`` with the critical flags of ``schedule`` (same structure, new durations)."""
+    crit = np.asarray(schedule.critical, dtype=bool).tolist()
+    driving = _driving_links(plan, schedule).tolist()
+    nodes = [n if n.critical == c else replace(n, critical=c) for n, c in zip(layout.nodes, crit)]
+    links = [k if k.critical == d else replace(k, critical=d) for k, d in zip(layout.links, driving)]
+    return replace(layout, nodes=nodes, links=links)
