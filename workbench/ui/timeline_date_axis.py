@@ -24,7 +24,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         self._calendar = None
         self._labels: dict[float, str] = {}
         self._laid_out: dict[tuple, QStaticText] = {}
-        self.setStyle(tickLength=5, autoExpandTextSpace=True)
+        self.setStyle(tickLength=5, autoExpandTextSpace=True, hideOverlappingLabels=False)
 
     def set_calendar(self, calendar) -> None:
         self._calendar = calendar
@@ -71,10 +71,10 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         metrics = QFontMetricsF(self._font())
         self._updateMaxTextSize(int(np.ceil(metrics.height())))
         top = bounds.top() + max(0, self.style["tickLength"]) + self.style["tickTextOffset"][1]
-        texts = []
+        texts, room = [], self.boundingRect()        # the axis and a small margin either side
         for x, (_, text) in zip(xs.tolist(), ticks):
             w = metrics.horizontalAdvance(text)
-            if bounds.left() <= x - w / 2 and x + w / 2 <= bounds.right():   # whole labels only
+            if room.left() <= x - w / 2 and x + w / 2 <= room.right():   # whole labels only
                 texts.append((x - w / 2, top, w, text))
         axis = (QPen(self.pen()), QPointF(bounds.left(), bounds.top()), QPointF(bounds.right(), bounds.top()))
         return axis, (bounds.top(), xs), texts

@@ -96,6 +96,10 @@ class TimelineItem(pg.GraphicsObject):
             self.informViewBoundsChanged()
         self.update()
 
+    def drop_cache(self) -> None:
+        """Redraw from scratch at the next paint."""
+        self._changed()
+
     def set_geometry(self, geo: TimelineGeometry | None) -> None:
         self._geo = geo
         self._preview = None

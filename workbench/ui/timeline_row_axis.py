@@ -108,9 +108,12 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
         if self._geo is None or not self._geo.labels:
             return int(min(limit, 120))
-        metrics = QFontMetricsF(font)
+        bold = QFont(font)
+        bold.setBold(True)
+        plain, heavy = QFontMetricsF(font), QFontMetricsF(bold)     # group rows are bold
         longest = heapq.nlargest(40, range(self._geo.n_rows), key=lambda r: len(self._geo.labels[r]))
-        need = max(metrics.horizontalAdvance(self.label_text(r)) + INDENT * int(self._geo.depth[r]) for r in longest)
+        need = max((heavy if self._geo.kinds[r] == "group" else plain).horizontalAdvance(self.label_text(r))
+                   + INDENT * int(self._geo.depth[r]) for r in longest)
         return int(min(limit, need + 2 * PADDING + 2))
 
     def cache_content(self):

@@ -18,6 +18,7 @@ from workbench.figures import style
 from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
 from workbench.ui.timeline_date_axis import TimelineDateAxis
 from workbench.ui.timeline_item import TimelineItem, nonworking_finder
+from workbench.ui.timeline_present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
 from workbench.ui.timeline_row_axis import TimelineRowAxis
 from workbench.ui.timeline_tooltip import tooltip_text
 
@@ -45,6 +46,7 @@ class TimelineView(QWidget):
         self.connectors = False
         self._weights = style.SCREEN
         self._drag = None
+        self.present_hint = ""     # keys shown on the Present slide
         self.geometry = None
         self._auto_fit = True      # refit on resize until the user zooms or pans
         self._build()
@@ -62,6 +64,7 @@ class TimelineView(QWidget):
                                   axisItems={"left": self.row_axis, "bottom": self.date_axis})
         self.plot.setFocusPolicy(Qt.FocusPolicy.StrongFocus)
         self.plot.installEventFilter(self)
+        self.setFocusProxy(self.plot)
         pi = self.plot.getPlotItem()
         pi.hideButtons()
         pi.setMenuEnabled(False)
@@ -150,6 +153,7 @@ class TimelineView(QWidget):
             self._fit_label_column()
             if self._auto_fit:
                 self.fit_all(rows_to_fit=True)
+            stack_finish_labels(self)
 
     def _stop_auto_fit(self, *args) -> None:
         self._auto_fit = False
@@ -181,6 +185,7 @@ class TimelineView(QWidget):
             line = self._lines.get(name) or self._new_line(name)
             line.setValue(offset)
             line.label.setFormat(dates[name])
+        stack_finish_labels(self)
         self._update_band()
 
     def _line_label(self, name: str, offset: float) -> str:
@@ -308,9 +313,10 @@ class TimelineView(QWidget):
         pad = 0.03 * (hi - lo)
         n = max(geo.n_rows, 1)
         height = max(self.view_box.height(), 200.0)
+        header_px = max(HEADER_PX, 2.0 * self._font().pixelSize())    # room for the line labels
         if rows_to_fit:
-            n = min(n, max(5, int((height - HEADER_PX) / self._weights.row_height)))
-        header = HEADER_PX * n / max(height - HEADER_PX, 1.0)    # room for the line labels
+            n = min(n, max(5, int((height - header_px) / self._weights.row_height)))
+        header = header_px * n / max(height - header_px, 1.0)
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
 
     def show_critical_path(self, on: bool = True) -> None:
@@ -349,6 +355,8 @@ class TimelineView(QWidget):
                    K.Key_Right: lambda: self.pan(0.1), K.Key_Up: lambda: self.pan(dy_rows=-3),
                    K.Key_Down: lambda: self.pan(dy_rows=3), K.Key_Home: self.fit_all,
                    K.Key_0: self.fit_all, K.Key_Escape: self.cancel_drag}
+        if self.present_hint and present_key(self, key):
+            return True
         if key in actions:
             actions[key]()
             return True
@@ -356,9 +364,13 @@ class TimelineView(QWidget):
 
     # --- Present mode and output -------------------------------------------------------------
     def set_present(self, on: bool) -> None:
-        """Bigger type and heavier lines for a projector."""
+        """Bigger type and heavier lines for a projector; groups folded so every row fits
+        (keys G and C, see ``timeline_present``)."""
         self._weights = style.PRESENT if on else style.SCREEN
+        self.present_hint = PRESENT_HINT if on else ""
         self._apply_weights()
+        if on:
+            fold_all(self, True)
 
     def _apply_weights(self) -> None:
         font = self._font()
@@ -373,11 +385,9 @@ class TimelineView(QWidget):
         self._update_lines()
 
     def drop_paint_caches(self) -> None:
-        """Forget every cached drawing (chart, label column, date axis): the next paint
-        starts from scratch, as after a change (used by the benchmark)."""
-        self.item._changed()
-        for axis in (self.row_axis, self.date_axis):
-            axis.drop_cache()
+        """Forget every cached drawing: the next paint starts from scratch (benchmark)."""
+        for part in (self.item, self.row_axis, self.date_axis):
+            part.drop_cache()
 
     def export_png(self, path, size=None) -> None:
         from workbench.ui.timeline_output import export_png
