@@ -114,6 +114,7 @@ class BlockPasses:
         self.floor = np.asarray(floor, dtype=float)[self.fwd.nodes][:, None]
         self.fnlt = np.asarray(fnlt, dtype=float)[self.bwd.nodes][:, None]
         self.es_rows = self.fwd.row[self.bwd.nodes]        # forward row of each backward row
+        self.bounded = [bool(np.isfinite(self.fnlt[a:b]).any()) for a, b, _, _ in self.bwd.levels]
         self.size = n
         self._flat: dict[str, np.ndarray] = {}
         self._width = 0
@@ -154,10 +155,17 @@ class BlockPasses:
         es, ef, d, tmp, spare = buf["es"], buf["ef"], buf["d_f"], buf["tmp"], buf["spare"]
         floor = self.floor
         for a, b, plain, other in self.fwd.levels:
-            es[a:b] = floor[a:b]
+            start = a                          # rows from here on start from their floor
             for c, gather, _ in plain:
                 ef.take(gather, axis=0, out=tmp[:c])
-                np.maximum(es[a:a + c], tmp[:c], out=es[a:a + c])
+                if start == a:                 # the first group also applies the floor
+                    start = a + c
+                    np.maximum(tmp[:c], floor[a:start], out=es[a:start])
+                    es[start:b] = floor[start:b]
+                else:
+                    np.maximum(es[a:a + c], tmp[:c], out=es[a:a + c])
+            if start == a:
+                es[a:b] = floor[a:b]
             for c, gather, parts in other:
                 _offsets(parts, d, tmp[:c], spare[:c])
                 tmp[:c] += es.take(gather, axis=0, out=spare[:c])
@@ -167,11 +175,20 @@ class BlockPasses:
     def _backward(self, buf, ref: np.ndarray) -> None:
         ls, d, tmp, spare = buf["ls"], buf["d_b"], buf["tmp"], buf["spare"]
         fnlt = self.fnlt
-        for a, b, plain, other in self.bwd.levels:
-            np.minimum(fnlt[a:b], ref, out=ls[a:b])          # late finish bound
+        for (a, b, plain, other), bounded in zip(self.bwd.levels, self.bounded):
+            start = a                          # rows from here on start from their bound
             for c, gather, _ in plain:
                 ls.take(gather, axis=0, out=tmp[:c])
-                np.minimum(ls[a:a + c], tmp[:c], out=ls[a:a + c])
+                if start == a and not bounded:  # the first group also applies the bound
+                    start = a + c
+                    np.minimum(tmp[:c], ref, out=ls[a:start])
+                else:
+                    if start == a:
+                        start = b
+                        np.minimum(fnlt[a:b], ref, out=ls[a:b])
+                    np.minimum(ls[a:a + c], tmp[:c], out=ls[a:a + c])
+            if start < b:
+                np.minimum(fnlt[start:b], ref, out=ls[start:b])
             ls[a:b] -= d[a:b]
             for c, gather, parts in other:
                 _offsets(parts, d, tmp[:c], spare[:c])
