@@ -6,32 +6,71 @@ import os
 import sys
 from pathlib import Path
 
-from PySide6.QtCore import QSettings
+from PySide6.QtCore import QEvent, QSettings, Signal
+from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import QApplication
 
 from workbench.core.model import Plan
-from workbench.ui.icons import RESOURCES, icon
+from workbench.resources import demo_path
+from workbench.ui.icons import app_icon
 
 ORGANISATION = "Slackline"
 APPLICATION = "Slackline"
-DEMO_PATH = RESOURCES / "demo.slw"
+DESKTOP_FILE = "org.slackline.Slackline"   # the installed .desktop entry, without ".desktop"
+
+
+class SlacklineApp(QApplication):
+    """The application object. On macOS a plan double-clicked in the Finder (or dropped on
+    the Dock icon) while Slackline runs arrives as a QFileOpenEvent: it is handed to
+    ``open_requested``, or kept until a window asks for it with :meth:`deliver_opens`."""
+
+    open_requested = Signal(str)
+
+    def __init__(self, argv: list[str]):
+        super().__init__(argv)
+        self.pending_opens: list[str] = []
+        self._delivering = False
+
+    def event(self, event) -> bool:  # noqa: A003 (Qt override)
+        if event.type() == QEvent.Type.FileOpen:
+            path = event.file() or event.url().toLocalFile()
+            if path:
+                self._request(path)
+            return True
+        return super().event(event)
+
+    def _request(self, path: str) -> None:
+        if self._delivering:
+            self.open_requested.emit(path)
+        else:
+            self.pending_opens.append(path)
+
+    def deliver_opens(self, open_path) -> None:
+        """From now on send file-open requests to ``open_path``, starting with those that
+        came before there was a window."""
+        self.open_requested.connect(open_path)
+        self._delivering = True
+        pending, self.pending_opens = self.pending_opens, []
+        for path in pending:
+            self.open_requested.emit(path)
 
 
 def application(argv: list[str] | None = None) -> QApplication:
     """The QApplication, with the names QSettings and the data folder use."""
-    app = QApplication.instance() or QApplication([sys.argv[0] if sys.argv else "slackline", *(argv or [])])
+    app = QApplication.instance() or SlacklineApp([sys.argv[0] if sys.argv else "slackline", *(argv or [])])
     app.setOrganizationName(ORGANISATION)
     app.setApplicationName(APPLICATION)
     app.setApplicationDisplayName(APPLICATION)
-    app.setWindowIcon(icon("app"))
+    QGuiApplication.setDesktopFileName(DESKTOP_FILE)
+    app.setWindowIcon(app_icon())
     return app
 
 
 def demo_plan() -> Plan:
     """The demo plan shown on first run: resources/demo.slw, else the core's demo."""
-    if DEMO_PATH.exists():
+    if demo_path().exists():
         from workbench.io.planfile import load_plan
-        return load_plan(DEMO_PATH)
+        return load_plan(demo_path())
     try:
         from workbench.core.demo import demo_plan as core_demo
     except ImportError:
@@ -68,6 +107,8 @@ def run_app(argv: list[str]) -> int:
     instance.path_received.connect(lambda p: window.open_path(p) if p else (window.raise_(), window.activateWindow()))
     window.show()
     first_plan(window, paths)
+    if isinstance(app, SlacklineApp):
+        app.deliver_opens(window.open_path)
     code = app.exec()
     instance.close()
     _dispose(window)

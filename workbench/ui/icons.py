@@ -4,14 +4,16 @@ so they stay crisp at high DPI and follow a light or dark system palette."""
 from __future__ import annotations
 
 from functools import lru_cache
-from pathlib import Path
 
 from PySide6.QtCore import QByteArray, QRect, QRectF, QSize, Qt
 from PySide6.QtGui import QGuiApplication, QIcon, QIconEngine, QPainter, QPalette, QPixmap
 from PySide6.QtSvg import QSvgRenderer
 
-RESOURCES = Path(__file__).resolve().parents[2] / "resources"
+from workbench.resources import resources_dir
+
+RESOURCES = resources_dir()
 ICON_DIR = RESOURCES / "icons"
+APP_ICON_DIR = RESOURCES / "icon"      # the installed app icon: slackline.svg and PNG sizes
 
 
 @lru_cache(maxsize=None)
@@ -57,8 +59,20 @@ class GlyphEngine(QIconEngine):
 
 def icon(name: str) -> QIcon:
     """The named glyph as a QIcon (an empty icon if the file is missing)."""
+    if name == "app":
+        return app_icon()
     if not _svg_text(name):
         return QIcon()
-    if name == "app":
-        return QIcon(str(ICON_DIR / "app.svg"))
     return QIcon(GlyphEngine(name))
+
+
+def app_icon() -> QIcon:
+    """Slackline's own icon (the one installed for the desktop): the SVG, with the
+    rendered PNG sizes beside it for the sizes where a raster is crisper."""
+    result = QIcon()
+    svg = APP_ICON_DIR / "slackline.svg"
+    if svg.exists():
+        result.addFile(str(svg))       # first: the scalable engine, which also takes the PNGs
+    for png in sorted(APP_ICON_DIR.glob("slackline-*.png")):
+        result.addFile(str(png))
+    return result
