@@ -16,6 +16,7 @@ from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
 from workbench.figures import style
 from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
+from workbench.ui.session import refresh_when_shown
 from workbench.ui.timeline_date_axis import TimelineDateAxis
 from workbench.ui.timeline_item import TimelineItem, nonworking_finder
 from workbench.ui.timeline_present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
@@ -50,11 +51,10 @@ class TimelineView(QWidget):
         self.geometry = None
         self._auto_fit = True      # refit on resize until the user zooms or pans
         self._build()
-        session.schedule_changed.connect(self.refresh)
-        session.simulation_changed.connect(self.refresh)
+        # while hidden (a dock behind a tab, a Present slide not reached) redraws wait
+        refresh_when_shown(self, self._catch_up, session.schedule_changed, session.simulation_changed)
         session.selection_changed.connect(self._follow_selection)
-        self.refresh()
-        self.fit_all(rows_to_fit=True)
+        self.when_shown.call(self._catch_up)
 
     # --- construction ---------------------------------------------------------
     def _build(self) -> None:
@@ -109,6 +109,11 @@ class TimelineView(QWidget):
         return bar
 
     # --- session → drawing -------------------------------------------------------
+    def _catch_up(self) -> None:
+        self.refresh()
+        if self._auto_fit:
+            self.fit_all(rows_to_fit=True)
+
     def refresh(self) -> None:
         """Rebuild the geometry from the session's latest analysis (and simulation)."""
         analysis = self.session.analysis
