@@ -240,6 +240,36 @@ def test_near_critical_paths_of_r1():
     assert [p["ids"] for p in res.near_critical(1.5)] == [list("ABCEFJLN"), list("ABCEFJKN")]
 
 
+def test_near_critical_paths_end_at_the_last_activity_they_drive():
+    # Demo plan: the opening milestone O3 follows O2; a path is listed once, through O3.
+    from workbench.core.demo import demo_plan
+    res = simulate(demo_plan(), 64, seed=1)
+    paths = res.near_critical(15.0, limit=30)
+    ids = [tuple(p["ids"]) for p in paths]
+    assert len(set(ids)) == len(ids)
+    assert not any(a != b and b[: len(a)] == a for a in ids for b in ids)   # no path stops short of another
+    assert all(p[-1] == "O3" or p[-1] == "X1" for p in ids)               # the plan's two activities without successors
+    assert ids[0] == tuple(res.schedule.paths[0]) and paths[0]["gap"] == 0.0
+
+
+def test_a_path_may_end_where_its_own_finish_comes_last():
+    # A (10) starts B (2) start-to-start: A's finish drives the project, B's path is 8 shorter.
+    acts = [Activity("A", duration=10), Activity("B", duration=2), Activity("M", duration=0)]
+    plan = Plan(Settings(start=MONDAY), acts, [Link("A", "B", "SS", 0), Link("B", "M")])
+    res = simulate(plan, 1, seed=1)
+    assert [(p["ids"], p["mean"]) for p in res.near_critical(9.0)] == [(["A"], 10.0), (["A", "B", "M"], 2.0)]
+    assert [p["ids"] for p in res.near_critical(1.0)] == [["A"]]
+
+
+@pytest.mark.parametrize("limit", [1, 2, 3, 5])
+def test_a_limited_list_holds_the_longest_paths(limit):
+    # R1: the search stops after ``limit`` paths, and they are the longest ones.
+    res = simulate(r1_plan(), 64, seed=1)
+    every = res.near_critical(50.0, limit=1000)
+    assert [p["ids"] for p in res.near_critical(50.0, limit=limit)] == [p["ids"] for p in every[:limit]]
+    assert sorted("".join(p["ids"]) for p in every) == sorted(R1_PATHS)
+
+
 @pytest.mark.parametrize("kwargs,risk,text", [
     ({"iterations": 0}, None, "iterations"),
     ({"iterations": -3}, None, "iterations"),
