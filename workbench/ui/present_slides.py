@@ -1,7 +1,9 @@
 """The slides of Present mode, in order: summary, timeline, network, odds, drivers.
 
 A window view is reused when it offers a ``set_present(True)`` hook (large type, heavy
-lines); otherwise the slide draws the approval pack's chart for it, scaled up."""
+lines); otherwise the slide draws the approval pack's chart for it, scaled up. The
+Network slide is always the pack's diagram shown in parts (``present_network_slide``):
+the whole diagram at once would make the ids too small to read on a projector."""
 
 from __future__ import annotations
 
@@ -14,6 +16,7 @@ from workbench.reports.network_pages import overview_view
 from workbench.reports.network_paint import NetworkPainter
 
 from .present_chart_slide import PresentChartSlide
+from .present_network_slide import PresentNetworkSlide
 from .present_odds_slide import PresentOddsSlide
 from .present_summary_slide import PresentSummarySlide
 
@@ -75,6 +78,9 @@ def build_slides(session) -> list[tuple[str, object]]:
     for title, dotted in SLIDES:
         if dotted is None:
             slides.append((title, PresentSummarySlide(session)))
+            continue
+        if title == "Network":      # in parts, so ids stay legible on a projector
+            slides.append((title, PresentNetworkSlide(session)))
             continue
         view = window_view(session, dotted)
         if view is None:

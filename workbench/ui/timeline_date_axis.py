@@ -69,7 +69,9 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         offsets = np.array([o for o, _ in ticks], float)
         xs = bounds.left() + (offsets - lo) / (hi - lo) * bounds.width()
         metrics = QFontMetricsF(self._font())
-        self._updateMaxTextSize(int(np.ceil(metrics.height())))
+        need = int(np.ceil(metrics.height()))
+        if need > self.textHeight or need < self.textHeight - 10:   # as pyqtgraph: only on a real change,
+            self._updateMaxTextSize(need)                          # which also drops the kept image
         top = bounds.top() + max(0, self.style["tickLength"]) + self.style["tickTextOffset"][1]
         texts, room = [], self.boundingRect()        # the axis and a small margin either side
         for x, (_, text) in zip(xs.tolist(), ticks):

@@ -1,0 +1,140 @@
+"""Timeline drawing shortcuts change nothing that is drawn: images kept for repaints give
+the very pixels of a fresh drawing, row slicing and culling keep exactly the marks in view,
+the dense merge keeps every covered pixel, and a hidden Timeline waits to redraw.
+Offscreen Qt; no timings."""
+
+from __future__ import annotations
+
+import datetime as dt
+
+import numpy as np
+import pytest
+from hypothesis import given, settings, strategies as st
+from PySide6.QtGui import QImage
+from PySide6.QtWidgets import QWidget
+
+from workbench.core import Activity, Link, Plan, Settings
+from workbench.core.commands import EditActivity
+from workbench.figures.timeline import Marks
+from workbench.ui.session import Session
+from workbench.ui.timeline_paint import merge_runs, visible_x
+from workbench.ui.timeline_view import TimelineView
+
+
+def chain_plan(n: int) -> Plan:
+    acts = [Activity(f"T{i}", f"Task number {i}", optimistic=1, most_likely=2 + i % 4, pessimistic=9)
+            for i in range(n)]
+    links = [Link(f"T{i}", f"T{i + 1}") for i in range(0, n - 1, 2)]
+    return Plan(Settings(start=dt.date(2026, 12, 7)), acts, links)
+
+
+@pytest.fixture
+def view(qtbot):
+    v = TimelineView(Session(chain_plan(60)))
+    qtbot.addWidget(v)
+    v.resize(1100, 700)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit_all()
+    qtbot.wait(20)
+    return v
+
+
+def render(v) -> QImage:
+    image = QImage(v.size(), QImage.Format.Format_ARGB32_Premultiplied)
+    v.render(image)
+    return image
+
+
+def test_repaints_from_kept_images_match_a_fresh_drawing(view):
+    view.drop_paint_caches()
+    fresh = render(view)                          # drawn directly
+    assert view.item._cache is None and view.row_axis._image is None
+    recorded = render(view)                       # same view again: images kept and blitted
+    assert view.item._cache is not None and view.row_axis._image is not None
+    assert view.date_axis._image is not None
+    blitted = render(view)
+    assert fresh == recorded == blitted
+    assert fresh != render_after(view, lambda: view.pan(0.2))    # and the pictures are not stale
+
+
+def render_after(view, change) -> QImage:
+    change()
+    return render(view)
+
+
+def test_kept_images_are_dropped_by_an_edit(view):
+    render(view)
+    render(view)
+    assert view.item._cache is not None
+    view.session.push(EditActivity("T3", most_likely=7.0))
+    assert view.item._cache is None
+
+
+@settings(max_examples=60, deadline=None)
+@given(st.lists(st.integers(0, 40), min_size=0, max_size=60), st.floats(-2, 45), st.floats(-2, 45))
+def test_within_keeps_exactly_the_marks_on_the_rows_asked(rows, a, b):
+    lo, hi = min(a, b), max(a, b)
+    rows = np.array(rows, dtype=int)
+    x0 = np.arange(rows.size, dtype=float)
+    m = Marks(rows, x0, x0 + 1.0, np.arange(rows.size))
+    assert (np.diff(m.rows) >= 0).all()                       # kept in row order
+    assert (m.x0 == m.index).all()                            # fields moved together
+    part = m.within(lo, hi)
+    want = sorted(i for i, r in zip(range(rows.size), rows) if lo <= r <= hi)
+    assert sorted(part.index.tolist()) == want
+
+
+class _Px:
+    def __init__(self, clip):
+        self.clip = clip
+
+    def x(self, v):
+        return np.asarray(v, float) * 10.0
+
+
+def test_marks_left_or_right_of_the_view_are_culled_and_long_ones_clipped():
+    m = Marks(np.arange(4), np.array([-50.0, 5.0, 90.0, -500.0]), np.array([-20.0, 8.0, 95.0, 500.0]), np.arange(4))
+    x0, x1, rows = visible_x(_Px((0.0, 300.0)), m)
+    assert rows.tolist() == [1, 3]                             # before and after the view: gone
+    assert x0.tolist() == [50.0, 0.0] and x1.tolist() == [80.0, 300.0]
+
+
+@settings(max_examples=40, deadline=None)
+@given(st.integers(0, 2**31 - 1), st.sampled_from([300.0, 200_000.0]))
+def test_dense_merge_keeps_coverage_for_small_and_huge_pixel_ranges(seed, width):
+    rng = np.random.default_rng(seed)
+    n = 200
+    x0 = rng.uniform(0, width, n)
+    x1 = x0 + rng.uniform(0, width / 8, n)
+    y = rng.integers(0, 12, n).astype(float)
+    a, b, r = merge_runs(x0, x1, y)
+    for row in range(12):
+        spans = sorted(zip(np.round(x0[y == row]), np.maximum(np.round(x1[y == row]), np.round(x0[y == row]) + 1)))
+        merged = sorted(zip(a[r == row], b[r == row]))
+        union = []
+        for s, e in spans:
+            if union and s <= union[-1][1]:
+                union[-1] = (union[-1][0], max(union[-1][1], e))
+            else:
+                union.append((s, e))
+        assert [tuple(map(float, u)) for u in union] == [tuple(map(float, m)) for m in merged]
+
+
+def test_a_hidden_timeline_redraws_only_once_shown(qtbot):
+    holder = QWidget()
+    qtbot.addWidget(holder)
+    v = TimelineView(Session(chain_plan(8)), holder)
+    holder.resize(800, 500)
+    v.resize(800, 500)
+    holder.show()
+    qtbot.waitExposed(holder)
+    qtbot.waitUntil(lambda: v.geometry is not None)
+    v.hide()
+    before = v.geometry
+    v.session.push(EditActivity("T1", most_likely=8.0))
+    assert v.geometry is before and v.when_shown.dirty          # no work while hidden
+    v.show()
+    qtbot.waitUntil(lambda: v.geometry is not before)
+    row = v.geometry.row_of["T1"]
+    assert not v.when_shown.dirty and v.geometry is not before and row >= 0
