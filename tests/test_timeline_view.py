@@ -279,12 +279,12 @@ class FakeResult:
 def test_simulation_adds_the_finish_band_and_criticality(view):
     ids = view.session.analysis.schedule.ids
     view.session.set_simulation(FakeResult(ids, np.linspace(11, 16, 51)))
-    assert view._band.scene() is not None
-    assert view._band.getRegion() == pytest.approx((11.5, 15.5))
+    assert view.reference.band.scene() is not None
+    assert view.reference.band.getRegion() == pytest.approx((11.5, 15.5))
     from workbench.ui.timeline_tooltip import tooltip_text
     assert "criticality 50% (simulated)" in tooltip_text(view.session.analysis, view.session.simulation, "C")
     view.session.set_simulation(None)
-    assert view._band.scene() is None
+    assert view.reference.band.scene() is None
 
 
 def test_clicking_a_group_row_collapses_it(qtbot):

@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import pyqtgraph as pg
 from PySide6.QtCore import QEvent, QObject, Qt, Signal
-from PySide6.QtGui import QAction, QColor, QFont
+from PySide6.QtGui import QAction, QFont
 from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
 from workbench.figures import style
@@ -19,17 +19,13 @@ from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate,
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.timeline_date_axis import TimelineDateAxis
 from workbench.ui.timeline_item import TimelineItem, nonworking_finder
+from workbench.ui.timeline_lines import TimelineLines
 from workbench.ui.timeline_present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
 from workbench.ui.timeline_row_axis import TimelineRowAxis
 from workbench.ui.timeline_tooltip import tooltip_text
 
 HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
 GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
-LINE_NAMES = {"start": "Start", "deadline": "Deadline", "status": "Status",
-              "p10": "Finish P10", "p90": "Finish P90"}
-LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style.STATUS,
-                "p10": style.PROBABILITY, "p90": style.PROBABILITY}
-LABEL_PLACES = {"deadline": (0.01, (1.0, 0.0)), "p10": (0.99, (1.0, 1.0)), "p90": (0.99, (1.0, 1.0))}
 
 
 class TimelineView(QWidget):
@@ -77,10 +73,8 @@ class TimelineView(QWidget):
         self.item = TimelineItem(self._weights)
         self.item.on_click, self.item.on_drag, self.item.on_hover = self._click, self._drag_event, self._hover
         pi.addItem(self.item)
-        self._lines: dict[str, pg.InfiniteLine] = {}
-        self._band = pg.LinearRegionItem(movable=False, brush=pg.mkBrush(QColor(230, 159, 0, 40)),
-                                         pen=pg.mkPen(None))
-        self._band.setZValue(-10)
+        self.reference = TimelineLines(self.plot)
+        self._lines = self.reference.lines      # name → labelled line (tests, Present)
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
@@ -178,50 +172,11 @@ class TimelineView(QWidget):
         self._update_lines()
 
     def _update_lines(self) -> None:
-        geo = self.geometry
-        wanted = {} if geo is None else dict(geo.lines)
-        if geo is not None and geo.finish_whisker is not None:
-            wanted["p10"], wanted["p90"] = geo.finish_whisker
-        dates = {} if geo is None else {k: self._line_label(k, v) for k, v in wanted.items()}
-        for name in list(self._lines):
-            if name not in wanted:
-                self.plot.removeItem(self._lines.pop(name))
-        for name, offset in wanted.items():
-            line = self._lines.get(name) or self._new_line(name)
-            line.setValue(offset)
-            line.label.setFormat(dates[name])
+        analysis = self.session.analysis
+        geo = self.geometry if analysis is not None else None
+        self.reference.update(geo, None if analysis is None else analysis.calendar,
+                              self._weights.reference_line, self._font(bold=True))
         stack_finish_labels(self)
-        self._update_band()
-
-    def _line_label(self, name: str, offset: float) -> str:
-        cal = self.session.analysis.calendar
-        day = cal.start_date(offset) if name == "start" else cal.finish_date(max(offset, 0.0))
-        return f"{LINE_NAMES[name]} {day.day} {day:%b}"
-
-    def _new_line(self, name: str) -> pg.InfiniteLine:
-        width = self._weights.reference_line
-        pen = pg.mkPen(LINE_COLOURS[name], width=width,
-                       style=Qt.PenStyle.DashLine if name == "status" else Qt.PenStyle.SolidLine)
-        position, anchor = LABEL_PLACES.get(name, (0.01, (0.0, 0.0)))
-        line = pg.InfiniteLine(angle=90, movable=False, pen=pen, label=LINE_NAMES[name],
-                               labelOpts={"position": position,
-                                          "color": LINE_COLOURS[name], "fill": pg.mkBrush(255, 255, 255, 230),
-                                          "anchors": [anchor, anchor]})
-        line.label.setFont(self._font(bold=True))
-        line.setZValue(5)
-        self.plot.addItem(line, ignoreBounds=True)
-        self._lines[name] = line
-        return line
-
-    def _update_band(self) -> None:
-        whisker = None if self.geometry is None else self.geometry.finish_whisker
-        if whisker is None:
-            if self._band.scene() is not None:
-                self.plot.removeItem(self._band)
-            return
-        self._band.setRegion(whisker)
-        if self._band.scene() is None:
-            self.plot.addItem(self._band, ignoreBounds=True)
 
     # --- selection -----------------------------------------------------------------
     def _follow_selection(self, ids) -> None:
@@ -385,8 +340,7 @@ class TimelineView(QWidget):
         self.item.set_weights(self._weights)
         if hasattr(self, "toolbar"):
             self.toolbar.setVisible(self._weights is not style.PRESENT)
-        for line in list(self._lines):
-            self.plot.removeItem(self._lines.pop(line))
+        self.reference.clear()
         self._update_lines()
 
     def drop_paint_caches(self) -> None:
