@@ -27,7 +27,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
     def __init__(self, width: float = 300.0, **kwargs):
         super().__init__("left", **kwargs)
         self._geo = None
-        self._laid_out: dict[tuple, tuple[str, QStaticText]] = {}   # (text, width, bold) → label
+        self._laid_out: dict[tuple, tuple] = {}   # (text, width, bold) → cut text, laid out, height
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
@@ -80,15 +80,15 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
             indent = INDENT * int(self._geo.depth[row])
             width = bounds.width() - 2 * PADDING - indent
             bold = self._geo.kinds[row] == "group"
-            text, static = self._label(self.label_text(row), width, bold)
-            texts.append((bounds.left() + PADDING + indent, y - h / 2, width, h, text, static, bold))
+            text, static, dy = self._label(self.label_text(row), width, bold)
+            texts.append((bounds.left() + PADDING + indent, y - h / 2, width, h, text, (static, dy), bold))
         return axis, (bounds.right(), ys), texts
 
     def shown_labels(self) -> list[str]:
         """The label texts as they are drawn now (cut to the column), top to bottom."""
         return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2]]
 
-    def _label(self, text: str, width: float, bold: bool) -> tuple[str, QStaticText]:
+    def _label(self, text: str, width: float, bold: bool) -> tuple[str, QStaticText, float]:
         """The label cut to ``width`` and laid out once (kept across repaints and zooms)."""
         key = (text, round(width), bold)
         found = self._laid_out.get(key)
@@ -101,7 +101,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
             static = QStaticText(cut)
             static.setTextFormat(Qt.TextFormat.PlainText)
             static.prepare(QTransform(), font)
-            found = self._laid_out[key] = (cut, static)
+            found = self._laid_out[key] = (cut, static, static.size().height())
         return found
 
     def preferred_width(self, font: QFont, limit: float) -> int:
@@ -141,6 +141,6 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
                 p.setFont(bold if is_bold else font)
                 current = is_bold
             if laid_out:
-                p.drawStaticText(QPointF(x, top + (h - static.size().height()) / 2), static)
+                p.drawStaticText(QPointF(x, top + (h - static[1]) / 2), static[0])
             else:
                 p.drawText(QRectF(x, top, width, h), flags, text)
