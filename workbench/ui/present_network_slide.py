@@ -8,7 +8,7 @@ from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from workbench.figures.network_layout import layout_plan
 from workbench.reports import styles
-from workbench.reports.network_pages import overview_view, tiles
+from workbench.reports.network_pages import MARGIN_UNITS, overview_view, tiles
 from workbench.reports.network_paint import MIN_DETAIL_SCALE, NetworkPainter, View
 
 from .present_chart_slide import PresentChartSlide
@@ -45,10 +45,21 @@ def network_parts(layout, w: float, h: float, px_per_point: float) -> list[View]
     scale = readable_scale(layout, px_per_point, whole.scale)
     if scale <= whole.scale + 1e-12:
         return [whole]
+    views = _occupied(layout, tiles(layout, w, h, scale))
+    # as many parts, but sharing the width evenly (a larger scale, no near-empty last part)
+    even = min(len(views) * w / (layout.width + 2 * MARGIN_UNITS), h / (layout.height + 2 * MARGIN_UNITS),
+               MIN_DETAIL_SCALE * 0.95)
+    if even > scale:
+        wider = _occupied(layout, tiles(layout, w, h, even))
+        if len(wider) == len(views):
+            views = wider
+    return views or [whole]
+
+
+def _occupied(layout, views: list[View]) -> list[View]:
     b = layout.boxes
-    views = tiles(layout, w, h, scale)
     return [v for v in views if ((b[:, 0] + b[:, 2] >= v.x0) & (b[:, 0] <= v.x0 + v.w)
-                                 & (b[:, 1] + b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)).any()] or [whole]
+                                 & (b[:, 1] + b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)).any()]
 
 
 class PresentNetworkSlide(PresentChartSlide):
@@ -70,14 +81,14 @@ class PresentNetworkSlide(PresentChartSlide):
         return layout, network_parts(layout, w, h, self.scale_and_origin()[0])
 
     def _paint_network(self, canvas, ctx, w, h) -> None:
-        layout, views = self.parts(ctx, w, h - 14)      # a line at the top names the part
+        layout, views = self.parts(ctx, w, h - 16)      # a line at the top names the part
         self.part_count = len(views)
         self.part = min(self.part, len(views) - 1)
-        NetworkPainter(ctx, layout, views[self.part]).paint(canvas, w, h - 14)
+        NetworkPainter(ctx, layout, views[self.part]).paint(canvas, w, h - 16)
         if len(views) > 1:
-            canvas.setFont(styles.BOLD, 9)
+            canvas.setFont(styles.BOLD, 10)
             canvas.setFillColor(styles.TEXT)
-            canvas.drawString(0, h - 9, f"Part {self.part + 1} of {len(views)}")
+            canvas.drawString(0, h - 10, f"Part {self.part + 1} of {len(views)}")
 
     def step_part(self, step: int) -> None:
         self.part = max(0, min(self.part + step, self.part_count - 1))
