@@ -119,26 +119,34 @@ class QuantileTable:
         k = t.astype(np.intp)
         np.minimum(k, self.cells - 1, out=k)
         t -= k                                   # fraction within the cell
+        tails = self._tail_cells(k)
         k += base
         cell = self.step_pairs.take(k)
         cell *= weight
         cell += self.pairs.take(k)               # start (real) and width (imag) of the cell
         x = np.multiply(cell.imag, t, out=t)
         x += cell.real
-        tail = self._tail_fractions(shape, u)
+        tail = self._tail_fractions(shape, u, tails)
         if tail is not None:
             cells, frac = tail
             x.ravel()[cells] = cell.real.ravel()[cells] + frac * cell.imag.ravel()[cells]
         return x
 
-    def _tail_fractions(self, shape: np.ndarray, u: np.ndarray):
+    def _tail_cells(self, k: np.ndarray) -> np.ndarray:
+        """Flat positions of the draws in the outer ``tail_cells`` cells at either end (cell
+        index k < tail_cells or k ≥ cells − tail_cells, the same as |u − ½| ≥ tail_limit)."""
+        inner = k - self.tail_cells
+        return np.flatnonzero(inner.view(np.uintp).ravel() >= self.cells - 2 * self.tail_cells)
+
+    def _tail_fractions(self, shape: np.ndarray, u: np.ndarray, cells: np.ndarray | None = None):
         """In the outer cells, the position within the cell on a power scale.
 
         There x(u) ≈ c·u^(1/α) (lower end) or 1 − c·(1 − u)^(1/β) (upper end), so x is
         nearly linear in y = u^(1/α) (or (1 − u)^(1/β)): interpolate in y instead of u.
         """
         flat = u.ravel()
-        cells = np.flatnonzero(np.abs(flat - 0.5) >= self.tail_limit)
+        if cells is None:
+            cells = np.flatnonzero(np.abs(flat - 0.5) >= self.tail_limit)
         if not cells.size:
             return None
         alpha, beta = pert_shape_parameters(shape[cells // u.shape[1]])
