@@ -158,3 +158,32 @@ def test_a_real_process_exits_2_without_traceback(tmp_path):
                           capture_output=True, text=True, timeout=120)
     assert proc.returncode == 2
     assert "Traceback" not in proc.stderr and "loop" in proc.stderr
+
+
+def test_deadline_before_the_start_keeps_its_own_date(capsys, r1_csv):
+    code, out, err = run(capsys, "analyze", str(r1_csv), "--deadline", "2020-01-03", "--json")
+    assert code == 0, err
+    pert = json.loads(out)["pert"]
+    assert pert["deadline_date"] == "2020-01-03" and pert["deadline"] < 0
+    assert pert["probability"] == pytest.approx(0.0, abs=1e-12)
+
+
+@pytest.mark.parametrize("value", ["1e308", "-2e6", "nan", "9999-12-31", "1066-10-14"])
+def test_deadline_out_of_range_is_refused(capsys, r1_csv, value):
+    code, _, err = run(capsys, "analyze", str(r1_csv), f"--deadline={value}")
+    assert code == 2 and "--deadline" in err and "Traceback" not in err
+
+
+def test_huge_numbers_in_a_table_are_named(capsys, tmp_path):
+    path = tmp_path / "huge.csv"
+    path.write_text("id,duration,predecessors\nA,1e308,\nB,2,A FS 1e300\n", encoding="utf-8")
+    code, _, err = run(capsys, "analyze", str(path))
+    assert code == 2
+    assert "row 2, activity A" in err and "row 3, activity B" in err and "beyond" in err
+
+
+def test_a_typo_of_a_verb_is_not_opened_as_a_file(capsys):
+    code, _, err = run(capsys, "analyse", "plan.slw")
+    assert code == 2 and "unknown verb" in err
+    code, _, err = run(capsys, "missing-plan.slw")
+    assert code == 2 and "no such file" in err

@@ -103,3 +103,19 @@ def test_dates_are_vectorised():
     days = cal.start_dates(np.arange(10))
     assert days.dtype == np.dtype("datetime64[D]")
     assert (np.is_busday(days)).all() and len(set(days.tolist())) == 10
+
+
+def test_dates_before_the_start_round_trip():
+    """A deadline or constraint before the project start keeps its own date (negative offsets)."""
+    import datetime as _dt
+
+    from workbench.core import Settings as _Settings
+    from workbench.core.calendar import WorkCalendar as _Cal
+
+    cal = _Cal(_Settings(start=_dt.date(2026, 12, 2)))   # a Wednesday
+    for day in (_dt.date(2020, 1, 3), _dt.date(2026, 11, 27), _dt.date(2026, 11, 30)):
+        off = cal.offset_through(day)
+        assert off < 0 and cal.finish_date(off) == day
+        assert cal.start_date(cal.offset_before(day)) == day
+    assert cal.offset_through(_dt.date(2026, 12, 1)) == 0          # the end of the day before the start
+    assert cal.offset_before(_dt.date(2026, 11, 30)) == -2         # Monday: two working days earlier

@@ -1,6 +1,7 @@
 """Plan model: every bad value is refused with a message naming the activity and field;
 edits keep links consistent and announce themselves."""
 
+import datetime as dt
 import math
 
 import pytest
@@ -9,7 +10,13 @@ from workbench.core import Activity, Link, Plan, PlanError, Settings
 
 BAD_ACTIVITIES = [
     (Activity("A;B", duration=1), "A;B", "must not contain"),
-    (Activity(" A", duration=1), " A", "spaces at its ends"),
+    (Activity(" A", duration=1), " A", "must not contain spaces"),
+    (Activity("A 1", duration=1), "A 1", "must not contain spaces"),
+    (Activity("X" * 41, duration=1), "X" * 40, "at most 40"),
+    (Activity("A", duration=2e6), "A", "beyond 1,000,000 plan units"),
+    (Activity("A", optimistic=1, most_likely=2, pessimistic=1e300), "A", "beyond"),
+    (Activity("A", duration=2, start_no_earlier=1e308), "A", "beyond"),
+    (Activity("A", duration=2, finish_no_later=dt.date(9999, 12, 31)), "activity A", "outside 1900"),
     (Activity("A\tB", duration=1), "A\tB", "tabs"),
     (Activity("", duration=1), "id", "empty id"),
     (Activity("A", duration=-1), "A", "duration must not be negative"),

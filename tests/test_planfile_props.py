@@ -12,7 +12,7 @@ from workbench.io.planfile import dumps, loads, plan_from_dict, plan_hash, plan_
 ID_CHARS = st.characters(blacklist_categories=("Cs", "Zs", "Zl", "Zp", "Cc"), blacklist_characters=";,")
 ids = st.text(ID_CHARS, min_size=1, max_size=6)
 text = st.text(st.characters(blacklist_categories=("Cs",)), max_size=12)
-sizes = st.floats(0, 1e6, allow_nan=False, allow_infinity=False)
+sizes = st.floats(0, 1e5, allow_nan=False, allow_infinity=False)
 dates = st.dates(dt.date(1990, 1, 1), dt.date(2090, 12, 31))
 points = st.none() | sizes | dates
 

@@ -17,7 +17,7 @@ ids = st.text(ID_CHARS, min_size=1, max_size=5).filter(lambda s: s == s.strip())
 # the import trims cells, so the plan's own text is drawn trimmed
 CELL = st.characters(blacklist_categories=("Cs", "Cc")) | st.sampled_from("\n\t;,\"'=+-@ ")
 text = st.text(CELL, max_size=10).map(str.strip)
-sizes = st.floats(0, 1e6, allow_nan=False)
+sizes = st.floats(0, 1e4, allow_nan=False)  # chains of these stay inside the calendar
 points = st.none() | sizes | st.dates(dt.date(2000, 1, 1), dt.date(2060, 1, 1))
 SETTINGS = Settings(title="random", start=dt.date(2026, 1, 5))
 
@@ -60,7 +60,7 @@ def test_random_plans_round_trip_through_csv(plan):
     assert sorted(map(key, back.links)) == sorted(map(key, plan.links))
 
 
-@given(st.lists(st.tuples(ids, st.sampled_from(["FS", "SS", "FF", "SF"]), st.floats(-1e9, 1e9)),
+@given(st.lists(st.tuples(ids, st.sampled_from(["FS", "SS", "FF", "SF"]), st.floats(-1e6, 1e6)),
                 max_size=6, unique_by=lambda t: (t[0], t[1])))
 def test_predecessor_cell_reads_back(items):
     links = [Link(pred, "SUCC", kind, lag) for pred, kind, lag in items if pred != "SUCC"]

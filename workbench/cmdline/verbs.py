@@ -14,6 +14,7 @@ from pathlib import Path
 
 from ..core.analysis import analyze
 from ..core.errors import PlanError
+from ..core.model import MAX_UNITS, check_date
 from ..figures.odds import confidence_label
 from .text import CAUTION, elide, num, pct, table
 
@@ -31,15 +32,16 @@ def check_iterations(n: int) -> None:
 def parse_offset_or_date(text: str, what: str):
     """``--deadline 47`` or ``--deadline 2027-11-30``."""
     try:
-        return dt.date.fromisoformat(text)
-    except ValueError:
-        pass
+        return check_date(dt.date.fromisoformat(text), what, "date")
+    except ValueError as exc:
+        if isinstance(exc, PlanError):
+            raise
     try:
         value = float(text)
     except ValueError:
         raise PlanError(f"{what}: {text!r} is neither a number of plan units nor a date YYYY-MM-DD", what) from None
-    if value != value or value in (float("inf"), float("-inf")):
-        raise PlanError(f"{what}: {text!r} must be a finite number", what)
+    if value != value or abs(value) > MAX_UNITS:
+        raise PlanError(f"{what}: {text!r} must be a number within {MAX_UNITS:,.0f} plan units of the start", what)
     return value
 
 

@@ -33,6 +33,9 @@ def public_holidays(region: str, years: range | list[int]) -> list[dt.date]:
     return sorted(table.keys())
 
 
+MAX_DAYS = 1_500_000  # about 5,700 years of five-day weeks: dates stay inside year 1–9999
+
+
 class WorkCalendar:
     """Vectorised offset ↔ date conversion for one plan's settings."""
 
@@ -46,8 +49,12 @@ class WorkCalendar:
 
     # --- offsets to dates ------------------------------------------------
     def _day(self, index) -> np.ndarray:
-        index = np.asarray(index, dtype=np.int64)
-        return np.busday_offset(self.first_day, index, roll="forward", busdaycal=self._cal)
+        index = np.asarray(index, dtype=float)
+        if index.size and np.abs(index).max() > MAX_DAYS:
+            from .errors import PlanError
+            raise PlanError(f"the schedule reaches more than {MAX_DAYS:,} working days from the start, "
+                            f"beyond any calendar date: check durations, lags and constraints", "schedule")
+        return np.busday_offset(self.first_day, index.astype(np.int64), roll="forward", busdaycal=self._cal)
 
     def start_dates(self, offsets) -> np.ndarray:
         """The working day on which something starting at ``offsets`` begins."""
@@ -63,7 +70,9 @@ class WorkCalendar:
         """
         fin = np.asarray(offsets, dtype=float) * self.per_unit
         days = np.ceil(fin - 1e-9) - 1
-        return self._day(np.maximum(days, 0))
+        # Offset 0 (a milestone at the start) is dated on the first working day; a finish
+        # before the start (a deadline set too early) keeps its true, earlier date.
+        return self._day(np.where(np.abs(fin) <= 1e-9, 0, days))
 
     def milestone_dates(self, offsets) -> np.ndarray:
         """The date shown for milestones at ``offsets`` (the day that ends there)."""
@@ -78,12 +87,21 @@ class WorkCalendar:
     # --- dates to offsets ------------------------------------------------
     def offset_before(self, date: dt.date) -> float:
         """Offset of the start of ``date`` (working days before it) — for start constraints."""
-        n = np.busday_count(self.first_day, np.datetime64(date, "D"), busdaycal=self._cal)
-        return float(n) / self.per_unit
+        return self._count_to(np.datetime64(date, "D"))
 
     def offset_through(self, date: dt.date) -> float:
         """Offset of the end of ``date`` (working days up to and including it) — for deadlines."""
-        n = np.busday_count(self.first_day, np.datetime64(date, "D") + 1, busdaycal=self._cal)
+        return self._count_to(np.datetime64(date, "D") + 1)
+
+    def _count_to(self, day) -> float:
+        """Working days from the first working day to the start of ``day`` (negative before it).
+
+        numpy counts a reversed range as (end, begin], so it is counted forwards and negated.
+        """
+        if day >= self.first_day:
+            n = np.busday_count(self.first_day, day, busdaycal=self._cal)
+        else:
+            n = -np.busday_count(day, self.first_day, busdaycal=self._cal)
         return float(n) / self.per_unit
 
     def resolve(self, value, *, finish: bool) -> float | None:

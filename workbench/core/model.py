@@ -19,7 +19,34 @@ UNITS = ("days", "weeks")
 DISTRIBUTIONS = ("beta-pert", "triangular", "uniform", "normal", "fixed")
 
 _PLAIN = (float, int)  # number types accepted as they are (bool is not one of them)
-_BAD_ID = re.compile("[;,\n\t]")
+_BAD_ID = re.compile(r"[;,\s]")
+MAX_ID_LENGTH = 40
+# Durations, lags, constraints and deadlines stay within a million plan units of the start
+# (thousands of years): beyond that a number is a typing slip, and dates would overflow.
+MAX_UNITS = 1_000_000.0
+EARLIEST_DATE = dt.date(1900, 1, 1)
+LATEST_DATE = dt.date(2200, 12, 31)
+
+
+def check_date(value: dt.date, owner: str, field_name: str) -> dt.date:
+    """A calendar date within the range plans use (1900–2200), else PlanError."""
+    if not EARLIEST_DATE <= value <= LATEST_DATE:
+        raise PlanError(f"{owner}: {field_name} {value.isoformat()} lies outside "
+                        f"{EARLIEST_DATE.year}–{LATEST_DATE.year}", owner)
+    return value
+
+
+def check_id(act_id) -> str:
+    """An activity id: non-empty, at most 40 characters, no spaces, ';', ',' or tabs."""
+    if not isinstance(act_id, str) or not act_id.strip():
+        raise PlanError("an activity has an empty id", "id")
+    if _BAD_ID.search(act_id):
+        raise PlanError(f"activity id {act_id!r} must not contain spaces, ';', ',' or tabs "
+                        f"(the predecessor column could not name it)", act_id)
+    if len(act_id) > MAX_ID_LENGTH:
+        raise PlanError(f"activity id {act_id[:20]!r}… is {len(act_id)} characters long; "
+                        f"use at most {MAX_ID_LENGTH}", act_id[:MAX_ID_LENGTH])
+    return act_id
 
 Offset = float | dt.date  # a constraint or deadline: plan-unit offset or a calendar date
 
@@ -34,6 +61,8 @@ def _check_number(value, activity: str, field_name: str, allow_none: bool = True
     value = float(value)
     if not math.isfinite(value):
         raise PlanError(f"activity {activity}: {field_name} must be a finite number, not {value}", activity)
+    if abs(value) > MAX_UNITS:
+        raise PlanError(f"activity {activity}: {field_name} {value:g} is beyond {MAX_UNITS:,.0f} plan units", activity)
     return value
 
 
@@ -57,27 +86,24 @@ class Activity:
     def _plainly_valid(self) -> bool:
         """The common case, checked cheaply: a clean id, plain finite numbers in order."""
         i, a, m, b, d = self.id, self.optimistic, self.most_likely, self.pessimistic, self.duration
-        if type(i) is not str or not i or i != i.strip() or _BAD_ID.search(i):
+        if type(i) is not str or not i or len(i) > MAX_ID_LENGTH or _BAD_ID.search(i):
             return False
         if self.start_no_earlier is not None or self.finish_no_later is not None:
             return False
         if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
             return False
-        if d is not None and not (type(d) in _PLAIN and 0 <= d < math.inf):
+        if d is not None and not (type(d) in _PLAIN and 0 <= d <= MAX_UNITS):
             return False
         if a is None and m is None and b is None:
             return d is not None
         return (type(a) in _PLAIN and type(m) in _PLAIN and type(b) in _PLAIN
-                and 0 <= a <= m <= b < math.inf)
+                and 0 <= a <= m <= b <= MAX_UNITS)
 
     def validated(self) -> "Activity":
         """Return self if valid, else raise PlanError naming the activity and field."""
         if self._plainly_valid():
             return self
-        if not isinstance(self.id, str) or not self.id.strip():
-            raise PlanError("an activity has an empty id", "id")
-        if self.id != self.id.strip() or any(c in self.id for c in ";,\n\t"):
-            raise PlanError(f"activity id {self.id!r} must not contain spaces at its ends, ';', ',' or tabs", self.id)
+        check_id(self.id)
         a = _check_number(self.optimistic, self.id, "optimistic")
         m = _check_number(self.most_likely, self.id, "most likely")
         b = _check_number(self.pessimistic, self.id, "pessimistic")
@@ -98,7 +124,9 @@ class Activity:
             raise PlanError(f"activity {self.id}: unknown distribution {self.distribution!r} (use one of {', '.join(DISTRIBUTIONS)})", self.id)
         for name in ("start_no_earlier", "finish_no_later"):
             v = getattr(self, name)
-            if v is not None and not isinstance(v, dt.date):
+            if isinstance(v, dt.date):
+                check_date(v, f"activity {self.id}", name.replace("_", " "))
+            elif v is not None:
                 _check_number(v, self.id, name.replace("_", " "))
         return self
 
@@ -139,7 +167,7 @@ class Link:
 
     def validated(self) -> "Link":
         lag = self.lag
-        if self.type in LINK_TYPES and self.pred != self.succ and type(lag) in _PLAIN and math.isfinite(lag):
+        if self.type in LINK_TYPES and self.pred != self.succ and type(lag) in _PLAIN and -MAX_UNITS <= lag <= MAX_UNITS:
             return self                     # the common case, checked cheaply
         if self.type not in LINK_TYPES:
             raise PlanError(f"link {self.pred} \u2192 {self.succ}: unknown link type {self.type!r} (use FS, SS, FF or SF)", self.succ)
@@ -194,8 +222,13 @@ class Settings:
             raise PlanError(f"settings: unknown distribution {self.distribution!r}", "distribution")
         if not self.calendar.workdays:
             raise PlanError("settings: the calendar has no working weekdays", "calendar")
-        if self.deadline is not None and not isinstance(self.deadline, dt.date):
+        if isinstance(self.deadline, dt.date):
+            check_date(self.deadline, "settings", "deadline")
+        elif self.deadline is not None:
             _check_number(self.deadline, "settings", "deadline")
+        check_date(self.start, "settings", "start date")
+        if self.status_date is not None:
+            check_date(self.status_date, "settings", "status date")
         return self
 
 

@@ -11,7 +11,7 @@ import math
 import re
 
 from workbench.core.errors import PlanError
-from workbench.core.model import LINK_TYPES, Link
+from workbench.core.model import LINK_TYPES, MAX_UNITS, Link
 
 _SPLIT = re.compile(r"[;,]")
 _SPLIT_DECIMAL_COMMA = re.compile(r";|,(?!\d)|(?<!\d),")  # keeps the comma of "-0,5"
@@ -34,6 +34,8 @@ def parse_lag(text: str, item: str, succ_id: str, decimal_comma: bool = False) -
         raise PlanError(f"activity {succ_id}: lag {text!r} in {item!r} is not a number", succ_id) from None
     if not math.isfinite(lag):
         raise PlanError(f"activity {succ_id}: lag in {item!r} must be a finite number", succ_id)
+    if abs(lag) > MAX_UNITS:
+        raise PlanError(f"activity {succ_id}: lag in {item!r} is beyond {MAX_UNITS:,.0f} plan units", succ_id)
     return lag
 
 

@@ -56,7 +56,8 @@ class RowReader:
 
     def problem(self, number: int, act_id: str, name: str | None, what: str) -> None:
         where = f", {self.cols.where(name)}" if name else ""
-        who = f", activity {act_id}" if act_id else ""
+        shown = act_id if len(act_id) <= 40 else act_id[:40] + "\u2026"
+        who = f", activity {shown}" if act_id else ""
         self.problems.append(f"row {number}{who}{where}: {what}")
 
     def number(self, number: int, act_id: str, cells: list[str], name: str):
