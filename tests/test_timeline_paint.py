@@ -138,3 +138,23 @@ def test_a_hidden_timeline_redraws_only_once_shown(qtbot):
     qtbot.waitUntil(lambda: v.geometry is not before)
     row = v.geometry.row_of["T1"]
     assert not v.when_shown.dirty and v.geometry is not before and row >= 0
+
+
+def test_label_atlas_draws_each_label_once_and_starts_afresh_when_full(qtbot):
+    from PySide6.QtGui import QColor, QFont
+    from workbench.ui.timeline_label_atlas import TimelineLabelAtlas
+    atlas = TimelineLabelAtlas()
+    font = QFont()
+    font.setPixelSize(14)
+    labels = [(f"T{i}  Task {i}", 150, i % 5 == 0) for i in range(40)]
+    slots = atlas.slots_for(labels, font, QColor("black"), 160.0, 18.0, 1.0)
+    assert sorted(slots.tolist()) == list(range(40))               # one slot per label
+    again = atlas.slots_for(labels[::-1], font, QColor("black"), 160.0, 18.0, 1.0)
+    assert again.tolist() == slots[::-1].tolist()                   # nothing drawn twice
+    image = atlas.image.toImage()
+    ink = [sum(image.pixelColor(x, int(s * 18 + 9)).alpha() > 100 for x in range(0, 150))
+           for s in slots.tolist()[:5]]
+    assert all(k > 5 for k in ink)                                  # the slots hold text
+    many = [(f"L{i}", 150, False) for i in range(atlas._capacity() + 10)]
+    more = atlas.slots_for(many[:atlas._capacity() - 5], font, QColor("black"), 160.0, 18.0, 1.0)
+    assert more.max() < atlas._capacity()                          # full: started afresh

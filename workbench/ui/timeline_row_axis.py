@@ -13,21 +13,23 @@ import math
 import pyqtgraph as pg
 import numpy as np
 from PySide6.QtCore import QPointF, QRectF, Qt
-from PySide6.QtGui import QFont, QFontMetricsF, QPen, QStaticText, QTransform
+from PySide6.QtGui import QFont, QFontMetricsF, QPen
 
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
+from workbench.ui.timeline_label_atlas import TimelineLabelAtlas
 from workbench.ui.timeline_paint import lines
 
 INDENT = 14.0
 PADDING = 6.0
-LABEL_CACHE = 4000     # laid-out labels kept (a few screens' worth)
+LABEL_CACHE = 4000     # cut labels kept (a few screens' worth)
 
 
 class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
     def __init__(self, width: float = 300.0, **kwargs):
         super().__init__("left", **kwargs)
         self._geo = None
-        self._laid_out: dict[tuple, tuple] = {}   # (text, width, bold) → cut text, laid out, height
+        self._cut: dict[tuple, str] = {}          # (text, width, bold) → text cut to the width
+        self._atlas = TimelineLabelAtlas()
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
@@ -38,7 +40,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
 
     def set_font(self, font: QFont) -> None:
         self.setStyle(tickFont=font)
-        self._laid_out.clear()
+        self._cut.clear()
         self.picture = None
         self.update()
 
@@ -75,34 +77,41 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         ys = self._rows_to_local(bounds, rows)
         keep = (ys >= bounds.top() - h / 2) & (ys <= bounds.bottom() + h / 2)
         rows, ys = rows[keep], ys[keep]
-        texts = []
+        texts, line = [], math.ceil(h)
         for row, y in zip(rows.tolist(), ys.tolist()):
             indent = INDENT * int(self._geo.depth[row])
-            width = bounds.width() - 2 * PADDING - indent
+            width = int(bounds.width() - 2 * PADDING - indent)
             bold = self._geo.kinds[row] == "group"
-            text, static, dy = self._label(self.label_text(row), width, bold)
-            texts.append((bounds.left() + PADDING + indent, y - h / 2, width, h, text, (static, dy), bold))
+            text = self._label(self.label_text(row), width, bold)
+            texts.append((round(bounds.left() + PADDING + indent), round(y - line / 2), width, line, text, bold))
         return axis, (bounds.right(), ys), texts
 
     def shown_labels(self) -> list[str]:
         """The label texts as they are drawn now (cut to the column), top to bottom."""
         return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2]]
 
-    def _label(self, text: str, width: float, bold: bool) -> tuple[str, QStaticText, float]:
-        """The label cut to ``width`` and laid out once (kept across repaints and zooms)."""
-        key = (text, round(width), bold)
-        found = self._laid_out.get(key)
-        if found is None:
-            if len(self._laid_out) >= LABEL_CACHE:
-                self._laid_out.clear()
+    def _label(self, text: str, width: int, bold: bool) -> str:
+        """The label cut to ``width`` (kept across repaints and zooms)."""
+        key = (text, width, bold)
+        cut = self._cut.get(key)
+        if cut is None:
+            if len(self._cut) >= LABEL_CACHE:
+                self._cut.clear()
             font = QFont(self.style.get("tickFont") or QFont())
             font.setBold(bold)
-            cut = QFontMetricsF(font).elidedText(text, Qt.TextElideMode.ElideRight, width)
-            static = QStaticText(cut)
-            static.setTextFormat(Qt.TextFormat.PlainText)
-            static.prepare(QTransform(), font)
-            found = self._laid_out[key] = (cut, static, static.size().height())
-        return found
+            cut = self._cut[key] = QFontMetricsF(font).elidedText(text, Qt.TextElideMode.ElideRight, width)
+        return cut
+
+    def _stamp(self, p, font: QFont, specs) -> bool:
+        """Labels copied from the atlas in one call (each drawn there once)."""
+        if not specs:
+            return True
+        ratio = p.device().devicePixelRatioF()
+        width = self.boundingRect().width()
+        slots = self._atlas.slots_for([(t, w, b) for _, _, w, _, t, b in specs], font,
+                                      self.textPen().color(), width, specs[0][3], ratio)
+        x, top, w = (np.array([s[k] for s in specs], float) for k in (0, 1, 2))
+        return self._atlas.stamp(p, x, top, w, slots)
 
     def preferred_width(self, font: QFont, limit: float) -> int:
         """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
@@ -120,7 +129,8 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         return None if self._geo is None else id(self._geo)
 
     def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
-        """Like the base class, with group rows in bold and labels laid out once."""
+        """Like the base class, with group rows in bold; on screen the labels are copied
+        from an atlas where each is drawn once."""
         if self._geo is None:
             return super().drawPicture(p, axisSpec, tickSpecs, textSpecs)
         pen, p1, p2 = axisSpec
@@ -131,16 +141,11 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         p.setPen(self.textPen())
         p.setClipRect(self.boundingRect().toAlignedRect())
         font = QFont(self.style.get("tickFont") or QFont())
-        bold = QFont(font)
+        if isinstance(p.device(), RASTER) and self._stamp(p, font, textSpecs):
+            return
+        bold = QFont(font)                  # paper, PDF and SVG: plain vector text
         bold.setBold(True)
-        laid_out = isinstance(p.device(), RASTER)     # on paper and SVG: plain vector text
         flags = int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
-        current = None
-        for x, top, width, h, text, static, is_bold in textSpecs:
-            if is_bold is not current:        # a label laid out for another font is laid out again
-                p.setFont(bold if is_bold else font)
-                current = is_bold
-            if laid_out:
-                p.drawStaticText(QPointF(x, top + (h - static[1]) / 2), static[0])
-            else:
-                p.drawText(QRectF(x, top, width, h), flags, text)
+        for x, top, width, h, text, is_bold in textSpecs:
+            p.setFont(bold if is_bold else font)
+            p.drawText(QRectF(x, top, width, h), flags, text)
