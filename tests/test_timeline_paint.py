@@ -158,3 +158,12 @@ def test_label_atlas_draws_each_label_once_and_starts_afresh_when_full(qtbot):
     many = [(f"L{i}", 150, False) for i in range(atlas._capacity() + 10)]
     more = atlas.slots_for(many[:atlas._capacity() - 5], font, QColor("black"), 160.0, 18.0, 1.0)
     assert more.max() < atlas._capacity()                          # full: started afresh
+
+
+def test_label_atlas_holds_a_screen_taller_than_its_usual_size(qtbot):
+    from PySide6.QtGui import QColor, QFont
+    from workbench.ui.timeline_label_atlas import MAX_HEIGHT_PX, TimelineLabelAtlas
+    atlas = TimelineLabelAtlas()
+    n = MAX_HEIGHT_PX // 10
+    slots = atlas.slots_for([(f"R{i}", 80, False) for i in range(n)], QFont(), QColor("black"), 90.0, 20.0, 2.0)
+    assert sorted(slots.tolist()) == list(range(n)) and atlas._capacity() >= n

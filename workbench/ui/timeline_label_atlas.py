@@ -28,9 +28,9 @@ class TimelineLabelAtlas:
         self._line = 1.0
         self._fragments = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
 
-    def _reset(self, key, width: float, line: float, ratio: float) -> None:
+    def _reset(self, key, width: float, line: float, ratio: float, at_least: int) -> None:
         self._key, self._line, self._slots = key, line, {}
-        rows = max(1, int(MAX_HEIGHT_PX / (line * ratio)))
+        rows = max(2 * at_least, int(MAX_HEIGHT_PX / (line * ratio)))   # always room for one screen
         self.image = QPixmap(int(np.ceil(width * ratio)) + 1, int(np.ceil(rows * line * ratio)))
         self.image.setDevicePixelRatio(ratio)
         self.image.fill(Qt.GlobalColor.transparent)
@@ -42,7 +42,7 @@ class TimelineLabelAtlas:
         """Slot of each ``(text, label width, bold)``, drawing the ones not seen before."""
         key = (font.key(), round(width), round(line, 3), colour.rgba(), ratio)
         if key != self._key or len(self._slots) + len(labels) > self._capacity():
-            self._reset(key, width, line, ratio)
+            self._reset(key, width, line, ratio, len(labels))
         new = [lab for lab in dict.fromkeys(labels) if lab not in self._slots]
         if new:
             self._draw(new, font, colour)
