@@ -53,27 +53,32 @@ def _order(net: Network, near: np.ndarray, far: np.ndarray, plain: np.ndarray, r
     nodes = np.lexsort((net.rank, -degree, net.level))
     row = np.empty(n, dtype=np.int64)
     row[nodes] = np.arange(n)
-    first = np.concatenate(([0], np.cumsum(degree[nodes])[:-1]))
-    links = np.lexsort((~plain, row[near]))              # row by row, plain links first
-    kth = np.arange(links.size) - first[row[near[links]]]
-    by_group = np.lexsort((row[near[links]], kth, net.level[near[links]]))
-    links, kth = links[by_group], kth[by_group]
-    counts = np.bincount(net.level, minlength=1) if n else np.zeros(0, dtype=np.int64)
-    edges = np.concatenate(([0], np.cumsum(counts)))
-    key = net.level[near[links]] * (int(degree.max(initial=0)) + 1) + kth   # one value per group
-    cuts = np.flatnonzero(np.diff(key, prepend=-1, append=-1) != 0) if links.size else np.zeros(1, np.int64)
     groups: dict[int, tuple[list, list]] = {}
-    for lo, hi in zip(cuts[:-1], cuts[1:]):
-        part = links[lo:hi]
+    for part in _groups(net, near, plain, row, degree[nodes]):
         level = int(net.level[near[part[0]]])
         gather = row[far[part]]
         if plain[part].all():
             groups.setdefault(level, ([], []))[0].append((part.size, gather, None))
         else:
             groups.setdefault(level, ([], []))[1].append((part.size, gather, _parts(net, part, row, n)))
+    counts = np.bincount(net.level, minlength=1) if n else np.zeros(0, dtype=np.int64)
+    edges = np.concatenate(([0], np.cumsum(counts)))
     levels = [(int(a), int(b)) + groups.get(k, ([], [])) for k, (a, b) in enumerate(zip(edges[:-1], edges[1:]))]
     widest = int(counts.max()) if counts.size else 0
     return _Order(nodes, row, levels[::-1] if reverse else levels, widest)
+
+
+def _groups(net: Network, near: np.ndarray, plain: np.ndarray, row: np.ndarray, degree: np.ndarray):
+    """The links in groups, level by level and k = 0, 1, … within a level: group k holds
+    the k-th link (plain ones first) of every row with more than k, in row order."""
+    first = np.concatenate(([0], np.cumsum(degree)[:-1]))     # first link of each row
+    links = np.lexsort((~plain, row[near]))                    # row by row, plain links first
+    kth = np.arange(links.size) - first[row[near[links]]]
+    by_group = np.lexsort((row[near[links]], kth, net.level[near[links]]))
+    links, kth = links[by_group], kth[by_group]
+    key = net.level[near[links]] * (int(degree.max(initial=0)) + 1) + kth   # one value per group
+    cuts = np.flatnonzero(np.diff(key, prepend=-1, append=-1) != 0) if links.size else np.zeros(1, np.int64)
+    return [links[lo:hi] for lo, hi in zip(cuts[:-1], cuts[1:])]
 
 
 def _parts(net: Network, part: np.ndarray, row: np.ndarray, n: int):
