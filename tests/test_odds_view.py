@@ -1,6 +1,7 @@
 """Odds view: dragging dates, modes, the inverse date, simulation runs, cancel and stale."""
 
 import datetime as dt
+from dataclasses import replace
 
 import numpy as np
 import pytest
@@ -226,3 +227,15 @@ def test_progress_reaches_the_window_while_the_worker_runs(view, qtbot):
     assert len(seen) >= 2                                   # the event loop ran during the run
     assert [d for d, _, _ in seen] == sorted(d for d, _, _ in seen) and seen[-1][0] == seen[-1][1]
     assert view.controls.progress.value() == 100 and view.controls.button.text() == "Run simulation"
+
+
+def test_inverse_question_follows_the_plan_target(view):
+    assert view.confidence == pytest.approx(0.9)
+    other = house_plan()
+    other.set_settings(replace(other.settings, target_confidence=0.8))
+    view.session.load(other)
+    assert view.confidence == pytest.approx(0.8)
+    assert view.panel.inverse.text().startswith("<b>80 %</b>")
+    view.ask_confidence("95 %")                       # the planner's own choice stays
+    view.session.push(EditActivity("A", pessimistic=4))
+    assert view.confidence == pytest.approx(0.95)

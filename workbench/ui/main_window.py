@@ -103,9 +103,8 @@ class MainWindow(QMainWindow):
 
     def _build_docks(self) -> None:
         """Docks get an empty holder; a view (and the modules it needs) is built the first
-        time its dock comes on screen after the window's first paint, so the window shows
-        without waiting for the views, and those behind a tab or in a closed dock wait until
-        they are brought forward."""
+        time its dock comes on screen once the window is up: views behind a tab or in a
+        closed dock are not built (nor kept up to date) until they are brought forward."""
         for title, *_ in VIEWS:
             holder = QWidget(self)
             holder.setAccessibleName(f"{title} view")
@@ -157,9 +156,9 @@ class MainWindow(QMainWindow):
 
     def showEvent(self, event) -> None:  # noqa: N802 (Qt override)
         super().showEvent(event)
-        if not self._watching:
+        if not self._watching:   # build the views on screen once the window is up
             self._watching = True
-            QTimer.singleShot(0, self._watch_views)   # once the window has painted
+            QTimer.singleShot(0, self._watch_views)
 
     def built_views(self) -> dict[str, QWidget]:
         """The views built so far (those whose docks have been on screen, or asked for)."""

@@ -27,6 +27,7 @@ class OddsView(QWidget):
         self.mode = "by"
         self.dates: list[float | None] = [None, None]
         self.confidence = float(session.plan.settings.target_confidence)
+        self._target_seen = self.confidence
         self.result = None        # the simulation shown (current or stale)
         self.sim_fig = None
         self.stale = False
@@ -108,8 +109,16 @@ class OddsView(QWidget):
             self.panel.error.setText(f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
             return
         self.plot.set_calendar(a.calendar)
+        self._follow_target(a)
         self._default_dates(a)
         self._show_simulation()
+
+    def _follow_target(self, a) -> None:
+        """The inverse question starts from the plan's target confidence, and follows it
+        when the plan's target changes (its settings, or another plan loaded)."""
+        target = float(a.plan.settings.target_confidence)
+        if target != self._target_seen:
+            self._target_seen = self.confidence = target
 
     def _default_dates(self, a) -> None:
         """Open on the deadline (or the PERT mean); start again when the deadline changes
