@@ -12,11 +12,13 @@ import os
 import sys
 from pathlib import Path
 
+import numpy as np
+
 from ..core.analysis import analyze
 from ..core.errors import PlanError
 from ..core.model import MAX_UNITS, check_date
 from ..figures.odds import confidence_label
-from .text import CAUTION, elide, num, pct, table
+from .text import CAUTION, column_table, elide, num, nums, pct, table
 
 PLAN_SUFFIXES = (".slw", ".csv", ".xlsx")
 MAX_ITERATIONS = 10_000_000
@@ -59,8 +61,7 @@ def load_plan_file(path: str):
 
 
 def write_json(obj) -> None:
-    json.dump(obj, sys.stdout, indent=2, ensure_ascii=False, allow_nan=False)
-    sys.stdout.write("\n")
+    sys.stdout.write(json.dumps(obj, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
 
 
 # --- analyze ---------------------------------------------------------------
@@ -77,18 +78,16 @@ def cmd_analyze(args) -> int:
 
 def render_analysis(result) -> str:
     s, plan = result.schedule, result.plan
-    dates = result.dates()
-    unit = plan.settings.unit
-    rows = []
-    for i, act in enumerate(plan.activities):
-        rows.append([act.id, elide(act.name, 32), num(result.means[i]), num(result.variances[i] ** 0.5),
-                     str(dates["early_start"][i]), str(dates["early_finish"][i]),
-                     str(dates["late_start"][i]), str(dates["late_finish"][i]),
-                     num(s.total_float[i]), num(s.free_float[i]), "yes" if s.critical[i] else ""])
+    dates = {k: np.datetime_as_string(v, unit="D").tolist() for k, v in result.dates().items()}
+    acts = plan.activities
+    columns = [[a.id for a in acts], [elide(a.name, 32) for a in acts], nums(result.means),
+               nums(np.sqrt(result.variances)), dates["early_start"], dates["early_finish"],
+               dates["late_start"], dates["late_finish"], nums(s.total_float), nums(s.free_float),
+               ["yes" if c else "" for c in s.critical.tolist()]]
     headers = ["id", "name", "te", "sd", "early start", "early finish", "late start", "late finish",
                "total float", "free float", "critical"]
-    out = [f"{plan.settings.title}", "", table(headers, rows, right={2, 3, 8, 9}), ""]
-    out += summary_lines(result, unit)
+    out = [f"{plan.settings.title}", "", column_table(headers, columns, right={2, 3, 8, 9}), ""]
+    out += summary_lines(result, plan.settings.unit)
     return "\n".join(out)
 
 

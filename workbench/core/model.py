@@ -268,7 +268,9 @@ class Plan:
 
     def __init__(self, settings: Settings | None = None, activities: Iterable[Activity] = (),
                  links: Iterable[Link] = (), risks: Iterable[Risk] = (),
-                 correlations: Iterable[CorrelationGroup] = ()):
+                 correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False):
+        """``validated=True``: the caller (a file reader) has validated every activity and
+        link already; only duplicate ids and link ends are checked again."""
         self.settings = settings or Settings()
         self._activities: list[Activity] = []
         self._index: dict[str, int] = {}
@@ -278,10 +280,17 @@ class Plan:
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         for act in activities:
-            self._append(act.validated())
-        for link in links:
-            self._check_link(link)
-            self.links.append(link)
+            self._append(act if validated else act.validated())
+        if validated:
+            self.links = list(links)
+            index = self._index
+            for link in self.links:
+                if link.pred not in index or link.succ not in index:
+                    self._check_link(link)   # raises, naming the unknown end
+        else:
+            for link in links:
+                self._check_link(link)
+                self.links.append(link)
 
     # --- reading -------------------------------------------------------
     @property

@@ -13,7 +13,7 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.stats import norm
+from scipy.special import ndtr
 
 MODES = ("by", "after", "between")
 PRESETS = (0.8, 0.9)
@@ -137,8 +137,8 @@ def pert_curve(odds, lo: float, hi: float, samples: int = 401) -> OddsCurve:
         x = np.array([lo, m, m, hi], dtype=float)
         return OddsCurve(x, np.zeros(4), np.array([0.0, 0.0, 1.0, 1.0]), m, 0.0, True)
     x = np.linspace(lo, hi, samples)
-    dens = norm.pdf(x, loc=odds.mean, scale=odds.sd)
-    cum = norm.cdf(x, loc=odds.mean, scale=odds.sd)
+    dens = _normal_pdf(x, odds.mean, odds.sd)
+    cum = ndtr((x - odds.mean) / odds.sd)
     return OddsCurve(x, dens, cum, float(odds.mean), float(odds.sd), False)
 
 
@@ -162,7 +162,7 @@ def pert_shade(odds, question: Question, lo: float, hi: float, samples: int = 24
     if odds.variance <= 0 or piece is None:
         return Shade(np.zeros(0), np.zeros(0), prob, ())
     x = np.linspace(piece[0], piece[1], samples)
-    y = norm.pdf(x, loc=odds.mean, scale=odds.sd)
+    y = _normal_pdf(x, odds.mean, odds.sd)
     px = np.concatenate(([piece[0]], x, [piece[1]]))
     py = np.concatenate(([0.0], y, [0.0]))
     return Shade(px, py, prob, (piece,))
@@ -263,6 +263,12 @@ def format_date(day: dt.date) -> str:
 
 def format_probability(p: float) -> str:
     return f"{p:.4f} ({100 * p:.1f} %)"
+
+
+def _normal_pdf(x, mean: float, sd: float):
+    """The normal density (scipy.stats.norm.pdf, without importing scipy.stats)."""
+    z = (np.asarray(x, dtype=float) - mean) / sd
+    return np.exp(-0.5 * z * z) / (sd * math.sqrt(2.0 * math.pi))
 
 
 def confidence_label(q: float) -> str:

@@ -10,7 +10,7 @@ from __future__ import annotations
 import datetime as dt
 
 from workbench.core.errors import PlanError
-from workbench.core.model import (Activity, Calendar, CorrelationGroup, Link, Plan, Risk, Settings,
+from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Calendar, CorrelationGroup, Link, Plan, Risk, Settings,
                                   SignOff)
 from workbench.core.network import compile_plan
 
@@ -101,7 +101,49 @@ def _sign_off(f: Fields) -> SignOff:
     return person
 
 
+_ACT_TEXT = ("id", "name", "group", "notes")
+_ACT_NUMBERS = ("optimistic", "most_likely", "pessimistic", "duration")
+_ACT_ALL = frozenset(_ACT_TEXT + _ACT_NUMBERS + ("distribution", "start_no_earlier", "finish_no_later"))
+_LINK_KEYS = frozenset(("pred", "succ", "type", "lag"))
+
+
+def _plain_number(value) -> bool:
+    return value is None or (type(value) in (int, float) and -MAX_UNITS <= value <= MAX_UNITS)
+
+
+def _quick_activity(data) -> Activity | None:
+    """The common entry built directly; None sends it through the careful reader."""
+    if type(data) is not dict or not data.keys() <= _ACT_ALL:
+        return None
+    get = data.get
+    if get("start_no_earlier") is not None or get("finish_no_later") is not None:
+        return None
+    if not all(type(get(k, "")) is str for k in _ACT_TEXT) or type(get("distribution", "")) not in (str, type(None)):
+        return None
+    if not all(_plain_number(get(k)) for k in _ACT_NUMBERS):
+        return None
+    act = Activity(get("id", ""), get("name", ""), get("group", ""), get("notes", ""),
+                   *(None if get(k) is None else float(get(k)) for k in _ACT_NUMBERS), get("distribution"))
+    return act if act._plainly_valid() else None
+
+
+def _quick_link(data) -> Link | None:
+    if type(data) is not dict or len(data) > 4 or not data.keys() <= _LINK_KEYS:
+        return None
+    get = data.get
+    pred, succ, kind, lag = get("pred"), get("succ"), get("type", "FS"), get("lag", 0.0)
+    if type(pred) is not str or type(succ) is not str or type(kind) is not str or type(lag) not in (int, float):
+        return None
+    if not -MAX_UNITS <= lag <= MAX_UNITS:
+        return None
+    kind = kind.upper()
+    return Link(pred, succ, kind, float(lag)) if kind in LINK_TYPES and pred != succ and pred and succ else None
+
+
 def activity_from_dict(data, position: int) -> Activity:
+    quick = _quick_activity(data)
+    if quick is not None:
+        return quick
     f = Fields.entry(data, "activity", position)
     act = Activity(id=f.text("id", required=True), name=f.text("name"), group=f.text("group"),
                    notes=f.text("notes"), optimistic=f.number("optimistic"),
@@ -112,7 +154,24 @@ def activity_from_dict(data, position: int) -> Activity:
     return _core(act.validated)
 
 
+def _links_from_list(items) -> list[Link]:
+    """Every link, the common ones built in one tight loop, the rest by :func:`link_from_dict`."""
+    out, keys, types, limit = [], _LINK_KEYS, LINK_TYPES, MAX_UNITS
+    for i, d in enumerate(items, 1):
+        if type(d) is dict and d.keys() <= keys:
+            pred, succ, kind, lag = d.get("pred"), d.get("succ"), d.get("type", "FS"), d.get("lag", 0.0)
+            if (type(pred) is str and type(succ) is str and kind in types and pred and succ and pred != succ
+                    and type(lag) in (int, float) and -limit <= lag <= limit):
+                out.append(Link(pred, succ, kind, float(lag)))
+                continue
+        out.append(link_from_dict(d, i))
+    return out
+
+
 def link_from_dict(data, position: int) -> Link:
+    quick = _quick_link(data)
+    if quick is not None:
+        return quick
     f = Fields.entry(data, "link", position)
     link = Link(f.text("pred", required=True), f.text("succ", required=True),
                 f.text("type", "FS").upper(), f.number("lag", default=0.0))
@@ -172,11 +231,11 @@ def plan_from_dict(data) -> Plan:
     settings = settings_from_dict(top.raw("settings", {}))
     acts = [activity_from_dict(x, i) for i, x in enumerate(top.raw_list("activities"), 1)]
     _unique(acts)
-    links = [link_from_dict(x, i) for i, x in enumerate(top.raw_list("links"), 1)]
+    links = _links_from_list(top.raw_list("links"))
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
     top.done()
-    plan = _core(lambda: Plan(settings, acts, links, risks, corr))
+    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
     _core(lambda: compile_plan(plan))
     return plan

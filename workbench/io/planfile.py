@@ -32,11 +32,13 @@ def _no_constant(name: str):
 
 
 def _no_duplicates(pairs):
-    obj = {}
-    for key, value in pairs:
-        if key in obj:
-            raise ValueError(f"the field {key!r} appears twice in one object")
-        obj[key] = value
+    obj = dict(pairs)
+    if len(obj) != len(pairs):
+        seen = set()
+        for key, _ in pairs:
+            if key in seen:
+                raise ValueError(f"the field {key!r} appears twice in one object")
+            seen.add(key)
     return obj
 
 
