@@ -20,7 +20,7 @@ from pathlib import Path
 ROOT = Path(__file__).resolve().parents[1]
 sys.path.insert(0, str(ROOT))
 
-HEAVY = ("PySide6.QtWidgets", "scipy.special", "scipy.stats", "pyqtgraph")
+HEAVY = ("PySide6.QtWidgets", "scipy.special", "pyqtgraph")   # what the window still imports before it is drawn
 FRONT = ("Timeline", "Odds")   # the views on screen in the default layout
 START_SCRIPT = """
 import sys
