@@ -64,6 +64,19 @@ def slack_line(c, x0: float, x1: float, y: float, tick: float, width: float = 1.
     c.restoreState()
 
 
+def line_swatch(colour, width: float, dash=None):
+    """A legend swatch drawing a line across its box (``dash`` as reportlab's setDash args)."""
+    def draw(c, x, y, w, h):
+        c.saveState()
+        c.setStrokeColor(colour)
+        c.setLineWidth(width)
+        if dash:
+            c.setDash(*dash)
+        c.line(x, y + h / 2, x + w, y + h / 2)
+        c.restoreState()
+    return draw
+
+
 def legend(c, x: float, y: float, items: list[tuple[str, callable]], size: float = 8.0) -> None:
     """A one-line legend: each item draws its swatch in a 14×7 box, then its label."""
     c.saveState()

@@ -19,18 +19,6 @@ LEFT = 40.0
 S_CURVE_POINTS = 501
 
 
-def _line_swatch(colour, width, dash=None):
-    def draw(c, x, y, w, h):
-        c.saveState()
-        c.setStrokeColor(colour)
-        c.setLineWidth(width)
-        if dash:
-            c.setDash(*dash)
-        c.line(x, y + h / 2, x + w, y + h / 2)
-        c.restoreState()
-    return draw
-
-
 def _fill_swatch(colour):
     def draw(c, x, y, w, h):
         c.saveState()
@@ -113,12 +101,12 @@ class OddsPainter:
 
     def _legend(self):
         items = [(f"Finish by {format_date(self.ctx.date_of(self.q.d1))}", _fill_swatch(styles.PROBABILITY)),
-                 ("PERT curve", _line_swatch(styles.TEXT, 1.6))]
+                 ("PERT curve", mk.line_swatch(styles.TEXT, 1.6))]
         if self.ctx.simulation is not None:
             items += [("Simulated finishes", _fill_swatch(styles.FLOAT)),
-                      ("Simulated P50/P80/P90", _line_swatch(styles.TEXT, 0.8, (1.5, 1.5)))]
+                      ("Simulated P50/P80/P90", mk.line_swatch(styles.TEXT, 0.8, (1.5, 1.5)))]
         if self.ctx.deadline() is not None:
-            items.append(("Deadline", _line_swatch(styles.DEADLINE, 1.8, (5, 2))))
+            items.append(("Deadline", mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))
         return items
 
 
@@ -141,10 +129,10 @@ class SCurvePainter:
             ax.polyline(xs, probs, stroke=styles.WORK, width=2.2)
         self._guides(ax)
         ax.vline(self.q.d1, styles.DEADLINE if self.ctx.deadline() is not None else styles.TEXT, 1.8, (5, 2))
-        items = [("PERT (one path)", _line_swatch(styles.TEXT, 1.2))]
+        items = [("PERT (one path)", mk.line_swatch(styles.TEXT, 1.2))]
         if sim is not None:
-            items.append((f"Simulation ({sim.iterations:,} runs)", _line_swatch(styles.WORK, 2.2)))
-        items.append(("Deadline" if self.ctx.deadline() is not None else "Target date", _line_swatch(styles.DEADLINE, 1.8, (5, 2))))
+            items.append((f"Simulation ({sim.iterations:,} runs)", mk.line_swatch(styles.WORK, 2.2)))
+        items.append(("Deadline" if self.ctx.deadline() is not None else "Target date", mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))
         mk.legend(c, 0, 2, items)
 
     def _guides(self, ax: Axes) -> None:

@@ -203,16 +203,7 @@ class TimelineTile:
         return i >= 0 and bool(self.ctx.analysis.schedule.critical[i])
 
     def _legend_items(self):
-        def line(colour, width, dash=None):
-            def draw(c, x, y, w, h):
-                c.saveState()
-                c.setStrokeColor(colour)
-                c.setLineWidth(width)
-                if dash:
-                    c.setDash(*dash)
-                c.line(x, y + h / 2, x + w, y + h / 2)
-                c.restoreState()
-            return draw
+        line = mk.line_swatch
         items = [("Critical (hatched, heavy outline)", lambda c, x, y, w, h: mk.critical_bar(c, x, y, w, h, 1.0)),
                  ("Other work", mk.work_bar),
                  ("Float (ends at late finish)", lambda c, x, y, w, h: mk.slack_line(c, x, x + w, y + h / 2, h)),

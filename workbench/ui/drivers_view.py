@@ -9,7 +9,7 @@ from PySide6.QtWidgets import QHBoxLayout, QLabel, QSpinBox, QStackedLayout, QVB
 
 from workbench.figures import drivers as fdr
 from workbench.ui.drivers_chart import DriversChart
-from workbench.ui.session import WhenShown
+from workbench.ui.session import WhenShown, take_simulation
 
 PLACEHOLDER = "No simulation yet. Run a simulation in the Odds view to see what drives the finish."
 STALE_NOTE = "Stale: the plan changed since this simulation (shown in grey). Run it again in the Odds view."
@@ -68,11 +68,7 @@ class DriversView(QWidget):
         return page
 
     def _on_simulation_changed(self) -> None:
-        sim = self.session.simulation
-        if sim is not None:
-            self.result, self.stale = sim, False
-        elif self.result is not None:
-            self.stale = True
+        take_simulation(self)
         self.when_shown.call(self._redraw)
 
     def _redraw(self) -> None:

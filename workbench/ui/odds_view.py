@@ -15,7 +15,7 @@ from workbench.ui.odds_controls import OddsControls
 from workbench.ui.odds_panel import OddsPanel
 from workbench.ui.odds_plot import OddsPlot
 from workbench.ui.odds_runner import OddsRunner
-from workbench.ui.session import WhenShown
+from workbench.ui.session import WhenShown, take_simulation
 
 
 class OddsView(QWidget):
@@ -93,11 +93,7 @@ class OddsView(QWidget):
         self.when_shown.call(self.refresh)
 
     def _on_simulation_changed(self) -> None:
-        sim = self.session.simulation
-        if sim is not None:
-            self.result, self.stale = sim, False
-        elif self.result is not None:
-            self.stale = True
+        take_simulation(self)
         self.when_shown.call(self._show_simulation)
 
     def refresh(self) -> None:

@@ -212,6 +212,16 @@ class _Relay(QObject):
         self.helper.call(self.slot)
 
 
+def take_simulation(view) -> None:
+    """Keep ``view.result``/``view.stale`` in step with the session: a new run replaces the
+    shown result; a cleared one (the plan changed) leaves it on screen, marked stale."""
+    sim = view.session.simulation
+    if sim is not None:
+        view.result, view.stale = sim, False
+    elif view.result is not None:
+        view.stale = True
+
+
 def refresh_when_shown(view, slot, *signals) -> WhenShown:
     """Connect ``signals`` to ``slot`` so a hidden ``view`` does no work until it is shown.
     One line for a view: ``refresh_when_shown(self, self.refresh, session.schedule_changed)``.
