@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+import numpy as np
+
 
 @dataclass(frozen=True)
 class NodeText:
@@ -27,19 +29,23 @@ def number(value: float) -> str:
     return text.replace("-", "\u2212")
 
 
+def numbers(values) -> list[str]:
+    """:func:`number` for a whole array at once."""
+    v = np.round(np.asarray(values, dtype=float), 1) + 0.0   # + 0.0 turns -0.0 into 0.0
+    return [f"{x:.1f}".rstrip("0").rstrip(".").replace("-", "\u2212") for x in v.tolist()]
+
+
 def node_texts(plan, analysis=None) -> list[NodeText]:
     """One NodeText per activity in plan order; dates cells are empty without an analysis."""
-    out = []
-    s = analysis.schedule if analysis is not None else None
-    for i, act in enumerate(plan.activities):
-        te = number(act.mean)
-        if s is None:
-            out.append(NodeText(act.id, act.name, te, "", "", "", "", ""))
-            continue
-        tf = float(s.total_float[i])
-        out.append(NodeText(act.id, act.name, te, number(s.es[i]), number(s.ef[i]),
-                            number(s.ls[i]), number(s.lf[i]), number(tf), tf < -1e-9))
-    return out
+    acts = plan.activities
+    if analysis is None:
+        return [NodeText(a.id, a.name, number(a.mean), "", "", "", "", "") for a in acts]
+    s = analysis.schedule
+    columns = [numbers(analysis.means), numbers(s.es), numbers(s.ef), numbers(s.ls), numbers(s.lf),
+               numbers(s.total_float)]
+    late = (s.total_float < -1e-9).tolist()
+    return [NodeText(a.id, a.name, te, es, ef, ls, lf, tf, neg)
+            for a, te, es, ef, ls, lf, tf, neg in zip(acts, *columns, late)]
 
 
 def find_nodes(plan, text: str) -> list[str]:
