@@ -185,8 +185,22 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                 legend.removeItem(item)
 
     def _y_top(self, sim_top: float) -> None:
+        self._sim_top = sim_top
         top = max(getattr(self, "_pert_top", 0.0), sim_top)
-        self.density.setYRange(0, top * 1.12 if top > 0 else 1.0, padding=0.0)
+        self.density.setYRange(0, top * self._headroom() if top > 0 else 1.0, padding=0.0)
+
+    def _headroom(self) -> float:
+        """Room above the peak for the legend, so it never sits on the curve (small docks)."""
+        height = self.density.vb.height()
+        legend = self.legend.boundingRect().height() + 20.0
+        if height <= legend * 1.5:
+            return 2.0
+        return min(2.0, max(1.12, height / (height - legend)))
+
+    def resizeEvent(self, event):  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        if hasattr(self, "_sim_top"):
+            self._y_top(self._sim_top)
 
     def fit_y(self, has_sim: bool) -> None:
         if not has_sim:
@@ -213,6 +227,9 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         self.answer_dot.setData([pert_x], [pert_y])
         self.answer_text.setText(labels[0])
         self.answer_text.setPos(pert_x, pert_y)
+        (lo, hi), _ = self.density.vb.viewRange()
+        right_half = hi > lo and (pert_x - lo) / (hi - lo) > 0.5
+        self.answer_text.setAnchor((1.15, 1.0) if right_half else (-0.15, 1.0))  # stay inside the plot
         for line, x, text in zip(self.answers, (pert_x, sim_x), labels):
             line.setVisible(x is not None)
             if x is not None:
