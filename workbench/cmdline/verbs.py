@@ -55,6 +55,8 @@ def load_plan_file(path: str):
         raise PlanError(f"{path}: no such file", "PLAN")
     if p.is_dir():
         raise PlanError(f"{path}: is a folder, not a plan file", "PLAN")
+    if not p.is_file():
+        raise PlanError(f"{path}: not a regular file (a pipe or device cannot be read as a plan)", "PLAN")
     from ..io.tabular import load_any
 
     return load_any(p)
@@ -174,8 +176,10 @@ def cmd_import(args) -> int:
     src = Path(args.source)
     if src.suffix.lower() not in (".csv", ".xlsx"):
         raise PlanError(f"{args.source}: import reads .csv or .xlsx files", "SRC")
-    if not src.is_file():
+    if not src.exists():
         raise PlanError(f"{args.source}: no such file", "SRC")
+    if not src.is_file():
+        raise PlanError(f"{args.source}: not a regular file", "SRC")
     if Path(args.output).suffix.lower() != ".slw":
         raise PlanError(f"-o {args.output}: the output must be a .slw plan file", "-o")
     settings = Settings(title=src.stem, unit=args.unit)

@@ -28,8 +28,11 @@ class PackContext:
         """The calendar day by whose end a project of this duration finishes."""
         return self.analysis.date_of_duration(offset)
 
-    def name_of(self, act_id: str) -> str:
-        return self.plan.activity(act_id).name
+    def name_of(self, act_id: str, limit: int = 160) -> str:
+        """An activity's name, shortened with an ellipsis past ``limit`` characters so one
+        pasted essay cannot push a table row off the page."""
+        name = self.plan.activity(act_id).name
+        return name if len(name) <= limit else name[: limit - 1] + "\u2026"
 
     def deadline(self) -> float | None:
         return self.analysis.deadline

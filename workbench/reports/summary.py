@@ -109,7 +109,7 @@ def drivers(ctx: PackContext, width: float) -> list:
     head = ["Activity", "Name", "Criticality", "Sensitivity"]
     rows = [[Paragraph(f"<b>{h}</b>", styles.CELL) for h in head]]
     for d in top_drivers(ctx, DRIVERS_SHOWN):
-        rows.append([Paragraph(para(d.id), styles.CELL_BOLD), Paragraph(para(d.name), styles.CELL),
+        rows.append([Paragraph(para(d.id), styles.CELL_BOLD), Paragraph(para(ctx.name_of(d.id)), styles.CELL),
                      Paragraph(format_percent(d.criticality), styles.CELL),
                      Paragraph(f"{d.sensitivity:+.2f}", styles.CELL)])
     table = Table(rows, colWidths=[70, width - 230, 80, 80], hAlign="LEFT")
