@@ -13,5 +13,10 @@ def resources_dir() -> Path:
     return Path(__file__).resolve().parent.parent / "resources"
 
 
+def docs_dir() -> Path:
+    """The user guides (docs/), beside resources/ in the source tree and in a frozen build."""
+    return resources_dir().parent / "docs"
+
+
 def demo_path() -> Path:
     return resources_dir() / "demo.slw"

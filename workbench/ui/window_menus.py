@@ -51,7 +51,9 @@ def start_present(window) -> None:
 
 
 def show_guide(window) -> None:
-    guide = Path(__file__).resolve().parents[2] / "docs" / "window.md"
+    from workbench.resources import docs_dir
+
+    guide = docs_dir() / "window.md"
     text = guide.read_text(encoding="utf-8") if guide.exists() else "The window guide is not installed."
     prompts.show_guide(window, text)
 
