@@ -23,7 +23,8 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         super().__init__(orientation, **kwargs)
         self._calendar = None
         self._labels: dict[float, str] = {}
-        self._laid_out: dict[tuple, QStaticText] = {}
+        self._laid_out: dict[str, tuple[float, QStaticText]] = {}
+        self._laid_out_key = None
         self.setStyle(tickLength=5, autoExpandTextSpace=True, hideOverlappingLabels=False)
 
     def set_calendar(self, calendar) -> None:
@@ -68,29 +69,33 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         ticks = date_ticks(self._calendar, lo, hi, max(2, int(bounds.width() / self._label_px())))
         offsets = np.array([o for o, _ in ticks], float)
         xs = bounds.left() + (offsets - lo) / (hi - lo) * bounds.width()
-        metrics = QFontMetricsF(self._font())
+        font = self._font()
+        metrics = QFontMetricsF(font)
         need = int(np.ceil(metrics.height()))
         if need > self.textHeight or need < self.textHeight - 10:   # as pyqtgraph: only on a real change,
             self._updateMaxTextSize(need)                          # which also drops the kept image
         top = bounds.top() + max(0, self.style["tickLength"]) + self.style["tickTextOffset"][1]
-        texts, room = [], self.boundingRect()        # the axis and a small margin either side
-        for x, (_, text) in zip(xs.tolist(), ticks):
-            w = metrics.horizontalAdvance(text)
-            if room.left() <= x - w / 2 and x + w / 2 <= room.right():   # whole labels only
+        texts, room, laid_out = [], self.boundingRect(), self._laid_out_for(font)
+        for x, (_, text) in zip(xs.tolist(), ticks):    # whole labels only, within the axis and a margin
+            w = (laid_out.get(text) or self._lay_out(laid_out, text, font, metrics))[0]
+            if room.left() <= x - w / 2 and x + w / 2 <= room.right():
                 texts.append((x - w / 2, top, w, text))
         axis = (QPen(self.pen()), QPointF(bounds.left(), bounds.top()), QPointF(bounds.right(), bounds.top()))
         return axis, (bounds.top(), xs), texts
 
-    def _static(self, text: str) -> QStaticText:
-        font = self._font()
-        key = (text, font.key())
-        found = self._laid_out.get(key)
-        if found is None:
-            if len(self._laid_out) >= LABEL_CACHE:
-                self._laid_out.clear()
-            found = self._laid_out[key] = QStaticText(text)
-            found.setTextFormat(Qt.TextFormat.PlainText)
-            found.prepare(QTransform(), font)
+    def _laid_out_for(self, font: QFont) -> dict:
+        """Label text → (width, laid-out text) in ``font`` (one font key asked per paint)."""
+        key = font.key()
+        if self._laid_out_key != key or len(self._laid_out) >= LABEL_CACHE:
+            self._laid_out, self._laid_out_key = {}, key
+        return self._laid_out
+
+    @staticmethod
+    def _lay_out(laid_out: dict, text: str, font: QFont, metrics: QFontMetricsF) -> tuple:
+        static = QStaticText(text)
+        static.setTextFormat(Qt.TextFormat.PlainText)
+        static.prepare(QTransform(), font)
+        found = laid_out[text] = (metrics.horizontalAdvance(text), static)
         return found
 
     def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
@@ -102,11 +107,13 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         top, xs = tickSpecs
         lines(p, xs, top, xs, top + max(0, self.style["tickLength"]))
         p.setPen(self.textPen())
-        p.setFont(self._font())
-        raster = isinstance(p.device(), RASTER)      # on paper and SVG: plain vector text
-        h = QFontMetricsF(self._font()).height()
+        font = self._font()
+        p.setFont(font)
+        if isinstance(p.device(), RASTER):
+            laid_out, metrics = self._laid_out_for(font), QFontMetricsF(font)
+            for x, y, _, text in textSpecs:
+                p.drawStaticText(QPointF(x, y), (laid_out.get(text) or self._lay_out(laid_out, text, font, metrics))[1])
+            return
+        h = QFontMetricsF(font).height()           # on paper and SVG: plain vector text
         for x, y, w, text in textSpecs:
-            if raster:
-                p.drawStaticText(QPointF(x, y), self._static(text))
-            else:
-                p.drawText(QRectF(x - 2, y, w + 4, h), int(Qt.AlignmentFlag.AlignCenter), text)
+            p.drawText(QRectF(x - 2, y, w + 4, h), int(Qt.AlignmentFlag.AlignCenter), text)

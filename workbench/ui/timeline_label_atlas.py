@@ -26,10 +26,12 @@ class TimelineLabelAtlas:
         self._key = None
         self._slots: dict[tuple, int] = {}
         self._line = 1.0
+        self.generation = 0       # counts fresh starts: slots handed out before one are void
         self._fragments = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
 
     def _reset(self, key, width: float, line: float, ratio: float, at_least: int) -> None:
         self._key, self._line, self._slots = key, line, {}
+        self.generation += 1
         rows = max(2 * at_least, int(MAX_HEIGHT_PX / (line * ratio)))   # always room for one screen
         self.image = QPixmap(int(np.ceil(width * ratio)) + 1, int(np.ceil(rows * line * ratio)))
         self.image.setDevicePixelRatio(ratio)
@@ -38,9 +40,18 @@ class TimelineLabelAtlas:
     def _capacity(self) -> int:
         return int(self.image.height() / self.image.devicePixelRatio() / self._line)
 
+    @staticmethod
+    def key_for(font: QFont, colour: QColor, width: float, line: float, ratio: float) -> tuple:
+        """What the image depends on; another key means drawing afresh."""
+        return (font.key(), round(width), round(line, 3), colour.rgba(), ratio)
+
+    def holds(self, key: tuple) -> bool:
+        """True when the image was drawn for ``key`` (its slots are valid for it)."""
+        return self.image is not None and key == self._key
+
     def slots_for(self, labels, font: QFont, colour: QColor, width: float, line: float, ratio: float) -> np.ndarray:
         """Slot of each ``(text, label width, bold)``, drawing the ones not seen before."""
-        key = (font.key(), round(width), round(line, 3), colour.rgba(), ratio)
+        key = self.key_for(font, colour, width, line, ratio)
         if key != self._key or len(self._slots) + len(labels) > self._capacity():
             self._reset(key, width, line, ratio, len(labels))
         new = [lab for lab in dict.fromkeys(labels) if lab not in self._slots]

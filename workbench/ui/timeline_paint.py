@@ -22,13 +22,25 @@ DENSE_ROW_PX = 3.0
 
 
 def pen(colour: str, width: float, dash: bool = False) -> QPen:
-    p = QPen(QColor(colour))
-    p.setWidthF(max(width, 0.5))
-    p.setCapStyle(Qt.PenCapStyle.FlatCap)
-    p.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
-    if dash:
-        p.setStyle(Qt.PenStyle.DashLine)
-    return p
+    """A flat-capped pen (made once per colour, width and dash; do not modify it)."""
+    key = (colour, width, dash)
+    found = _PENS.get(key)
+    if found is None:
+        found = _PENS[key] = QPen(QColor(colour))
+        found.setWidthF(max(width, 0.5))
+        found.setCapStyle(Qt.PenCapStyle.FlatCap)
+        found.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
+        if dash:
+            found.setStyle(Qt.PenStyle.DashLine)
+    return found
+
+
+def colour_of(name: str) -> QColor:
+    """The QColor of a palette colour (made once)."""
+    found = _COLOURS.get(name)
+    if found is None:
+        found = _COLOURS[name] = QColor(name)
+    return found
 
 
 def bar_height(px, w: style.Weights) -> float:
@@ -39,7 +51,9 @@ def bar_height(px, w: style.Weights) -> float:
 _RECTS = PrimitiveArray(QRectF, 4) if PrimitiveArray is not None else None
 _LINES = PrimitiveArray(QLineF, 4) if PrimitiveArray is not None else None
 _STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
-_RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
+_RINGS: dict[tuple, QPixmap] = {}
+_PENS: dict[tuple, QPen] = {}
+_COLOURS: dict[str, QColor] = {}     # (radius, ring width, pixel ratio) → drawn ring
 
 
 def _size(*values) -> int:
@@ -90,13 +104,30 @@ def visible_x(px, m):
     return np.clip(x0[keep], lo, hi), np.clip(x1[keep], lo, hi), m.rows[keep]
 
 
-def spans(p: QPainter, px, m, h: float, shift: float = 0.0) -> None:
-    """Marks as rectangles [x0, x1] × (row centre + shift ± h/2), in the current pen/brush."""
+def span_parts(px, m, h: float, shift: float = 0.0) -> tuple:
+    """Marks as rectangles [x0, x1] × (row centre + shift ± h/2): (x, y, w, h) for ``rects``."""
     x0, x1, rows = visible_x(px, m)
     y = px.y(rows) + shift
     if px.row_px < 1.0 and x0.size:      # several rows per pixel: merge what overlaps
         x0, x1, y = merge_runs(x0, x1, y)
-    rects(p, x0, y - h / 2, np.maximum(x1 - x0, 0.0), h)
+    return x0, y - h / 2, np.maximum(x1 - x0, 0.0), h
+
+
+def spans(p: QPainter, px, m, h: float, shift: float = 0.0) -> None:
+    """Marks as rectangles in the current pen/brush (see ``span_parts``)."""
+    rects(p, *span_parts(px, m, h, shift))
+
+
+def rects_of(p: QPainter, *parts) -> None:
+    """Several groups of ``(x, y, w, h)`` rectangles in the same pen and brush, one call."""
+    parts = [part for part in parts if _size(*part)]
+    if len(parts) < 2:
+        if parts:
+            rects(p, *parts[0])
+        return
+    sizes = [_size(*part) for part in parts]
+    rects(p, *(np.concatenate([np.broadcast_to(np.asarray(part[k], float), (n,)) for part, n in zip(parts, sizes)])
+               for k in range(4)))
 
 
 def _pixel_order(x0, y):
@@ -122,13 +153,17 @@ def merge_runs(x0, x1, y):
 
 def fill(p: QPainter, colour: str) -> None:
     p.setPen(Qt.PenStyle.NoPen)
-    p.setBrush(QColor(colour))
+    p.setBrush(colour_of(colour))
+
+
+def tick_parts(px, x, rows, half: float, width: float, shift: float = 0.0) -> tuple:
+    """Upright ticks as thin filled rectangles (crisp at any width): (x, y, w, h) for ``rects``."""
+    xs, ys = px.x(x), px.y(rows) + shift
+    return xs - width / 2, ys - half, width, 2 * half
 
 
 def ticks(p: QPainter, px, x, rows, half: float, width: float, shift: float = 0.0) -> None:
-    """Upright ticks as thin filled rectangles (crisp at any width)."""
-    xs, ys = px.x(x), px.y(rows) + shift
-    rects(p, xs - width / 2, ys - half, width, 2 * half)
+    rects(p, *tick_parts(px, x, rows, half, width, shift))
 
 
 def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float, h: float) -> None:
@@ -139,7 +174,7 @@ def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float
         spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
     p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
-    p.setBrush(QColor(fill_colour))
+    p.setBrush(colour_of(fill_colour))
     spans(p, px, m, h)
 
 
@@ -148,10 +183,11 @@ def draw_slack_lines(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     if not len(m):
         return
     fill(p, style.FLOAT)
-    thick = w.float_line * px.scale
-    spans(p, px, m, min(thick, max(1.0, px.row_px * 0.5)))
-    if px.row_px >= DENSE_ROW_PX:
-        ticks(p, px, m.x1, m.rows, h / 2, w.float_tick * px.scale)
+    line = span_parts(px, m, min(w.float_line * px.scale, max(1.0, px.row_px * 0.5)))
+    if px.row_px >= DENSE_ROW_PX:        # line and end tick in one call
+        rects_of(p, line, tick_parts(px, m.x1, m.rows, h / 2, w.float_tick * px.scale))
+    else:
+        rects(p, *line)
 
 
 def draw_negative_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
@@ -177,9 +213,8 @@ def draw_whiskers(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     shift = h / 2 + 1.5 * px.scale
     width = w.whisker * px.scale
     fill(p, style.PROBABILITY)
-    spans(p, px, m, width, shift)
-    ticks(p, px, m.x0, m.rows, h / 4, width, shift)
-    ticks(p, px, m.x1, m.rows, h / 4, width, shift)
+    rects_of(p, span_parts(px, m, width, shift), tick_parts(px, m.x0, m.rows, h / 4, width, shift),
+             tick_parts(px, m.x1, m.rows, h / 4, width, shift))
 
 
 def draw_summaries(p: QPainter, px, m, critical: bool, w: style.Weights, h: float) -> None:
@@ -191,8 +226,8 @@ def draw_summaries(p: QPainter, px, m, critical: bool, w: style.Weights, h: floa
     spans(p, px, m, slim, -h / 4)
     if px.row_px >= DENSE_ROW_PX:
         fill(p, style.TEXT)
-        ticks(p, px, m.x0, m.rows, h / 4, 2 * px.scale, -h / 8)
-        ticks(p, px, m.x1, m.rows, h / 4, 2 * px.scale, -h / 8)
+        rects_of(p, tick_parts(px, m.x0, m.rows, h / 4, 2 * px.scale, -h / 8),
+                 tick_parts(px, m.x1, m.rows, h / 4, 2 * px.scale, -h / 8))
 
 
 def _diamonds(px, m, r: float) -> QPainterPath:
@@ -216,7 +251,7 @@ def draw_milestones(p: QPainter, px, m, critical: bool, w: style.Weights, h: flo
         return
     r = max(3.0, h * 0.6)
     p.setPen(pen(style.CRITICAL_EDGE, (w.critical_outline if critical else 1.0) * px.scale))
-    p.setBrush(QColor(style.CRITICAL if critical else style.MILESTONE))
+    p.setBrush(colour_of(style.CRITICAL if critical else style.MILESTONE))
     p.drawPath(_diamonds(px, m, r))
 
 

@@ -30,11 +30,14 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         self._geo = None
         self._cut: dict[tuple, str] = {}          # (text, width, bold) → text cut to the width
         self._atlas = TimelineLabelAtlas()
+        self._slot_of_row = np.zeros(0)            # per row: its label's atlas slot, -1 if unknown
+        self._slot_key = None
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
     def set_geometry(self, geo) -> None:
         self._geo = geo
+        self._slot_key = None
         self.picture = None
         self.update()
 
@@ -65,7 +68,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         return range(first, min(self._geo.n_rows, math.floor(hi + 0.5) + 1), step)
 
     def generateDrawSpecs(self, p):
-        """Axis line, tick heights and labels ``(x, top, width, height, text, laid out, bold)``."""
+        """Axis line, tick heights and the labels on screen (a :class:`RowLabels`)."""
         if self._geo is None:
             return super().generateDrawSpecs(p)
         font = self.style.get("tickFont") or QFont()
@@ -77,18 +80,11 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         ys = self._rows_to_local(bounds, rows)
         keep = (ys >= bounds.top() - h / 2) & (ys <= bounds.bottom() + h / 2)
         rows, ys = rows[keep], ys[keep]
-        texts, line = [], math.ceil(h)
-        for row, y in zip(rows.tolist(), ys.tolist()):
-            indent = INDENT * int(self._geo.depth[row])
-            width = int(bounds.width() - 2 * PADDING - indent)
-            bold = self._geo.kinds[row] == "group"
-            text = self._label(self.label_text(row), width, bold)
-            texts.append((round(bounds.left() + PADDING + indent), round(y - line / 2), width, line, text, bold))
-        return axis, (bounds.right(), ys), texts
+        return axis, (bounds.right(), ys), RowLabels(self, bounds, rows, ys, math.ceil(h))
 
     def shown_labels(self) -> list[str]:
         """The label texts as they are drawn now (cut to the column), top to bottom."""
-        return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2]]
+        return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2].specs()]
 
     def _label(self, text: str, width: int, bold: bool) -> str:
         """The label cut to ``width`` (kept across repaints and zooms)."""
@@ -102,16 +98,37 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
             cut = self._cut[key] = QFontMetricsF(font).elidedText(text, Qt.TextElideMode.ElideRight, width)
         return cut
 
-    def _stamp(self, p, font: QFont, specs) -> bool:
-        """Labels copied from the atlas in one call (each drawn there once)."""
-        if not specs:
+    def _stamp(self, p, font: QFont, labels: "RowLabels") -> bool:
+        """Labels copied from the atlas in one call (each drawn there once); no Python per
+        row once the rows' slots are known."""
+        if not labels.rows.size:
             return True
-        ratio = p.device().devicePixelRatioF()
-        width = self.boundingRect().width()
-        slots = self._atlas.slots_for([(t, w, b) for _, _, w, _, t, b in specs], font,
-                                      self.textPen().color(), width, specs[0][3], ratio)
-        x, top, w = (np.array([s[k] for s in specs], float) for k in (0, 1, 2))
-        return self._atlas.stamp(p, x, top, w, slots)
+        indent = INDENT * self._geo.depth[labels.rows]
+        slots = self._row_slots(font, labels, p.device().devicePixelRatioF())
+        x = np.round(labels.bounds.left() + PADDING + indent)
+        width = np.trunc(labels.bounds.width() - 2 * PADDING - indent)
+        return self._atlas.stamp(p, x, np.round(labels.ys - labels.line / 2), width, slots)
+
+    def _row_slots(self, font: QFont, labels: "RowLabels", ratio: float) -> np.ndarray:
+        """Atlas slot of each row in ``labels``: kept per row until the geometry, the column,
+        the type or the atlas change; rows not seen yet are looked up (and drawn) once."""
+        column = self.boundingRect().width()
+        colour = self.textPen().color()
+        want = self._atlas.key_for(font, colour, column, labels.line, ratio)
+        key = (id(self._geo), labels.bounds.width(), want, self._atlas.generation)
+        if key != self._slot_key or not self._atlas.holds(want):
+            self._slot_of_row = np.full(self._geo.n_rows, -1.0)
+        slots = self._slot_of_row[labels.rows]
+        if (slots < 0).any():
+            generation = self._atlas.generation
+            texts = [(t, w, b) for _, _, w, _, t, b in labels.specs()]
+            slots = self._atlas.slots_for(texts, font, colour, column, labels.line, ratio)
+            if self._atlas.generation != generation:     # started afresh: earlier slots are void
+                self._slot_of_row = np.full(self._geo.n_rows, -1.0)
+            self._slot_of_row[labels.rows] = slots
+            key = (id(self._geo), labels.bounds.width(), want, self._atlas.generation)
+        self._slot_key = key
+        return slots
 
     def preferred_width(self, font: QFont, limit: float) -> int:
         """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
@@ -146,6 +163,25 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         bold = QFont(font)                  # paper, PDF and SVG: plain vector text
         bold.setBold(True)
         flags = int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
-        for x, top, width, h, text, is_bold in textSpecs:
+        for x, top, width, h, text, is_bold in textSpecs.specs():
             p.setFont(bold if is_bold else font)
             p.drawText(QRectF(x, top, width, h), flags, text)
+
+
+class RowLabels:
+    """The labels of the rows on screen: ``rows`` and their centres ``ys`` (axis
+    coordinates); ``specs()`` lays each out as ``(x, top, width, height, text, bold)``."""
+
+    def __init__(self, axis: TimelineRowAxis, bounds: QRectF, rows: np.ndarray, ys: np.ndarray, line: int):
+        self.axis, self.bounds, self.rows, self.ys, self.line = axis, bounds, rows, ys, line
+
+    def specs(self) -> list[tuple]:
+        geo, texts = self.axis._geo, []
+        for row, y in zip(self.rows.tolist(), self.ys.tolist()):
+            indent = INDENT * int(geo.depth[row])
+            width = int(self.bounds.width() - 2 * PADDING - indent)
+            bold = geo.kinds[row] == "group"
+            text = self.axis._label(self.axis.label_text(row), width, bold)
+            texts.append((round(self.bounds.left() + PADDING + indent), round(y - self.line / 2),
+                          width, self.line, text, bold))
+        return texts
