@@ -167,3 +167,60 @@ def test_label_atlas_holds_a_screen_taller_than_its_usual_size(qtbot):
     n = MAX_HEIGHT_PX // 10
     slots = atlas.slots_for([(f"R{i}", 80, False) for i in range(n)], QFont(), QColor("black"), 90.0, 20.0, 2.0)
     assert sorted(slots.tolist()) == list(range(n)) and atlas._capacity() >= n
+
+
+def label_column(view) -> QImage:
+    """The label column of a whole-view rendering."""
+    area = view.row_axis.mapRectToScene(view.row_axis.boundingRect())
+    top_left = view.plot.mapTo(view, view.plot.mapFromScene(area.topLeft()))
+    return render(view).copy(top_left.x(), top_left.y(), int(area.width()), int(area.height()))
+
+
+def fresh_view_of(view, qtbot) -> TimelineView:
+    other = TimelineView(Session(view.session.plan.copy()))
+    qtbot.addWidget(other)
+    other.resize(view.size())
+    other.show()
+    qtbot.waitExposed(other)
+    (x0, x1), (y0, y1) = view.view_box.viewRange()
+    other.view_box.setRange(xRange=(x0, x1), yRange=(y0, y1), padding=0)
+    qtbot.wait(20)
+    return other
+
+
+def test_row_label_slots_are_kept_across_redraws_and_forgotten_on_an_edit(view, qtbot):
+    view.zoom(1.0)                                  # the user's view: an edit keeps it
+    view.view_box.setYRange(-0.5, 19.5, padding=0)
+    qtbot.wait(10)
+    view.drop_paint_caches()
+    first = label_column(view)
+    shown = view.row_axis.generateDrawSpecs(None)[2].rows
+    assert shown.size and (view.row_axis._slot_of_row[shown] >= 0).all()   # rows drawn know their slot
+    view.drop_paint_caches()
+    assert label_column(view) == first              # drawn again from the kept slots: same pixels
+    view.session.push(EditActivity("T2", name="Renamed"))
+    view.drop_paint_caches()
+    edited = label_column(view)
+    assert any("Renamed" in text for text in view.row_axis.shown_labels())
+    assert edited != first                          # the old slot of row 2 was not reused
+    other = fresh_view_of(view, qtbot)
+    assert other.row_axis.shown_labels() == view.row_axis.shown_labels()
+    assert edited == label_column(other)
+
+
+def test_row_label_slots_follow_a_new_type_size(view):
+    from PySide6.QtGui import QFont
+    axis = view.row_axis
+    render(view)
+    before = label_column(view)
+    font = QFont(axis.style["tickFont"])
+    bigger = QFont(font)
+    bigger.setPixelSize(font.pixelSize() + 6)
+    generation = axis._atlas.generation
+    axis.set_font(bigger)
+    view.drop_paint_caches()
+    assert label_column(view) != before                 # not stamped from the old slots
+    assert axis._atlas.generation > generation          # the atlas was drawn afresh
+    axis.set_font(font)
+    view.drop_paint_caches()
+    assert label_column(view) == before                 # slots looked up again for the old type
