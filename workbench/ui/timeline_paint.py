@@ -51,30 +51,56 @@ def bar_height(px, w: style.Weights) -> float:
 _RECTS = PrimitiveArray(QRectF, 4) if PrimitiveArray is not None else None
 _LINES = PrimitiveArray(QLineF, 4) if PrimitiveArray is not None else None
 _STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
-_RINGS: dict[tuple, QPixmap] = {}
+_RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
 _PENS: dict[tuple, QPen] = {}
-_COLOURS: dict[str, QColor] = {}     # (radius, ring width, pixel ratio) → drawn ring
+_COLOURS: dict[str, QColor] = {}
 
 
 def _size(*values) -> int:
-    return max(np.size(v) for v in values) if all(np.size(v) for v in values) else 0
+    """Common length of arrays and scalars (scalars stretch); 0 when an array is empty."""
+    n = 1
+    for v in values:
+        k = v.size if isinstance(v, np.ndarray) else 1 if isinstance(v, (float, int)) else np.size(v)
+        if not k:
+            return 0
+        n = max(n, k)
+    return n
+
+
+def _whole_pixels(m, x, y, w, h) -> None:
+    """Rectangles rounded to whole pixels (crisp, even lines) into the rows of ``m``."""
+    x0 = np.rint(x)
+    m[:, 0] = x0
+    m[:, 2] = np.rint(x + w) - x0
+    hh = np.maximum(np.rint(h), 1.0)
+    m[:, 3] = hh
+    m[:, 1] = np.rint(y + (h - hh) / 2)
 
 
 def rects(p: QPainter, x, y, w, h) -> None:
     """Draw many rectangles in one call (numpy-backed when the Qt binding allows it)."""
-    n = _size(x, y, w, h)
+    rects_of(p, (x, y, w, h))
+
+
+def rects_of(p: QPainter, *parts) -> None:
+    """Several groups of ``(x, y, w, h)`` rectangles in the same pen and brush, one call."""
+    sizes = [_size(*part) for part in parts]
+    n = sum(sizes)
     if not n:
         return
-    x0, x1 = np.round(x), np.round(np.add(x, w))          # whole pixels: crisp, even lines
-    hh = np.maximum(np.round(h), 1.0)
-    top = np.round(np.add(y, np.subtract(h, hh) / 2))
     if _RECTS is None:
-        x0, top, w, hh = np.broadcast_arrays(x0, top, x1 - x0, hh)
-        p.drawRects([QRectF(*v) for v in zip(x0.tolist(), top.tolist(), w.tolist(), hh.tolist())])
+        m = np.empty((n, 4))
+    else:
+        _RECTS.resize(n)
+        m = _RECTS.ndarray()
+    at = 0
+    for part, k in zip(parts, sizes):
+        if k:
+            _whole_pixels(m[at:at + k], np.asarray(part[0], float), *part[1:])
+            at += k
+    if _RECTS is None:
+        p.drawRects([QRectF(*v) for v in m.tolist()])
         return
-    _RECTS.resize(n)
-    m = _RECTS.ndarray()
-    m[:, 0], m[:, 1], m[:, 2], m[:, 3] = x0, top, x1 - x0, hh
     p.drawRects(*_RECTS.drawargs())
 
 
@@ -99,9 +125,11 @@ def visible_x(px, m):
     x0, x1 = px.x(m.x0), px.x(m.x1)
     lo, hi = px.clip
     keep = (np.maximum(x0, x1) >= lo) & (np.minimum(x0, x1) <= hi)
-    if keep.all():
-        return np.clip(x0, lo, hi), np.clip(x1, lo, hi), m.rows
-    return np.clip(x0[keep], lo, hi), np.clip(x1[keep], lo, hi), m.rows[keep]
+    if not keep.all():
+        x0, x1, rows = x0[keep], x1[keep], m.rows[keep]
+    else:
+        rows = m.rows
+    return np.minimum(np.maximum(x0, lo), hi), np.minimum(np.maximum(x1, lo), hi), rows
 
 
 def span_parts(px, m, h: float, shift: float = 0.0) -> tuple:
@@ -116,18 +144,6 @@ def span_parts(px, m, h: float, shift: float = 0.0) -> tuple:
 def spans(p: QPainter, px, m, h: float, shift: float = 0.0) -> None:
     """Marks as rectangles in the current pen/brush (see ``span_parts``)."""
     rects(p, *span_parts(px, m, h, shift))
-
-
-def rects_of(p: QPainter, *parts) -> None:
-    """Several groups of ``(x, y, w, h)`` rectangles in the same pen and brush, one call."""
-    parts = [part for part in parts if _size(*part)]
-    if len(parts) < 2:
-        if parts:
-            rects(p, *parts[0])
-        return
-    sizes = [_size(*part) for part in parts]
-    rects(p, *(np.concatenate([np.broadcast_to(np.asarray(part[k], float), (n,)) for part, n in zip(parts, sizes)])
-               for k in range(4)))
 
 
 def _pixel_order(x0, y):
