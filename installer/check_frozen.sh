@@ -21,6 +21,7 @@ BUILD=1
 
 now() { date +%s.%N; }
 since() { echo "$(now) $1" | awk '{printf "%.1f", $1 - $2}'; }
+since_ms() { echo "$(now) $1" | awk '{printf "%.0f", ($1 - $2) * 1000}'; }
 fail() { echo "FAIL  $*" >&2; exit 1; }
 ok() { echo "ok    $*"; }
 
@@ -120,9 +121,9 @@ ok "install.sh: installed for a user, ran through ~/.local/bin, uninstalled"
 # Start times: the frozen --version against the source tree's, alternating, three each.
 : > "$WORK/frozen.t"; : > "$WORK/source.t"
 for i in 1 2 3; do
-  T=$(now); clean "$APP/slackline" --version > /dev/null; since "$T" >> "$WORK/frozen.t"; echo >> "$WORK/frozen.t"
-  T=$(now); (cd "$ROOT" && "$PY" -m workbench --version > /dev/null); since "$T" >> "$WORK/source.t"; echo >> "$WORK/source.t"
+  T=$(now); clean "$APP/slackline" --version > /dev/null; since_ms "$T" >> "$WORK/frozen.t"; echo >> "$WORK/frozen.t"
+  T=$(now); (cd "$ROOT" && "$PY" -m workbench --version > /dev/null); since_ms "$T" >> "$WORK/source.t"; echo >> "$WORK/source.t"
 done
 F=$(sort -n "$WORK/frozen.t" | sed -n 2p); S=$(sort -n "$WORK/source.t" | sed -n 2p)
-echo "info  --version start, median of 3: frozen $F s, python -m workbench $S s (ratio $(echo "$F $S" | awk '{printf "%.2f", $1 / $2}'))"
+echo "info  --version start, median of 3: frozen $F ms, python -m workbench $S ms (ratio $(echo "$F $S" | awk '{printf "%.1f", $1 / ($2 > 0 ? $2 : 1)}'))"
 echo "frozen check passed in $(since "$T0") s"
