@@ -25,6 +25,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         self._labels: dict[float, str] = {}
         self._laid_out: dict[str, tuple[float, QStaticText]] = {}
         self._laid_out_key = None
+        self._label_px_now = None     # _label_px() for the type of _laid_out_key
         self.setStyle(tickLength=5, autoExpandTextSpace=True, hideOverlappingLabels=False)
 
     def set_calendar(self, calendar) -> None:
@@ -66,16 +67,18 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         lo, hi = self.range
         if hi <= lo or bounds.width() <= 0:
             return None
-        ticks = date_ticks(self._calendar, lo, hi, max(2, int(bounds.width() / self._label_px())))
+        font = self._font()
+        metrics, laid_out = QFontMetricsF(font), self._laid_out_for(font)
+        if self._label_px_now is None:
+            self._label_px_now = self._label_px()
+        ticks = date_ticks(self._calendar, lo, hi, max(2, int(bounds.width() / self._label_px_now)))
         offsets = np.array([o for o, _ in ticks], float)
         xs = bounds.left() + (offsets - lo) / (hi - lo) * bounds.width()
-        font = self._font()
-        metrics = QFontMetricsF(font)
         need = int(np.ceil(metrics.height()))
         if need > self.textHeight or need < self.textHeight - 10:   # as pyqtgraph: only on a real change,
             self._updateMaxTextSize(need)                          # which also drops the kept image
         top = bounds.top() + max(0, self.style["tickLength"]) + self.style["tickTextOffset"][1]
-        texts, room, laid_out = [], self.boundingRect(), self._laid_out_for(font)
+        texts, room = [], self.boundingRect()
         for x, (_, text) in zip(xs.tolist(), ticks):    # whole labels only, within the axis and a margin
             w = (laid_out.get(text) or self._lay_out(laid_out, text, font, metrics))[0]
             if room.left() <= x - w / 2 and x + w / 2 <= room.right():
@@ -87,7 +90,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         """Label text → (width, laid-out text) in ``font`` (one font key asked per paint)."""
         key = font.key()
         if self._laid_out_key != key or len(self._laid_out) >= LABEL_CACHE:
-            self._laid_out, self._laid_out_key = {}, key
+            self._laid_out, self._laid_out_key, self._label_px_now = {}, key, None
         return self._laid_out
 
     @staticmethod
@@ -103,9 +106,10 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
             return super().drawPicture(p, axisSpec, tickSpecs, textSpecs)
         pen, p1, p2 = axisSpec
         p.setPen(pen)
-        p.drawLine(p1, p2)
         top, xs = tickSpecs
-        lines(p, xs, top, xs, top + max(0, self.style["tickLength"]))
+        ends = top + max(0, self.style["tickLength"])
+        lines(p, np.r_[p1.x(), xs], np.r_[p1.y(), np.full(xs.size, top)],
+              np.r_[p2.x(), xs], np.r_[p2.y(), np.full(xs.size, ends)])    # axis line and ticks, one call
         p.setPen(self.textPen())
         font = self._font()
         p.setFont(font)

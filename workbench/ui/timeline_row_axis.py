@@ -13,7 +13,7 @@ import math
 import pyqtgraph as pg
 import numpy as np
 from PySide6.QtCore import QPointF, QRectF, Qt
-from PySide6.QtGui import QFont, QFontMetricsF, QPen
+from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPen
 
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
 from workbench.ui.timeline_label_atlas import TimelineLabelAtlas
@@ -98,22 +98,20 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
             cut = self._cut[key] = QFontMetricsF(font).elidedText(text, Qt.TextElideMode.ElideRight, width)
         return cut
 
-    def _stamp(self, p, font: QFont, labels: "RowLabels") -> bool:
+    def _stamp(self, p, font: QFont, labels: "RowLabels", colour: QColor, column: float) -> bool:
         """Labels copied from the atlas in one call (each drawn there once); no Python per
         row once the rows' slots are known."""
         if not labels.rows.size:
             return True
         indent = INDENT * self._geo.depth[labels.rows]
-        slots = self._row_slots(font, labels, p.device().devicePixelRatioF())
+        slots = self._row_slots(font, labels, p.device().devicePixelRatioF(), colour, column)
         x = np.round(labels.bounds.left() + PADDING + indent)
         width = np.trunc(labels.bounds.width() - 2 * PADDING - indent)
         return self._atlas.stamp(p, x, np.round(labels.ys - labels.line / 2), width, slots)
 
-    def _row_slots(self, font: QFont, labels: "RowLabels", ratio: float) -> np.ndarray:
+    def _row_slots(self, font: QFont, labels: "RowLabels", ratio: float, colour: QColor, column: float) -> np.ndarray:
         """Atlas slot of each row in ``labels``: kept per row until the geometry, the column,
         the type or the atlas change; rows not seen yet are looked up (and drawn) once."""
-        column = self.boundingRect().width()
-        colour = self.textPen().color()
         want = self._atlas.key_for(font, colour, column, labels.line, ratio)
         key = (id(self._geo), labels.bounds.width(), want, self._atlas.generation)
         if key != self._slot_key or not self._atlas.holds(want):
@@ -152,13 +150,14 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
             return super().drawPicture(p, axisSpec, tickSpecs, textSpecs)
         pen, p1, p2 = axisSpec
         p.setPen(pen)
-        p.drawLine(p1, p2)
         right, ys = tickSpecs
-        lines(p, right - 4, ys, right, ys)
-        p.setPen(self.textPen())
-        p.setClipRect(self.boundingRect().toAlignedRect())
+        lines(p, np.r_[p1.x(), np.full(ys.size, right - 4)], np.r_[p1.y(), ys],
+              np.r_[p2.x(), np.full(ys.size, right)], np.r_[p2.y(), ys])     # axis line and ticks, one call
+        text_pen, room = self.textPen(), self.boundingRect()
+        p.setPen(text_pen)
+        p.setClipRect(room.toAlignedRect())
         font = QFont(self.style.get("tickFont") or QFont())
-        if isinstance(p.device(), RASTER) and self._stamp(p, font, textSpecs):
+        if isinstance(p.device(), RASTER) and self._stamp(p, font, textSpecs, text_pen.color(), room.width()):
             return
         bold = QFont(font)                  # paper, PDF and SVG: plain vector text
         bold.setBold(True)
