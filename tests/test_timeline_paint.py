@@ -80,9 +80,23 @@ def test_within_keeps_exactly_the_marks_on_the_rows_asked(rows, a, b):
     m = Marks(rows, x0, x0 + 1.0, np.arange(rows.size))
     assert (np.diff(m.rows) >= 0).all()                       # kept in row order
     assert (m.x0 == m.index).all()                            # fields moved together
-    part = m.within(lo, hi)
-    want = sorted(i for i, r in zip(range(rows.size), rows) if lo <= r <= hi)
-    assert sorted(part.index.tolist()) == want
+    for lo_, hi_ in ((lo, hi), (lo - 0.5, hi + 0.5), (-np.inf, hi), (lo, np.inf)):   # the row table, built once
+        part = m.within(lo_, hi_)
+        want = sorted(i for i, r in zip(range(rows.size), rows) if lo_ <= r <= hi_)
+        assert sorted(part.index.tolist()) == want
+
+
+def test_row_table_of_marks_is_made_anew_with_a_new_geometry(view, qtbot):
+    old = view.geometry
+    before = old.marks["work"]
+    before.within(0, 5)
+    view.session.push(EditActivity("T3", most_likely=8.5))
+    qtbot.waitUntil(lambda: view.geometry is not old)
+    after = view.geometry.marks["work"]
+    assert after is not before and "_starts" not in after.__dict__     # no table carried over
+    for lo, hi in ((0, 5), (2.5, 40.2), (-3, 100)):
+        want = np.flatnonzero((after.rows >= lo) & (after.rows <= hi))
+        assert after.within(lo, hi).index.tolist() == after.index[want].tolist()
 
 
 class _Px:

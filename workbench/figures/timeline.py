@@ -18,6 +18,7 @@ placed where the group first appears. A collapsed group shows only its summary r
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -57,16 +58,30 @@ class Marks:
 
     def within(self, lo_row: float, hi_row: float) -> "Marks":
         """Only the marks on rows lo_row..hi_row (for skipping rows off screen): a slice,
-        found by bisection since marks are kept in row order."""
+        found in a table of where each row's marks begin (built at the first call, so once
+        per geometry, kept while the view moves)."""
         if not self.rows.size:
             return self
-        a = int(self.rows.searchsorted(lo_row, side="left"))
-        b = int(self.rows.searchsorted(hi_row, side="right"))
+        if self.rows[0] < 0 or not (math.isfinite(lo_row) and math.isfinite(hi_row)):
+            a = int(self.rows.searchsorted(lo_row, side="left"))
+            b = int(self.rows.searchsorted(hi_row, side="right"))
+        else:
+            starts = self._row_starts()
+            last = starts.size - 1
+            a = int(starts[min(max(math.ceil(lo_row), 0), last)])
+            b = int(starts[min(max(math.floor(hi_row) + 1, 0), last)])
         if a == 0 and b == self.rows.size:
             return self
         part = object.__new__(Marks)      # a slice of sorted rows stays sorted: no re-check
         part.rows, part.x0, part.x1, part.index = self.rows[a:b], self.x0[a:b], self.x1[a:b], self.index[a:b]
         return part
+
+    def _row_starts(self) -> np.ndarray:
+        """Index of the first mark on row r or later, for r = 0 .. last row + 1."""
+        starts = self.__dict__.get("_starts")
+        if starts is None:
+            starts = self.__dict__["_starts"] = self.rows.searchsorted(np.arange(int(self.rows[-1]) + 2), side="left")
+        return starts
 
 
 @dataclass
