@@ -9,6 +9,10 @@ activities. Two cases, each applied alike to subject and reference:
   before each render: what the user waits for after an edit, a zoom or a pan;
 - **repaint**: nothing changed since the last render (an expose, a tooltip moving away).
 
+The zoomed view is also measured **panned to rows not shown before** (one screen further
+down before each render, caches dropped): labels seen for the first time are drawn into
+the label atlas and looked up once; the other cases show rows whose labels are known.
+
 Subjects: 10,000 activities with every row in view (targets: ≤ 20 ms and ≤ 2.5× the
 empty Timeline) and zoomed to about 50 rows (target ≤ 1.3×). For comparison it also
 prints the earlier method (only the plot area through ``QGraphicsView.render``, only the
@@ -127,6 +131,8 @@ def new_method(full, zoom, blank, rounds: int) -> None:
     views = {"full": full, "zoom": zoom, "blank": blank}
     changed = interleaved({k: (v, render_widget, drop[k]) for k, v in views.items()}, rounds)
     still = interleaved({k: (v, render_widget, None) for k, v in views.items()}, rounds)
+    panned = interleaved({"zoom": (zoom, render_widget, lambda: pan_to_new_rows(zoom)),
+                          "blank": (blank, render_widget, blank.drop_paint_caches)}, rounds)
     print(f"whole TimelineView at {SIZE[0]}x{SIZE[1]} (QWidget.render), reference: empty Timeline "
           f"{median(changed['blank']):.2f} ms after a change, {median(still['blank']):.2f} ms repaint")
     for name, label, target in (("full", "10,000 activities, all rows", "<= 20 ms, <= 2.5x"),
@@ -135,6 +141,17 @@ def new_method(full, zoom, blank, rounds: int) -> None:
         for case, t in (("after a change", changed), ("repaint", still)):
             print(f"    {case}: {median(t[name]):.1f} ms, {ratio(t, name, 'blank'):.2f}x empty Timeline "
                   f"(ratio of medians {median(t[name]) / median(t['blank']):.2f}x)")
+    print(f"    panned to rows not shown before: {median(panned['zoom']):.1f} ms, "
+          f"{ratio(panned, 'zoom', 'blank'):.2f}x empty Timeline")
+
+
+def pan_to_new_rows(view) -> None:
+    """One screen of rows further down (back to the top at the end), caches dropped."""
+    _, (top, bottom) = view.view_box.viewRange()
+    step = bottom - top + 1.0
+    top = top + step if bottom + step < view.geometry.n_rows else 0.5
+    view.view_box.setYRange(top, top + step - 1.0, padding=0)
+    view.drop_paint_caches()
 
 
 def old_method(full, zoom, blank, rounds: int) -> None:
