@@ -29,6 +29,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         super().__init__("left", **kwargs)
         self._geo = None
         self._cut: dict[tuple, str] = {}          # (text, width, bold) → text cut to the width
+        self._metrics_of: dict[bool, QFontMetricsF] = {}
         self._atlas = TimelineLabelAtlas()
         self._slot_of_row = np.zeros(0)            # per row: its label's atlas slot, -1 if unknown
         self._slot_key = None
@@ -44,6 +45,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
     def set_font(self, font: QFont) -> None:
         self.setStyle(tickFont=font)
         self._cut.clear()
+        self._metrics_of.clear()
         self.picture = None
         self.update()
 
@@ -93,10 +95,17 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         if cut is None:
             if len(self._cut) >= LABEL_CACHE:
                 self._cut.clear()
+            cut = self._cut[key] = self._metrics(bold).elidedText(text, Qt.TextElideMode.ElideRight, width)
+        return cut
+
+    def _metrics(self, bold: bool) -> QFontMetricsF:
+        """Metrics of the label type, plain or bold (made once per type)."""
+        found = self._metrics_of.get(bold)
+        if found is None:
             font = QFont(self.style.get("tickFont") or QFont())
             font.setBold(bold)
-            cut = self._cut[key] = QFontMetricsF(font).elidedText(text, Qt.TextElideMode.ElideRight, width)
-        return cut
+            found = self._metrics_of[bold] = QFontMetricsF(font)
+        return found
 
     def _stamp(self, p, font: QFont, labels: "RowLabels", colour: QColor, column: float) -> bool:
         """Labels copied from the atlas in one call (each drawn there once); no Python per
