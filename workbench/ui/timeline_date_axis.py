@@ -13,7 +13,7 @@ from PySide6.QtGui import QFont, QFontMetricsF, QPen, QStaticText, QTransform
 
 from workbench.figures.ticks import date_ticks
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
-from workbench.ui.timeline_paint import lines
+from workbench.ui.timeline_paint import axis_and_ticks
 
 LABEL_CACHE = 500
 
@@ -107,9 +107,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         pen, p1, p2 = axisSpec
         p.setPen(pen)
         top, xs = tickSpecs
-        ends = top + max(0, self.style["tickLength"])
-        lines(p, np.r_[p1.x(), xs], np.r_[p1.y(), np.full(xs.size, top)],
-              np.r_[p2.x(), xs], np.r_[p2.y(), np.full(xs.size, ends)])    # axis line and ticks, one call
+        axis_and_ticks(p, p1, p2, xs, top, xs, top + max(0, self.style["tickLength"]))
         p.setPen(self.textPen())
         font = self._font()
         p.setFont(font)

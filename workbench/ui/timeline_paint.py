@@ -119,6 +119,19 @@ def lines(p: QPainter, x0, y0, x1, y1) -> None:
     p.drawLines(*_LINES.drawargs())
 
 
+def axis_and_ticks(p: QPainter, p1: QPointF, p2: QPointF, x0, y0, x1, y1) -> None:
+    """An axis line ``p1`` → ``p2`` and its tick segments, in one call."""
+    if _LINES is None:
+        p.drawLine(p1, p2)
+        lines(p, x0, y0, x1, y1)
+        return
+    _LINES.resize(_size(x0, y0, x1, y1) + 1)
+    m = _LINES.ndarray()
+    m[0] = p1.x(), p1.y(), p2.x(), p2.y()
+    m[1:, 0], m[1:, 1], m[1:, 2], m[1:, 3] = x0, y0, x1, y1
+    p.drawLines(*_LINES.drawargs())
+
+
 def visible_x(px, m):
     """Pixel ends of the marks that reach into the view, clipped a little beyond its
     edges (culls marks left or right of the view, keeps coordinates small)."""

@@ -17,7 +17,7 @@ from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPen
 
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
 from workbench.ui.timeline_label_atlas import TimelineLabelAtlas
-from workbench.ui.timeline_paint import lines
+from workbench.ui.timeline_paint import axis_and_ticks
 
 INDENT = 14.0
 PADDING = 6.0
@@ -160,8 +160,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         pen, p1, p2 = axisSpec
         p.setPen(pen)
         right, ys = tickSpecs
-        lines(p, np.r_[p1.x(), np.full(ys.size, right - 4)], np.r_[p1.y(), ys],
-              np.r_[p2.x(), np.full(ys.size, right)], np.r_[p2.y(), ys])     # axis line and ticks, one call
+        axis_and_ticks(p, p1, p2, right - 4, ys, right, ys)
         text_pen, room = self.textPen(), self.boundingRect()
         p.setPen(text_pen)
         p.setClipRect(room.toAlignedRect())
