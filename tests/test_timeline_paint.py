@@ -238,3 +238,27 @@ def test_row_label_slots_follow_a_new_type_size(view):
     axis.set_font(font)
     view.drop_paint_caches()
     assert label_column(view) == before                 # slots looked up again for the old type
+
+
+def test_batched_rectangles_match_one_by_one_drawing_as_the_array_grows(qtbot):
+    from PySide6.QtCore import QRectF
+    from PySide6.QtGui import QColor, QPainter
+    from workbench.ui.timeline_paint import rects
+    rng = np.random.default_rng(3)
+    for n in (5, 70, 700):                        # grows past its first allocations
+        x, y = rng.integers(0, 380, n).astype(float), rng.integers(0, 280, n).astype(float)
+        w, h = rng.integers(1, 30, n).astype(float), 4.0
+        images = []
+        for batched in (True, False):
+            image = QImage(400, 300, QImage.Format.Format_ARGB32_Premultiplied)
+            image.fill(QColor("white"))
+            p = QPainter(image)
+            p.setBrush(QColor("black"))
+            if batched:
+                rects(p, x, y, w, h)
+            else:
+                for a, b, c in zip(x, y, w):
+                    p.drawRect(QRectF(a, b, c, h))
+            p.end()
+            images.append(image)
+        assert images[0] == images[1]

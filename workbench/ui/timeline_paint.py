@@ -18,6 +18,8 @@ try:  # pyqtgraph's numpy-backed arrays of QRectF/QLineF: no Python object per b
 except ImportError:  # pragma: no cover - older pyqtgraph
     PrimitiveArray = None
 
+from workbench.ui.timeline_batch import shared_array
+
 DENSE_ROW_PX = 3.0
 
 
@@ -48,8 +50,10 @@ def bar_height(px, w: style.Weights) -> float:
     return float(min(px.row_px * w.bar_fraction, w.row_height * w.bar_fraction * 2.0 * px.scale))
 
 
-_RECTS = PrimitiveArray(QRectF, 4) if PrimitiveArray is not None else None
-_LINES = PrimitiveArray(QLineF, 4) if PrimitiveArray is not None else None
+
+
+_RECTS = shared_array(QRectF)
+_LINES = shared_array(QLineF)
 _STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
 _RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
 _PENS: dict[tuple, QPen] = {}
