@@ -262,3 +262,29 @@ def test_batched_rectangles_match_one_by_one_drawing_as_the_array_grows(qtbot):
             p.end()
             images.append(image)
         assert images[0] == images[1]
+
+
+@pytest.mark.parametrize("width", [1.0, 2.5])
+def test_outlines_by_fills_match_stroked_outlines(qtbot, width):
+    from PySide6.QtGui import QColor, QPainter
+    from workbench.ui.timeline_paint import colour_of, outlined_by_fills, pen, rects
+    rng = np.random.default_rng(int(width * 10))
+    n = 120
+    x = rng.integers(0, 300, n).astype(float) + rng.choice([0.0, 0.3, 0.5, 0.7], n)
+    w = np.where(rng.random(n) < 0.3, rng.integers(0, 4, n), rng.integers(0, 90, n)).astype(float)
+    h = float(rng.integers(1, 14))
+    y = 4.0 + np.arange(n) * (h + 4.0) + rng.choice([0.0, 0.5], n)     # rows apart, as on a chart
+    images = []
+    for by_fills in (True, False):
+        image = QImage(420, int(y[-1] + 3 * h), QImage.Format.Format_ARGB32_Premultiplied)
+        image.fill(QColor("white"))
+        p = QPainter(image)
+        if by_fills:
+            assert outlined_by_fills(p, (x, y, w, h), "#0072B2", "#000000", width)
+        else:
+            p.setPen(pen("#000000", width))
+            p.setBrush(colour_of("#0072B2"))
+            rects(p, x, y, w, h)
+        p.end()
+        images.append(image)
+    assert images[0] == images[1]

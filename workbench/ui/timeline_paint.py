@@ -21,6 +21,12 @@ except ImportError:  # pragma: no cover - older pyqtgraph
 from workbench.ui.timeline_batch import shared_array
 
 DENSE_ROW_PX = 3.0
+# Pen width → pixels a stroked outline of a whole-pixel rectangle (x, y, w, h) covers, as
+# (outer start, outer end) offsets from x / x + w (and y / y + h), the inside's inset from
+# x, how much narrower the inside is than w, and the least w this holds for (narrower ones
+# are stroked): measured from Qt's raster stroker, checked by
+# test_outlines_by_fills_match_stroked_outlines.
+OUTLINE_BANDS = {1.0: (0.0, 1.0, 1.0, 1.0, 0.0), 2.5: (-1.0, 1.0, 1.0, 2.0, 1.0)}
 
 
 def pen(colour: str, width: float, dash: bool = False) -> QPen:
@@ -206,9 +212,33 @@ def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float
         fill(p, fill_colour)
         spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
-    p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
+    parts = span_parts(px, m, h)
+    if not outlined_by_fills(p, parts, fill_colour, edge, edge_width):
+        p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
+        p.setBrush(colour_of(fill_colour))
+        rects(p, *parts)
+
+
+def outlined_by_fills(p: QPainter, parts, fill_colour: str, edge: str, edge_width: float) -> bool:
+    """Outlined rectangles as two plain fills (edge colour, then the inside) on raster
+    devices, for the pen widths whose pixels are known to match a stroked outline (a
+    stroke costs far more than a fill); False when the caller must stroke."""
+    band = OUTLINE_BANDS.get(edge_width)
+    if band is None or not _size(*parts) or p.paintEngine().type() != QPaintEngine.Type.Raster:
+        return False
+    box = np.empty((_size(*parts), 4))
+    _whole_pixels(box, np.asarray(parts[0], float), *parts[1:])       # x, top, width, height
+    lo, hi, inset, inner_less, least = band
+    narrow, box = box[box[:, 2] < least], box[box[:, 2] >= least]
+    fill(p, edge)
+    rects(p, box[:, 0] + lo, box[:, 1] + lo, box[:, 2] + hi - lo, box[:, 3] + hi - lo)
+    inner = box[(box[:, 2] > inner_less) & (box[:, 3] > inner_less)]
     p.setBrush(colour_of(fill_colour))
-    spans(p, px, m, h)
+    rects(p, inner[:, 0] + inset, inner[:, 1] + inset, inner[:, 2] - inner_less, inner[:, 3] - inner_less)
+    if narrow.size:
+        p.setPen(pen(edge, edge_width))
+        rects(p, narrow[:, 0], narrow[:, 1], narrow[:, 2], narrow[:, 3])
+    return True
 
 
 def draw_slack_lines(p: QPainter, px, m, w: style.Weights, h: float) -> None:
