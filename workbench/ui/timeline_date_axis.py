@@ -13,7 +13,7 @@ from PySide6.QtGui import QFont, QFontMetricsF, QPen, QStaticText, QTransform
 
 from workbench.figures.ticks import date_ticks
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
-from workbench.ui.timeline_paint import axis_and_ticks
+from workbench.ui.timeline_batch import axis_and_ticks
 
 LABEL_CACHE = 500
 

@@ -1,4 +1,5 @@
-"""Batched drawing of Timeline marks in device pixels: one call per style.
+"""Batched drawing of Timeline marks in device pixels: one call per style (the batching
+primitives, pens and colours are in ``timeline_batch``).
 
 Used by :class:`~workbench.ui.timeline_item.TimelineItem` for screen, export and print
 alike. ``px`` maps data to pixels (see ``timeline_item._Pixels``); ``marks`` are the
@@ -8,8 +9,8 @@ geometry's marks already limited to the rows on screen.
 from __future__ import annotations
 
 import numpy as np
-from PySide6.QtCore import QLineF, QPointF, QRectF, Qt
-from PySide6.QtGui import QColor, QPainter, QPaintEngine, QPainterPath, QPen, QPixmap
+from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtGui import QColor, QPainter, QPaintEngine, QPainterPath, QPixmap
 
 from workbench.figures import style
 
@@ -18,7 +19,7 @@ try:  # pyqtgraph's numpy-backed arrays of QRectF/QLineF: no Python object per b
 except ImportError:  # pragma: no cover - older pyqtgraph
     PrimitiveArray = None
 
-from workbench.ui.timeline_batch import shared_array
+from workbench.ui.timeline_batch import colour_of, common_size, lines, pen, rects, rects_of, whole_pixels
 
 DENSE_ROW_PX = 3.0
 # Pen width → pixels a stroked outline of a whole-pixel rectangle (x, y, w, h) covers, as
@@ -29,28 +30,6 @@ DENSE_ROW_PX = 3.0
 OUTLINE_BANDS = {1.0: (0.0, 1.0, 1.0, 1.0, 0.0), 2.5: (-1.0, 1.0, 1.0, 2.0, 1.0)}
 
 
-def pen(colour: str, width: float, dash: bool = False) -> QPen:
-    """A flat-capped pen (made once per colour, width and dash; do not modify it)."""
-    key = (colour, width, dash)
-    found = _PENS.get(key)
-    if found is None:
-        found = _PENS[key] = QPen(QColor(colour))
-        found.setWidthF(max(width, 0.5))
-        found.setCapStyle(Qt.PenCapStyle.FlatCap)
-        found.setJoinStyle(Qt.PenJoinStyle.MiterJoin)
-        if dash:
-            found.setStyle(Qt.PenStyle.DashLine)
-    return found
-
-
-def colour_of(name: str) -> QColor:
-    """The QColor of a palette colour (made once)."""
-    found = _COLOURS.get(name)
-    if found is None:
-        found = _COLOURS[name] = QColor(name)
-    return found
-
-
 def bar_height(px, w: style.Weights) -> float:
     """Bar height in pixels: a share of the row, never taller than twice the nominal bar."""
     return float(min(px.row_px * w.bar_fraction, w.row_height * w.bar_fraction * 2.0 * px.scale))
@@ -58,88 +37,8 @@ def bar_height(px, w: style.Weights) -> float:
 
 
 
-_RECTS = shared_array(QRectF)
-_LINES = shared_array(QLineF)
 _STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
 _RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
-_PENS: dict[tuple, QPen] = {}
-_COLOURS: dict[str, QColor] = {}
-
-
-def _size(*values) -> int:
-    """Common length of arrays and scalars (scalars stretch); 0 when an array is empty."""
-    n = 1
-    for v in values:
-        k = v.size if isinstance(v, np.ndarray) else 1 if isinstance(v, (float, int)) else np.size(v)
-        if not k:
-            return 0
-        n = max(n, k)
-    return n
-
-
-def _whole_pixels(m, x, y, w, h) -> None:
-    """Rectangles rounded to whole pixels (crisp, even lines) into the rows of ``m``."""
-    x0 = np.rint(x)
-    m[:, 0] = x0
-    m[:, 2] = np.rint(x + w) - x0
-    hh = np.maximum(np.rint(h), 1.0)
-    m[:, 3] = hh
-    m[:, 1] = np.rint(y + (h - hh) / 2)
-
-
-def rects(p: QPainter, x, y, w, h) -> None:
-    """Draw many rectangles in one call (numpy-backed when the Qt binding allows it)."""
-    rects_of(p, (x, y, w, h))
-
-
-def rects_of(p: QPainter, *parts) -> None:
-    """Several groups of ``(x, y, w, h)`` rectangles in the same pen and brush, one call."""
-    sizes = [_size(*part) for part in parts]
-    n = sum(sizes)
-    if not n:
-        return
-    if _RECTS is None:
-        m = np.empty((n, 4))
-    else:
-        _RECTS.resize(n)
-        m = _RECTS.ndarray()
-    at = 0
-    for part, k in zip(parts, sizes):
-        if k:
-            _whole_pixels(m[at:at + k], np.asarray(part[0], float), *part[1:])
-            at += k
-    if _RECTS is None:
-        p.drawRects([QRectF(*v) for v in m.tolist()])
-        return
-    p.drawRects(*_RECTS.drawargs())
-
-
-def lines(p: QPainter, x0, y0, x1, y1) -> None:
-    """Draw many line segments in one call."""
-    n = _size(x0, y0, x1, y1)
-    if not n:
-        return
-    if _LINES is None:
-        x0, y0, x1, y1 = np.broadcast_arrays(*(np.asarray(v, float) for v in (x0, y0, x1, y1)))
-        p.drawLines([QLineF(*v) for v in zip(x0.tolist(), y0.tolist(), x1.tolist(), y1.tolist())])
-        return
-    _LINES.resize(n)
-    m = _LINES.ndarray()
-    m[:, 0], m[:, 1], m[:, 2], m[:, 3] = x0, y0, x1, y1
-    p.drawLines(*_LINES.drawargs())
-
-
-def axis_and_ticks(p: QPainter, p1: QPointF, p2: QPointF, x0, y0, x1, y1) -> None:
-    """An axis line ``p1`` → ``p2`` and its tick segments, in one call."""
-    if _LINES is None:
-        p.drawLine(p1, p2)
-        lines(p, x0, y0, x1, y1)
-        return
-    _LINES.resize(_size(x0, y0, x1, y1) + 1)
-    m = _LINES.ndarray()
-    m[0] = p1.x(), p1.y(), p2.x(), p2.y()
-    m[1:, 0], m[1:, 1], m[1:, 2], m[1:, 3] = x0, y0, x1, y1
-    p.drawLines(*_LINES.drawargs())
 
 
 def visible_x(px, m):
@@ -224,10 +123,10 @@ def outlined_by_fills(p: QPainter, parts, fill_colour: str, edge: str, edge_widt
     devices, for the pen widths whose pixels are known to match a stroked outline (a
     stroke costs far more than a fill); False when the caller must stroke."""
     band = OUTLINE_BANDS.get(edge_width)
-    if band is None or not _size(*parts) or p.paintEngine().type() != QPaintEngine.Type.Raster:
+    if band is None or not common_size(*parts) or p.paintEngine().type() != QPaintEngine.Type.Raster:
         return False
-    box = np.empty((_size(*parts), 4))
-    _whole_pixels(box, np.asarray(parts[0], float), *parts[1:])       # x, top, width, height
+    box = np.empty((common_size(*parts), 4))
+    whole_pixels(box, np.asarray(parts[0], float), *parts[1:])       # x, top, width, height
     lo, hi, inset, inner_less, least = band
     narrow, box = box[box[:, 2] < least], box[box[:, 2] >= least]
     fill(p, edge)

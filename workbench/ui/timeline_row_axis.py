@@ -17,7 +17,7 @@ from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPen
 
 from workbench.ui.timeline_axis_cache import RASTER, TimelineAxisCache
 from workbench.ui.timeline_label_atlas import TimelineLabelAtlas
-from workbench.ui.timeline_paint import axis_and_ticks
+from workbench.ui.timeline_batch import axis_and_ticks
 
 INDENT = 14.0
 PADDING = 6.0
