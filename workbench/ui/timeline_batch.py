@@ -20,15 +20,16 @@ except ImportError:  # pragma: no cover - older pyqtgraph
 
 
 class TimelineBatch:
-    """A growing array of QRectF or QLineF (``klass``); the methods of pyqtgraph's
-    PrimitiveArray: ``resize(n)``, ``ndarray()`` (n × 4 floats), ``drawargs()``."""
+    """A growing array of QRectF, QLineF or pixmap fragments (``klass``, ``fields`` floats
+    each); the methods of pyqtgraph's PrimitiveArray: ``resize(n)``, ``ndarray()`` (n ×
+    fields), ``drawargs()``."""
 
-    def __init__(self, klass):
-        self.klass, self.array, self.ptr, self.n = klass, np.empty((0, 4)), None, 0
+    def __init__(self, klass, fields: int = 4):
+        self.klass, self.array, self.ptr, self.n = klass, np.empty((0, fields)), None, 0
 
     def resize(self, n: int) -> None:
         if n > self.array.shape[0]:
-            self.array = np.empty((max(n, 2 * self.array.shape[0], 64), 4))
+            self.array = np.empty((max(n, 2 * self.array.shape[0], 64), self.array.shape[1]))
             self.ptr = wrapinstance(self.array.ctypes.data, self.klass)
         self.n = n
 
@@ -39,12 +40,13 @@ class TimelineBatch:
         return self.ptr, self.n
 
 
-def shared_array(klass):
+def shared_array(klass, fields: int = 4):
     """A TimelineBatch where the Qt binding reads arrays through a pointer; otherwise
     pyqtgraph's own PrimitiveArray; None without either (then callers make Qt objects)."""
     if PrimitiveArray is None:
         return None
-    return TimelineBatch(klass) if PrimitiveArray(klass, 4).use_ptr_to_array else PrimitiveArray(klass, 4)
+    plain = PrimitiveArray(klass, fields)
+    return TimelineBatch(klass, fields) if plain.use_ptr_to_array else plain
 
 
 _RECTS = shared_array(QRectF)

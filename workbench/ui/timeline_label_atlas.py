@@ -12,10 +12,7 @@ import numpy as np
 from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QColor, QFont, QPainter, QPixmap
 
-try:
-    from pyqtgraph.Qt.internals import PrimitiveArray
-except ImportError:  # pragma: no cover - older pyqtgraph
-    PrimitiveArray = None
+from workbench.ui.timeline_batch import shared_array
 
 MAX_HEIGHT_PX = 4096       # image height (a few screens of labels); when full it starts afresh
 
@@ -27,7 +24,7 @@ class TimelineLabelAtlas:
         self._slots: dict[tuple, int] = {}
         self._line = 1.0
         self.generation = 0       # counts fresh starts: slots handed out before one are void
-        self._fragments = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
+        self._fragments = shared_array(QPainter.PixmapFragment, 10)
 
     def _reset(self, key, width: float, line: float, ratio: float, at_least: int) -> None:
         self._key, self._line, self._slots = key, line, {}

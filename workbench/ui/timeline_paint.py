@@ -13,13 +13,7 @@ from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QColor, QPainter, QPaintEngine, QPainterPath, QPixmap
 
 from workbench.figures import style
-
-try:  # pyqtgraph's numpy-backed arrays of QRectF/QLineF: no Python object per bar
-    from pyqtgraph.Qt.internals import PrimitiveArray
-except ImportError:  # pragma: no cover - older pyqtgraph
-    PrimitiveArray = None
-
-from workbench.ui.timeline_batch import colour_of, common_size, lines, pen, rects, rects_of, whole_pixels
+from workbench.ui.timeline_batch import colour_of, common_size, lines, pen, rects, rects_of, shared_array, whole_pixels
 
 DENSE_ROW_PX = 3.0
 # Pen width → pixels a stroked outline of a whole-pixel rectangle (x, y, w, h) covers, as
@@ -37,7 +31,7 @@ def bar_height(px, w: style.Weights) -> float:
 
 
 
-_STAMPS = PrimitiveArray(QPainter.PixmapFragment, 10) if PrimitiveArray is not None else None
+_STAMPS = shared_array(QPainter.PixmapFragment, 10)
 _RINGS: dict[tuple, QPixmap] = {}     # (radius, ring width, pixel ratio) → drawn ring
 
 
