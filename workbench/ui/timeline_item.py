@@ -13,7 +13,7 @@ import time
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import QPointF, QRectF, Qt
-from PySide6.QtGui import QImage, QPainter, QPixmap
+from PySide6.QtGui import QImage, QPainter, QPaintEngine, QPixmap
 from PySide6.QtWidgets import QWidget
 
 from workbench.figures import style
@@ -26,8 +26,9 @@ SHADE_DAY_PX = 7.0      # shade non-working days once a working day is this wide
 class _Pixels:
     """Maps data (offset, row) to device pixels for one paint."""
 
-    def __init__(self, transform, scale: float, xs=None):
+    def __init__(self, transform, scale: float, xs=None, raster: bool = True):
         self.t = transform
+        self.raster = raster                    # a raster paint engine (screen, images), not paper or SVG
         self.scale = scale                      # device pixels per screen pixel (print/export)
         self.row_px = abs(transform.m22())      # pixels per row
         self.unit_px = abs(transform.m11())     # pixels per plan unit
@@ -204,7 +205,7 @@ class TimelineItem(pg.GraphicsObject):
 
     def _draw(self, p: QPainter, t, rows, xs) -> None:
         """Draw the rows on screen in device pixels (p has an identity transform)."""
-        px = _Pixels(t, self._scale(t), xs)
+        px = _Pixels(t, self._scale(t), xs, p.paintEngine().type() == QPaintEngine.Type.Raster)
         geo = self._geo
         self.painted_rows = self._visible_rows(rows)
         self._draw_background(p, px, rows, xs)

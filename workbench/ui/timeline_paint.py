@@ -10,7 +10,7 @@ from __future__ import annotations
 
 import numpy as np
 from PySide6.QtCore import QPointF, QRectF, Qt
-from PySide6.QtGui import QColor, QPainter, QPaintEngine, QPainterPath, QPixmap
+from PySide6.QtGui import QColor, QPainter, QPainterPath, QPixmap
 
 from workbench.figures import style
 from workbench.ui.timeline_batch import colour_of, common_size, lines, pen, rects, rects_of, shared_array, whole_pixels
@@ -106,18 +106,18 @@ def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float
         spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
     parts = span_parts(px, m, h)
-    if not outlined_by_fills(p, parts, fill_colour, edge, edge_width):
+    if not px.raster or not outlined_by_fills(p, parts, fill_colour, edge, edge_width):
         p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
         p.setBrush(colour_of(fill_colour))
         rects(p, *parts)
 
 
 def outlined_by_fills(p: QPainter, parts, fill_colour: str, edge: str, edge_width: float) -> bool:
-    """Outlined rectangles as two plain fills (edge colour, then the inside) on raster
-    devices, for the pen widths whose pixels are known to match a stroked outline (a
+    """Outlined rectangles as two plain fills (edge colour, then the inside), for a raster
+    painter and the pen widths whose pixels are known to match a stroked outline (a
     stroke costs far more than a fill); False when the caller must stroke."""
     band = OUTLINE_BANDS.get(edge_width)
-    if band is None or not common_size(*parts) or p.paintEngine().type() != QPaintEngine.Type.Raster:
+    if band is None or not common_size(*parts):
         return False
     box = np.empty((common_size(*parts), 4))
     whole_pixels(box, np.asarray(parts[0], float), *parts[1:])       # x, top, width, height
@@ -258,7 +258,7 @@ def draw_free_float(p: QPainter, px, m, w: style.Weights, h: float) -> None:
     x, y = px.x(m.x0), px.y(m.rows)
     lo, hi = px.clip
     keep = (x >= lo) & (x <= hi)
-    if p.paintEngine().type() == QPaintEngine.Type.Raster:   # screen and images: one blit call
+    if px.raster:                                       # screen and images: one blit call
         ratio = p.device().devicePixelRatioF()
         stamps(p, ring_pixmap(r, 1.5 * px.scale, ratio), x[keep], y[keep])
         return
