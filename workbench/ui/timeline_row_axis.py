@@ -22,6 +22,13 @@ from workbench.ui.timeline_batch import axis_and_ticks
 INDENT = 14.0
 PADDING = 6.0
 LABEL_CACHE = 4000     # cut labels kept (a few screens' worth)
+LINE_SHARE = 1.05      # a row shorter than this many text lines shares a label with its neighbours
+LEGIBLE_GAP_PX = 3.0   # air between labels at the legible row pitch
+
+
+def legible_pitch(font: QFont) -> float:
+    """Smallest row pitch (pixels) at which every row carries its own label."""
+    return math.ceil(QFontMetricsF(font).height() * LINE_SHARE + LEGIBLE_GAP_PX)
 
 
 class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
@@ -64,7 +71,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
     def visible_rows(self, bounds: QRectF, font_px: float) -> range:
         lo, hi = sorted(self.range)
         row_px = bounds.height() / max(hi - lo, 1e-9)
-        step = max(1, math.ceil(font_px * 1.05 / max(row_px, 1e-9)))
+        step = max(1, math.ceil(font_px * LINE_SHARE / max(row_px, 1e-9)))
         first = max(0, math.ceil(lo - 0.5))
         first = first + (-first) % step
         return range(first, min(self._geo.n_rows, math.floor(hi + 0.5) + 1), step)

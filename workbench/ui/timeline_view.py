@@ -21,7 +21,7 @@ from workbench.ui.timeline_date_axis import TimelineDateAxis
 from workbench.ui.timeline_item import TimelineItem, nonworking_finder
 from workbench.ui.timeline_lines import TimelineLines
 from workbench.ui.timeline_present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
-from workbench.ui.timeline_row_axis import TimelineRowAxis
+from workbench.ui.timeline_row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline_tooltip import tooltip_text
 
 HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
@@ -90,6 +90,7 @@ class TimelineView(QWidget):
         self.actions_by_name = {}
         for name, text, slot, checkable in (
                 ("fit", "Fit all", lambda: self.fit_all(), False),
+                ("fit_rows", "Every row", self.fit_every_row, False),
                 ("critical", "Critical path", self.show_critical_path, True),
                 ("late", "Late dates", self.set_late_bars, True),
                 ("links", "Links", self.set_connectors, True),
@@ -264,20 +265,42 @@ class TimelineView(QWidget):
         return True
 
     # --- zoom, pan, filters -------------------------------------------------------------
-    def fit_all(self, rows_to_fit: bool = False) -> None:
-        """Show the whole plan; with ``rows_to_fit``, only as many rows as fit at full size."""
+    def fit_all(self, rows_to_fit: bool = False, every_row: bool | None = None) -> None:
+        """Fit the plan's dates to the width, and as many rows as stay legible from the top.
+
+        Rows shrink to fit the height, but not below the pitch where each row keeps its
+        own label (``legible_pitch``); the rows below are reached by scrolling. With
+        ``rows_to_fit`` rows stay at full size; with ``every_row`` every row is squeezed
+        in (labels thinned), which is what Present mode does by default.
+        """
         geo = self.geometry
         if geo is None:
             return
+        if every_row is None:
+            every_row = self._weights is style.PRESENT
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
-        n = max(geo.n_rows, 1)
         height = max(self.view_box.height(), 200.0)
         header_px = max(HEADER_PX, 2.0 * self._font().pixelSize())    # room for the line labels
-        if rows_to_fit:
-            n = min(n, max(5, int((height - header_px) / self._weights.row_height)))
+        n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
         header = header_px * n / max(height - header_px, 1.0)
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
+
+    def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
+        """How many rows (from the top) a fit shows in ``room_px`` pixels."""
+        if rows_to_fit:
+            return min(n, max(5, int(room_px / self._weights.row_height)))
+        if every_row:
+            return n
+        return min(n, max(1, int(room_px / self.legible_row_pitch() - 0.1)))
+
+    def legible_row_pitch(self) -> float:
+        """Row pitch in pixels below which the label column starts thinning labels."""
+        return legible_pitch(self._font())
+
+    def fit_every_row(self) -> None:
+        """Squeeze every row into the view (labels thinned when rows are short)."""
+        self.fit_all(every_row=True)
 
     def show_critical_path(self, on: bool = True) -> None:
         """Show only the critical rows (or all rows again) and fit them."""
