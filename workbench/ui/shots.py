@@ -26,8 +26,8 @@ def _grab(widget, path: Path, app) -> None:
     widget.resize(*SIZE)
     widget.show()
     _settle(app)
-    fit = getattr(widget, "fit_all", None)
-    if callable(fit):  # a chart shows the whole plan, as after "Fit all"
+    fit = getattr(widget, "fit_every_row", None) or getattr(widget, "fit_all", None)
+    if callable(fit):  # a chart shows the whole plan (every row, when the chart offers it)
         fit()
         _settle(app)
     if not widget.grab().save(str(path)):
