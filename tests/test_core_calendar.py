@@ -119,3 +119,11 @@ def test_dates_before_the_start_round_trip():
         assert cal.start_date(cal.offset_before(day)) == day
     assert cal.offset_through(_dt.date(2026, 12, 1)) == 0          # the end of the day before the start
     assert cal.offset_before(_dt.date(2026, 11, 30)) == -2         # Monday: two working days earlier
+
+
+def test_schedule_beyond_the_calendar_names_the_activity():
+    acts = [Activity("A", duration=1e6), Activity("B", duration=1e6)]
+    plan = Plan(Settings(start=dt.date(2027, 1, 4)), acts, [Link("A", "B")])
+    with pytest.raises(PlanError, match="activity B") as err:
+        analyze(plan)
+    assert err.value.culprit == "B"

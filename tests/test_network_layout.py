@@ -286,17 +286,6 @@ def test_arrow_steps_follow_links_and_columns():
         step(layout, 0, "sideways")
 
 
-def test_network_figures_import_no_qt():
-    import subprocess
-    import sys
-
-    code = ("import sys; import workbench.figures.network_layout, workbench.figures.network_labels, "
-            "workbench.figures.network_style, workbench.figures.network_nav; "
-            "print([m for m in sys.modules if m.split('.')[0] in ('PySide6', 'shiboken6', 'pyqtgraph')])")
-    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
-    assert out.stdout.strip() == "[]"
-
-
 def test_wide_fan_gets_wider_gaps_so_links_are_not_steep():
     # N0 fans out to 30 activities that all feed N31
     pairs = [(0, k) for k in range(1, 31)] + [(k, 31) for k in range(1, 31)]

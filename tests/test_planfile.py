@@ -259,16 +259,6 @@ def test_hash_ignores_key_order(kiosk):
     assert plan_hash(kiosk) == hashlib.sha256(canonical.encode()).hexdigest()[:12]
 
 
-def test_io_imports_no_qt():
-    import subprocess
-    import sys
-    code = ("import sys, workbench.io.planfile, workbench.io.tabular; "
-            "bad = [m for m in sys.modules if m.split('.')[0] in ('PySide6', 'shiboken6', 'pyqtgraph')]; "
-            "print(bad); sys.exit(1 if bad else 0)")
-    proc = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True)
-    assert proc.returncode == 0, proc.stdout + proc.stderr
-
-
 def test_upgrade_chain_covers_every_older_version():
     from workbench.io.plan_migrate import UPGRADES
     assert sorted(UPGRADES) == list(range(1, VERSION))

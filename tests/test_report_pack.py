@@ -208,16 +208,6 @@ def test_progress_reaches_the_end(tmp_path):
     assert [d for d, _ in seen] == sorted(d for d, _ in seen)
 
 
-def test_reports_import_no_qt():
-    import subprocess
-    import sys
-    code = ("import sys, workbench.reports.pack, workbench.reports.odds_paint, workbench.reports.network_paint; "
-            "bad = [m for m in sys.modules if m.split('.')[0] in ('PySide6', 'shiboken6', 'pyqtgraph')]; "
-            "print(bad); sys.exit(1 if bad else 0)")
-    done = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True)
-    assert done.returncode == 0, done.stdout + done.stderr
-
-
 def test_network_tiles_show_every_node_whole_somewhere():
     from workbench.figures.network_layout import layout_plan
     from workbench.reports.network_pages import tiles

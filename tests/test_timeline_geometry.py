@@ -6,7 +6,6 @@ G 21/22, H 21/25, I 24/24; total/free float B 9/9, D 11/10, E 1/0, G 1/1, H 4/4.
 """
 
 import datetime as dt
-import subprocess
 import sys
 
 import numpy as np
@@ -151,13 +150,6 @@ def test_whiskers_from_simulation():
     geo = timeline_geometry(analysis, FakeResult(ids, finish, per))
     assert marks_by_id(geo, "whisker")["C"] == pytest.approx((3.0, 11.0))
     assert finish_whisker(FakeResult(["X"], finish), ids) is None   # a stale result is ignored
-
-
-def test_figures_import_no_qt():
-    code = ("import sys, workbench.figures.timeline, workbench.figures.ticks, workbench.figures.style;"
-            "print(any(m.startswith(('PySide6', 'PyQt', 'pyqtgraph')) for m in sys.modules))")
-    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
-    assert out.stdout.strip() == "False"
 
 
 def test_dragged_estimate_moves_most_likely_to_the_new_mean():

@@ -123,6 +123,16 @@ def test_click_selects_in_the_session(view, qtbot):
     assert view.session.selected() == ["B"]
 
 
+def press_and_move(view, start: QPoint, step: QPoint, steps: int):
+    """Press at ``start`` and move ``steps`` times by ``step``, without releasing.
+    Returns the viewport, for the release."""
+    vp = view.plot.viewport()
+    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
+    for k in range(1, steps + 1):
+        QTest.mouseMove(vp, start + step * k)
+    return vp
+
+
 def drag(view, start: QPoint, end: QPoint, steps: int = 6) -> None:
     vp = view.plot.viewport()
     QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
@@ -158,10 +168,7 @@ def test_dragging_a_bar_end_is_one_undo_step_with_the_right_most_likely(view, qt
 def test_live_preview_does_not_change_the_plan(view):
     _, row, es, ef = bar(view, "C")
     start = to_px(view, ef, row)
-    vp = view.plot.viewport()
-    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
-    for k in range(1, 5):
-        QTest.mouseMove(vp, start + QPoint(25 * k, 0))
+    vp = press_and_move(view, start, QPoint(25, 0), 4)
     assert view.item._preview is not None and view.item._preview[2] > ef
     assert view.session.undo_stack.count() == 0
     QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start + QPoint(100, 0))
@@ -449,10 +456,7 @@ def test_image_kept_once_settled_and_cleared_by_set_methods(view):
 def test_escape_cancels_a_drag(view):
     _, row, es, ef = bar(view, "C")
     start = to_px(view, ef, row)
-    vp = view.plot.viewport()
-    QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
-    for k in range(1, 4):
-        QTest.mouseMove(vp, start + QPoint(30 * k, 0))
+    vp = press_and_move(view, start, QPoint(30, 0), 3)
     assert view.item._preview is not None
     QTest.keyClick(view.plot, Qt.Key.Key_Escape)
     QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start + QPoint(90, 0))

@@ -130,4 +130,21 @@ def analyze(plan, deadline=None) -> Analysis:
     plan._analyzer = analyzer           # the next analysis of this plan starts from here
     means, variances = moments(plan)
     schedule = analyzer.run(means, deadline=dl)
+    _check_in_calendar(schedule, calendar)
     return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl)
+
+
+def _check_in_calendar(schedule, calendar) -> None:
+    """Refuse a schedule whose dates no calendar can show, naming the activity that goes
+    furthest (every view and export converts offsets to dates later)."""
+    from .calendar import MAX_DAYS
+    from .errors import PlanError
+
+    if not schedule.ef.size:
+        return
+    reach = np.maximum(np.abs(schedule.ef), np.abs(schedule.ls)) * calendar.per_unit
+    worst = int(np.argmax(reach))
+    if reach[worst] > MAX_DAYS:
+        act = schedule.ids[worst]
+        raise PlanError(f"activity {act}: its dates fall more than {MAX_DAYS:,} working days from the "
+                        f"start, beyond any calendar; check its duration, lags and constraints", act)
