@@ -70,3 +70,21 @@ def test_ticks_inside_sorted_and_few(lo, span, max_ticks):
     assert all(label for _, label in ticks)
     if span >= 10:
         assert len(ticks) >= 1
+
+
+@settings(max_examples=40, deadline=None)
+@given(lo=st.floats(-200, 3000), span=st.floats(400, 40000), max_ticks=st.integers(2, 12))
+def test_month_and_year_ticks_are_aligned_to_the_calendar(lo, span, max_ticks):
+    """Quarters start in Jan/Apr/Jul/Oct and n-year ticks on years divisible by n (2025,
+    2050 for 25 years), whatever the view's first date."""
+    ticks = date_ticks(cal(), lo, lo + span, max_ticks)
+    dates = [np.datetime64(cal().start_dates([o])[0], "D").astype(dt.date) for o, _ in ticks]
+    labels = [t for _, t in ticks]
+    if all(t.isdigit() for t in labels) and len(labels) > 1:
+        years = [int(t) for t in labels]
+        step = years[1] - years[0]
+        assert all(y % step == 0 for y in years)
+        # a tick on a non-working 1 January sits on the next working day of that year
+        assert all(d.year == y and d.month == 1 and d.day <= 7 for d, y in zip(dates, years))
+    if all(t.startswith("Q") for t in labels):
+        assert all(d.month in (1, 4, 7, 10) and d.day <= 7 for d in dates)

@@ -23,37 +23,26 @@ LEVELS = (("day", 1, 1), ("day", 2, 2), ("week", 1, 7), ("week", 2, 14), ("month
           ("year", 100, 36524))
 
 
-def _as_date(value) -> dt.date:
-    return np.datetime64(value, "D").astype(dt.date)
+def _day_candidates(first, last, step: int, calendar) -> np.ndarray:
+    days = np.arange(first, last + 1)
+    return days[np.is_busday(days, busdaycal=calendar._cal)][::step]
 
 
-def _day_candidates(first: dt.date, last: dt.date, step: int, calendar) -> list[dt.date]:
-    days = np.arange(np.datetime64(first, "D"), np.datetime64(last, "D") + 1)
-    days = days[np.is_busday(days, busdaycal=calendar._cal)][::step]
-    return [d.astype(dt.date) for d in days]
+def _week_candidates(first, last, step: int) -> np.ndarray:
+    monday = first - (first.astype(np.int64) + 3) % 7        # 1 Jan 1970 was a Thursday
+    return np.arange(monday, last + 1, 7 * step)
 
 
-def _week_candidates(first: dt.date, last: dt.date, step: int) -> list[dt.date]:
-    monday = first - dt.timedelta(days=first.weekday())
-    out = []
-    while monday <= last:
-        out.append(monday)
-        monday += dt.timedelta(days=7 * step)
-    return out
+def _month_candidates(first, last, months: int) -> np.ndarray:
+    """Month starts every ``months`` months counted from year 0 (so years land on 2000, 2025...)."""
+    since_0 = 1970 * 12                       # datetime64[M] counts months from January 1970
+    index = (first.astype("datetime64[M]").astype(np.int64) + since_0) // months * months - since_0
+    end = last.astype("datetime64[M]").astype(np.int64)
+    return np.arange(index, end + 1, months).astype("datetime64[M]").astype("datetime64[D]")
 
 
-def _month_candidates(first: dt.date, last: dt.date, months: int) -> list[dt.date]:
-    index = (first.year * 12 + first.month - 1) // months * months
-    out = []
-    while True:
-        d = dt.date(index // 12, index % 12 + 1, 1)
-        if d > last:
-            return out
-        out.append(d)
-        index += months
-
-
-def _candidates(level: str, step: int, first: dt.date, last: dt.date, calendar) -> list[dt.date]:
+def _candidates(level: str, step: int, first, last, calendar) -> np.ndarray:
+    """Candidate tick dates in [first, last] (datetime64[D], ascending)."""
     if level == "day":
         return _day_candidates(first, last, step, calendar)
     if level == "week":
@@ -77,8 +66,7 @@ def label(level: str, date: dt.date) -> str:
     return str(date.year)
 
 
-def _offsets(calendar, dates: list[dt.date]) -> np.ndarray:
-    days = np.array(dates, dtype="datetime64[D]")
+def _offsets(calendar, days: np.ndarray) -> np.ndarray:
     n = np.busday_count(calendar.first_day, days, busdaycal=calendar._cal)
     return n.astype(float) / calendar.per_unit
 
@@ -99,18 +87,21 @@ def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> 
     if max_ticks < 1 or not np.isfinite([lo_offset, hi_offset]).all():
         return []
     lo, hi = float(min(lo_offset, hi_offset)), float(max(lo_offset, hi_offset))
-    first = _as_date(calendar.start_dates([lo])[0]) - dt.timedelta(days=7)
-    last = _as_date(calendar.start_dates([hi])[0]) + dt.timedelta(days=7)
-    start = LEVELS.index(next(l for l in LEVELS if l[:2] == choose_level(calendar, lo, hi, max_ticks)))
+    ends = calendar.start_dates([lo, hi]).astype("datetime64[D]")
+    first, last = ends[0] - 7, ends[1] + 7
+    chosen = choose_level(calendar, lo, hi, max_ticks)
+    start = next(i for i, level in enumerate(LEVELS) if level[:2] == chosen)
     for level, step, _ in LEVELS[max(0, start - 2):]:
         dates = _candidates(level, step, first, last, calendar)
-        offsets = _offsets(calendar, dates) if dates else np.empty(0)
+        if not dates.size:
+            continue
+        offsets = _offsets(calendar, dates)
         keep = (offsets >= lo - 1e-9) & (offsets <= hi + 1e-9)
-        keep &= np.r_[True, np.diff(offsets) > 1e-9]   # collisions on non-working days
-        if keep.sum() <= max_ticks:
-            chosen = _with_context(level, [(float(o), d) for o, d, k in zip(offsets, dates, keep) if k])
-            if chosen:
-                return chosen
+        keep[1:] &= offsets[1:] - offsets[:-1] > 1e-9   # collisions on non-working days
+        count = int(np.count_nonzero(keep))
+        if count and count <= max_ticks:
+            kept = dates[keep].astype(dt.date).tolist()
+            return _with_context(level, list(zip(offsets[keep].tolist(), kept)))
     return []
 
 
