@@ -288,3 +288,53 @@ def test_outlines_by_fills_match_stroked_outlines(qtbot, width):
         p.end()
         images.append(image)
     assert images[0] == images[1]
+
+
+def mixed_plan(n: int, seed: int) -> Plan:
+    """Parallel chains with short and long activities (critical and floating bars side by
+    side), all after a very short critical activity (under a pixel wide when fitted)."""
+    rng = np.random.default_rng(seed)
+    acts = [Activity("S", "Short start", optimistic=0.05, most_likely=0.1, pessimistic=0.15)]
+    links = []
+    for i in range(n):
+        m = float(rng.choice([0.5, 1, 2, 5, 20, 60]))
+        acts.append(Activity(f"T{i}", f"Task {i}", optimistic=m * 0.8, most_likely=m, pessimistic=m * 1.6))
+        before = f"T{int(rng.integers(max(0, i - 6), i))}" if i >= 3 and rng.random() < 0.8 else "S"
+        links.append(Link(before, f"T{i}"))
+    return Plan(Settings(start=dt.date(2026, 12, 7)), acts, links)
+
+
+@pytest.mark.parametrize("seed", [1, 2, 3])
+@pytest.mark.parametrize("move", ["fit", "zoom in", "zoom out", "pan right", "tall rows"])
+def test_slack_lines_and_bars_in_one_pass_match_drawing_each_style(qtbot, monkeypatch, seed, move):
+    """The fused route for slack lines and bars gives the very pixels of the per-style
+    route, with bars cut at the view's edges, bars under one pixel wide (stroked) and
+    several row pitches."""
+    from workbench.ui import timeline_fused
+    v = TimelineView(Session(mixed_plan(80, seed)))
+    qtbot.addWidget(v)
+    v.resize(1000, 640)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit_all()
+    if move == "zoom in":
+        v.zoom(6.0)
+        v.pan(0.3)
+    elif move == "zoom out":
+        v.zoom(0.05)
+    elif move == "pan right":
+        v.pan(0.45, 7)
+    elif move == "tall rows":
+        v.view_box.setYRange(10, 22, padding=0)
+    qtbot.wait(10)
+    v.drop_paint_caches()
+    fused = render(v)
+    assert v.item.painted_rows > 0
+    used = []
+    real = timeline_fused.draw_float_and_bars
+    monkeypatch.setattr(timeline_fused, "draw_float_and_bars", lambda *a: used.append(1) or real(*a))
+    v.drop_paint_caches()
+    assert render(v) == fused and used          # the fused route was the one taken
+    monkeypatch.setattr(timeline_fused, "usable", lambda *a: False)
+    v.drop_paint_caches()
+    assert render(v) == fused

@@ -479,3 +479,27 @@ def test_print_preview_uses_the_shared_page_routine(view, monkeypatch, tmp_path)
     view.print_preview()
     text = PdfReader(str(out)).pages[0].extract_text()
     assert "Timeline" in text and "Assemble" in text
+
+
+def test_a_critical_activity_under_a_pixel_wide_still_shows(qtbot):
+    """Zoomed out, a very short critical activity is still a dark mark on its row (at
+    least one pixel of bar inside its heavy edge), not nothing."""
+    acts = [Activity("S", "Sign-off", optimistic=0.05, most_likely=0.1, pessimistic=0.15),
+            Activity("L", "Long works", optimistic=200, most_likely=300, pessimistic=400)]
+    plan = Plan(Settings(start=dt.date(2026, 12, 7)), acts, [Link("L", "S")])
+    v = TimelineView(Session(plan))
+    qtbot.addWidget(v)
+    v.resize(900, 400)
+    v.show()
+    qtbot.waitExposed(v)
+    v.fit_all()
+    qtbot.wait(20)
+    kind, row, x0, x1 = bar(v, "S")
+    assert kind == "critical"
+    t = v.item.deviceTransform_()
+    assert t.map(QPointF(x1, row)).x() - t.map(QPointF(x0, row)).x() < 1    # under a pixel here
+    image = render_image(v)
+    centre = to_px(v, (x0 + x1) / 2, row)
+    dark = [x for x in range(centre.x() - 3, centre.x() + 4)
+            if style.gray_level(image.pixelColor(x, centre.y()).name()) < 0.15]
+    assert len(dark) >= 2

@@ -13,6 +13,7 @@ from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QColor, QPainter, QPainterPath, QPixmap
 
 from workbench.figures import style
+from workbench.ui import timeline_fused as fused
 from workbench.ui.timeline_batch import colour_of, common_size, lines, pen, rects, rects_of, shared_array, whole_pixels
 
 DENSE_ROW_PX = 3.0
@@ -105,7 +106,8 @@ def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float
         fill(p, fill_colour)
         spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
-    parts = span_parts(px, m, h)
+    x, y, width, height = span_parts(px, m, h)
+    parts = (x, y, np.maximum(width, fused.MIN_BAR_PX) if px.raster else width, height)
     if not px.raster or not outlined_by_fills(p, parts, fill_colour, edge, edge_width):
         p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
         p.setBrush(colour_of(fill_colour))
@@ -288,8 +290,9 @@ def draw_preview(p: QPainter, px, preview, w: style.Weights, h: float) -> None:
     p.drawRect(QRectF(a, y - h / 2 - 2, b - a, h + 4))
 
 
-def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows) -> None:
-    """Every style in back-to-front order."""
+def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows, fuse: bool = True) -> None:
+    """Every style in back-to-front order (``fuse``: slack lines and bars in one pass
+    where that route applies; False draws each style on its own)."""
     h = bar_height(px, w)
     s = px.scale
     p.setRenderHint(QPainter.RenderHint.Antialiasing, False)
@@ -298,9 +301,12 @@ def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows)
         p.setPen(pen(style.MUTED_TEXT, w.bar_outline * s, dash=True))
         p.setBrush(Qt.BrushStyle.NoBrush)
         spans(p, px, marks["late"], h * 0.5, h * 0.25)
-    draw_slack_lines(p, px, marks["float"], w, h)
-    draw_bars(p, px, marks["work"], style.WORK, style.WORK_EDGE, w.bar_outline * s, h)
-    draw_bars(p, px, marks["critical"], style.CRITICAL, style.CRITICAL_EDGE, w.critical_outline * s, h)
+    if fuse and fused.usable(px, w, OUTLINE_BANDS, DENSE_ROW_PX):
+        fused.draw_float_and_bars(p, px, marks, w, h, OUTLINE_BANDS)
+    else:
+        draw_slack_lines(p, px, marks["float"], w, h)
+        draw_bars(p, px, marks["work"], style.WORK, style.WORK_EDGE, w.bar_outline * s, h)
+        draw_bars(p, px, marks["critical"], style.CRITICAL, style.CRITICAL_EDGE, w.critical_outline * s, h)
     draw_negative_float(p, px, marks["negative_float"], w, h)
     draw_whiskers(p, px, marks["whisker"], w, h)
     draw_summaries(p, px, marks["summary"], False, w, h)
