@@ -26,15 +26,21 @@ def small_plan(deadline=None):
     return Plan(Settings(start=dt.date(2026, 12, 7), deadline=deadline), acts, links)
 
 
-@pytest.fixture
-def view(qtbot):
-    session = Session(small_plan())
+def shown_view(qtbot, session: Session, size: tuple[int, int]) -> TimelineView:
+    """A Timeline on screen at ``size``, fitted."""
     v = TimelineView(session)
     qtbot.addWidget(v)
-    v.resize(1200, 600)
+    v.resize(*size)
     v.show()
     qtbot.waitExposed(v)
     v.fit_all()
+    return v
+
+
+@pytest.fixture
+def view(qtbot):
+    session = Session(small_plan())
+    v = shown_view(qtbot, session, (1200, 600))
     qtbot.wait(20)
     return v
 
@@ -251,12 +257,7 @@ def test_work_bar_edge_is_light_in_grayscale(view):
 
 def test_negative_float_mark_in_the_deadline_colour(qtbot):
     session = Session(small_plan(deadline=10.0))     # the chain A, C, M needs 12: a miss of 2
-    v = TimelineView(session)
-    qtbot.addWidget(v)
-    v.resize(1200, 600)
-    v.show()
-    qtbot.waitExposed(v)
-    v.fit_all()
+    v = shown_view(qtbot, session, (1200, 600))
     m = v.geometry.marks["negative_float"]
     rows = {v.geometry.keys[r] for r in m.rows.tolist()}
     # A (te 2) → C (te 10) → M takes 12 against a deadline of 10; B → D → M takes 6.
@@ -298,12 +299,7 @@ def test_clicking_a_group_row_collapses_it(qtbot):
     plan = small_plan()
     for act_id in ("A", "C"):
         plan.replace_activity(act_id, plan.activity(act_id).with_(group="Build"))
-    v = TimelineView(Session(plan))
-    qtbot.addWidget(v)
-    v.resize(1000, 500)
-    v.show()
-    qtbot.waitExposed(v)
-    v.fit_all()
+    v = shown_view(qtbot, Session(plan), (1000, 500))
     row = v.geometry.keys.index("Build")
     QTest.mouseClick(v.plot.viewport(), Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, to_px(v, 1.0, row))
     assert v.collapsed == {"Build"}
@@ -487,12 +483,7 @@ def test_a_critical_activity_under_a_pixel_wide_still_shows(qtbot):
     acts = [Activity("S", "Sign-off", optimistic=0.05, most_likely=0.1, pessimistic=0.15),
             Activity("L", "Long works", optimistic=200, most_likely=300, pessimistic=400)]
     plan = Plan(Settings(start=dt.date(2026, 12, 7)), acts, [Link("L", "S")])
-    v = TimelineView(Session(plan))
-    qtbot.addWidget(v)
-    v.resize(900, 400)
-    v.show()
-    qtbot.waitExposed(v)
-    v.fit_all()
+    v = shown_view(qtbot, Session(plan), (900, 400))
     qtbot.wait(20)
     kind, row, x0, x1 = bar(v, "S")
     assert kind == "critical"
