@@ -78,3 +78,30 @@ def test_folding_matches_the_geometry(drivers):
     drivers.session.set_simulation(result)
     expect = fdr.criticality_bars(result, drivers.session.plan, 4)
     assert drivers.criticality.bars == expect
+
+
+def test_hovering_a_row_shows_its_full_name_and_value(drivers, qtbot):
+    """Axis labels are cut to leave the bars room; the tooltip gives the whole name."""
+    session = drivers.session
+    drivers.resize(700, 500)
+    drivers.top.setValue(5)
+    session.set_simulation(simulate(session.plan, 2000, seed=5))
+    leaders = [chart.bars[0].act_id for chart in (drivers.criticality, drivers.sensitivity)]
+    for act_id in set(leaders):       # a rename leaves the durations, so the ranking, alone
+        act = session.plan.activity(act_id)
+        session.plan.replace_activity(act_id, act.with_(name="A very long activity name " * 4))
+    session.set_simulation(simulate(session.plan, 2000, seed=5))
+    for chart, act_id in zip((drivers.criticality, drivers.sensitivity), leaders):
+        bar, rect = chart.bars[0], chart.rects[0]
+        assert bar.act_id == act_id
+        scene = chart.getPlotItem().vb.mapViewToScene(QPointF((rect.x0 + rect.x1) / 2, rect.y))
+        axis = dict(chart.getPlotItem().getAxis("left")._tickLevels[0])[rect.y]
+        assert axis.endswith("…") and len(axis) < len(bar.label)
+        text = chart.tooltip_at(scene)
+        assert bar.label in text and (f"{bar.value:+.2f}" if chart.signed else f"{bar.value:.2f}") in text
+        folded, rect = chart.bars[-1], chart.rects[-1]
+        assert folded.is_folded
+        scene = chart.getPlotItem().vb.mapViewToScene(QPointF((rect.x0 + rect.x1) / 2, rect.y))
+        assert f"{folded.folded} other activities" in chart.tooltip_at(scene)
+    below = drivers.criticality.getPlotItem().vb.mapViewToScene(QPointF(0.5, -len(drivers.criticality.bars) - 3))
+    assert drivers.criticality.tooltip_at(below) == ""

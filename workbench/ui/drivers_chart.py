@@ -6,7 +6,8 @@ from __future__ import annotations
 
 import pyqtgraph as pg
 from PySide6.QtCore import Qt, Signal
-from PySide6.QtGui import QBrush, QColor, QFont, QFontMetrics
+from PySide6.QtGui import QBrush, QColor, QCursor, QFont, QFontMetrics
+from PySide6.QtWidgets import QToolTip
 
 from workbench.figures import drivers as fdr
 from workbench.figures import style
@@ -48,6 +49,7 @@ class DriversChart(pg.PlotWidget):
             item.addItem(pg.InfiniteLine(0.0, angle=90, pen=pg.mkPen(style.TEXT, width=1.5)))
         self.texts: list[pg.TextItem] = []
         self.scene().sigMouseClicked.connect(self._clicked)
+        self.scene().sigMouseMoved.connect(self._hovered)
 
     def set_bars(self, bars: list[fdr.DriverBar], stale: bool = False) -> None:
         """Show the ranked rows (an empty list clears the chart)."""
@@ -115,6 +117,26 @@ class DriversChart(pg.PlotWidget):
     def row_at_scene(self, pos) -> int | None:
         point = self.getPlotItem().vb.mapSceneToView(pos)
         return fdr.row_at(self.bars, point.y())
+
+    def tooltip_at(self, scene_pos) -> str:
+        """The full text of the row under ``scene_pos`` (labels on the axis may be cut)."""
+        row = self.row_at_scene(scene_pos)
+        if row is None:
+            return ""
+        bar = self.bars[row]
+        if bar.is_folded:
+            measure = "|correlation|" if self.signed else "criticality"
+            return f"{bar.folded} other activities, {measure} {abs(bar.value):.2f} or less each"
+        what = "correlation with the finish" if self.signed else "share of iterations critical"
+        value = f"{bar.value:+.2f}" if self.signed else f"{bar.value:.2f}"
+        return f"{bar.label}\n{what}: {value}\nClick to select it in every view."
+
+    def _hovered(self, scene_pos) -> None:
+        text = self.tooltip_at(scene_pos)
+        if text:
+            QToolTip.showText(QCursor.pos(), text, self)
+        else:
+            QToolTip.hideText()
 
     def _clicked(self, event) -> None:
         row = self.row_at_scene(event.scenePos())
