@@ -166,8 +166,14 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         xs = [fig.markers[n] for n in names]
         ys = [int(n[1:]) / 100.0 for n in names]
         self.p_points.setData(xs, ys, brush=_colour(colour))
+        font = QFont()
+        font.setPointSizeF(style.SCREEN.label_font_size + 1)
+        font.setBold(True)
         for name, x, y in zip(names, xs, ys):
-            text = pg.TextItem(name, color=colour, anchor=(1.1, -0.1))
+            # below and right of its point: the S-curve rises to the right, so that corner
+            # is clear of it; a light backing keeps it legible over the grid and guides
+            text = pg.TextItem(name, color=colour, anchor=(-0.25, -0.05), fill=(255, 255, 255, 215))
+            text.setFont(font)
             text.setPos(x, y)
             self.cumulative.addItem(text)
             self.p_labels.append(text)
