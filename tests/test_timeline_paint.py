@@ -338,3 +338,43 @@ def test_slack_lines_and_bars_in_one_pass_match_drawing_each_style(qtbot, monkey
     monkeypatch.setattr(timeline_fused, "usable", lambda *a: False)
     v.drop_paint_caches()
     assert render(v) == fused
+
+
+@pytest.mark.parametrize("scale_x", [1.0, 2.0, 0.25])
+def test_both_routes_agree_on_bars_at_half_pixels_and_under_a_pixel(qtbot, scale_x):
+    """Slack lines and bars whose ends land exactly on half pixels (numpy rounds those to
+    even), including critical bars under a pixel wide: the one-pass route and the
+    per-style route give the same pixels, and every bar covers at least one pixel."""
+    from PySide6.QtGui import QColor, QPainter, QTransform
+    from workbench.figures import style
+    from workbench.ui import timeline_paint
+    from workbench.ui.timeline_item import _Pixels
+    starts = np.arange(40) * 7.0 + 10.5                      # device x on half pixels
+    widths = np.resize([0.05, 0.3, 0.5, 0.99, 1.0, 1.5, 2.5, 7.5], starts.size)
+    rows = np.arange(starts.size)
+    x0 = starts / scale_x
+    x1 = (starts + widths) / scale_x
+    marks = {k: Marks.empty() for k in ("connectors", "late", "negative_float", "whisker", "summary",
+                                        "summary_critical", "free_float", "milestone", "milestone_critical")}
+    crit = rows % 3 == 0                                     # starts both odd and even halves
+    marks["critical"] = Marks(rows[crit], x0[crit], x1[crit], rows[crit])
+    marks["work"] = Marks(rows[~crit], x0[~crit], x1[~crit], rows[~crit])
+    marks["float"] = Marks(rows, x1, x1 + 3.5 / scale_x, rows)
+
+    class Geo:
+        connectors = np.zeros((0, 4))
+
+    images = []
+    for fuse in (True, False):
+        image = QImage(320, 20 * starts.size + 20, QImage.Format.Format_ARGB32_Premultiplied)
+        image.fill(QColor(style.BACKGROUND))
+        p = QPainter(image)
+        px = _Pixels(QTransform(scale_x, 0, 0, 20.0, 0.0, 10.0), 1.0, (-1.0, 330.0 / scale_x), True)
+        timeline_paint.draw_all(p, px, marks, Geo(), style.SCREEN, None, (-1.0, float(starts.size)), fuse=fuse)
+        p.end()
+        images.append(image)
+    assert images[0] == images[1]
+    pixels = np.frombuffer(images[0].constBits(), np.uint32).reshape(images[0].height(), -1)
+    for row, start in zip(rows.tolist(), starts.tolist()):
+        centre = pixels[10 + 20 * row, int(start) - 2:int(start) + 4]
+        assert (centre != QColor(style.BACKGROUND).rgba()).any(), f"row {row}: bar not drawn"

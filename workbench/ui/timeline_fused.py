@@ -21,7 +21,7 @@ from workbench.ui.timeline_batch import colour_of, shared_array
 # One array per layer (pointer made once per allocation): slack lines and ticks, then the
 # edge and inside of ordinary bars, then of critical bars.
 _LAYERS = [shared_array(QRectF) for _ in range(5)]
-MIN_BAR_PX = 1.0      # a bar is at least this wide (a very short activity stays visible)
+MIN_BAR_PX = 1.0      # a bar is at least this many whole pixels wide (a short activity stays visible)
 
 
 def usable(px, w: style.Weights, bands: dict, dense_row_px: float) -> bool:
@@ -62,8 +62,7 @@ def draw_float_and_bars(p: QPainter, px, marks: dict, w: style.Weights, h: float
     np.maximum(right, lo, out=right)
     np.minimum(right, hi, out=right)
     width = right - left
-    np.maximum(width[:nf], 0.0, out=width[:nf])
-    np.maximum(width[nf:], MIN_BAR_PX, out=width[nf:])
+    np.maximum(width, 0.0, out=width)
     line_h = min(w.float_line * s, max(1.0, px.row_px * 0.5))
     box = np.empty((left.size, 4))
     x0 = np.rint(left)
@@ -71,6 +70,7 @@ def draw_float_and_bars(p: QPainter, px, marks: dict, w: style.Weights, h: float
     left += width
     box[:, 2] = np.rint(left, out=left)
     box[:, 2] -= x0
+    np.maximum(box[nf:, 2], MIN_BAR_PX, out=box[nf:, 2])     # after rounding: never 0 px
     for part, height in ((slice(0, nf), line_h), (slice(nf, None), h)):
         whole = max(float(np.rint(height)), 1.0)
         box[part, 1] = np.rint(centre[part] - height / 2 + (height - whole) / 2)

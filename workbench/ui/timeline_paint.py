@@ -106,23 +106,25 @@ def draw_bars(p: QPainter, px, m, fill_colour: str, edge: str, edge_width: float
         fill(p, fill_colour)
         spans(p, px, m, max(1.0, px.row_px * 0.8))
         return
-    x, y, width, height = span_parts(px, m, h)
-    parts = (x, y, np.maximum(width, fused.MIN_BAR_PX) if px.raster else width, height)
-    if not px.raster or not outlined_by_fills(p, parts, fill_colour, edge, edge_width):
+    parts = span_parts(px, m, h)
+    if not px.raster or not outlined_by_fills(p, parts, fill_colour, edge, edge_width, fused.MIN_BAR_PX):
         p.setPen(pen(edge, edge_width) if edge_width > 0 else Qt.PenStyle.NoPen)
         p.setBrush(colour_of(fill_colour))
         rects(p, *parts)
 
 
-def outlined_by_fills(p: QPainter, parts, fill_colour: str, edge: str, edge_width: float) -> bool:
+def outlined_by_fills(p: QPainter, parts, fill_colour: str, edge: str, edge_width: float,
+                      least_px: float = 0.0) -> bool:
     """Outlined rectangles as two plain fills (edge colour, then the inside), for a raster
     painter and the pen widths whose pixels are known to match a stroked outline (a
-    stroke costs far more than a fill); False when the caller must stroke."""
+    stroke costs far more than a fill); False when the caller must stroke. Each is at
+    least ``least_px`` whole pixels wide once rounded."""
     band = OUTLINE_BANDS.get(edge_width)
     if band is None or not common_size(*parts):
         return False
     box = np.empty((common_size(*parts), 4))
     whole_pixels(box, np.asarray(parts[0], float), *parts[1:])       # x, top, width, height
+    np.maximum(box[:, 2], least_px, out=box[:, 2])
     lo, hi, inset, inner_less, least = band
     narrow, box = box[box[:, 2] < least], box[box[:, 2] >= least]
     fill(p, edge)
