@@ -88,3 +88,19 @@ def test_month_and_year_ticks_are_aligned_to_the_calendar(lo, span, max_ticks):
         assert all(d.year == y and d.month == 1 and d.day <= 7 for d, y in zip(dates, years))
     if all(t.startswith("Q") for t in labels):
         assert all(d.month in (1, 4, 7, 10) and d.day <= 7 for d in dates)
+
+
+@settings(max_examples=80, deadline=None)
+@given(lo=st.floats(-4e6, 4e6), span=st.floats(0.5, 4e6), max_ticks=st.integers(1, 30),
+       unit=st.sampled_from(["days", "weeks"]))
+def test_a_view_beyond_any_calendar_date_gives_ticks_only_where_dates_exist(lo, span, max_ticks, unit):
+    """A Timeline can be panned or zoomed out past year 1 or 9999 (or past the calendar's
+    reach): ticks are then given only for real dates, never an error."""
+    ticks = date_ticks(cal(unit), lo, lo + span, max_ticks)
+    assert len(ticks) <= max_ticks
+    assert all(lo - 1e-9 <= o <= lo + span + 1e-9 for o, _ in ticks)
+
+
+def test_a_thousand_year_view_still_has_ticks():
+    ticks = date_ticks(cal(), 0, 1_000_000, 8)
+    assert 2 <= len(ticks) <= 8 and all(t.isdigit() for _, t in ticks)

@@ -13,14 +13,18 @@ import datetime as dt
 
 import numpy as np
 
+from workbench.core.calendar import MAX_DAYS
+
 MONTHS = ("Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec")
 DAYS = ("Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun")
+FIRST_DAY, LAST_DAY = np.datetime64("0001-01-01", "D"), np.datetime64("9999-12-31", "D")   # Python's dates
 
 # (level name, step, approximate calendar days per tick)
 LEVELS = (("day", 1, 1), ("day", 2, 2), ("week", 1, 7), ("week", 2, 14), ("month", 1, 30.4),
           ("month", 2, 60.9), ("quarter", 1, 91.3), ("half", 1, 182.6), ("year", 1, 365.2),
           ("year", 2, 730.5), ("year", 5, 1826), ("year", 10, 3652), ("year", 25, 9131),
           ("year", 100, 36524))
+FAR_LEVELS = (("year", 500, 182621), ("year", 1000, 365242))   # tried last: views of millennia
 
 
 def _day_candidates(first, last, step: int, calendar) -> np.ndarray:
@@ -87,12 +91,19 @@ def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> 
     if max_ticks < 1 or not np.isfinite([lo_offset, hi_offset]).all():
         return []
     lo, hi = float(min(lo_offset, hi_offset)), float(max(lo_offset, hi_offset))
+    reach = MAX_DAYS / calendar.per_unit          # a view may be panned beyond any calendar date
+    lo, hi = max(lo, -reach), min(hi, reach)
+    if lo > hi:
+        return []
     ends = calendar.start_dates([lo, hi]).astype("datetime64[D]")
-    first, last = ends[0] - 7, ends[1] + 7
+    first, last = max(ends[0] - 7, FIRST_DAY), min(ends[1] + 7, LAST_DAY)
+    at_the_ends = first == FIRST_DAY or last == LAST_DAY
     chosen = choose_level(calendar, lo, hi, max_ticks)
     start = next(i for i, level in enumerate(LEVELS) if level[:2] == chosen)
-    for level, step, _ in LEVELS[max(0, start - 2):]:
+    for level, step, _ in LEVELS[max(0, start - 2):] + FAR_LEVELS:
         dates = _candidates(level, step, first, last, calendar)
+        if at_the_ends:
+            dates = dates[(dates >= FIRST_DAY) & (dates <= LAST_DAY)]
         if not dates.size:
             continue
         offsets = _offsets(calendar, dates)
