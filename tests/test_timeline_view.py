@@ -5,6 +5,7 @@ import datetime as dt
 import numpy as np
 import pytest
 from PySide6.QtCore import QPoint, QPointF, Qt
+from PySide6.QtGui import QImage
 from PySide6.QtTest import QTest
 
 from workbench.core import Activity, Link, Plan, Settings
@@ -494,3 +495,21 @@ def test_a_critical_activity_under_a_pixel_wide_still_shows(qtbot):
     dark = [x for x in range(centre.x() - 3, centre.x() + 4)
             if style.gray_level(image.pixelColor(x, centre.y()).name()) < 0.15]
     assert len(dark) >= 2
+
+
+def test_panning_beyond_any_calendar_date_draws_without_error(qtbot):
+    """A plan reaching far ahead lets the view pan past the calendar's reach (and before
+    year 1): the chart, shading and date axis draw what exists there, nothing fails."""
+    plan = Plan(Settings(start=dt.date(2026, 12, 7)),
+                [Activity("A", "Very long", duration=740_000), Activity("B", "Longer still", duration=740_000),
+                 Activity("C", "Next", duration=5)],
+                [Link("A", "B"), Link("B", "C")])
+    v = shown_view(qtbot, Session(plan), (900, 400))
+    image = QImage(v.size(), QImage.Format.Format_ARGB32_Premultiplied)
+    shown = {}
+    for lo in (-2e6, 1.0e6, 1.505e6, 2.5e6):       # 1.505e6: past the reach, inside the chart
+        v.view_box.setXRange(lo, lo + 30, padding=0)       # zoomed in: non-working days shaded
+        v.drop_paint_caches()
+        v.render(image)                                    # pytest-qt fails on errors in paint
+        shown[lo] = v.date_axis.shown_labels()
+    assert shown[1.0e6] and not shown[-2e6] and not shown[2.5e6]

@@ -16,6 +16,7 @@ from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QImage, QPainter, QPaintEngine, QPixmap
 from PySide6.QtWidgets import QWidget
 
+from workbench.core.calendar import MAX_DAYS
 from workbench.figures import style
 from workbench.figures.timeline import TimelineGeometry
 from workbench.ui import timeline_paint as paint
@@ -237,6 +238,7 @@ def nonworking_finder(calendar):
     """A function (lo, hi) → offsets (working time) at which a non-working stretch lies."""
     def find(lo: float, hi: float) -> np.ndarray:
         per = calendar.per_unit
+        hi = min(hi, MAX_DAYS / per - 1)        # a view may reach beyond any calendar date
         days = np.arange(max(0, int(np.floor(lo * per))), int(np.ceil(hi * per)) + 1)
         if days.size > 4000:
             return np.zeros(0)
