@@ -239,3 +239,24 @@ def test_inverse_question_follows_the_plan_target(view):
     view.ask_confidence("95 %")                       # the planner's own choice stays
     view.session.push(EditActivity("A", pessimistic=4))
     assert view.confidence == pytest.approx(0.95)
+
+
+@pytest.mark.parametrize("width", [1400, 760, 560])
+def test_the_answer_text_stays_inside_the_curve_plot(view, qtbot, width):
+    """In a narrow dock the PERT answer's text goes to whichever side of its diamond has
+    room, or above it, never past the plot's edges (a plot narrower than the text shows
+    it from its left edge)."""
+    view.resize(width, 700)
+    view.show()
+    qtbot.waitExposed(view)
+    for typed in ("50 %", "80 %", "99 %"):
+        view.panel.typed.setText(typed)
+        view.panel.typed.returnPressed.emit()
+        qtbot.wait(10)
+        vb = view.plot.density.vb
+        box = vb.mapRectToScene(vb.boundingRect())
+        text = view.plot.answer_text.mapRectToScene(view.plot.answer_text.boundingRect())
+        if text.width() <= box.width():
+            assert box.left() - 2 <= text.left() and text.right() <= box.right() + 2, (typed, text, box)
+        else:                                  # wider than the plot: from its left edge
+            assert abs(text.left() - box.left()) <= 2, (typed, text, box)

@@ -89,7 +89,8 @@ class OddsPlot(pg.GraphicsLayoutWidget):
     def _make_cumulative_items(self, c: pg.PlotItem) -> None:
         self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
         self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
-        self.cum_legend = c.addLegend(offset=(-10, -10), labelTextSize="10pt", labelTextColor=style.TEXT,
+        # top left: an S-curve is still near zero there, and the answer labels sit low
+        self.cum_legend = c.addLegend(offset=(10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
                                       brush=pg.mkBrush(255, 255, 255, 220))
         c.addItem(self.pert_cdf)
         c.addItem(self.ecdf)
@@ -207,6 +208,8 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         super().resizeEvent(event)
         if hasattr(self, "_sim_top"):
             self._y_top(self._sim_top)
+        if hasattr(self, "answer_text"):
+            self._relayout_answer()
 
     def fit_y(self, has_sim: bool) -> None:
         if not has_sim:
@@ -233,14 +236,34 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         self.answer_dot.setData([pert_x], [pert_y])
         self.answer_text.setText(labels[0])
         self.answer_text.setPos(pert_x, pert_y)
-        (lo, hi), _ = self.density.vb.viewRange()
-        right_half = hi > lo and (pert_x - lo) / (hi - lo) > 0.5
-        self.answer_text.setAnchor((1.15, 1.0) if right_half else (-0.15, 1.0))  # stay inside the plot
+        self._keep_answer_inside(pert_x)
         for line, x, text in zip(self.answers, (pert_x, sim_x), labels):
             line.setVisible(x is not None)
             if x is not None:
                 line.setValue(x)
                 line.label.setFormat(text)
+
+
+    def _keep_answer_inside(self, x: float) -> None:
+        """Put the PERT answer's text on the side of its diamond with room for it; in a
+        plot too narrow for either side, centre it over the diamond."""
+        (lo, hi), _ = self.density.vb.viewRange()
+        width_px = self.density.vb.width()
+        if hi <= lo or width_px <= 0:
+            return
+        at = (x - lo) / (hi - lo) * width_px            # the diamond, in pixels from the left
+        w = max(self.answer_text.textItem.boundingRect().width(), 1.0)
+        if width_px - at >= 1.15 * w + 4.0:
+            self.answer_text.setAnchor((-0.15, 1.0))    # right of the diamond
+        elif at >= 1.15 * w + 4.0:
+            self.answer_text.setAnchor((1.15, 1.0))     # left of it
+        else:                                           # above it, as far inside as it goes
+            left = min(max(at - w / 2, 0.0), max(width_px - w, 0.0))
+            self.answer_text.setAnchor(((at - left) / w, 1.4))
+
+    def _relayout_answer(self) -> None:
+        if self.answer_text.textItem.toPlainText():
+            self._keep_answer_inside(self.answer_text.pos().x())
 
 
 def _thin(x: np.ndarray, y: np.ndarray, most: int = 2000):
