@@ -110,6 +110,7 @@ class DriversChart(pg.PlotWidget):
                 shown = f"each ≤ {abs(value):.2f}" if not self.signed else f"each |r| ≤ {abs(value):.2f}"
             text = pg.TextItem(shown, color=colour,
                                anchor=(0.0, 0.5) if value >= 0 else (1.0, 0.5))
+            text.setFont(self._font)           # as large as the row labels (read from the back)
             text.setPos(r.x1 if value >= 0 else r.x0, r.y)
             item.addItem(text)
             self.texts.append(text)
