@@ -116,3 +116,22 @@ def test_fixed_durations_give_a_certain_finish_without_nan(tmp_path):
     summary = _text(reader, [_sections(reader)["Summary"]])
     assert format_probability(1.0) in summary
     assert "nan" not in _text(reader, range(len(reader.pages))).lower()
+
+
+def test_simulated_finishes_and_the_answer_differ_in_a_grayscale_copy(simulated):
+    """Full sky blue and orange print as the same grey; the histogram behind the shaded
+    answer is a light tint, so the answer stays clearly darker on a black-and-white copy."""
+    from reportlab.lib.rl_accel import fp_str
+    from workbench.reports import styles
+    _, reader, _ = simulated
+
+    def gray(c):
+        return 0.299 * c.red + 0.587 * c.green + 0.114 * c.blue
+
+    assert gray(styles.FLOAT_TINT) - gray(styles.PROBABILITY) >= 0.25
+    page = _sections(reader)["Odds"]
+    stream = reader.pages[page].get_contents().get_data().decode("latin-1")
+    fills = set(re.findall(r"([\d.]+ [\d.]+ [\d.]+) rg", stream))
+    tint = fp_str(styles.FLOAT_TINT.red, styles.FLOAT_TINT.green, styles.FLOAT_TINT.blue)
+    assert tint in fills
+    assert fp_str(styles.FLOAT.red, styles.FLOAT.green, styles.FLOAT.blue) not in fills

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from reportlab.lib import colors
 from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from workbench.figures.ticks import date_ticks
@@ -65,10 +66,14 @@ class Axes:
             c.setDash(*dash)
         c.line(x, self.y, x, self.y + self.h)
         if label:
+            text = clean(label)
+            y = self.y + self.h + 3 if top else self.y + self.h - 10
+            half = c.stringWidth(text, styles.BOLD, TICK_FONT) / 2 + 1.5
+            c.setFillColor(colors.white)          # a backing, so a line drawn later never crosses it
+            c.rect(x - half, y - 2, 2 * half, TICK_FONT + 2, stroke=0, fill=1)
             c.setFillColor(colour)
             c.setFont(styles.BOLD, TICK_FONT)
-            y = self.y + self.h + 3 if top else self.y + self.h - 10
-            c.drawCentredString(x, y, clean(label))
+            c.drawCentredString(x, y, text)
         c.restoreState()
 
     def frame(self, width: float = 0.6):

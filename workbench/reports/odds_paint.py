@@ -85,13 +85,13 @@ class OddsPainter:
         ax = self._panel(c, y, w, h, max(float(fig.heights.max()), 1e-12) * 1.12)
         p = og.sim_probability(sim, self.q)
         xs, ys = fig.step_outline()
-        ax.polyline(xs, ys, close=True, fill=styles.FLOAT)
+        ax.polyline(xs, ys, close=True, fill=styles.FLOAT_TINT)
         shade = og.sim_shade(fig, self.q, p)
         ax.polyline(shade.x, shade.y, close=True, fill=styles.PROBABILITY)
         ax.polyline(xs, ys, stroke=styles.TEXT, width=0.6)
-        for name, offset in fig.markers.items():
-            ax.vline(offset, styles.TEXT, 0.8, (1.5, 1.5), label=name, top=False)
         self._question_line(ax)
+        for name, offset in fig.markers.items():          # after the date line: labels on top
+            ax.vline(offset, styles.TEXT, 0.8, (1.5, 1.5), label=name, top=False)
         self._title(ax, f"Simulation ({fig.iterations:,} runs, seed {fig.seed}): P(finish by "
                         f"{format_date(self.ctx.date_of(self.q.d1))}) = {og.format_probability(p)}")
 
@@ -103,7 +103,7 @@ class OddsPainter:
         items = [(f"Finish by {format_date(self.ctx.date_of(self.q.d1))}", _fill_swatch(styles.PROBABILITY)),
                  ("PERT curve", mk.line_swatch(styles.TEXT, 1.6))]
         if self.ctx.simulation is not None:
-            items += [("Simulated finishes", _fill_swatch(styles.FLOAT)),
+            items += [("Simulated finishes", _fill_swatch(styles.FLOAT_TINT)),
                       ("Simulated P50/P80/P90", mk.line_swatch(styles.TEXT, 0.8, (1.5, 1.5)))]
         if self.ctx.deadline() is not None:
             items.append(("Deadline", mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))

@@ -24,6 +24,9 @@ def colour(hex_colour: str) -> colors.Color:
 CRITICAL = colour(style.CRITICAL)
 WORK = colour(style.WORK)
 FLOAT = colour(style.FLOAT)
+# the simulated finishes behind the shaded answer: a light tint, so the orange answer stays
+# clearly darker in a grayscale copy (full sky blue and orange print as the same grey)
+FLOAT_TINT = colors.Color(*(0.3 * v + 0.7 for v in style.rgb01(style.FLOAT)))
 PROBABILITY = colour(style.PROBABILITY)
 DEADLINE = colour(style.DEADLINE)
 STATUS = colour(style.STATUS)
