@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import datetime as dt
 import re
+from dataclasses import replace
 
 import pytest
 from pypdf import PdfReader
@@ -218,3 +219,16 @@ def test_network_tiles_show_every_node_whole_somewhere():
     assert len(views) > 1
     for x, y, w, h in layout.boxes:
         assert any(v.x0 <= x and x + w <= v.x0 + v.w and v.y0 <= y and y + h <= v.y0 + v.h for v in views)
+
+
+@pytest.mark.parametrize("deadline", [None, 400.0])
+def test_activity_table_says_floats_are_measured_to_the_deadline(tmp_path, deadline):
+    """With a deadline the critical path can carry float (or negative float): the table
+    says where floats are measured to, and leaves it unsaid without a deadline."""
+    plan = footbridge_plan()
+    plan.set_settings(replace(plan.settings, deadline=deadline))
+    _, reader, _ = _build(plan, tmp_path)
+    found = _sections(reader)
+    text = " ".join(_text(reader, n) for n in range(found["Activities"], found["Assumptions and cautions"]))
+    text = re.sub(r"\s+", " ", text)
+    assert ("floats are measured to it" in text) == (deadline is not None)

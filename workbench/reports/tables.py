@@ -65,5 +65,9 @@ def activity_table(ctx: PackContext, width: float) -> list:
     intro = (f"te: PERT expected duration, sd: its standard deviation, floats in {unit}; "
              "ES/EF/LS/LF are calendar dates (start dates are the first working day, finish "
              "dates the last). Critical activities are marked YES.")
+    if ctx.deadline() is not None:
+        intro += (f" The late dates come from the deadline ({format_date(ctx.date_of(ctx.deadline()))}), so "
+                  "floats are measured to it: the critical activities are those with the least float, "
+                  "which is more than zero when the plan finishes early and negative when it is late.")
     return [Section("Activities", "activities"), Paragraph("Activities", styles.H1),
             Paragraph(intro, styles.SMALL), table]

@@ -23,6 +23,21 @@ def _percent(p: float) -> str:
     return f"{p * 100:.1f} %" if p < 0.1 or p > 0.9 else f"{p * 100:.0f} %"
 
 
+def _float_to_deadline(a) -> str:
+    """With a deadline the late dates come from it, so the critical path (the least float)
+    may have float left, or negative float: say how much, so "critical" with float 6 reads
+    right."""
+    if a.deadline is None or not len(a.schedule.total_float):
+        return ""
+    least = float(a.schedule.total_float.min())
+    if abs(least) < 1e-9:
+        return ""
+    unit = a.plan.settings.unit
+    amount = f"{abs(least):g} {unit if abs(least) != 1 else unit[:-1]}"
+    return (f"  ·  {amount} of float to the deadline" if least > 0
+            else f"  ·  {amount} late for the deadline (negative float)")
+
+
 class SummaryStrip(QFrame):
     """Four figures, each a caption over a large value; refreshed on ``schedule_changed``."""
 
@@ -81,6 +96,7 @@ class SummaryStrip(QFrame):
         conf = settings.target_confidence
         path = list(a.pert.path)
         shown = " → ".join(path[:PATH_SHOWN]) + (f" → … ({len(path)} activities)" if len(path) > PATH_SHOWN else "")
+        shown += _float_to_deadline(a)
         return {
             "finish": a.finish_date.strftime(DATE),
             "odds": "no deadline set" if odds is None else f"{_percent(odds)}{deadline}",
