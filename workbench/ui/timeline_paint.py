@@ -178,11 +178,16 @@ def draw_whiskers(p: QPainter, px, m, w: style.Weights, h: float) -> None:
 
 
 def draw_summaries(p: QPainter, px, m, critical: bool, w: style.Weights, h: float) -> None:
-    """Group rows: a slim dark bar with short downward ends."""
+    """Group rows: a slim dark bar with short downward ends; a group on the critical path
+    is vermillion with the critical heavy edge (so it stands out in grayscale too)."""
     if not len(m):
         return
     slim = max(1.0, h * 0.35)
-    fill(p, style.CRITICAL if critical else style.SUMMARY)
+    if critical and px.row_px >= DENSE_ROW_PX:
+        p.setPen(pen(style.CRITICAL_EDGE, 0.8 * w.critical_outline * px.scale))
+        p.setBrush(colour_of(style.CRITICAL))
+    else:
+        fill(p, style.CRITICAL if critical else style.SUMMARY)
     spans(p, px, m, slim, -h / 4)
     if px.row_px >= DENSE_ROW_PX:
         fill(p, style.TEXT)
