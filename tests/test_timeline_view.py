@@ -513,3 +513,21 @@ def test_panning_beyond_any_calendar_date_draws_without_error(qtbot):
         v.render(image)                                    # pytest-qt fails on errors in paint
         shown[lo] = v.date_axis.shown_labels()
     assert shown[1.0e6] and not shown[-2e6] and not shown[2.5e6]
+
+
+def test_every_line_label_is_drawn_above_every_line(qtbot):
+    """The P10 / P90 lines often fall near the deadline: no line may cross another line's
+    label. Each label rides on its own line stacked above every visible line, and moves
+    with its line."""
+    v = shown_view(qtbot, Session(small_plan(deadline=14.0)), (1200, 600))
+    ids = v.session.analysis.schedule.ids
+    v.session.set_simulation(FakeResult(ids, np.linspace(11, 16, 51)))
+    ref = v.reference
+    assert {"start", "deadline", "p10", "p90"} <= set(ref.lines)
+    lowest_label = min(line.zValue() for line in ref.lines.values())
+    assert all(stroke.zValue() < lowest_label for stroke in ref.strokes.values())
+    for name, line in ref.lines.items():
+        assert line.value() == ref.strokes[name].value()
+        assert line.label.scene() is not None and line.pen.style() == Qt.PenStyle.NoPen
+    v.session.set_simulation(None)
+    assert "p10" not in ref.lines and "p10" not in ref.strokes
