@@ -11,7 +11,7 @@ from workbench.ui import prompts
 
 PROMPTS = ("ask_open_path", "ask_save_path", "ask_unsaved", "ask_recovery", "ask_locked",
            "ask_save_as_instead", "show_error", "show_info", "show_guide", "edit_settings", "pick_predecessors",
-           "preview_import")
+           "preview_import", "open_externally")
 
 
 def sample_plan() -> Plan:

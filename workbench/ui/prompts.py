@@ -12,6 +12,7 @@ PLAN_FILTER = "Slackline plans (*.slw)"
 OPEN_FILTER = "Plans and tables (*.slw *.csv *.xlsx);;Slackline plans (*.slw);;Tables (*.csv *.xlsx)"
 TABLE_FILTER = "Tables (*.csv *.xlsx)"
 EXPORT_FILTER = "CSV table (*.csv);;XLSX workbook (*.xlsx)"
+PDF_FILTER = "PDF documents (*.pdf)"
 
 
 def ask_open_path(parent: QWidget, title: str = "Open plan", filters: str = OPEN_FILTER,
@@ -78,6 +79,16 @@ def show_error(parent: QWidget, title: str, message: str) -> None:
 
 def show_info(parent: QWidget, title: str, message: str) -> None:
     QMessageBox.information(parent, title, message)
+
+
+def open_externally(parent: QWidget, path: str) -> bool:
+    """Open a file in the system's viewer for its type (a PDF reader for the pack)."""
+    from PySide6.QtCore import QUrl
+    from PySide6.QtGui import QDesktopServices
+    opened = QDesktopServices.openUrl(QUrl.fromLocalFile(path))
+    if not opened:
+        show_info(parent, "Open", f"{path} was written; no viewer could be started for it here.")
+    return opened
 
 
 def show_guide(parent: QWidget, markdown: str) -> None:

@@ -12,6 +12,7 @@ from PySide6.QtWidgets import QApplication, QMenu, QToolBar
 from workbench.core.commands import SetSettings
 from workbench.ui import prompts
 from workbench.ui.icons import icon
+from workbench.ui.pack_export import export_pack
 from workbench.ui.table_transfer import export_table
 
 StandardKey = QKeySequence.StandardKey
@@ -73,6 +74,8 @@ def _file_actions(window) -> dict[str, QAction]:
         "save_as": _action(window, "Save &As…", files.save_as, StandardKey.SaveAs, "save_as"),
         "import": _action(window, "&Import Table…", partial(import_dialog, window), "Ctrl+Shift+I", "import"),
         "export": _action(window, "&Export Table…", partial(export_table, window, window.session), "Ctrl+Shift+E", "export"),
+        "export_pack": _action(window, "Export Approval &Pack…", partial(export_pack, window), "Ctrl+Shift+P",
+                               tip="Write the printed approval pack (PDF) and open it"),
         "settings": _action(window, "Plan Se&ttings…", partial(edit_settings, window), StandardKey.Preferences, "settings"),
         "close": _action(window, "&Close Window", window.close, StandardKey.Close),
         "quit": _action(window, "&Quit", QApplication.closeAllWindows, StandardKey.Quit),
@@ -132,7 +135,7 @@ def _file_menu(window, acts: dict) -> None:
     recent = menu.addMenu("Open &Recent")
     recent.aboutToShow.connect(partial(fill_recent, window, recent))
     window.recent_menu = recent
-    for group in (("save", "save_as"), ("import", "export"), ("settings",), ("close", "quit")):
+    for group in (("save", "save_as"), ("import", "export", "export_pack"), ("settings",), ("close", "quit")):
         menu.addActions([acts[k] for k in group])
         if group[0] != "close":
             menu.addSeparator()
