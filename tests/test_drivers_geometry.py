@@ -57,3 +57,18 @@ def test_folding_property(vals, top, magnitude):
 def test_row_at_maps_y_to_rows():
     bars = fd.ranked(list("AB"), list("AB"), [0.5, 0.2], top=5)
     assert fd.row_at(bars, 0.2) == 0 and fd.row_at(bars, -1.3) == 1 and fd.row_at(bars, -2.6) is None
+
+
+@pytest.mark.parametrize("values, side", [([0.36, 0.2, 0.05], "right"), ([-0.4, -0.1], "left"),
+                                          ([0.3, -0.2], "both")])
+def test_tornado_span_leaves_no_empty_half(values, side):
+    bars = fd.ranked(list("ABC")[:len(values)], list("ABC")[:len(values)], values, top=10, magnitude=True)
+    lo, hi = fd.value_span(bars, signed=True)
+    assert lo < 0 < hi                                           # the zero line always shows
+    assert lo <= min(values) and hi >= max(values)
+    if side == "right":
+        assert -lo < 0.1 * hi
+    elif side == "left":
+        assert hi < 0.1 * -lo
+    else:
+        assert lo == -hi

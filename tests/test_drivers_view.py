@@ -7,6 +7,7 @@ from PySide6.QtCore import QPointF, Qt
 from workbench.core.commands import EditActivity
 from workbench.core.montecarlo import simulate
 from workbench.figures import drivers as fdr
+from workbench.figures import style
 from workbench.ui.drivers_view import DriversView
 from workbench.ui.session import Session
 
@@ -105,3 +106,18 @@ def test_hovering_a_row_shows_its_full_name_and_value(drivers, qtbot):
         assert f"{folded.folded} other activities" in chart.tooltip_at(scene)
     below = drivers.criticality.getPlotItem().vb.mapViewToScene(QPointF(0.5, -len(drivers.criticality.bars) - 3))
     assert drivers.criticality.tooltip_at(below) == ""
+
+
+def test_bars_on_the_pert_critical_path_are_in_the_critical_style(drivers):
+    session = drivers.session
+    session.set_simulation(simulate(session.plan, 2000, seed=6))
+    path = set(session.analysis.pert.path)
+    for chart in (drivers.criticality, drivers.sensitivity):
+        crit = chart.critical_graph.opts
+        other = chart.graph.opts
+        shown = {b.act_id for b in chart.bars if not b.is_folded}
+        on_path = {r.y for r in chart.rects if r.bar.act_id in path}
+        assert set(crit["y"]) == on_path and on_path                       # every one, and only those
+        assert not set(other["y"]) & on_path and len(crit["y"]) + len(other["y"]) == len(shown)
+        assert pg.mkBrush(crit["brush"]).color().name() == style.CRITICAL.lower()
+        assert crit["pen"].widthF() > other["pen"].widthF()                # not by colour alone

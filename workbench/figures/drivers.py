@@ -94,12 +94,19 @@ def bar_rects(bars: list[DriverBar]) -> list[BarRect]:
 
 
 def value_span(bars: list[DriverBar], signed: bool) -> tuple[float, float]:
-    """The x range to show: [0, 1] for an index, symmetric [−m, m] for a tornado."""
+    """The x range to show: [0, 1] for an index; for a tornado symmetric [−m, m] when
+    bars point both ways, and only the side they point to (with a sliver of the other, so
+    the zero line shows) when all point one way: no half-chart left empty."""
     if not signed:
         return 0.0, 1.18
     m = max((abs(b.value) for b in bars), default=0.0)
     m = max(m, 0.05)
-    return -1.3 * m, 1.3 * m  # room for the value printed beyond the longest bar
+    room = 1.3 * m            # room for the value printed beyond the longest bar
+    if all(b.value >= 0 for b in bars):
+        return -0.08 * m, room
+    if all(b.value <= 0 for b in bars):
+        return -room, 0.08 * m
+    return -room, room
 
 
 def row_at(bars: list[DriverBar], y: float) -> int | None:

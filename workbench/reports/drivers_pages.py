@@ -62,16 +62,19 @@ def _panel(c, box, bars, signed: bool, title: str, critical: set[str]) -> None:
         c.setFillColor(styles.TEXT)
         c.drawString(x0, y - 3, fit(rect.bar.label, label_w - 6, styles.BOLD, 8))
         value = f"{rect.bar.value * 100:.0f} %" if not signed else f"{rect.bar.value:+.2f}"
+        if rect.bar.is_folded:          # the largest of the rest, not their sum
+            value = f"each ≤ {abs(rect.bar.value) * 100:.0f} %" if not signed else f"each |r| ≤ {abs(rect.bar.value):.2f}"
         c.setFont(styles.FONT, 8)
         c.drawString(px(max(rect.x1, 0.0)) + 3, y - 3, value)
 
 
 def _grid(c, px, span, rows_y, signed, plot_w) -> None:
     (lo, hi), (top, bottom) = span, rows_y
-    if plot_w >= 160:
-        ticks = [k / 5 for k in range(6)] if not signed else [lo * 0.9, lo * 0.45, 0.0, hi * 0.45, hi * 0.9]
-    else:   # a narrow panel: fewer ticks so their labels do not collide
-        ticks = [0.0, 0.5, 1.0] if not signed else [lo * 0.9, 0.0, hi * 0.9]
+    most = 6 if plot_w >= 160 else 3      # a narrow panel: fewer ticks so their labels do not collide
+    if not signed:
+        ticks = [k / 5 for k in range(6)] if most > 3 else [0.0, 0.5, 1.0]
+    else:
+        ticks = _signed_ticks(lo, hi, most)
     c.saveState()
     c.setFont(styles.FONT, 7.5)
     for v in ticks:
@@ -81,6 +84,15 @@ def _grid(c, px, span, rows_y, signed, plot_w) -> None:
         c.setFillColor(styles.TEXT)
         c.drawCentredString(px(v), bottom - 10, f"{v * 100:.0f} %" if not signed else f"{v:+.2f}")
     c.restoreState()
+
+
+def _signed_ticks(lo: float, hi: float, most: int) -> list[float]:
+    """Round correlation ticks inside [lo, hi], zero always among them, at most ``most``."""
+    for step in (0.05, 0.1, 0.2, 0.25, 0.5, 1.0):
+        ticks = [k * step for k in range(int(lo / step), int(hi / step) + 1) if lo <= k * step <= hi]
+        if len(ticks) <= most:
+            return ticks
+    return [0.0]
 
 
 def _bar(c, x, y, w, h, bar, critical: set[str]) -> None:

@@ -40,10 +40,12 @@ class DriversChart(pg.PlotWidget):
             item.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
             item.getAxis(name).enableAutoSIPrefix(False)
         self._font = font
+        self.critical: set[str] = set()     # ids on the PERT critical path: vermillion, heavy edge
         self.graph = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
+        self.critical_graph = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
         self.folded = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.7)
         self.outline = pg.BarGraphItem(x0=[], x1=[], y=[], height=0.78)
-        for g in (self.outline, self.graph, self.folded):
+        for g in (self.outline, self.graph, self.critical_graph, self.folded):
             item.addItem(g)
         if signed:
             item.addItem(pg.InfiniteLine(0.0, angle=90, pen=pg.mkPen(style.TEXT, width=1.5)))
@@ -51,9 +53,10 @@ class DriversChart(pg.PlotWidget):
         self.scene().sigMouseClicked.connect(self._clicked)
         self.scene().sigMouseMoved.connect(self._hovered)
 
-    def set_bars(self, bars: list[fdr.DriverBar], stale: bool = False) -> None:
-        """Show the ranked rows (an empty list clears the chart)."""
-        self.bars, self.stale = bars, stale
+    def set_bars(self, bars: list[fdr.DriverBar], stale: bool = False, critical=frozenset()) -> None:
+        """Show the ranked rows (an empty list clears the chart); ``critical``: ids on the
+        PERT critical path, drawn in the critical style."""
+        self.bars, self.stale, self.critical = bars, stale, set(critical)
         self.rects = fdr.bar_rects(bars)
         self._draw_bars()
         self._draw_labels()
@@ -77,16 +80,22 @@ class DriversChart(pg.PlotWidget):
         if getattr(self, "_font", None) is not None and self.__dict__.get("rects"):
             self._set_row_labels()
 
-    def _split(self, folded: bool):
-        rs = [r for r in self.rects if r.bar.is_folded == folded]
+    def _split(self, kind: str):
+        """Rows of one kind: 'folded', 'critical' or 'other'."""
+        def kind_of(bar):
+            return "folded" if bar.is_folded else "critical" if bar.act_id in self.critical else "other"
+        rs = [r for r in self.rects if kind_of(r.bar) == kind]
         return dict(x0=[r.x0 for r in rs], x1=[r.x1 for r in rs], y=[r.y for r in rs])
 
     def _draw_bars(self) -> None:
         main = STALE if self.stale else style.WORK
         edge = "#555555" if self.stale else style.WORK_EDGE
-        self.graph.setOpts(**self._split(False), height=0.7, brush=QColor(main), pen=pg.mkPen(edge, width=1))
+        self.graph.setOpts(**self._split("other"), height=0.7, brush=QColor(main), pen=pg.mkPen(edge, width=1))
+        self.critical_graph.setOpts(**self._split("critical"), height=0.7,
+                                    brush=QColor(STALE if self.stale else style.CRITICAL),
+                                    pen=pg.mkPen(style.CRITICAL_EDGE, width=style.SCREEN.critical_outline))
         hatch = QBrush(QColor(STALE if self.stale else style.SUMMARY), Qt.BDiagPattern)
-        self.folded.setOpts(**self._split(True), height=0.7, brush=hatch, pen=pg.mkPen(style.SUMMARY, width=1))
+        self.folded.setOpts(**self._split("folded"), height=0.7, brush=hatch, pen=pg.mkPen(style.SUMMARY, width=1))
         self.set_selected(self.selected)
 
     def set_selected(self, ids) -> None:

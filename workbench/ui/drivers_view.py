@@ -56,7 +56,8 @@ class DriversView(QWidget):
         head = QHBoxLayout()
         head.addWidget(QLabel("Show the top"))
         head.addWidget(self.top)
-        head.addWidget(QLabel("activities; the rest fold into one row. Click a bar to select the activity."))
+        head.addWidget(QLabel("activities; the rest fold into one row. Vermillion with a heavy edge: on the "
+                              "PERT critical path. Click a bar to select the activity."))
         head.addStretch(1)
         charts = QHBoxLayout()
         charts.addWidget(self.criticality, 1)
@@ -77,8 +78,10 @@ class DriversView(QWidget):
             return
         self.stack.setCurrentIndex(1)
         plan, top = self.session.plan, self.top.value()
-        self.criticality.set_bars(fdr.criticality_bars(self.result, plan, top), self.stale)
-        self.sensitivity.set_bars(fdr.sensitivity_bars(self.result, plan, top), self.stale)
+        analysis = self.session.analysis
+        critical = set(analysis.pert.path) if analysis is not None else set()
+        self.criticality.set_bars(fdr.criticality_bars(self.result, plan, top), self.stale, critical)
+        self.sensitivity.set_bars(fdr.sensitivity_bars(self.result, plan, top), self.stale, critical)
         self.note.setText(STALE_NOTE if self.stale else self._summary())
         self.note.setStyleSheet("color: #8A3B00; font-weight: bold;" if self.stale else "")
         self._on_selection_changed(self.session.selected())
