@@ -232,3 +232,10 @@ def test_activity_table_says_floats_are_measured_to_the_deadline(tmp_path, deadl
     text = " ".join(_text(reader, n) for n in range(found["Activities"], found["Assumptions and cautions"]))
     text = re.sub(r"\s+", " ", text)
     assert ("floats are measured to it" in text) == (deadline is not None)
+
+
+def test_the_pdfs_own_creation_date_is_the_generation_time(pack):
+    """A signed pack's file properties agree with its footer (not a fixed placeholder)."""
+    _, reader, _ = pack
+    assert reader.metadata.creation_date.replace(tzinfo=dt.timezone.utc) == WHEN.replace(second=0)
+    assert reader.metadata.modification_date.replace(tzinfo=dt.timezone.utc) == WHEN.replace(second=0)

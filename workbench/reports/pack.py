@@ -62,10 +62,18 @@ def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:
     buffer = io.BytesIO()
     use_a85 = rl_config.useA85
     rl_config.useA85 = 0            # binary streams: smaller, and no slow pure-Python ASCII85 pass
+    # the PDF's own creation date is the generation time printed in the footer (reportlab's
+    # invariant mode reads it from SOURCE_DATE_EPOCH; without it, 1 Jan 2000)
+    epoch = os.environ.get("SOURCE_DATE_EPOCH")
+    os.environ["SOURCE_DATE_EPOCH"] = str(int(ctx.footer.generated_at.timestamp()))
     try:
         doc = _build(ctx, buffer, report)
     finally:
         rl_config.useA85 = use_a85
+        if epoch is None:
+            os.environ.pop("SOURCE_DATE_EPOCH", None)
+        else:
+            os.environ["SOURCE_DATE_EPOCH"] = epoch
     report(95)
     return buffer.getvalue(), doc.page
 
