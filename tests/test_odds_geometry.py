@@ -209,3 +209,14 @@ def test_curve_height_follows_the_density():
     assert fo.curve_height(curve, hi + 5) == 0.0
     step = fo.pert_curve(PertOdds(5.0, 0.0, ("A",)), 0, 10)
     assert fo.curve_height(step, 5.0) == 0.0
+
+
+def test_merge_bias_note_names_the_risk_events_that_struck():
+    rng = np.random.default_rng(4)
+    res = Samples(rng.normal(45.0, 2.8, 5000))
+    res.risk_report = [{"id": "R1", "fired": 0.2}, {"id": "R2", "fired": 0.0}]
+    note = fo.merge_bias_note(R1, res, "weeks")
+    assert "Risk events, which PERT leaves out, also add delay: R1 (20 % of runs)." in note
+    assert "R2" not in note
+    res.risk_report = []
+    assert "Risk events" not in fo.merge_bias_note(R1, res, "weeks")

@@ -135,3 +135,32 @@ def test_simulated_finishes_and_the_answer_differ_in_a_grayscale_copy(simulated)
     tint = fp_str(styles.FLOAT_TINT.red, styles.FLOAT_TINT.green, styles.FLOAT_TINT.blue)
     assert tint in fills
     assert fp_str(styles.FLOAT.red, styles.FLOAT.green, styles.FLOAT.blue) not in fills
+
+
+def test_risk_events_are_listed_with_how_often_they_struck(tmp_path):
+    from workbench.core.demo import demo_plan
+    plan = demo_plan()
+    path = tmp_path / "demo.pdf"
+    build_pack(plan, path, iterations=3000, seed=3, generated_at=WHEN)
+    reader = PdfReader(str(path))
+    found = _sections(reader)
+    text = re.sub(r"\s+", " ", _text(reader, range(found["Assumptions and cautions"], len(reader.pages))))
+    risk = plan.risks[0]
+    assert "Risk events" in text and risk.id in text and f"{risk.probability * 100:.0f} %" in text
+    struck = re.search(rf"{risk.id} .*? (\d+\.\d) % [+-]\d+\.\d days", text)
+    assert struck and abs(float(struck.group(1)) / 100 - risk.probability) < 0.03   # 3,000 runs
+    assert "1 risk event adds delays" in text and "event(s)" not in text
+    summary = re.sub(r"\s+", " ", _text(reader, [found["Summary"]]))
+    assert f"Risk events, which PERT leaves out, also add delay: {risk.id}" in summary
+
+
+def test_a_rarely_critical_driver_is_explained_through_its_correlation_group():
+    from types import SimpleNamespace as NS
+    from workbench.core.model import CorrelationGroup
+    from workbench.reports.summary import _through_others
+    ctx = NS(plan=NS(correlations=[CorrelationGroup("Crew speed", ("X", "Y", "W"), 0.5)]))
+    shown = [NS(id="X", criticality=0.0, sensitivity=0.3), NS(id="Z", criticality=0.01, sensitivity=0.4),
+             NS(id="Y", criticality=0.6, sensitivity=0.3)]
+    note = _through_others(ctx, shown)
+    assert "X is rarely critical but its duration moves with Y, W ('Crew speed')" in note
+    assert "Z " not in note and "Y is" not in note

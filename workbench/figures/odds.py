@@ -367,8 +367,14 @@ def comparison_cells(rows, calendar, unit: str) -> list[tuple[str, str, str]]:
 def merge_bias_note(odds, result, unit: str) -> str:
     """One line on why the simulated finish is later than single-path PERT."""
     gap = float(np.mean(result.finish)) - float(odds.mean)
+    fired = [r for r in (getattr(result, "risk_report", None) or []) if r.get("fired")]
+    risks = ""
+    if fired:
+        named = ", ".join(f"{r['id']} ({r['fired'] * 100:.0f} % of runs)" for r in fired[:4])
+        more = f" and {len(fired) - 4} more" if len(fired) > 4 else ""
+        risks = f" Risk events, which PERT leaves out, also add delay: {named}{more}."
     if gap > 1e-6 * max(1.0, abs(odds.mean)):
         return (f"The simulated mean is {gap:.2f} {unit} later than PERT: the finish waits for "
-                "the latest of the paths that merge, and PERT follows only one of them.")
+                "the latest of the paths that merge, and PERT follows only one of them." + risks)
     return (f"The simulated mean is within {abs(gap):.2f} {unit} of PERT: no parallel path "
-            "competes noticeably with the one PERT follows.")
+            "competes noticeably with the one PERT follows." + risks)

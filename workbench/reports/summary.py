@@ -115,5 +115,22 @@ def drivers(ctx: PackContext, width: float) -> list:
     table = Table(rows, colWidths=[70, width - 230, 80, 80], hAlign="LEFT")
     table.setStyle(TableStyle([("LINEBELOW", (0, 0), (-1, -1), 0.25, styles.GRID)]))
     note = ("Criticality: share of simulation runs in which the activity was on the critical path. "
-            "Sensitivity: rank correlation between the activity's duration and the project finish.")
-    return story + [table, Spacer(1, 4), Paragraph(note, styles.SMALL)]
+            "Sensitivity: rank correlation between the activity's duration and the project finish."
+            + _through_others(ctx, top_drivers(ctx, DRIVERS_SHOWN)))
+    return story + [table, Spacer(1, 4), Paragraph(para(note), styles.SMALL)]
+
+
+def _through_others(ctx: PackContext, shown) -> str:
+    """Why a rarely critical activity can still correlate with the finish: its duration
+    moves with others' (a correlation group), and those drive the finish."""
+    notes = []
+    for d in shown:
+        if d.criticality >= 0.05 or abs(d.sensitivity) < 0.1:
+            continue
+        for group in ctx.plan.correlations:
+            if d.id in group.activities:
+                others = ", ".join(a for a in group.activities if a != d.id)
+                notes.append(f"{d.id} is rarely critical but its duration moves with {others} "
+                             f"('{group.name}'), so it correlates with the finish through them.")
+                break
+    return (" " + " ".join(notes)) if notes else ""
