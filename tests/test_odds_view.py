@@ -260,3 +260,14 @@ def test_the_answer_text_stays_inside_the_curve_plot(view, qtbot, width):
             assert box.left() - 4 <= text.left() and text.right() <= box.right() + 4, (typed, text, box)
         else:                                  # wider than the plot: from its left edge
             assert abs(text.left() - box.left()) <= 4, (typed, text, box)   # (the text's own margin)
+
+
+def test_a_result_shown_from_elsewhere_sets_the_run_boxes(view):
+    """The seed and iterations boxes show what produced the result on screen, so Run
+    repeats it; a box set to 'random' stays random."""
+    from workbench.core.montecarlo import simulate
+    view.session.set_simulation(simulate(view.session.plan, 700, seed=4321))
+    assert view.controls.iterations.value() == 700 and view.controls.seed_value() == 4321
+    view.controls.seed.setValue(view.controls.seed.minimum())          # 'random'
+    view.session.set_simulation(simulate(view.session.plan, 900, seed=55))
+    assert view.controls.iterations.value() == 900 and view.controls.seed_value() is None

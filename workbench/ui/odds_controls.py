@@ -49,6 +49,14 @@ class OddsControls(QGroupBox):
         box.addLayout(row)
         box.addWidget(self.status)
 
+    def follow(self, iterations: int, seed) -> None:
+        """Show the iterations and seed of a result shown from elsewhere (another window's
+        run, a file), so Run repeats it; a 'random' seed box stays random."""
+        if iterations:
+            self.iterations.setValue(int(min(max(iterations, self.iterations.minimum()), self.iterations.maximum())))
+        if seed is not None and self.seed_value() is not None:
+            self.seed.setValue(int(min(seed, self.seed.maximum())))
+
     def seed_value(self):
         value = self.seed.value()
         return None if value == RANDOM_SEED else value

@@ -94,6 +94,9 @@ class OddsView(QWidget):
 
     def _on_simulation_changed(self) -> None:
         take_simulation(self)
+        r = self.session.simulation
+        if r is not None:
+            self.controls.follow(getattr(r, "iterations", 0), getattr(r, "seed", None))
         self.when_shown.call(self._show_simulation)
 
     def refresh(self) -> None:
