@@ -271,3 +271,12 @@ def test_a_result_shown_from_elsewhere_sets_the_run_boxes(view):
     view.controls.seed.setValue(view.controls.seed.minimum())          # 'random'
     view.session.set_simulation(simulate(view.session.plan, 900, seed=55))
     assert view.controls.iterations.value() == 900 and view.controls.seed_value() is None
+
+
+def test_a_view_opened_after_a_run_shows_that_runs_seed(qtbot):
+    from workbench.core.montecarlo import simulate
+    session = Session(house_plan())
+    session.set_simulation(simulate(session.plan, 600, seed=808))
+    v = OddsView(session)
+    qtbot.addWidget(v)
+    assert v.controls.iterations.value() == 600 and v.controls.seed_value() == 808

@@ -39,6 +39,8 @@ class OddsView(QWidget):
         self._build()
         self._connect()
         self.result = session.simulation   # a view opened after a run shows it at once
+        if self.result is not None:
+            self.controls.follow(getattr(self.result, "iterations", 0), getattr(self.result, "seed", None))
         self.when_shown.call(self.refresh)
 
     # --- construction ----------------------------------------------------
