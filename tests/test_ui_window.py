@@ -114,6 +114,33 @@ def test_settings_dialog_reads_back_its_fields(window, qtbot):
     assert out.deadline == 40.0  # an offset deadline left alone stays an offset
     assert out.target_confidence == pytest.approx(0.85) and out.revision == "B"
     assert [(p.name, p.role) for p in out.sign_off] == [("A. Planner", "Sponsor")]
+    assert out.status_date is None and not dialog.status.isEnabled()
+
+
+def test_the_status_date_is_set_and_cleared_in_the_settings_and_drawn(window, ui_env, qtbot, tmp_path):
+    """The status date (progress as of) is set in Plan settings as one undo step; it draws
+    the Timeline's status line and reaches the pack's cover; undo clears both."""
+    from pypdf import PdfReader
+    from workbench.reports.pack import build_pack
+    from workbench.ui.settings_dialog import SettingsDialog, to_qdate
+    dialog = SettingsDialog(window.session.plan.settings)
+    qtbot.addWidget(dialog)
+    dialog.has_status.setChecked(True)
+    assert dialog.status.isEnabled()
+    dialog.status.setDate(to_qdate(dt.date(2026, 3, 20)))
+    ui_env.replies["edit_settings"] = dialog.result_settings()
+    window.menu_actions["settings"].trigger()
+    assert window.session.plan.settings.status_date == dt.date(2026, 3, 20)
+    window.show()
+    qtbot.waitExposed(window)
+    timeline = window.view("Timeline")
+    qtbot.waitUntil(lambda: timeline.geometry is not None)
+    assert "status" in timeline.geometry.lines and "status" in timeline.reference.lines
+    build_pack(window.session.plan, tmp_path / "p.pdf", iterations=0)
+    assert "2026-03-20" in PdfReader(str(tmp_path / "p.pdf")).pages[0].extract_text()
+    window.session.undo_stack.undo()
+    assert window.session.plan.settings.status_date is None
+    assert "status" not in timeline.geometry.lines
 
 
 def test_region_holidays_are_added_as_dates(window, qtbot):

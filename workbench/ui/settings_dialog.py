@@ -1,4 +1,5 @@
-"""Plan settings: title, start, unit, working week, holidays, deadline, odds, sign-off."""
+"""Plan settings: title, start, unit, working week, holidays, deadline, status date, odds,
+sign-off."""
 
 from __future__ import annotations
 
@@ -73,6 +74,12 @@ class SettingsDialog(QDialog):
         form.addRow("Start", self.start)
         form.addRow("Unit", self.unit)
         form.addRow(self.has_deadline, self.deadline)
+        self.has_status = QCheckBox("Status date (progress as of)", page)
+        self.status = _date_edit(page, "Status date", s.status_date or dt.date.today())
+        self.has_status.setChecked(s.status_date is not None)
+        self.status.setEnabled(s.status_date is not None)
+        self.has_status.toggled.connect(self.status.setEnabled)
+        form.addRow(self.has_status, self.status)
         self._odds_rows(page, form, s)
         return page
 
@@ -155,7 +162,8 @@ class SettingsDialog(QDialog):
             title=self.title.text().strip() or "Untitled plan", start=from_qdate(self.start.date()),
             unit=self.unit.currentText(), calendar=calendar,
             deadline=self._deadline_value(),
-            status_date=self.original.status_date, target_confidence=self.confidence.value() / 100.0,
+            status_date=from_qdate(self.status.date()) if self.has_status.isChecked() else None,
+            target_confidence=self.confidence.value() / 100.0,
             distribution=self.distribution.currentText(), revision=self.revision.text().strip(),
             prepared_by=self.prepared_by.text().strip(), sign_off=self._signatories())
 
