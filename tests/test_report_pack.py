@@ -239,3 +239,20 @@ def test_the_pdfs_own_creation_date_is_the_generation_time(pack):
     _, reader, _ = pack
     assert reader.metadata.creation_date.replace(tzinfo=dt.timezone.utc) == WHEN.replace(second=0)
     assert reader.metadata.modification_date.replace(tzinfo=dt.timezone.utc) == WHEN.replace(second=0)
+
+
+def test_a_timeline_page_that_starts_inside_a_group_names_it(tmp_path):
+    """Groups of 30 rows tiled across pages: a page whose first row belongs to a group
+    begun on an earlier page says which group continues there."""
+    plan = long_plan(150)
+    _, reader, _ = _build(plan, tmp_path)
+    found = _sections(reader)
+    timeline = range(found["Timeline"], found["Network"])
+    continued = [re.search(r"(Stage \d+) \(continued\)", _text(reader, n)) for n in timeline]
+    assert continued[0] is None                              # the first page starts with a group row
+    mid = [m.group(1) for m in continued[1:] if m]
+    assert mid, "no page starts inside a group"
+    for number, match in zip(timeline, continued):
+        if match:                                            # and it is the group of that page's first row
+            ids = [int(i) for i in re.findall(r"\bA(\d+)\b", _text(reader, number))]
+            assert match.group(1) == f"Stage {min(ids) // 30}"

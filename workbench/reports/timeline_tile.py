@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
+from reportlab.lib import colors
+
 from . import marks as mk
 from . import styles
 from .axes import Axes, text_width
@@ -175,8 +177,11 @@ class TimelineTile:
         c.setFont(styles.BOLD, 7.5)
         for name, offset in self.geo.lines.items():
             if name != "start" and self.spec.x_lo <= offset <= self.spec.x_hi:
+                text, x = name.capitalize(), ax.px(offset) + 2
+                c.setFillColor(colors.white)     # a backing: the finish row's P10-P90 line runs here
+                c.rect(x - 1, ax.y + 0.5, c.stringWidth(text, styles.BOLD, 7.5) + 2, 8.5, stroke=0, fill=1)
                 c.setFillColor(self.LINES[name][0])
-                c.drawString(ax.px(offset) + 2, ax.y + 2, name.capitalize())
+                c.drawString(x, ax.y + 2, text)
         c.restoreState()
 
     def _labels(self, ax: Axes) -> None:
@@ -189,7 +194,23 @@ class TimelineTile:
             c.setFont(font, LABEL_SIZE)
             c.setFillColor(styles.TEXT)
             c.drawString(indent, self.yc(ax, r) - LABEL_SIZE * 0.35, fit(geo.labels[r], LABEL_W - indent - 6, font, LABEL_SIZE))
+        group = self.continued_group()
+        if group is not None:            # the tile starts inside a group whose row is on the page before
+            c.setFont(styles.BOLD, LABEL_SIZE)
+            c.setFillColor(styles.MUTED)
+            c.drawString(4, ax.y + ax.h + 4, fit(f"{group} (continued)", LABEL_W - 10, styles.BOLD, LABEL_SIZE))
         c.restoreState()
+
+    def continued_group(self) -> str | None:
+        """The group the tile's first row belongs to, when that group's own row is on an
+        earlier tile."""
+        geo, first = self.geo, self.spec.row_lo
+        if first <= 0 or first >= len(geo.kinds) or int(geo.depth[first]) == 0:
+            return None
+        for r in range(first - 1, -1, -1):
+            if geo.kinds[r] == "group" and int(geo.depth[r]) < int(geo.depth[first]):
+                return geo.labels[r]
+        return None
 
     def _finish_label(self, ax: Axes) -> None:
         c = ax.canvas
