@@ -256,3 +256,26 @@ def test_a_timeline_page_that_starts_inside_a_group_names_it(tmp_path):
         if match:                                            # and it is the group of that page's first row
             ids = [int(i) for i in re.findall(r"\bA(\d+)\b", _text(reader, number))]
             assert match.group(1) == f"Stage {min(ids) // 30}"
+
+
+def test_network_detail_pages_name_the_boxes_links_lead_to_off_the_page(tmp_path):
+    """A link that leaves a detail page ends in a tag with the id of the box it leads to
+    ("-> B1"), or starts with the id it comes from ("A4 ->")."""
+    from workbench.core.demo import demo_plan
+    plan = demo_plan()
+    _, reader, _ = _build(plan, tmp_path)
+    found = _sections(reader)
+    details = [n for n in range(found["Network"] + 1, found["Odds"])]
+    assert len(details) >= 2
+    links = {(link.pred, link.succ) for link in plan.links}
+    tagged = 0
+    for number in details:
+        text = _text(reader, number)
+        ids = set(re.findall(r"\b([A-Z]\d+)\b", text))
+        for target in re.findall(r"-> ([A-Z]\d+)", text):
+            assert any((p, target) in links for p in ids), (number, target)
+            tagged += 1
+        for source in re.findall(r"\b([A-Z]\d+) ->", text):
+            assert any((source, s) in links for s in ids), (number, source)
+            tagged += 1
+    assert tagged >= len(details)

@@ -14,8 +14,8 @@ from . import styles
 from .tables import fit
 from .text import clean, format_number
 
-DETAIL_SCALE = 0.5     # points per layout unit preferred for the detail pages
-MIN_DETAIL_SCALE = 0.38  # smallest scale at which a box still shows its numbers (type has floors)
+DETAIL_SCALE = 0.6     # points per layout unit preferred for the detail pages (8 pt names)
+MIN_DETAIL_SCALE = 0.45   # smallest scale at which a box still shows its numbers (type has floors)
 
 
 @dataclass(frozen=True)
@@ -57,9 +57,44 @@ class NetworkPainter:
         links = [self.layout.links[k] for k in np.flatnonzero(seen)]
         for link in sorted(links, key=lambda l: l.critical):
             self._link(c, link, h)
+        shown = {node.id for node in self.layout.nodes if self._visible(node)}
         for node in self.layout.nodes:
-            if self._visible(node):
+            if node.id in shown:
                 self._node(c, node, h)
+        if self.detail and len(shown) < len(self.layout.nodes):
+            placed: list[tuple[str, float, float]] = []
+            for link in sorted(links, key=lambda l: not l.critical):
+                self._off_page_tag(c, link, shown, h, placed)
+        c.restoreState()
+
+    def _off_page_tag(self, c, link, shown: set[str], top: float, placed: list) -> None:
+        """Where a link leaves the page towards a box on another page (or comes from one),
+        the other box's id at the page edge: "→ B1" / "A4 →"."""
+        if (link.pred in shown) == (link.succ in shown):
+            return
+        leaving = link.pred in shown
+        points = link.points if leaving else link.points[::-1]
+        edge = _exit_point(points, self.view)
+        if edge is None:
+            return
+        x, y = self.view.page(*edge, top)
+        text = f"\u2192 {link.succ}" if leaving else f"{link.pred} \u2192"
+        size = 7.5
+        width = c.stringWidth(text, styles.BOLD, size)
+        page_w = self.view.w * self.view.scale
+        x = min(max(x - width / 2, 2.0), page_w - width - 2.0)
+        y = min(max(y - size / 2, top - self.view.h * self.view.scale + 2.0), top - size - 2.0)
+        if any(t == text and abs(px - x) < 40 and abs(py - y) < 14 for t, px, py in placed):
+            return                           # two links to the same box leave at the same place
+        placed.append((text, x, y))
+        c.saveState()
+        c.setFillColor(_WHITE)
+        c.setStrokeColor(styles.CRITICAL if link.critical else styles.MUTED)
+        c.setLineWidth(0.6)
+        c.rect(x - 2, y - 2, width + 4, size + 3, stroke=1, fill=1)
+        c.setFillColor(styles.TEXT)
+        c.setFont(styles.BOLD, size)
+        c.drawString(x, y, clean(text))
         c.restoreState()
 
     def _visible(self, node) -> bool:
@@ -126,13 +161,13 @@ class NetworkPainter:
 
     def _body_text(self, c, node, x, y_top, w, h) -> None:
         s, i = self.ctx.analysis.schedule, node.row
-        name_size = max(6.5, min(8.0, 16 * self.view.scale))
+        name_size = max(7.0, min(9.0, 14 * self.view.scale))
         c.setFillColor(styles.TEXT)
         c.setFont(styles.FONT, name_size)
         c.drawString(x + 3, y_top - name_size * 1.2, fit(self.ctx.plan.activities[i].name, w - 6, styles.FONT, name_size))
         cells = (("ES", s.es[i]), ("EF", s.ef[i]), ("TF", s.total_float[i]),
                  ("LS", s.ls[i]), ("LF", s.lf[i]), ("FF", s.free_float[i]))
-        num = max(6.0, min(7.5, 14 * self.view.scale))
+        num = max(7.0, min(8.5, 13 * self.view.scale))
         grid_top = y_top - name_size * 1.9
         row_h, col_w = (grid_top - (y_top - h)) / 2, w / 3
         c.setStrokeColor(styles.GRID)
@@ -149,6 +184,22 @@ class NetworkPainter:
             c.setFont(styles.BOLD, num)
             c.setFillColor(styles.DEADLINE if label == "TF" and value < -1e-9 else styles.TEXT)
             c.drawRightString(cx + col_w - 2, cy + row_h * 0.3, format_number(value))
+
+
+def _exit_point(points, view: View):
+    """The first point where a route (from inside the view) crosses the view's edge."""
+    x0, y0, x1, y1 = view.x0, view.y0, view.x0 + view.w, view.y0 + view.h
+    inside = lambda p: x0 <= p[0] <= x1 and y0 <= p[1] <= y1
+    for a, b in zip(points, points[1:]):
+        if inside(a) and not inside(b):
+            t = 1.0
+            for lo, hi, pa, pb in ((x0, x1, a[0], b[0]), (y0, y1, a[1], b[1])):
+                if pb > hi:
+                    t = min(t, (hi - pa) / (pb - pa))
+                elif pb < lo:
+                    t = min(t, (lo - pa) / (pb - pa))
+            return a[0] + t * (b[0] - a[0]), a[1] + t * (b[1] - a[1])
+    return None
 
 
 def _label_box(c, x, y, width, size, text, font) -> None:
