@@ -280,3 +280,19 @@ def test_a_view_opened_after_a_run_shows_that_runs_seed(qtbot):
     v = OddsView(session)
     qtbot.addWidget(v)
     assert v.controls.iterations.value() == 600 and v.controls.seed_value() == 808
+
+
+@pytest.mark.parametrize("size, stacked", [((1400, 900), False), ((600, 900), True), ((600, 400), False)])
+def test_a_narrow_tall_view_puts_the_panel_under_the_curves(view, qtbot, size, stacked):
+    """In a narrow, tall dock the curves keep the whole width and the panel goes below;
+    a short one keeps them side by side (the curves would be too flat otherwise)."""
+    from PySide6.QtCore import Qt
+    view.resize(*size)
+    view.show()
+    qtbot.waitExposed(view)
+    qtbot.wait(10)
+    vertical = view.splitter.orientation() == Qt.Orientation.Vertical
+    assert vertical == stacked
+    if stacked:
+        assert view.plot.width() >= view.width() - 20
+        assert view.plot.height() >= 0.4 * view.height()

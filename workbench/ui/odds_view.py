@@ -18,6 +18,10 @@ from workbench.ui.odds_runner import OddsRunner
 from workbench.ui.session import WhenShown, take_simulation
 
 
+STACK_BELOW_PX = 820        # narrower than this (and tall enough), the panel goes under the curves
+STACK_MIN_HEIGHT_PX = 700
+
+
 class OddsView(QWidget):
     """Finish-time odds for the session's plan (see module doc)."""
 
@@ -311,9 +315,17 @@ class OddsView(QWidget):
 
     def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
         super().resizeEvent(event)
+        # narrow and tall (a dock at the side): the panel goes under the curves, which then
+        # keep the whole width; otherwise beside them
+        stacked = self.width() < STACK_BELOW_PX and self.height() >= STACK_MIN_HEIGHT_PX
+        orientation = Qt.Orientation.Vertical if stacked else Qt.Orientation.Horizontal
+        if self.splitter.orientation() != orientation:
+            self.splitter.setOrientation(orientation)
+            self._user_split = False
         if not self._user_split:  # the panel takes ~30 % (400–600 px) until the user drags
-            side = max(400, min(600, int(0.3 * self.width())))
-            self.splitter.setSizes([max(1, self.width() - side), side])
+            length = self.height() if stacked else self.width()
+            side = max(300 if stacked else 400, min(600, int((0.45 if stacked else 0.3) * length)))
+            self.splitter.setSizes([max(1, length - side), side])
 
     def _on_run_cancelled(self) -> None:
         self.controls.set_done(False)
