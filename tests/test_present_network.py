@@ -10,19 +10,14 @@ from workbench.reports import styles
 from workbench.ui import present_canvas
 from workbench.ui.present_network_slide import ID_PX, PresentNetworkSlide
 from workbench.ui.present_shots import _plan
-from workbench.ui.present_window import PresentWindow
 from workbench.ui.session import Session
+
+from test_ui_support import present_at
 
 
 @pytest.fixture
 def shown(qtbot):
-    session = Session(_plan(None))
-    win = PresentWindow(session)
-    qtbot.addWidget(win)
-    win.resize(1024, 768)
-    win.show()
-    qtbot.waitExposed(win)
-    win.go(2)
+    win = present_at(qtbot, Session(_plan(None)), 2)
     slide = win.stack.currentWidget()
     assert isinstance(slide, PresentNetworkSlide)
     return win, slide

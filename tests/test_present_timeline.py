@@ -11,8 +11,9 @@ from PySide6.QtCore import Qt
 from workbench.core.montecarlo import simulate
 from workbench.figures import style
 from workbench.ui.present_shots import _plan
-from workbench.ui.present_window import PresentWindow
 from workbench.ui.session import Session
+
+from test_ui_support import present_at
 from workbench.ui.timeline_present import group_names
 
 
@@ -27,12 +28,7 @@ def slide(qtbot, demo):
     plan, sim = demo
     session = Session(plan.copy())
     session.set_simulation(sim)
-    win = PresentWindow(session)
-    qtbot.addWidget(win)
-    win.resize(1024, 768)
-    win.show()
-    qtbot.waitExposed(win)
-    win.go(1)
+    win = present_at(qtbot, session, 1)
     qtbot.wait(20)
     view = win.stack.currentWidget()
     assert win.current_title() == "Timeline"

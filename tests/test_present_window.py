@@ -10,13 +10,14 @@ from PySide6.QtGui import QColor
 from PySide6.QtWidgets import QWidget
 
 from test_report_plans import footbridge_plan
+from test_ui_support import present_at
 from workbench.core.commands import EditActivity
 from workbench.figures import style
 from workbench.figures.odds import format_probability
 from workbench.ui.present_odds_slide import PresentOddsSlide
 from workbench.ui.present_summary_slide import summary_lines
 from workbench.ui.present_chart_slide import session_context
-from workbench.ui.present_window import PresentWindow, open_present
+from workbench.ui.present_window import open_present
 from workbench.ui.session import Session
 
 TITLES = ["Summary", "Timeline", "Network", "Odds", "Drivers"]
@@ -24,13 +25,7 @@ TITLES = ["Summary", "Timeline", "Network", "Odds", "Drivers"]
 
 @pytest.fixture
 def window(qtbot):
-    session = Session(footbridge_plan())
-    win = PresentWindow(session)
-    qtbot.addWidget(win)
-    win.resize(1024, 768)
-    win.show()
-    qtbot.waitExposed(win)
-    return win
+    return present_at(qtbot, Session(footbridge_plan()))
 
 
 def _titles(win):
@@ -168,11 +163,7 @@ def test_network_slide_shows_critical_nodes_in_the_critical_colour(window):
 
 def test_unschedulable_plan_shows_a_message_not_a_crash(qtbot):
     from workbench.core.model import Plan, Settings
-    session = Session(Plan(Settings(title="Empty")))
-    win = PresentWindow(session)
-    qtbot.addWidget(win)
-    win.resize(1024, 768)
-    win.show()
+    win = present_at(qtbot, Session(Plan(Settings(title="Empty"))))
     for _ in range(win.slide_count()):
         win.grab()
         win.next_slide()

@@ -86,3 +86,16 @@ def window(ui_env, qtbot):
     win.close()
     win.deleteLater()
     qtbot.wait(1)
+
+
+def present_at(qtbot, session, slide: int = 0):
+    """Present mode shown on a 1024×768 projector, at slide number ``slide``."""
+    from workbench.ui.present_window import PresentWindow
+    win = PresentWindow(session)
+    qtbot.addWidget(win)
+    win.resize(1024, 768)
+    win.show()
+    qtbot.waitExposed(win)
+    if slide:
+        win.go(slide)
+    return win
