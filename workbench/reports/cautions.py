@@ -7,6 +7,7 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 from . import styles
 from .context import PackContext
 from .layout import Section
+from .tables import fit
 from .text import para
 
 RISK_HEAD = ("Risk event", "Chance", "Delay if it happens\n(a / m / b)", "On activities", "Happened\nin runs",
@@ -63,7 +64,6 @@ def risk_table(ctx: PackContext, width: float) -> list:
     risks = list(ctx.plan.risks)
     if not risks:
         return []
-    from .tables import fit
     report = {r["id"]: r for r in (getattr(ctx.simulation, "risk_report", None) or [])}
     widths = [width * share for share in RISK_SHARES]
     unit = ctx.unit

@@ -108,7 +108,8 @@ def drivers(ctx: PackContext, width: float) -> list:
         return story + [Paragraph("No simulation was run, so no drivers are ranked.", styles.BODY)]
     head = ["Activity", "Name", "Criticality", "Sensitivity"]
     rows = [[Paragraph(f"<b>{h}</b>", styles.CELL) for h in head]]
-    for d in top_drivers(ctx, DRIVERS_SHOWN):
+    shown = top_drivers(ctx, DRIVERS_SHOWN)
+    for d in shown:
         rows.append([Paragraph(para(d.id), styles.CELL_BOLD), Paragraph(para(ctx.name_of(d.id)), styles.CELL),
                      Paragraph(format_percent(d.criticality), styles.CELL),
                      Paragraph(f"{d.sensitivity:+.2f}", styles.CELL)])
@@ -116,7 +117,7 @@ def drivers(ctx: PackContext, width: float) -> list:
     table.setStyle(TableStyle([("LINEBELOW", (0, 0), (-1, -1), 0.25, styles.GRID)]))
     note = ("Criticality: share of simulation runs in which the activity was on the critical path. "
             "Sensitivity: rank correlation between the activity's duration and the project finish."
-            + _through_others(ctx, top_drivers(ctx, DRIVERS_SHOWN)))
+            + _through_others(ctx, shown))
     return story + [table, Spacer(1, 4), Paragraph(para(note), styles.SMALL)]
 
 

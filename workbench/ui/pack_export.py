@@ -31,8 +31,7 @@ def default_paper() -> str:
 
 def run_settings(window) -> tuple[int, int | None]:
     """Iterations and seed for a new simulation: the Odds view's, when it is there."""
-    view = window.view("Odds") if hasattr(window, "view") else None
-    controls = getattr(view, "controls", None)
+    controls = getattr(window.view("Odds"), "controls", None)     # None: a placeholder stands there
     if controls is None:
         return DEFAULT_ITERATIONS, None
     return int(controls.iterations.value()), controls.seed_value()

@@ -28,7 +28,7 @@ def usable(px, w: style.Weights, bands: dict, dense_row_px: float) -> bool:
     """True when the fused route applies to this paint."""
     edges = (w.bar_outline * px.scale, w.critical_outline * px.scale)
     return (_LAYERS[0] is not None and px.raster and px.row_px >= dense_row_px
-            and px._x[0] > 0.0 and px._x[1] == 0.0 and px._y[0] == 0.0
+            and px.x_affine[0] > 0.0 and px.x_affine[1] == 0.0 and px.y_affine[0] == 0.0
             and all(e in bands and bands[e][4] <= MIN_BAR_PX for e in edges))
 
 
@@ -41,8 +41,8 @@ def draw_float_and_bars(p: QPainter, px, marks: dict, w: style.Weights, h: float
     if not nf + nw + nc:
         return
     s = px.scale
-    ax, _, bx = px._x
-    _, ay, by = px._y
+    ax, _, bx = px.x_affine
+    _, ay, by = px.y_affine
     lo, hi = px.clip
     # spans: slack lines then bars, each from x0 to x1, culled and cut at the view's edges
     left = np.concatenate((fl.x0, wk.x0, cr.x0))

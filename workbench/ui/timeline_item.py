@@ -33,19 +33,20 @@ class _Pixels:
         self.scale = scale                      # device pixels per screen pixel (print/export)
         self.row_px = abs(transform.m22())      # pixels per row
         self.unit_px = abs(transform.m11())     # pixels per plan unit
-        self._x = (transform.m11(), transform.m21(), transform.m31())   # asked of Qt once
-        self._y = (transform.m12(), transform.m22(), transform.m32())
+        # x = a·offset + shear·row + b and y = shear·offset + a·row + b, asked of Qt once
+        self.x_affine = (transform.m11(), transform.m21(), transform.m31())
+        self.y_affine = (transform.m12(), transform.m22(), transform.m32())
         ends = sorted(float(v) for v in self.x(xs)) if xs is not None else (-1e6, 1e6)
         self.clip = (ends[0] - 16.0, ends[1] + 16.0)   # marks beyond these pixels are culled
 
     def x(self, x, row=0.0):
-        a, shear, b = self._x
+        a, shear, b = self.x_affine
         if shear == 0.0:                 # no rotation or shear: the usual case, cheaper
             return a * np.asarray(x, float) + b
         return a * np.asarray(x, float) + shear * np.asarray(row, float) + b
 
     def y(self, row, x=0.0):
-        shear, a, b = self._y
+        shear, a, b = self.y_affine
         if shear == 0.0:
             return a * np.asarray(row, float) + b
         return shear * np.asarray(x, float) + a * np.asarray(row, float) + b
