@@ -69,7 +69,7 @@ class NetworkPainter:
 
     def _off_page_tag(self, c, link, shown: set[str], top: float, placed: list) -> None:
         """Where a link leaves the page towards a box on another page (or comes from one),
-        the other box's id at the page edge: "→ B1" / "A4 →"."""
+        the other box's id at the page edge: "-> B1" / "A4 ->"."""
         if (link.pred in shown) == (link.succ in shown):
             return
         leaving = link.pred in shown
@@ -78,7 +78,7 @@ class NetworkPainter:
         if edge is None:
             return
         x, y = self.view.page(*edge, top)
-        text = f"\u2192 {link.succ}" if leaving else f"{link.pred} \u2192"
+        text = clean(f"-> {link.succ}" if leaving else f"{link.pred} ->")   # the pack's fonts have no arrow glyph
         size = 7.5
         width = c.stringWidth(text, styles.BOLD, size)
         page_w = self.view.w * self.view.scale
@@ -94,7 +94,7 @@ class NetworkPainter:
         c.rect(x - 2, y - 2, width + 4, size + 3, stroke=1, fill=1)
         c.setFillColor(styles.TEXT)
         c.setFont(styles.BOLD, size)
-        c.drawString(x, y, clean(text))
+        c.drawString(x, y, text)
         c.restoreState()
 
     def _visible(self, node) -> bool:

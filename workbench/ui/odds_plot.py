@@ -243,7 +243,6 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                 line.setValue(x)
                 line.label.setFormat(text)
 
-
     def _keep_answer_inside(self, x: float) -> None:
         """Put the PERT answer's text on the side of its diamond with room for it; in a
         plot too narrow for either side, centre it over the diamond."""

@@ -43,8 +43,7 @@ class OddsView(QWidget):
         self._build()
         self._connect()
         self.result = session.simulation   # a view opened after a run shows it at once
-        if self.result is not None:
-            self.controls.follow(getattr(self.result, "iterations", 0), getattr(self.result, "seed", None))
+        self._follow_run()
         self.when_shown.call(self.refresh)
 
     # --- construction ----------------------------------------------------
@@ -100,10 +99,14 @@ class OddsView(QWidget):
 
     def _on_simulation_changed(self) -> None:
         take_simulation(self)
+        self._follow_run()
+        self.when_shown.call(self._show_simulation)
+
+    def _follow_run(self) -> None:
+        """The run boxes show what produced the result on screen (so Run repeats it)."""
         r = self.session.simulation
         if r is not None:
             self.controls.follow(getattr(r, "iterations", 0), getattr(r, "seed", None))
-        self.when_shown.call(self._show_simulation)
 
     def refresh(self) -> None:
         """Redraw everything from the session's analysis."""
