@@ -14,11 +14,12 @@ from workbench.io.planfile import (FORMAT, VERSION, PlanFileError, dumps, load_p
 DATA = Path(__file__).parent / "data"
 V1 = DATA / "harbour_kiosk_v1.slw"
 V2 = DATA / "harbour_kiosk_v2.slw"
+V3 = DATA / "harbour_kiosk_v3.slw"
 
 
 @pytest.fixture
 def kiosk():
-    return load_plan(V2)
+    return load_plan(V3)
 
 
 @pytest.fixture
@@ -55,7 +56,11 @@ def test_dict_round_trip_is_exact(data):
 
 
 def test_stored_file_text_round_trips_byte_for_byte(kiosk):
-    assert dumps(kiosk) == V2.read_text(encoding="utf-8")
+    assert dumps(kiosk) == V3.read_text(encoding="utf-8")
+
+
+def test_version_2_sample_upgrades_to_the_version_3_sample():
+    assert dumps(load_plan(V2)) == V3.read_text(encoding="utf-8")
 
 
 def test_awkward_floats_are_kept_exactly(tmp_path):

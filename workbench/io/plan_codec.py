@@ -58,7 +58,7 @@ def activity_to_dict(a: Activity) -> dict:
 
 
 def plan_to_dict(plan: Plan) -> dict:
-    """The whole plan as JSON-ready data in the current layout (version 2)."""
+    """The whole plan as JSON-ready data in the current layout (``VERSION``)."""
     return {
         "format": FORMAT, "version": VERSION,
         "settings": settings_to_dict(plan.settings),

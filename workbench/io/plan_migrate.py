@@ -10,7 +10,14 @@ list ``"estimate": [a, m, b]``, predecessors as text per activity (``"after": "A
 an untagged deadline (a number is an offset, a ``YYYY-MM-DD`` string a date); no risks,
 correlations, constraints or sign-off list.
 
-Version 2 (current): see ``plan_codec``.
+Version 2: version 1's content in the tagged layout of ``plan_codec``, with risks,
+correlations, constraints and a sign-off list.
+
+Version 3 (current): version 2 plus the living-schedule, cost and resource sections
+(progress, baselines, odds trend, costs and crash estimates, resources, checkup
+thresholds). Each section is optional in the data ``plan_codec`` reads and always
+written; the upgrade from 2 adds each section's empty form, one step per section
+(``V3_STEPS``).
 """
 
 from __future__ import annotations
@@ -22,7 +29,7 @@ from .fields import Fields, parse_iso_date, show
 from .predecessors import parse_predecessors
 
 FORMAT = "slackline-workbook"
-VERSION = 2
+VERSION = 3
 
 
 def file_version(data) -> int:
@@ -107,4 +114,17 @@ def upgrade_1_to_2(data: dict) -> dict:
             "risks": [], "correlations": []}
 
 
-UPGRADES = {1: upgrade_1_to_2}
+# --- version 2 → 3 ---------------------------------------------------------------
+# One step per section that version 3 adds; each takes version-2 data (a dict) and returns
+# it with that section's empty form filled in.
+V3_STEPS: list = []
+
+
+def upgrade_2_to_3(data: dict) -> dict:
+    data = dict(data, version=3)
+    for step in V3_STEPS:
+        data = step(data)
+    return data
+
+
+UPGRADES = {1: upgrade_1_to_2, 2: upgrade_2_to_3}
