@@ -6,7 +6,7 @@ import pytest
 
 from workbench.core import Activity, Link, Plan, Settings
 from workbench.core.checkup import run_checkup
-from workbench.core.checkup_cpt import MAX_TESTED
+from workbench.core.checkup_cpt import MAX_VERIFIED as MAX_TESTED
 
 from test_checkup_metrics import START, chain_plan
 

@@ -64,3 +64,27 @@ def test_every_check_has_a_status_and_offenders_are_plan_ids(plan):
         assert check.status in ("pass", "fail", "n/a")
         assert set(check.offenders) <= ids
     assert checkup.count("pass") + checkup.count("fail") == checkup.applicable
+
+
+@st.composite
+def mixed_networks(draw):
+    """All four link types, lags of either sign, some start-no-earlier floors."""
+    n = draw(st.integers(2, 12))
+    acts = [Activity(f"T{i}", duration=float(draw(st.integers(0, 15))),
+                     start_no_earlier=draw(st.one_of(st.none(), st.floats(0, 30))))
+            for i in range(n)]
+    links = []
+    for j in range(1, n):
+        for i in draw(st.sets(st.integers(0, j - 1), max_size=3)):
+            links.append(Link(f"T{i}", f"T{j}", draw(st.sampled_from(["FS", "SS", "FF", "SF"])),
+                              float(draw(st.integers(-4, 6)))))
+    return Plan(Settings(start=dt.date(2027, 1, 4)), acts, links)
+
+
+@settings(max_examples=80, deadline=None)
+@given(mixed_networks(), st.sampled_from([600.0, 5000.0]))
+def test_the_one_pass_moves_equal_the_engine_for_a_large_delay(plan, delay):
+    from workbench.core.checkup_cpt import quick_moves
+    frame = frame_for(plan)
+    crit = np.flatnonzero(frame.schedule.critical)
+    assert np.allclose(quick_moves(frame, crit, delay), finish_moves(frame, crit, delay), atol=1e-6)
