@@ -8,7 +8,7 @@ from workbench.core.commands import EditActivity
 from workbench.core.montecarlo import simulate
 from workbench.figures import drivers as fdr
 from workbench.figures import style
-from workbench.ui.drivers_view import DriversView
+from workbench.ui.drivers.view import DriversView
 from workbench.ui.session import Session
 
 from test_odds_view import house_plan

@@ -8,7 +8,7 @@ from PySide6.QtTest import QTest
 from workbench.core.commands import EditActivity
 from workbench.core.model import Activity, Link, Plan, Settings
 from workbench.figures import style
-from workbench.ui.network_view import NetworkView
+from workbench.ui.network.view import NetworkView
 from workbench.ui.session import Session
 
 
@@ -135,7 +135,7 @@ def test_a_loop_shows_a_message_instead_of_a_drawing(qtbot):
 def test_print_routine_writes_a_page(view, tmp_path):
     from PySide6.QtPrintSupport import QPrinter
 
-    from workbench.ui.network_export import print_pages
+    from workbench.ui.network.export import print_pages
 
     printer = QPrinter(QPrinter.HighResolution)
     printer.setOutputFormat(QPrinter.PdfFormat)
@@ -192,7 +192,7 @@ def test_a_large_network_prints_on_several_pages(qtbot, tmp_path):
     from pypdf import PdfReader
     from PySide6.QtPrintSupport import QPrinter
 
-    from workbench.ui.network_export import print_pages
+    from workbench.ui.network.export import print_pages
 
     acts = [Activity(id=f"K{i}", name=f"step {i}", duration=1.0) for i in range(60)]
     links = [Link(f"K{i}", f"K{i + 1}") for i in range(59)]

@@ -6,8 +6,8 @@ import pytest
 from workbench.core.commands import EditActivity, SetLinks
 from workbench.core.model import Link
 from workbench.figures.network_layout import layout_plan
-from workbench.ui import network_view
-from workbench.ui.network_view import NetworkView
+from workbench.ui.network import view as network_view
+from workbench.ui.network.view import NetworkView
 from workbench.ui.session import Session
 
 from test_network_view import small_plan

@@ -11,7 +11,7 @@ from scipy.stats import norm
 from workbench.core.commands import EditActivity, SetPredecessors
 from workbench.core.model import Activity, Link, Plan, Settings
 from workbench.figures import odds as fo
-from workbench.ui.odds_view import OddsView
+from workbench.ui.odds.view import OddsView
 from workbench.ui.session import Session
 
 # House-building bid, Hillier & Lieberman (reference R1); three-point estimates [memory]

@@ -7,9 +7,9 @@ import pytest
 from PySide6.QtCore import Qt
 
 from workbench.reports import styles
-from workbench.ui import present_canvas
-from workbench.ui.present_network_slide import ID_PX, PresentNetworkSlide
-from workbench.ui.present_shots import _plan
+from workbench.ui.present import canvas as present_canvas
+from workbench.ui.present.network_slide import ID_PX, PresentNetworkSlide
+from workbench.ui.present.shots import _plan
 from workbench.ui.session import Session
 
 from test_ui_support import present_at

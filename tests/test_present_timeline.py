@@ -10,11 +10,11 @@ from PySide6.QtCore import Qt
 
 from workbench.core.montecarlo import simulate
 from workbench.figures import style
-from workbench.ui.present_shots import _plan
+from workbench.ui.present.shots import _plan
 from workbench.ui.session import Session
 
 from test_ui_support import present_at
-from workbench.ui.timeline_present import group_names
+from workbench.ui.timeline.present import group_names
 
 
 @pytest.fixture(scope="module")

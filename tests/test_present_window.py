@@ -14,10 +14,10 @@ from test_ui_support import present_at
 from workbench.core.commands import EditActivity
 from workbench.figures import style
 from workbench.figures.odds import format_probability
-from workbench.ui.present_odds_slide import PresentOddsSlide
-from workbench.ui.present_summary_slide import summary_lines
-from workbench.ui.present_chart_slide import session_context
-from workbench.ui.present_window import open_present
+from workbench.ui.present.odds_slide import PresentOddsSlide
+from workbench.ui.present.summary_slide import summary_lines
+from workbench.ui.present.chart_slide import session_context
+from workbench.ui.present.window import open_present
 from workbench.ui.session import Session
 
 TITLES = ["Summary", "Timeline", "Network", "Odds", "Drivers"]

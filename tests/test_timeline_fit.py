@@ -11,8 +11,8 @@ from PySide6.QtTest import QTest
 
 from workbench.core import Activity, Link, Plan, Settings
 from workbench.ui.session import Session
-from workbench.ui.timeline_output import render_image
-from workbench.ui.timeline_view import TimelineView
+from workbench.ui.timeline.output import render_image
+from workbench.ui.timeline.view import TimelineView
 
 PROJECTOR = (1024, 768)
 

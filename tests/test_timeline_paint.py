@@ -17,8 +17,8 @@ from workbench.core import Activity, Link, Plan, Settings
 from workbench.core.commands import EditActivity
 from workbench.figures.timeline import Marks
 from workbench.ui.session import Session
-from workbench.ui.timeline_paint import merge_runs, visible_x
-from workbench.ui.timeline_view import TimelineView
+from workbench.ui.timeline.paint import merge_runs, visible_x
+from workbench.ui.timeline.view import TimelineView
 
 
 def chain_plan(n: int) -> Plan:
@@ -156,7 +156,7 @@ def test_a_hidden_timeline_redraws_only_once_shown(qtbot):
 
 def test_label_atlas_draws_each_label_once_and_starts_afresh_when_full(qtbot):
     from PySide6.QtGui import QColor, QFont
-    from workbench.ui.timeline_label_atlas import TimelineLabelAtlas
+    from workbench.ui.timeline.label_atlas import TimelineLabelAtlas
     atlas = TimelineLabelAtlas()
     font = QFont()
     font.setPixelSize(14)
@@ -176,7 +176,7 @@ def test_label_atlas_draws_each_label_once_and_starts_afresh_when_full(qtbot):
 
 def test_label_atlas_holds_a_screen_taller_than_its_usual_size(qtbot):
     from PySide6.QtGui import QColor, QFont
-    from workbench.ui.timeline_label_atlas import MAX_HEIGHT_PX, TimelineLabelAtlas
+    from workbench.ui.timeline.label_atlas import MAX_HEIGHT_PX, TimelineLabelAtlas
     atlas = TimelineLabelAtlas()
     n = MAX_HEIGHT_PX // 10
     slots = atlas.slots_for([(f"R{i}", 80, False) for i in range(n)], QFont(), QColor("black"), 90.0, 20.0, 2.0)
@@ -243,7 +243,7 @@ def test_row_label_slots_follow_a_new_type_size(view):
 def test_batched_rectangles_match_one_by_one_drawing_as_the_array_grows(qtbot):
     from PySide6.QtCore import QRectF
     from PySide6.QtGui import QColor, QPainter
-    from workbench.ui.timeline_paint import rects
+    from workbench.ui.timeline.paint import rects
     rng = np.random.default_rng(3)
     for n in (5, 70, 700):                        # grows past its first allocations
         x, y = rng.integers(0, 380, n).astype(float), rng.integers(0, 280, n).astype(float)
@@ -267,7 +267,7 @@ def test_batched_rectangles_match_one_by_one_drawing_as_the_array_grows(qtbot):
 @pytest.mark.parametrize("width", [1.0, 2.5])
 def test_outlines_by_fills_match_stroked_outlines(qtbot, width):
     from PySide6.QtGui import QColor, QPainter
-    from workbench.ui.timeline_paint import colour_of, outlined_by_fills, pen, rects
+    from workbench.ui.timeline.paint import colour_of, outlined_by_fills, pen, rects
     rng = np.random.default_rng(int(width * 10))
     n = 120
     x = rng.integers(0, 300, n).astype(float) + rng.choice([0.0, 0.3, 0.5, 0.7], n)
@@ -310,7 +310,7 @@ def test_slack_lines_and_bars_in_one_pass_match_drawing_each_style(qtbot, monkey
     """The fused route for slack lines and bars gives the very pixels of the per-style
     route, with bars cut at the view's edges, bars under one pixel wide (stroked) and
     several row pitches."""
-    from workbench.ui import timeline_fused
+    from workbench.ui.timeline import fused as timeline_fused
     v = TimelineView(Session(mixed_plan(80, seed)))
     qtbot.addWidget(v)
     v.resize(1000, 640)
@@ -347,8 +347,8 @@ def test_both_routes_agree_on_bars_at_half_pixels_and_under_a_pixel(qtbot, scale
     per-style route give the same pixels, and every bar covers at least one pixel."""
     from PySide6.QtGui import QColor, QPainter, QTransform
     from workbench.figures import style
-    from workbench.ui import timeline_paint
-    from workbench.ui.timeline_item import _Pixels
+    from workbench.ui.timeline import paint as timeline_paint
+    from workbench.ui.timeline.item import _Pixels
     starts = np.arange(40) * 7.0 + 10.5                      # device x on half pixels
     widths = np.resize([0.05, 0.3, 0.5, 0.99, 1.0, 1.5, 2.5, 7.5], starts.size)
     rows = np.arange(starts.size)

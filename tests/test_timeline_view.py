@@ -13,8 +13,8 @@ from workbench.core.commands import EditActivity
 from workbench.figures import style
 from workbench.figures.timeline import dragged_estimate
 from workbench.ui.session import Session
-from workbench.ui.timeline_output import export_pdf, export_svg, render_image
-from workbench.ui.timeline_view import TimelineView
+from workbench.ui.timeline.output import export_pdf, export_svg, render_image
+from workbench.ui.timeline.view import TimelineView
 
 
 def small_plan(deadline=None):
@@ -214,7 +214,7 @@ def test_keyboard_zoom_and_pan(view):
 
 
 def test_tooltip_names_dates_and_floats(view):
-    from workbench.ui.timeline_tooltip import tooltip_text
+    from workbench.ui.timeline.tooltip import tooltip_text
     text = tooltip_text(view.session.analysis, None, "D")
     assert text.startswith("D  Paint")
     # D follows B (te (1 + 8 + 9) / 6 = 3): starts on the fourth working day, Thu 10 Dec,
@@ -267,8 +267,8 @@ def test_negative_float_mark_in_the_deadline_colour(qtbot):
     k = v.geometry.keys.index("C")
     hit = np.flatnonzero(m.rows == k)[0]
     x = (m.x0[hit] + m.x1[hit]) / 2
-    from workbench.ui.timeline_item import _Pixels
-    from workbench.ui.timeline_paint import bar_height
+    from workbench.ui.timeline.item import _Pixels
+    from workbench.ui.timeline.paint import bar_height
     h = bar_height(_Pixels(v.item.deviceTransform_(), 1.0), style.SCREEN)
     centre = to_px(v, x, k)
     below = QPoint(centre.x(), round(centre.y() + h / 2 + 2.5))   # the dashed miss line under the bar
@@ -290,7 +290,7 @@ def test_simulation_adds_the_finish_band_and_criticality(view):
     view.session.set_simulation(FakeResult(ids, np.linspace(11, 16, 51)))
     assert view.reference.band.scene() is not None
     assert view.reference.band.getRegion() == pytest.approx((11.5, 15.5))
-    from workbench.ui.timeline_tooltip import tooltip_text
+    from workbench.ui.timeline.tooltip import tooltip_text
     assert "criticality 50% (simulated)" in tooltip_text(view.session.analysis, view.session.simulation, "C")
     view.session.set_simulation(None)
     assert view.reference.band.scene() is None
@@ -381,7 +381,7 @@ def test_svg_lines_up_with_the_screen(view, tmp_path):
 
 def test_nonworking_stretches_found_between_working_days():
     from workbench.core import WorkCalendar
-    from workbench.ui.timeline_item import nonworking_finder
+    from workbench.ui.timeline.item import nonworking_finder
     cal = WorkCalendar(Settings(start=dt.date(2026, 12, 7)))      # a Monday
     # Weekends fall after the 5th and 10th working day; 25 Dec 2026 (a Friday) is a
     # working day unless it is listed as a holiday.
@@ -409,7 +409,7 @@ def test_drag_released_where_it_started_leaves_no_undo_step(view):
 
 
 def test_dense_spans_merge_per_pixel_row_without_losing_coverage():
-    from workbench.ui.timeline_paint import merge_runs
+    from workbench.ui.timeline.paint import merge_runs
     rng = np.random.default_rng(3)
     x0 = rng.uniform(0, 300, 400)
     x1 = x0 + rng.uniform(0, 40, 400)

@@ -12,7 +12,7 @@ LAUNCH = textwrap.dedent("""
     import sys
     from PySide6.QtCore import QTimer
     from PySide6.QtWidgets import QApplication
-    from workbench.ui.app import application, run_app
+    from workbench.ui.workspace.app import application, run_app
 
     def report():
         QApplication.processEvents()
@@ -48,7 +48,7 @@ def test_file_argument_opens_it_then_it_is_the_last_plan(tmp_path):
 
 
 def test_first_run_shows_the_demo_plan(tmp_path):
-    from workbench.ui.app import demo_plan
+    from workbench.ui.workspace.app import demo_plan
     demo = demo_plan()
     out = launch(tmp_path)
     assert out["COUNT"].startswith(f"{len(demo)} VISIBLE True")

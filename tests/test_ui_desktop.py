@@ -19,7 +19,7 @@ SCRIPT = textwrap.dedent("""
     from PySide6.QtCore import QCoreApplication, QTimer
     from PySide6.QtGui import QFileOpenEvent, QGuiApplication
     from PySide6.QtWidgets import QApplication
-    from workbench.ui.app import application, run_app
+    from workbench.ui.workspace.app import application, run_app
 
     early, later = sys.argv[1], sys.argv[2]
     app = application()
@@ -89,7 +89,7 @@ def test_app_icon_is_the_installed_one(qapp):
 
 def test_window_uses_the_app_icon(qapp, qtbot):
     from workbench.ui.icons import app_icon
-    from workbench.ui.main_window import MainWindow
+    from workbench.ui.workspace.window import MainWindow
     window = MainWindow()
     qtbot.addWidget(window)
     want = app_icon().pixmap(QSize(48, 48)).toImage()

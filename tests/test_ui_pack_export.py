@@ -9,7 +9,7 @@ from pypdf import PdfReader
 from test_ui_support import sample_plan, ui_env, window  # noqa: F401 (fixtures)
 from workbench.core.montecarlo import simulate
 from workbench.figures.odds import format_probability
-from workbench.ui import pack_export
+from workbench.ui.workspace import pack_export
 
 
 def _text(path) -> str:

@@ -17,7 +17,7 @@ KILLED_WRITER = textwrap.dedent("""
     from PySide6.QtCore import QCoreApplication
     app = QCoreApplication([])
     from workbench.io.planfile import load_plan
-    from workbench.ui.recovery_store import RecoveryStore
+    from workbench.ui.workspace.recovery import RecoveryStore
     store = RecoveryStore()
     store.claim(sys.argv[2] or None)
     store.write(load_plan(sys.argv[1]))
@@ -104,7 +104,7 @@ def test_autosave_writes_to_data_folder_only_when_changed(window, ui_env, tmp_pa
 def test_own_running_copy_is_not_offered(window, ui_env):
     window.session.push(EditActivity("R", name="Survey"))
     assert window.files.autosave()
-    from workbench.ui.recovery_store import RecoveryStore
+    from workbench.ui.workspace.recovery import RecoveryStore
     assert RecoveryStore().orphans() == []  # its lock is held by this live window
 
 

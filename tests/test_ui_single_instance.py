@@ -6,13 +6,13 @@ import uuid
 
 from PySide6.QtCore import QProcess
 
-from workbench.ui.single_instance import SingleInstance
+from workbench.ui.workspace.single_instance import SingleInstance
 
 CLIENT = textwrap.dedent("""
     import sys
     from PySide6.QtCore import QCoreApplication
     app = QCoreApplication([])
-    from workbench.ui.single_instance import SingleInstance
+    from workbench.ui.workspace.single_instance import SingleInstance
     sys.exit(0 if SingleInstance(sys.argv[1]).hand_over(sys.argv[2]) else 3)
 """)
 

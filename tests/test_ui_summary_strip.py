@@ -7,7 +7,7 @@ import pytest
 
 from workbench.core import Activity, Link, Plan, Settings
 from workbench.ui.session import Session
-from workbench.ui.summary_strip import SummaryStrip
+from workbench.ui.workspace.summary_strip import SummaryStrip
 
 
 def chain(deadline, unit="days") -> Plan:

@@ -2,6 +2,7 @@
 temporary QSettings and data folder, dialogs that answer at once, a sample plan."""
 
 import datetime as dt
+import importlib
 
 import pytest
 from PySide6.QtCore import QSettings
@@ -10,8 +11,11 @@ from workbench.core.model import Activity, Link, Plan, Settings
 from workbench.ui import prompts
 
 PROMPTS = ("ask_open_path", "ask_save_path", "ask_unsaved", "ask_recovery", "ask_locked",
-           "ask_save_as_instead", "show_error", "show_info", "show_guide", "edit_settings", "pick_predecessors",
-           "preview_import", "open_externally")
+           "ask_save_as_instead", "show_error", "show_info", "show_guide", "open_externally")
+# The dialogs that edit something live beside their dialog classes (not in prompts).
+DIALOGS = {"edit_settings": "workbench.ui.workspace.settings_dialog",
+           "pick_predecessors": "workbench.ui.activities.predecessor_dialog",
+           "preview_import": "workbench.ui.workspace.import_dialog"}
 
 
 def sample_plan() -> Plan:
@@ -69,6 +73,8 @@ def ui_env(qapp, tmp_path, monkeypatch):
     answers = Answers()
     for name in PROMPTS:
         monkeypatch.setattr(prompts, name, answers.make(name))
+    for name, module in DIALOGS.items():
+        monkeypatch.setattr(importlib.import_module(module), name, answers.make(name))
     yield answers
     QSettings().clear()
     qapp.setOrganizationName(names[0])
@@ -77,7 +83,7 @@ def ui_env(qapp, tmp_path, monkeypatch):
 
 @pytest.fixture
 def window(ui_env, qtbot):
-    from workbench.ui.main_window import MainWindow
+    from workbench.ui.workspace.window import MainWindow
     from workbench.ui.session import Session
     win = MainWindow(Session(sample_plan()))
     win.resize(1400, 900)
@@ -90,7 +96,7 @@ def window(ui_env, qtbot):
 
 def present_at(qtbot, session, slide: int = 0):
     """Present mode shown on a 1024×768 projector, at slide number ``slide``."""
-    from workbench.ui.present_window import PresentWindow
+    from workbench.ui.present.window import PresentWindow
     win = PresentWindow(session)
     qtbot.addWidget(win)
     win.resize(1024, 768)

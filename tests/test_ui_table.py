@@ -6,9 +6,9 @@ from PySide6.QtCore import Qt
 from PySide6.QtGui import QGuiApplication
 
 from test_ui_support import plan_state, sample_plan, ui_env, window  # noqa: F401 (fixtures)
-from workbench.ui import columns as C
-from workbench.ui.activity_filter_model import ActivityFilterModel
-from workbench.ui.activity_table_model import ActivityTableModel
+from workbench.ui.activities import columns as C
+from workbench.ui.activities.filter_model import ActivityFilterModel
+from workbench.ui.activities.table_model import ActivityTableModel
 from workbench.ui.session import Session
 
 

@@ -10,7 +10,7 @@ from workbench.core.commands import EditActivity
 from workbench.core.montecarlo import simulate
 from workbench.figures import drivers as fdr
 from workbench.figures import odds as fo
-from workbench.ui import network_view
+from workbench.ui.network import view as network_view
 from workbench.ui.session import Session, WhenShown, refresh_when_shown
 
 

@@ -96,7 +96,7 @@ def test_settings_dialog_change_is_one_undo_step(window, ui_env):
 
 
 def test_settings_dialog_reads_back_its_fields(window, qtbot):
-    from workbench.ui.settings_dialog import SettingsDialog
+    from workbench.ui.workspace.settings_dialog import SettingsDialog
     s = settings_with(window.session.plan.settings, deadline=40.0, revision="B")
     dialog = SettingsDialog(s)
     qtbot.addWidget(dialog)
@@ -122,7 +122,7 @@ def test_the_status_date_is_set_and_cleared_in_the_settings_and_drawn(window, ui
     the Timeline's status line and reaches the pack's cover; undo clears both."""
     from pypdf import PdfReader
     from workbench.reports.pack import build_pack
-    from workbench.ui.settings_dialog import SettingsDialog, to_qdate
+    from workbench.ui.workspace.settings_dialog import SettingsDialog, to_qdate
     dialog = SettingsDialog(window.session.plan.settings)
     qtbot.addWidget(dialog)
     dialog.has_status.setChecked(True)
@@ -144,7 +144,7 @@ def test_the_status_date_is_set_and_cleared_in_the_settings_and_drawn(window, ui
 
 
 def test_region_holidays_are_added_as_dates(window, qtbot):
-    from workbench.ui.settings_dialog import SettingsDialog
+    from workbench.ui.workspace.settings_dialog import SettingsDialog
     dialog = SettingsDialog(window.session.plan.settings)
     qtbot.addWidget(dialog)
     dialog.holidays.region_edit.setText("DE")
@@ -157,7 +157,7 @@ def test_region_holidays_are_added_as_dates(window, qtbot):
 
 
 def test_predecessor_picker_builds_links(window, qtbot):
-    from workbench.ui.predecessor_dialog import PredecessorDialog
+    from workbench.ui.activities.predecessor_dialog import PredecessorDialog
     dialog = PredecessorDialog(window.session.plan, "F")
     qtbot.addWidget(dialog)
     assert {(l.pred, l.type, l.lag) for l in dialog.links()} == {("W", "SS", 2.0), ("P", "FS", 0.0)}
@@ -175,7 +175,7 @@ def test_views_are_real_or_say_what_will_come(window):
 
 
 def test_dock_layout_and_geometry_persist(ui_env, qtbot):
-    from workbench.ui.main_window import MainWindow
+    from workbench.ui.workspace.window import MainWindow
     from workbench.ui.session import Session
     first = MainWindow(Session(sample_plan()))
     first.show()
@@ -216,7 +216,7 @@ def test_dropping_a_plan_file_opens_it(window, ui_env, tmp_path):
 
 
 def test_plan_held_by_another_window_opens_read_only(window, ui_env, tmp_path):
-    from workbench.ui.plan_lock import PlanLock
+    from workbench.ui.workspace.lock import PlanLock
     path = tmp_path / "shared.slw"
     save_plan(sample_plan(), path)
     holder = PlanLock(str(path.resolve()))
@@ -297,7 +297,7 @@ def test_controls_have_accessible_names(window):
 
 
 def test_recent_files_menu_lists_and_opens(window, ui_env, tmp_path):
-    from workbench.ui.window_menus import fill_recent
+    from workbench.ui.workspace.menus import fill_recent
     paths = []
     for name in ("one.slw", "two.slw"):
         plan = sample_plan()
@@ -316,7 +316,7 @@ def test_predecessor_picker_editors_and_exact_lags(window, qtbot):
     from PySide6.QtWidgets import QStyleOptionViewItem
     from workbench.core.commands import SetPredecessors
     from workbench.core.model import Link
-    from workbench.ui.predecessor_dialog import PredecessorDialog
+    from workbench.ui.activities.predecessor_dialog import PredecessorDialog
     window.session.push(SetPredecessors("F", [Link("W", "F", "SS", 1 / 3)]))
     dialog = PredecessorDialog(window.session.plan, "F")
     qtbot.addWidget(dialog)
