@@ -67,7 +67,7 @@ def main(argv=None) -> int:
     try:
         plan = _plan(args.plan)
     except (PlanError, OSError) as exc:
-        print(f"odds_shots: {exc}", file=sys.stderr)
+        print(f"chart_shots: {exc}", file=sys.stderr)
         return 2
     for path in render(args.outdir, plan, args.seed, args.iterations):
         print(path)
