@@ -15,7 +15,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from . import checkup_cpt, checkup_estimates, checkup_logic, checkup_odds, checkup_progress
+from . import checkup_cpt, checkup_estimates, checkup_logic, checkup_odds, checkup_progress, checkup_status
 from .checkup_frame import CheckupFrame
 from .checkup_limits import thresholds_of
 from .checkup_result import Checkup
@@ -23,9 +23,9 @@ from .checkup_result import Checkup
 STANDARD_CHECKS = (
     checkup_logic.missing_logic, checkup_logic.leads, checkup_logic.lags, checkup_logic.link_types,
     checkup_logic.hard_constraints, checkup_logic.high_float, checkup_logic.negative_float,
-    checkup_logic.long_durations, checkup_progress.invalid_dates, checkup_logic.resources,
-    checkup_progress.missed_activities, checkup_cpt.critical_path_test, checkup_logic.cpli,
-    checkup_progress.bei,
+    checkup_logic.long_durations, checkup_status.invalid_dates, checkup_logic.resources,
+    checkup_status.missed_activities, checkup_cpt.critical_path_test, checkup_logic.cpli,
+    checkup_status.bei,
 )
 STANDARD_IDS = ("missing_logic", "leads", "lags", "link_types", "hard_constraints", "high_float",
                 "negative_float", "long_durations", "invalid_dates", "resources", "missed_activities",
