@@ -46,3 +46,9 @@ def test_demo_odds_checks_point_at_the_merges(checkup):
     assert merges.offenders[0] == "E5"             # the X-ray unit meets the lead-lined room
     odds = checkup.get("odds_disagreement")
     assert odds.value > 30 and "merge bias" in odds.note and "risk events (R1)" in odds.note
+
+
+def test_short_figures_for_slides(checkup):
+    assert checkup.get("lags").figure == "14.5 %" and checkup.get("leads").figure == "1"
+    assert checkup.get("cpli").figure == "1.05" and checkup.get("critical_path_test").figure == ""
+    assert checkup.get("odds_disagreement").figure.endswith(" pts") and checkup.get("bei").figure == ""

@@ -131,3 +131,17 @@ def test_kept_durations_and_a_replay_agree():
     a = run_checkup(plan, simulation=kept).get("merge_hot_spots")
     b = run_checkup(plan, simulation=plain).get("merge_hot_spots")
     assert a.offenders == b.offenders == ["M"] and a.note == b.note
+
+
+def test_earlier_odds_checks_are_reused_and_marked_stale():
+    from workbench.core.checkup import frame_for, odds_checks
+    plan = parallel_plan(2, deadline=14.0)
+    result = simulate(plan, 2_000, seed=1)
+    earlier = odds_checks(frame_for(plan), result)
+    set_estimate(plan, "B1", 4.0, 10.0, 18.0)
+    after = run_checkup(plan, earlier_odds=earlier, simulation_stale=True)
+    assert after.get("merge_hot_spots").offenders == ["M"]
+    assert after.get("merge_hot_spots").note.endswith("run it again to bring it up to date.")
+    assert after.get("merge_hot_spots").note.count("latest edit") == 1
+    fresh = run_checkup(plan, earlier_odds=earlier)
+    assert "latest edit" not in fresh.get("merge_hot_spots").note

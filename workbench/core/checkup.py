@@ -44,16 +44,21 @@ def frame_for(plan, analysis=None) -> CheckupFrame:
 
 
 def run_checkup(plan, analysis=None, simulation=None, *, simulation_stale: bool = False,
-                with_simulation: bool = True) -> Checkup:
+                with_simulation: bool = True, earlier_odds: list | None = None) -> Checkup:
     """Every check on ``plan``. ``analysis``: its current analysis (computed when None);
     ``simulation``: the last simulation result, or None; ``simulation_stale``: the plan
     changed since that run (the checks using it say so). ``with_simulation=False`` leaves the
-    simulation-based checks not applicable without looking at the run (cheap)."""
+    simulation-based checks not applicable without looking at the run (cheap);
+    ``earlier_odds``: the simulation-based checks computed earlier from the last run (see
+    :func:`odds_checks`), reused as they are — marked stale with ``simulation_stale``."""
     frame = frame_for(plan, analysis)
     checks = [check(frame) for check in STANDARD_CHECKS]
     arrays = checkup_estimates.estimate_arrays(plan)
     checks += [checkup_estimates.false_certainty(frame, arrays), checkup_estimates.suspicious_ranges(frame, arrays)]
-    checks += odds_checks(frame, simulation if with_simulation else None, simulation_stale)
+    if earlier_odds is not None:
+        checks += [checkup_odds.as_stale(c) if simulation_stale else c for c in earlier_odds]
+    else:
+        checks += odds_checks(frame, simulation if with_simulation else None, simulation_stale)
     seed = None if simulation is None else simulation.seed
     return Checkup(checks, seed, simulation_stale)
 

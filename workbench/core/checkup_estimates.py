@@ -79,6 +79,6 @@ def suspicious_ranges(frame: CheckupFrame, arrays=None) -> Check:
     keys = ("range_ratio_max", "end_mode_pct")
     status = FAIL if wide.any() or ends_bad else PASS
     return Check("suspicious_ranges", "Suspicious ranges", status, float(len(offenders)),
-                 f"none above {ratio:g}x; <= {end_pct:g} % at an end", counted(len(offenders), "activities"),
+                 f"<= {ratio:g}x; <= {end_pct:g} % at an end", counted(len(offenders), "activities"),
                  offenders, "; ".join(parts).capitalize() + ".", _source("range_ratio_max"), OWN_ESTIMATES,
                  any(differs(k, frame.limit(k)) for k in keys))

@@ -5,6 +5,8 @@ on why (merge bias, risk events, correlated durations)."""
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from .checkup_frame import CheckupFrame, counted, names, _source
 from .checkup_limits import differs
 from .checkup_result import FAIL, NA, OWN_ODDS, PASS, Check
@@ -14,9 +16,19 @@ NO_RUN = "Needs a simulation: run one (Odds view, or --iterations on the command
 CHANGED = "The plan's activities changed since the last simulation: run it again."
 
 
+STALE = ", made before the latest edit: run it again to bring it up to date."
+
+
+def as_stale(check: Check) -> Check:
+    """A simulation-based check from an earlier run, saying the plan changed since."""
+    if not check.uses_simulation or check.status == NA or STALE in check.note:
+        return check
+    return replace(check, note=check.note.rstrip(".") + STALE)
+
+
 def _run_note(frame: CheckupFrame, result, stale: bool) -> str:
     note = f"From the simulation of {result.iterations:,} runs (seed {result.seed})"
-    return note + (", made before the latest edit: run it again to bring it up to date." if stale else ".")
+    return note + (STALE if stale else ".")
 
 
 def _usable(frame: CheckupFrame, result) -> str:

@@ -35,6 +35,19 @@ class Check:
     def mark(self) -> str:
         return MARKS[self.status]
 
+    @property
+    def figure(self) -> str:
+        """The figure in a few characters, for a slide: "14.5 %", "3", "1.05", "41 pts"."""
+        if self.value is None or self.threshold in ("pass", "informational"):
+            return ""
+        if self.threshold.endswith("%"):
+            return f"{self.value:.1f} %"
+        if self.threshold.endswith("points"):
+            return f"{self.value:.0f} pts"
+        if self.id in ("cpli", "bei"):
+            return f"{self.value:.2f}"
+        return f"{self.value:g}"
+
     def to_dict(self) -> dict:
         """The JSON contract of one check in ``slackline check --json``."""
         value = None if self.value is None else round(float(self.value), 6)
