@@ -36,9 +36,16 @@ def test_demo_float_and_durations(checkup):
 def test_demo_statuses_and_summary(checkup):
     statuses = {c.id: c.status for c in checkup}
     assert [k for k, v in statuses.items() if v == "fail"] == [
-        "leads", "lags", "link_types", "high_float", "long_durations", "merge_hot_spots", "odds_disagreement"]
+        "leads", "lags", "link_types", "high_float", "long_durations", "false_certainty", "merge_hot_spots",
+        "odds_disagreement"]
     assert [k for k, v in statuses.items() if v == "n/a"] == ["invalid_dates", "resources", "missed_activities", "bei"]
-    assert checkup.summary_text() == "Checkup: 7 of 14 pass"
+    assert checkup.summary_text() == "Checkup: 6 of 14 pass"
+
+
+def test_demo_false_certainty_names_the_temporary_clinic(checkup):
+    # X1 is one number (60 days) with 13.3 days of float, 7.3 more than the critical path's 6
+    c = checkup.get("false_certainty")
+    assert c.offenders == ["X1"] and "Entered as one number: X1." in c.note
 
 
 def test_demo_odds_checks_point_at_the_merges(checkup):

@@ -145,3 +145,17 @@ def test_earlier_odds_checks_are_reused_and_marked_stale():
     assert after.get("merge_hot_spots").note.count("latest edit") == 1
     fresh = run_checkup(plan, earlier_odds=earlier)
     assert "latest edit" not in fresh.get("merge_hot_spots").note
+
+
+def test_false_certainty_measures_near_critical_from_the_critical_paths_own_float():
+    # a deadline 30 days after the finish gives the whole chain 30 days of float: still critical
+    plan = three_point_chain(deadline=71.0)                      # finish 41.3 (8 × 5.17)
+    plan.replace_activity("A5", Activity("A5", duration=5.0))
+    assert run_checkup(plan).get("false_certainty").offenders == ["A5"]
+
+
+def test_a_changed_duration_limit_marks_its_check_changed():
+    plan = three_point_chain()
+    plan.set_checkup_thresholds({"long_duration_days": 4.0})
+    c = run_checkup(plan).get("long_durations")
+    assert c.changed and c.status == "fail" and len(c.offenders) == 8

@@ -1,7 +1,8 @@
 """Checks of our own on the three-point estimates (common practice; no published source).
 
 - **False certainty**: work on the critical or a near-critical path (total float at most
-  ``near_critical_days``) entered without a real range: one number (a fixed duration not
+  ``near_critical_days`` more than the critical path's, which with a deadline is the float
+  to the deadline) entered without a real range: one number (a fixed duration not
   declared ``fixed``), optimistic = most likely = pessimistic, or a range narrower than
   ± ``certainty_band_pct`` of the most likely. Such an estimate hides uncertainty where it
   moves the date, and makes PERT and the simulation too confident.
@@ -38,7 +39,8 @@ def false_certainty(frame: CheckupFrame, arrays=None) -> Check:
     near = frame.limit("near_critical_days")
     s = frame.schedule
     work = frame.incomplete & (s.durations > EPS) & ~fixed
-    close = s.total_float <= frame.days_to_units(near) + EPS
+    level = 0.0 if s.deadline is None else s.deadline - s.finish     # the critical path's own float
+    close = s.total_float - level <= frame.days_to_units(near) + EPS
     single = np.isnan(m)
     with np.errstate(invalid="ignore"):
         narrow = ~single & ((b - a) < 2.0 * band * m - EPS)
@@ -50,8 +52,8 @@ def false_certainty(frame: CheckupFrame, arrays=None) -> Check:
         parts.append(f"entered as one number: {names(frame.ids_of(bad_single))}")
     if bad_narrow.any():
         parts.append(f"range narrower than \u00b1{band * 100:g} %: {names(frame.ids_of(bad_narrow))}")
-    note = (f"Critical or near-critical work (total float \u2264 {near:g} working days) without a real "
-            f"range; declare a duration 'fixed' when it truly is." + (" " + "; ".join(parts).capitalize() + "."
+    note = (f"Critical or near-critical work (within {near:g} working days of the critical path's float) without a real "
+            f"range; declare a duration 'fixed' when it truly is." + (" " + _sentence("; ".join(parts)) + "."
                                                                    if parts else ""))
     limit = frame.limit("false_certainty_count")
     keys = ("certainty_band_pct", "near_critical_days", "false_certainty_count")
@@ -80,5 +82,10 @@ def suspicious_ranges(frame: CheckupFrame, arrays=None) -> Check:
     status = FAIL if wide.any() or ends_bad else PASS
     return Check("suspicious_ranges", "Suspicious ranges", status, float(len(offenders)),
                  f"<= {ratio:g}x; <= {end_pct:g} % at an end", counted(len(offenders), "activities"),
-                 offenders, "; ".join(parts).capitalize() + ".", _source("range_ratio_max"), OWN_ESTIMATES,
+                 offenders, _sentence("; ".join(parts)) + ".", _source("range_ratio_max"), OWN_ESTIMATES,
                  any(differs(k, frame.limit(k)) for k in keys))
+
+
+def _sentence(text: str) -> str:
+    """The first letter in capitals, ids left as they are."""
+    return text[:1].upper() + text[1:]

@@ -72,14 +72,16 @@ def names(ids: list[str], limit: int = NAMES_IN_NOTE) -> str:
 
 
 def share_check(frame: CheckupFrame, check_id: str, name: str, count: int, total: int, key: str,
-                things: str, offenders: list[str], note: str = "", at_least: bool = False) -> Check:
+                things: str, offenders: list[str], note: str = "", at_least: bool = False,
+                also: tuple[str, ...] = ()) -> Check:
     """A check on a percentage of ``total`` against threshold ``key`` (≤, or ≥ with ``at_least``)."""
     limit = frame.limit(key)
     pct = 100.0 * count / total if total else (100.0 if at_least else 0.0)
     ok = pct >= limit - 1e-9 if at_least else pct <= limit + 1e-9
     sign = ">=" if at_least else "<="
     return Check(check_id, name, PASS if ok else FAIL, pct, f"{sign} {limit:g} %",
-                 share_text(count, total, things), offenders, note, _source(key), changed=differs(key, limit))
+                 share_text(count, total, things), offenders, note, _source(key),
+                 changed=any(differs(k, frame.limit(k)) for k in (key, *also)))
 
 
 def count_check(frame: CheckupFrame, check_id: str, name: str, offenders: list[str], key: str,

@@ -106,7 +106,7 @@ def high_float(frame: CheckupFrame) -> Check:
     high = frame.incomplete & (frame.schedule.total_float > above + EPS)
     note = f"Total float above {days:g} working days" + _in_units(frame, above) + "."
     return share_check(frame, "high_float", "High float", int(high.sum()), int(frame.incomplete.sum()),
-                       "high_float_pct", "activities", frame.ids_of(high), note)
+                       "high_float_pct", "activities", frame.ids_of(high), note, also=("high_float_days",))
 
 
 def negative_float(frame: CheckupFrame) -> Check:
@@ -125,7 +125,7 @@ def long_durations(frame: CheckupFrame) -> Check:
     long = counted & (d > above + EPS)
     note = f"Planned (PERT mean) duration above {days:g} working days" + _in_units(frame, above) + "; milestones aside."
     return share_check(frame, "long_durations", "High duration", int(long.sum()), int(counted.sum()),
-                       "long_durations_pct", "activities", frame.ids_of(long), note)
+                       "long_durations_pct", "activities", frame.ids_of(long), note, also=("long_duration_days",))
 
 
 def _in_units(frame: CheckupFrame, units: float) -> str:
