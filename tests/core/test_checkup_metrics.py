@@ -133,3 +133,11 @@ def test_progress_metrics_say_what_they_need():
 def test_resources_is_informational_until_the_plan_has_them():
     c = check(chain_plan(), "resources")
     assert c.status == "n/a" and "no resources or costs" in c.note
+
+
+def test_an_empty_plan_and_a_plan_without_links_read_sensibly():
+    empty = run_checkup(Plan(Settings(start=START)))
+    assert empty.get("link_types").status == "pass" and empty.get("link_types").value_text == "none to count (0 links)"
+    assert empty.get("critical_path_test").status == "n/a"
+    lone = run_checkup(Plan(Settings(start=START, deadline=3.0), [Activity("A", duration=5.0)]))
+    assert lone.get("negative_float").offenders == ["A"] and lone.get("cpli").value == pytest.approx(0.6)

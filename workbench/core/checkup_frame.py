@@ -51,8 +51,9 @@ class CheckupFrame:
 
 
 def share_text(count: int, total: int, things: str) -> str:
-    pct = 100.0 * count / total if total else 0.0
-    return f"{pct:.1f} % ({count} of {total} {things})"
+    if not total:
+        return f"none to count (0 {things.split()[0]})"
+    return f"{100.0 * count / total:.1f} % ({count} of {total} {things})"
 
 
 SINGULAR = {"activities": "activity", "links": "link", "merges": "merge"}

@@ -106,3 +106,7 @@ def test_thresholds_dialog_changes_the_plan_in_one_undo_step(view, qtbot):
     assert view.model.index(row, 3).data().endswith("*")
     view.session.undo_stack.undo()
     assert view.session.plan.checkup_thresholds == {}
+
+
+def test_the_table_model_passes_the_model_tester(view, qtmodeltester):
+    qtmodeltester.check(view.model)
