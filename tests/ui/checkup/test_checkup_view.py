@@ -60,9 +60,14 @@ def test_selection_reaches_the_table_timeline_and_network(window, qtbot):
     row = _row(checkup, "false_certainty")
     checkup.pick(row)
     assert window.activities.current_ids() == ["W"]
-    for title in ("Timeline", "Network"):
-        view = window.view(title)
-        assert view.session.selected() == ["W"]
+    timeline = window.view("Timeline")
+    window.docks["Timeline"].raise_()
+    qtbot.waitUntil(lambda: timeline.geometry is not None
+                    and timeline.item.selected_rows() == [timeline.geometry.row_of["W"]], timeout=3000)
+    network = window.view("Network")
+    window.docks["Network"].raise_()
+    qtbot.waitUntil(lambda: network.layout_result is not None
+                    and network.item.painter.selected == {network.layout_result.index_of("W")}, timeout=3000)
 
 
 def test_the_summary_strip_counts_and_opens_the_dock(window, qtbot):

@@ -110,6 +110,9 @@ class CheckupView(QWidget):
             parts.append(f"Offenders: {shown}")
         parts.append("Source: " + ("common practice (no published source)" if check.source == "common practice"
                                    else check.source))
+        if check.changed:
+            parts.append("This plan's own threshold: it differs from the default (the standard's figure "
+                         "for the standard's checks).")
         if check.note:
             parts.append(check.note)
         self.detail.setText("<br>".join(_escape(p) if i else p for i, p in enumerate(parts)))
