@@ -7,7 +7,6 @@ from pathlib import Path
 
 import pytest
 
-from workbench.cli import main
 from workbench.core.checkup import OWN_IDS, STANDARD_IDS
 
 from test_cli import R1_CSV, run

@@ -2,10 +2,8 @@
 trigger it, and one plan built to trigger none."""
 
 import dataclasses
-import datetime as dt
 import math
 
-import numpy as np
 import pytest
 
 from workbench.core import Activity, Link, Plan, Settings

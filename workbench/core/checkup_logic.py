@@ -11,7 +11,7 @@ from __future__ import annotations
 import numpy as np
 
 from .checkup_frame import CheckupFrame, count_check, names, share_check, _source
-from .checkup_limits import differs
+from .checkup_limits import STANDARD_SHORT, differs
 from .checkup_progress import NEEDS
 from .checkup_result import FAIL, NA, PASS, Check
 
@@ -138,13 +138,13 @@ def resources(frame: CheckupFrame) -> Check:
     if not pool:
         note = "The plan carries no resources or costs yet, so this metric does not apply."
         return Check("resources", "Resources", NA, None, "informational", "not applicable", [], note,
-                     _source("missing_logic_pct"))
+                     STANDARD_SHORT)
     acts = frame.plan.activities
     bare = [a.id for a in acts if not getattr(a, "resources", None) and not getattr(a, "cost", None)
             and a.mean > 0]
     return Check("resources", "Resources", NA, float(len(bare)), "informational",
                  f"{len(bare)} activities without resources or cost", bare,
-                 "Informational: the standard sets no threshold.", _source("missing_logic_pct"))
+                 "Informational: the standard sets no threshold.", STANDARD_SHORT)
 
 
 def cpli(frame: CheckupFrame) -> Check:

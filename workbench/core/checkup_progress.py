@@ -52,7 +52,7 @@ def progress_facts(plan, calendar) -> ProgressFacts:
     acts = plan.activities
     status = plan.settings.status_date
     offset = None if status is None else calendar.resolve(status, finish=True)
-    tracked = any(hasattr(a, "actual_start") or hasattr(a, "actual_finish") for a in acts[:1])
+    tracked = bool(acts) and (hasattr(acts[0], "actual_start") or hasattr(acts[0], "actual_finish"))
     if tracked:
         starts = np.array([_actual(calendar, a, "actual_start", False) for a in acts], dtype=float)
         finishes = np.array([_actual(calendar, a, "actual_finish", True) for a in acts], dtype=float)

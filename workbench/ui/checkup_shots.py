@@ -20,6 +20,21 @@ def _settle(app, rounds: int = 8) -> None:
         app.processEvents()
 
 
+def _window_shot(app, window, size, path: Path) -> Path:
+    """The window at ``size`` with the Checkup in front and the Leads check clicked (O1
+    selected in the table, Timeline and Network)."""
+    window.resize(*size)
+    window.show()
+    window.show_checkup()
+    _settle(app)
+    view = window.view("Checkup")
+    view.pick(1)
+    view.table.selectRow(1)
+    _settle(app)
+    window.grab().save(str(path))
+    return path
+
+
 def render(outdir: Path) -> list[Path]:
     from PySide6.QtCore import QSettings
     from workbench.core.montecarlo import simulate
@@ -35,18 +50,8 @@ def render(outdir: Path) -> list[Path]:
     checkup_keeper(window.session, threaded=False)
     window.session.load(demo_plan())
     window.session.set_simulation(simulate(window.session.plan, 10_000, seed=SEED))
-    written = []
-    for size, name in (((1024, 768), "checkup_window_1024.png"), ((1920, 1080), "checkup_window.png")):
-        window.resize(*size)
-        window.show()
-        window.show_checkup()
-        _settle(app)
-        view = window.view("Checkup")
-        view.pick(1)                     # Leads: selects O1 in the table, Timeline and Network
-        view.table.selectRow(1)
-        _settle(app)
-        written.append(outdir / name)
-        window.grab().save(str(written[-1]))
+    written = [_window_shot(app, window, size, outdir / name)
+               for size, name in (((1024, 768), "checkup_window_1024.png"), ((1920, 1080), "checkup_window.png"))]
     view = window.view("Checkup")
     dock = window.docks["Checkup"]
     dock.setFloating(True)
