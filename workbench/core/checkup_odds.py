@@ -10,7 +10,7 @@ from dataclasses import replace
 from .checkup_frame import CheckupFrame, counted, names, _source
 from .checkup_limits import differs
 from .checkup_result import FAIL, NA, OWN_ODDS, PASS, Check
-from .merge_spots import merge_hot_spots, sampled_durations
+from .merge_spots import merge_hot_spots, replay_runs, sampled_durations
 
 NO_RUN = "Needs a simulation: run one (Odds view, or --iterations on the command line)."
 CHANGED = "The plan's activities changed since the last simulation: run it again."
@@ -68,7 +68,9 @@ def merge_check(frame: CheckupFrame, result, spots, stale: bool) -> Check:
     if why:
         return _na("merge_hot_spots", "Merge hot spots", threshold, why)
     offenders = [s.merge for s in spots]
-    note = (f"Merges where paths each critical in at least {pct:g} % of runs converge"
+    runs = result.iterations if getattr(result, "durations", None) is not None else replay_runs(result, frame.plan)
+    measured = f" (measured on {runs:,} of its runs, replayed at its seed)" if runs < result.iterations else ""
+    note = (f"Merges where paths each critical in at least {pct:g} % of runs converge{measured}"
             + (": " + "; ".join(_describe(s, frame.unit) for s in spots[:3]) + "." if spots else ": none.")
             + " " + _run_note(frame, result, stale))
     keys = ("merge_branch_pct", "merge_hot_spots_count")

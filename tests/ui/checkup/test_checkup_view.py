@@ -115,3 +115,13 @@ def test_thresholds_dialog_changes_the_plan_in_one_undo_step(view, qtbot):
 
 def test_the_table_model_passes_the_model_tester(view, qtmodeltester):
     qtmodeltester.check(view.model)
+
+
+def test_while_a_new_run_is_checked_the_odds_checks_say_so(qtbot):
+    from workbench.ui.checkup.keeper import WORKING, CheckupKeeper
+    session = Session(sample_plan())
+    keeper = CheckupKeeper(session, threaded=True)
+    keeper._run_odds = lambda *args: None          # the worker never reports: we see the waiting state
+    session.set_simulation(simulate(session.plan, 500, seed=2))
+    assert keeper.checkup.get("merge_hot_spots").note == WORKING
+    assert keeper.checkup.get("odds_disagreement").note == WORKING

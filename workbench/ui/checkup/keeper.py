@@ -10,12 +10,14 @@ of the plan; after an edit they are kept from the last run and say that it is st
 from __future__ import annotations
 
 import threading
+from dataclasses import replace
 
 from PySide6.QtCore import QObject, QTimer, Signal
 
 from workbench.core.checkup import frame_for, odds_checks, run_checkup
 
 PAUSE_MS = 150
+WORKING = "Checking the last simulation run\u2026"
 
 
 class CheckupKeeper(QObject):
@@ -31,6 +33,7 @@ class CheckupKeeper(QObject):
         self.checkup = None
         self._odds = None            # simulation-based checks of the last run
         self._odds_stale = False
+        self._pending = False        # a worker is checking a new run
         self._generation = 0
         self._timer = QTimer(self)
         self._timer.setSingleShot(True)
@@ -55,9 +58,11 @@ class CheckupKeeper(QObject):
             return
         self._generation += 1
         self._odds_stale = False
+        self._pending, self._odds = True, None
         plan, generation = self.session.plan.copy(), self._generation
         if self.threaded:
             threading.Thread(target=self._run_odds, args=(plan, sim, generation), daemon=True).start()
+            self.recompute()             # "checking the last run" meanwhile
         else:
             self._run_odds(plan, sim, generation)
 
@@ -73,7 +78,7 @@ class CheckupKeeper(QObject):
 
     def _take_odds(self, generation: int, checks) -> None:
         if generation == self._generation:
-            self._odds = checks
+            self._odds, self._pending = checks, False
             self.recompute()
 
     def recompute(self) -> None:
@@ -85,6 +90,10 @@ class CheckupKeeper(QObject):
         else:
             self.checkup = run_checkup(self.session.plan, a, with_simulation=False,
                                        earlier_odds=self._odds, simulation_stale=self._odds_stale)
+            if self._pending and self._odds is None:
+                for i, check in enumerate(self.checkup.checks):
+                    if check.uses_simulation:
+                        self.checkup.checks[i] = replace(check, note=WORKING)
         self.updated.emit(self.checkup)
 
     def summary_text(self) -> str:
