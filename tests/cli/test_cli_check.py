@@ -61,6 +61,13 @@ def test_the_table_reads_without_colour(capsys, r1):
     assert "\u2013 n/a" in out and "Needs a simulation" in out and "Caution" in out
 
 
+def test_a_loop_exits_2_naming_it(capsys, tmp_path):
+    path = tmp_path / "loop.csv"
+    path.write_text("id,name,duration,predecessors\nP1,One,2,P3\nP2,Two,2,P1\nP3,Three,2,P2\n", encoding="utf-8")
+    code, _, err = run(capsys, "check", str(path))
+    assert code == 2 and "P1" in err and "\u2192" in err
+
+
 @pytest.mark.parametrize("argv, words", [
     (["check", "missing.slw"], "no such file"),
     (["check", str(DEMO), "--iterations", "-1"], "--iterations must be 0 or more"),
