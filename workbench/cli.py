@@ -26,6 +26,7 @@ VERBS = {
     "report": ("report", "write the approval pack (PDF)"),
     "import": ("import_table", "read a CSV/XLSX activity list into a .slw plan"),
     "export": ("export", "write the plan with its schedule to CSV/XLSX"),
+    "level": ("level", "level resources: a schedule within every resource's units"),
 }
 
 

@@ -10,7 +10,7 @@ from hypothesis import strategies as st
 
 from workbench.core import analyze
 from workbench.core.errors import PlanError
-from workbench.core.levelling import Leveller, level
+from workbench.core.levelling import Leveller, keep_levelled, level
 from workbench.core.model import Activity, Availability, Link, Plan, Resource, Settings
 from workbench.core.sgs import Profile
 
@@ -161,3 +161,16 @@ def test_bad_rule_and_budget():
         level(two_crews(), rule="fastest")
     with pytest.raises(PlanError, match="budget"):
         level(two_crews(), budget=-1)
+
+
+def test_keeping_the_levelled_dates_is_one_step_and_the_schedule_follows():
+    plan = random_instance(4, n=20)
+    result = level(plan)
+    before = [a for a in plan.activities]
+    step = keep_levelled(plan, result)
+    step.do(plan)
+    assert np.allclose(analyze(plan).schedule.es, result.starts)     # logic alone now gives the levelled dates
+    held = [m for m in result.moves if not m.held_by.startswith("after ")]
+    assert held and all("Levelled: waits for" in plan.activity(m.id).notes for m in held)
+    step.undo(plan)
+    assert list(plan.activities) == before

@@ -193,3 +193,20 @@ def level(plan, rule: str = "lft", budget: int = 0, seed: int = 0, analysis=None
 
         best = evolve(lev, best, budget, seed)
     return lev.result(best, rule)
+
+
+def keep_levelled(plan, result: LevelResult):
+    """One undoable step that makes the levelled dates the plan's schedule: each activity a
+    resource held gets a start-no-earlier constraint at its levelled start (the rest follow
+    by their links) and a note saying what held it."""
+    from .commands import EditActivity, Group
+
+    edits = []
+    for move in result.moves:
+        if move.held_by.startswith("after ") or move.held_by == "its constraint":
+            continue
+        act = plan.activity(move.id)
+        note = f"Levelled: waits for {move.held_by} (start no earlier than offset {move.start:g})."
+        notes = f"{act.notes}\n{note}".strip() if note not in act.notes else act.notes
+        edits.append(EditActivity(move.id, start_no_earlier=float(move.start), notes=notes))
+    return Group(edits, f"Keep the levelled schedule ({len(edits)} activities held by resources)")
