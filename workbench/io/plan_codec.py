@@ -50,12 +50,14 @@ def settings_to_dict(s: Settings) -> dict:
 
 
 def activity_to_dict(a: Activity) -> dict:
-    return {"id": a.id, "name": a.name, "group": a.group, "notes": a.notes,
-            "optimistic": _num(a.optimistic), "most_likely": _num(a.most_likely),
-            "pessimistic": _num(a.pessimistic), "duration": _num(a.duration),
-            "distribution": a.distribution,
-            "start_no_earlier": _point(a.start_no_earlier), "finish_no_later": _point(a.finish_no_later),
-            "resources": {r: float(u) for r, u in a.resources}}
+    out = {"id": a.id, "name": a.name, "group": a.group, "notes": a.notes,
+           "optimistic": _num(a.optimistic), "most_likely": _num(a.most_likely),
+           "pessimistic": _num(a.pessimistic), "duration": _num(a.duration),
+           "distribution": a.distribution,
+           "start_no_earlier": _point(a.start_no_earlier), "finish_no_later": _point(a.finish_no_later)}
+    if a.resources:          # written only when the activity needs some (most lines stay short)
+        out["resources"] = {r: float(u) for r, u in a.resources}
+    return out
 
 
 def resource_to_dict(r: Resource) -> dict:
