@@ -170,19 +170,22 @@ class ResourceProblem:
     def reversed(self, offsets, durations, horizon: float) -> tuple["ResourceProblem", list[float]]:
         """The mirror problem (time runs back from ``horizon``; links point the other way)
         and its offsets: a start S'ᵢ = horizon − (Sᵢ + dᵢ). A link i → j with offset o
-        (Sⱼ ≥ Sᵢ + o) becomes j → i with offset o + dⱼ − dᵢ."""
-        mirror = ResourceProblem.__new__(ResourceProblem)
-        mirror.ids, mirror.n = self.ids, self.n
-        mirror.src, mirror.dst = self.dst, self.src
-        mirror.preds, mirror.succs = [[] for _ in range(self.n)], [[] for _ in range(self.n)]
-        for e, (i, j) in enumerate(zip(self.src, self.dst)):
-            mirror.preds[i].append((j, e))
-            mirror.succs[j].append(i)
-        mirror.indegree = [len(p) for p in mirror.preds]
-        mirror.floor = [0.0] * self.n
-        mirror.needs, mirror.resource_ids = self.needs, self.resource_ids
+        (Sⱼ ≥ Sᵢ + o) becomes j → i with offset o + dⱼ − dᵢ. The mirrored links are built
+        once; only the free units depend on ``horizon``."""
+        mirror = getattr(self, "_mirror", None)
+        if mirror is None:
+            mirror = self._mirror = ResourceProblem.__new__(ResourceProblem)
+            mirror.ids, mirror.n = self.ids, self.n
+            mirror.src, mirror.dst = self.dst, self.src
+            mirror.preds, mirror.succs = [[] for _ in range(self.n)], [[] for _ in range(self.n)]
+            for e, (i, j) in enumerate(zip(self.src, self.dst)):
+                mirror.preds[i].append((j, e))
+                mirror.succs[j].append(i)
+            mirror.indegree = [len(p) for p in mirror.preds]
+            mirror.floor = [0.0] * self.n
+            mirror.needs, mirror.resource_ids = self.needs, self.resource_ids
         mirror.profile = mirror_profile(self.profile, horizon)
-        back = [offsets[e] + durations[j] - durations[i] for e, (i, j) in enumerate(zip(self.src, self.dst))]
+        back = [o + durations[j] - durations[i] for o, i, j in zip(offsets, self.src, self.dst)]
         return mirror, back
 
 
