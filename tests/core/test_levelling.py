@@ -174,3 +174,16 @@ def test_keeping_the_levelled_dates_is_one_step_and_the_schedule_follows():
     assert held and all("Levelled: waits for" in plan.activity(m.id).notes for m in held)
     step.undo(plan)
     assert list(plan.activities) == before
+
+
+def test_odds_with_and_without_the_crews_read_the_same_percentiles_as_each_run():
+    from workbench.core.demo import demo_plan
+    from workbench.core.resource_odds import compare
+
+    from workbench.core.formatting import format_date
+
+    both = compare(demo_plan(), 400, seed=2)
+    rows = dict((r[0], r[1:]) for r in both.rows(0.8))
+    assert rows["P80"] == (format_date(both.logic.date_of(both.logic.percentiles["P80"])),
+                           format_date(both.aware.date_of(both.aware.percentiles["P80"])))
+    assert both.aware.mean > both.logic.mean > analyze(demo_plan()).schedule.finish   # crews, then merge bias

@@ -63,3 +63,4 @@ class ResourcePasses:
             j = next((i for i, e in problem.preds[j] if abs(starts[i] + offsets[e] - s) < EPS and s > problem.floor[j] - EPS
                       and i not in seen), None)
         return chain
+

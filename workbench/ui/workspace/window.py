@@ -31,6 +31,8 @@ VIEWS = (
      "The Odds view will appear here: the chance of finishing by any date."),
     ("Drivers", "workbench.ui.drivers.view", "DriversView",
      "The Drivers view will appear here: which activities drive the finish date."),
+    ("Resources", "workbench.ui.resources.view", "ResourcesView",
+     "The Resources view will appear here: loading, levelling and the odds with the crews."),
 )
 STATE_VERSION = 1
 
@@ -115,7 +117,7 @@ class MainWindow(QMainWindow):
         self._arrange()
 
     def _arrange(self) -> None:
-        """Default layout: Timeline and Network on the lower left, Odds, Drivers and
+        """Default layout: Timeline, Network and Resources on the lower left, Odds, Drivers and
         History on the lower right, the table above them."""
         for dock in self.docks.values():
             dock.setFloating(False)
@@ -123,6 +125,7 @@ class MainWindow(QMainWindow):
             self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, dock)
         self.splitDockWidget(self.docks["Timeline"], self.docks["Odds"], Qt.Orientation.Horizontal)
         self.tabifyDockWidget(self.docks["Timeline"], self.docks["Network"])
+        self.tabifyDockWidget(self.docks["Network"], self.docks["Resources"])
         self.tabifyDockWidget(self.docks["Odds"], self.docks["Drivers"])
         self.tabifyDockWidget(self.docks["Drivers"], self.docks["History"])
         self.docks["Timeline"].raise_()
