@@ -28,6 +28,7 @@ VERBS = {
     "import": ("import_table", "read a CSV/XLSX activity list into a .slw plan"),
     "export": ("export", "write the plan with its schedule to CSV/XLSX"),
     "check": ("check", "Checkup: grade the schedule's soundness (exit 1 with --strict when a check fails)"),
+    "level": ("level", "level resources: a schedule within every resource's units"),
 }
 
 

@@ -33,6 +33,8 @@ VIEWS = (
      "The Drivers view will appear here: which activities drive the finish date."),
     ("Checkup", "workbench.ui.checkup.view", "CheckupView",
      "The Checkup will appear here: is this schedule sound enough to sign?"),
+    ("Resources", "workbench.ui.resources.view", "ResourcesView",
+     "The Resources view will appear here: loading, levelling and the odds with the crews."),
 )
 STATE_VERSION = 1
 
@@ -125,7 +127,7 @@ class MainWindow(QMainWindow):
         self._arrange()
 
     def _arrange(self) -> None:
-        """Default layout: Timeline and Network on the lower left, Odds, Drivers and
+        """Default layout: Timeline, Network and Resources on the lower left, Odds, Drivers and
         History on the lower right, the table above them."""
         for dock in self.docks.values():
             dock.setFloating(False)
@@ -133,6 +135,7 @@ class MainWindow(QMainWindow):
             self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, dock)
         self.splitDockWidget(self.docks["Timeline"], self.docks["Odds"], Qt.Orientation.Horizontal)
         self.tabifyDockWidget(self.docks["Timeline"], self.docks["Network"])
+        self.tabifyDockWidget(self.docks["Network"], self.docks["Resources"])
         self.tabifyDockWidget(self.docks["Odds"], self.docks["Drivers"])
         self.tabifyDockWidget(self.docks["Drivers"], self.docks["Checkup"])
         self.tabifyDockWidget(self.docks["Checkup"], self.docks["History"])
