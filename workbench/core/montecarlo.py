@@ -16,7 +16,7 @@ import functools
 import numpy as np
 from scipy.stats import rankdata
 
-from .analysis import moments
+from .analysis import check_in_calendar, moments
 from .calendar import WorkCalendar
 from .correlation import CorrelationModel
 from .block_passes import BlockPasses
@@ -107,6 +107,7 @@ class MonteCarlo:
         self.deadline = self.calendar.resolve(_check_deadline(chosen), finish=True)
         self.means, self.variances = moments(plan)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
+        check_in_calendar(self.schedule, self.calendar, self.deadline)
         self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt)
 
     def run_block(self, scores, occurrence, delay_scores, valid=None):
