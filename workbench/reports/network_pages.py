@@ -9,9 +9,10 @@ from reportlab.platypus import Paragraph
 
 from workbench.figures.network_layout import layout_plan
 
-from . import styles
+from . import limits, styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
+from .text import para
 from .network_paint import DETAIL_SCALE, MIN_DETAIL_SCALE, NetworkPainter, View, link_bounds
 
 HEADING_SPACE = 30.0
@@ -69,7 +70,19 @@ def overview_view(layout, width: float, height: float) -> View:
     return View(-MARGIN_UNITS, layout.height / 2 - height / fit / 2, total_w, height / fit, fit)
 
 
+def too_large(ctx) -> list:
+    """The Network section of a plan too large to draw: what to use instead."""
+    text = (f"This plan has {len(ctx.plan):,} activities; a network diagram of more than "
+            f"{limits.NETWORK_ACTIVITIES:,} cannot be read on paper, so none is printed. The Network view "
+            "in the window shows it in full; the Timeline and the activity table of this "
+            "pack give every printed activity's dates and floats.")
+    return new_page(LANDSCAPE) + [Section("Network", "network"), Paragraph("Network", styles.H1),
+                                  Paragraph(para(text), styles.BODY)]
+
+
 def network_pages(ctx, frame: tuple[float, float]) -> list:
+    if len(ctx.plan) > limits.NETWORK_ACTIVITIES:
+        return too_large(ctx)
     layout = layout_plan(ctx.plan, ctx.analysis)
     width, height = frame
     chart_h = height - HEADING_SPACE - NOTE_SPACE
@@ -83,6 +96,8 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
     detail_h = height - HEADING_SPACE - DETAIL_NOTE_SPACE
     scale = detail_scale(layout, detail_h)
     views = [v for v in tiles(layout, width, detail_h, scale) if _occupied(layout, v)]
+    if len(views) > limits.NETWORK_DETAIL_PAGES:
+        return story + [Paragraph(para(_no_detail(len(views))), styles.SMALL)]
     boxes = link_bounds(layout)
     for k, view in enumerate(views):
         story += new_page(LANDSCAPE) + [
@@ -90,6 +105,12 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
             ChartFlowable(width, detail_h, NetworkPainter(ctx, layout, view, boxes).paint),
             Paragraph(DETAIL_NOTE, styles.SMALL)]
     return story
+
+
+def _no_detail(pages: int) -> str:
+    return (f"Detail pages at a legible scale would take {pages:,} pages (more than "
+            f"{limits.NETWORK_DETAIL_PAGES}), so only this overview is printed: the activity table gives "
+            "every printed activity's numbers, and the Network view in the window shows the boxes in full.")
 
 
 def detail_scale(layout, page_h: float) -> float:

@@ -5,24 +5,35 @@ from __future__ import annotations
 from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import LongTable, Paragraph, TableStyle
 
-from . import styles
+from . import limits, styles
 from .context import PackContext
 from .layout import Section
+from .limits import least_float, summarised
 from .text import clean, format_date
 
 HEAD = ("ID", "Name", "te", "sd", "ES", "EF", "LS", "LF", "Total\nfloat", "Free\nfloat", "Crit.")
 SHARES = (0.085, 0.255, 0.055, 0.05, 0.09, 0.09, 0.09, 0.09, 0.065, 0.065, 0.065)
 FONT_SIZE = 8
+NARROWEST = 0.1           # no printing character is narrower than a tenth of the font size
 
 
 def fit(text: str, width: float, font: str = styles.FONT, size: float = FONT_SIZE) -> str:
-    """Text shortened with '...' so it fits ``width`` points."""
-    text = clean(text)
-    if stringWidth(text, font, size) <= width:
+    """Text shortened with '...' so it fits ``width`` points. Only as many characters as
+    could ever fit are looked at, and the cut is found by bisection, so a pasted essay
+    costs no more than a name."""
+    text = "" if text is None else str(text)
+    most = int(width / (NARROWEST * size)) + 2
+    text = clean(text[:most + 1])
+    if len(text) <= most and stringWidth(text, font, size) <= width:
         return text
-    while text and stringWidth(text + "...", font, size) > width:
-        text = text[:-1]
-    return text.rstrip() + "..."
+    lo, hi = 0, min(len(text), most)          # text[:lo] + '...' fits; text[:hi] + '...' may not
+    while lo < hi:
+        mid = (lo + hi + 1) // 2
+        if stringWidth(text[:mid] + "...", font, size) <= width:
+            lo = mid
+        else:
+            hi = mid - 1
+    return text[:lo].rstrip() + "..."
 
 
 def _fixed(x: float) -> str:
@@ -30,11 +41,14 @@ def _fixed(x: float) -> str:
     return f"{round(float(x), 9) + 0.0:.2f}"
 
 
-def activity_rows(ctx: PackContext, widths: list[float]) -> list[list[str]]:
+def activity_rows(ctx: PackContext, widths: list[float], shown=None) -> list[list[str]]:
+    """One row per activity, or per plan row in ``shown``."""
     a, s = ctx.analysis, ctx.analysis.schedule
     dates = a.dates()
+    acts = ctx.plan.activities
     rows = []
-    for i, act in enumerate(ctx.plan.activities):
+    for i in (range(len(acts)) if shown is None else shown.tolist()):
+        act = acts[i]
         rows.append([fit(act.id, widths[0] - 4, styles.BOLD), fit(act.name, widths[1] - 4),
                      _fixed(a.means[i]), _fixed(a.variances[i] ** 0.5),
                      *(format_date(dates[k][i]) for k in ("early_start", "early_finish", "late_start", "late_finish")),
@@ -43,13 +57,13 @@ def activity_rows(ctx: PackContext, widths: list[float]) -> list[list[str]]:
     return rows
 
 
-def _table_style(ctx: PackContext) -> TableStyle:
+def _table_style(ctx: PackContext, shown) -> TableStyle:
     cmds = [("FONT", (0, 0), (-1, -1), styles.FONT, FONT_SIZE), ("FONT", (0, 0), (-1, 0), styles.BOLD, FONT_SIZE),
             ("FONT", (0, 1), (0, -1), styles.BOLD, FONT_SIZE), ("VALIGN", (0, 0), (-1, -1), "MIDDLE"),
             ("ALIGN", (2, 0), (-1, -1), "RIGHT"), ("LINEBELOW", (0, 0), (-1, 0), 0.8, styles.TEXT),
             ("TOPPADDING", (0, 0), (-1, -1), 1.5), ("BOTTOMPADDING", (0, 0), (-1, -1), 1.5),
             ("LEFTPADDING", (0, 0), (-1, -1), 2), ("RIGHTPADDING", (0, 0), (-1, -1), 2)]
-    for row, critical in enumerate(ctx.analysis.schedule.critical, start=1):
+    for row, critical in enumerate(ctx.analysis.schedule.critical[shown].tolist(), start=1):
         if critical:
             cmds += [("TEXTCOLOR", (-1, row), (-1, row), styles.CRITICAL), ("FONT", (-1, row), (-1, row), styles.BOLD, FONT_SIZE)]
         if row % 2 == 0:
@@ -59,8 +73,10 @@ def _table_style(ctx: PackContext) -> TableStyle:
 
 def activity_table(ctx: PackContext, width: float) -> list:
     widths = [width * share for share in SHARES]
-    table = LongTable([list(HEAD)] + activity_rows(ctx, widths), colWidths=widths, repeatRows=1)
-    table.setStyle(_table_style(ctx))
+    total = len(ctx.plan)
+    shown = least_float(ctx.analysis.schedule, limits.TABLE_ROWS)
+    table = LongTable([list(HEAD)] + activity_rows(ctx, widths, shown), colWidths=widths, repeatRows=1)
+    table.setStyle(_table_style(ctx, shown))
     unit = ctx.unit
     intro = (f"te: PERT expected duration, sd: its standard deviation, floats in {unit}; "
              "ES/EF/LS/LF are calendar dates (start dates are the first working day, finish "
@@ -69,5 +85,7 @@ def activity_table(ctx: PackContext, width: float) -> list:
         intro += (f" The late dates come from the deadline ({format_date(ctx.date_of(ctx.deadline()))}), so "
                   "floats are measured to it: the critical activities are those with the least float, "
                   "which is more than zero when the plan finishes early and negative when it is late.")
+    if shown.size < total:
+        intro += " " + summarised(shown.size, total, "this table")
     return [Section("Activities", "activities"), Paragraph("Activities", styles.H1),
             Paragraph(intro, styles.SMALL), table]

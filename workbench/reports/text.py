@@ -54,5 +54,6 @@ def plural_unit(unit: str, value: float) -> str:
 
 
 def elide(text: str, limit: int) -> str:
-    text = clean(text)
+    """At most ``limit`` characters; longer text ends in '...' (only its head is cleaned)."""
+    text = clean(("" if text is None else str(text))[: limit + 1])
     return text if len(text) <= limit else text[: max(1, limit - 3)].rstrip() + "..."
