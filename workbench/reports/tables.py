@@ -2,38 +2,26 @@
 
 from __future__ import annotations
 
-from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import LongTable, Paragraph, TableStyle
 
-from . import limits, styles
+from . import fonts, limits, styles
 from .context import PackContext
 from .layout import Section
 from .limits import least_float, summarised
-from .text import clean, format_date
+from .text import fit, format_date
 
 HEAD = ("ID", "Name", "te", "sd", "ES", "EF", "LS", "LF", "Total\nfloat", "Free\nfloat", "Crit.")
 SHARES = (0.085, 0.255, 0.055, 0.05, 0.09, 0.09, 0.09, 0.09, 0.065, 0.065, 0.065)
 FONT_SIZE = 8
-NARROWEST = 0.1           # no printing character is narrower than a tenth of the font size
 
 
-def fit(text: str, width: float, font: str = styles.FONT, size: float = FONT_SIZE) -> str:
-    """Text shortened with '...' so it fits ``width`` points. Only as many characters as
-    could ever fit are looked at, and the cut is found by bisection, so a pasted essay
-    costs no more than a name."""
-    text = "" if text is None else str(text)
-    most = int(width / (NARROWEST * size)) + 2
-    text = clean(text[:most + 1])
-    if len(text) <= most and stringWidth(text, font, size) <= width:
-        return text
-    lo, hi = 0, min(len(text), most)          # text[:lo] + '...' fits; text[:hi] + '...' may not
-    while lo < hi:
-        mid = (lo + hi + 1) // 2
-        if stringWidth(text[:mid] + "...", font, size) <= width:
-            lo = mid
-        else:
-            hi = mid - 1
-    return text[:lo].rstrip() + "..."
+def cell(text: str):
+    """A table cell for fitted text: the text itself, or a Paragraph when part of it
+    needs the fallback font (a plain cell draws in one font)."""
+    parts = fonts.runs(text, styles.FONT)
+    if len(parts) == 1 and parts[0][1] == styles.FONT:
+        return parts[0][0]
+    return Paragraph(fonts.markup(text), styles.CELL)
 
 
 def _fixed(x: float) -> str:
@@ -49,7 +37,7 @@ def activity_rows(ctx: PackContext, widths: list[float], shown=None) -> list[lis
     rows = []
     for i in (range(len(acts)) if shown is None else shown.tolist()):
         act = acts[i]
-        rows.append([fit(act.id, widths[0] - 4, styles.BOLD), fit(act.name, widths[1] - 4),
+        rows.append([cell(fit(act.id, widths[0] - 4, styles.BOLD)), cell(fit(act.name, widths[1] - 4)),
                      _fixed(a.means[i]), _fixed(a.variances[i] ** 0.5),
                      *(format_date(dates[k][i]) for k in ("early_start", "early_finish", "late_start", "late_finish")),
                      _fixed(s.total_float[i]), _fixed(s.free_float[i]),
