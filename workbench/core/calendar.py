@@ -62,23 +62,25 @@ class WorkCalendar:
         self.first_day = np.busday_offset(np.datetime64(settings.start, "D"), 0, roll="forward", busdaycal=self._cal)
 
     # --- offsets to dates ------------------------------------------------
-    def _day(self, index) -> np.ndarray:
+    def _day(self, index, strict: bool = True) -> np.ndarray:
+        """Working day ``index`` from the first; ``strict``: OutOfCalendar for a day outside
+        years 1–9999 (views panned beyond any date pass False and clip the result)."""
         index = np.asarray(index, dtype=float)
         if index.size and np.abs(index).max() > MAX_DAYS:
             from .errors import PlanError
             raise PlanError(f"the schedule reaches more than {MAX_DAYS:,} working days from the start, "
                             f"beyond any calendar date: check durations, lags and constraints", "schedule")
         days = np.busday_offset(self.first_day, index.astype(np.int64), roll="forward", busdaycal=self._cal)
-        if days.size and (days.min() < FIRST_DATE or days.max() > LAST_DATE):
+        if strict and days.size and (days.min() < FIRST_DATE or days.max() > LAST_DATE):
             outside = (days < FIRST_DATE) | (days > LAST_DATE)
             worst = int(np.argmax(np.where(outside, np.abs(index), -1.0)))
             raise OutOfCalendar(worst, bool(days.flat[worst] < FIRST_DATE))
         return days
 
-    def start_dates(self, offsets) -> np.ndarray:
+    def start_dates(self, offsets, strict: bool = True) -> np.ndarray:
         """The working day on which something starting at ``offsets`` begins."""
         days = np.floor(np.asarray(offsets, dtype=float) * self.per_unit + 1e-9)
-        return self._day(days)
+        return self._day(days, strict)
 
     def finish_dates(self, offsets, starts=None) -> np.ndarray:
         """The working day at whose end something finishing at ``offsets`` ends.

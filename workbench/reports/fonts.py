@@ -29,19 +29,24 @@ _RTL = frozenset(("R", "AL"))
 
 @functools.lru_cache(maxsize=1)
 def register() -> bool:
-    """Register the pack's fonts with reportlab once per process."""
-    folder = resources_dir() / "fonts"
-    for name, file in FILES.items():
-        pdfmetrics.registerFont(TTFont(name, str(folder / file)))
-    for name, bold in ((FONT, BOLD), (BOLD, BOLD), (FALLBACK, FALLBACK)):
-        for is_bold, is_italic in ((0, 0), (0, 1), (1, 0), (1, 1)):
-            addMapping(name, is_bold, is_italic, bold if is_bold else name)
+    """Register the pack's main fonts with reportlab once per process (the fallback font,
+    a larger file, only when some text needs it: :func:`coverage`)."""
+    _load(FONT, BOLD)
+    _load(BOLD, BOLD)
     return True
+
+
+def _load(name: str, bold: str) -> None:
+    pdfmetrics.registerFont(TTFont(name, str(resources_dir() / "fonts" / FILES[name])))
+    for is_bold, is_italic in ((0, 0), (0, 1), (1, 0), (1, 1)):
+        addMapping(name, is_bold, is_italic, bold if is_bold else name)
 
 
 @functools.lru_cache(maxsize=4)
 def coverage(font: str) -> frozenset:
     register()
+    if font == FALLBACK:
+        _load(FALLBACK, FALLBACK)
     return frozenset(pdfmetrics.getFont(font).face.charToGlyph)
 
 

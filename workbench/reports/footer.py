@@ -45,7 +45,7 @@ def footer_drawer(info: FooterInfo):
         canvas.setFillColor(styles.MUTED)
         room = width - 2 * styles.MARGIN - PAGE_LABEL_W - 8
         line = info.line()
-        size = max(6.0, min(7.5, 7.5 * room / max(fonts.width(line, styles.FONT, 7.5), 1.0)))
+        size = max(6.0, min(7.5, 7.4 * room / max(fonts.width(line, styles.FONT, 7.5), 1.0)))
         canvas.setFont(styles.FONT, size)          # smaller type before anything is cut off
         fonts.draw(canvas, styles.MARGIN, y, fit(line, room, styles.FONT, size))
         canvas.setFont(styles.BOLD, 8)

@@ -7,8 +7,11 @@ from __future__ import annotations
 
 import math
 
+import numpy as np
+
 from reportlab.platypus import Paragraph
 
+from workbench.core.calendar import FIRST_DATE, LAST_DATE
 from workbench.figures.timeline import timeline_geometry
 
 from . import limits, styles
@@ -109,6 +112,7 @@ def _heading(ctx, geo, rows, window, k: int, count: int) -> str:
     if count == 1:
         return "Timeline"
     cal = ctx.analysis.calendar
-    span = f"{format_date(cal.start_date(window[0]))} to {format_date(cal.start_date(window[1]))}"
+    ends = np.clip(cal.start_dates(window, strict=False), FIRST_DATE, LAST_DATE)   # the padding may pass year 1
+    span = f"{format_date(ends[0])} to {format_date(ends[1])}"
     text = (f"Timeline ({k + 1} of {count}): rows {rows[0] + 1:,}-{rows[1]:,} of {geo.n_rows:,}, {span}")
     return para(text)
