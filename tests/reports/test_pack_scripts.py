@@ -92,3 +92,17 @@ def test_fallback_runs_switch_font_only_where_needed():
     assert fonts.runs("Crane lift \U0001F600") == [("Crane lift \U0001F600", fonts.FONT)]   # DejaVu has it
     assert fonts.runs("Slab 浇筑 B2") == [("Slab ", fonts.FONT), ("浇筑", fonts.FALLBACK), (" B2", fonts.FONT)]
     assert fonts.runs("Plain text") == [("Plain text", fonts.FONT)]
+
+
+def test_a_canvas_that_lays_out_text_itself_gets_it_in_drawn_order_kept():
+    """The Present slides draw the pack's painters through Qt, which applies the
+    bidirectional algorithm itself: reordered text is marked to stay as it stands."""
+    drawn = []
+
+    class LaysOutItself:
+        def drawString(self, x, y, text):  # noqa: N802 (reportlab's name)
+            drawn.append(text)
+
+    fonts.draw(LaysOutItself(), 0, 0, fonts.visual("יציקת"))
+    fonts.draw(LaysOutItself(), 0, 0, "Pour slab")
+    assert drawn == ["\u202dתקיצי\u202c", "Pour slab"]

@@ -87,10 +87,13 @@ def width(text: str, font: str, size: float) -> float:
 def draw(c, x: float, y: float, text: str, align: str = "left") -> None:
     """Draw ``text`` at (x, y) in the canvas's current font and size, switching to the
     fallback font where needed; ``align`` is left, right or centre."""
-    font, size = c._fontname, c._fontsize
+    font, size = getattr(c, "_fontname", None), getattr(c, "_fontsize", None)
+    if font is None:            # a canvas that lays text out itself (the Present slides' Qt one)
+        _ALIGNED[align](c)(x, y, _keep_order(text))
+        return
     parts = runs(text, font)
     if len(parts) == 1 and parts[0][1] == font:
-        {"left": c.drawString, "right": c.drawRightString, "centre": c.drawCentredString}[align](x, y, parts[0][0])
+        _ALIGNED[align](c)(x, y, parts[0][0])
         return
     total = sum(pdfmetrics.stringWidth(p, f, size) for p, f in parts)
     x -= {"left": 0.0, "right": total, "centre": total / 2}[align]
@@ -99,6 +102,18 @@ def draw(c, x: float, y: float, text: str, align: str = "left") -> None:
         c.drawString(x, y, piece)
         x += pdfmetrics.stringWidth(piece, name, size)
     c.setFont(font, size)
+
+
+_ALIGNED = {"left": lambda c: c.drawString, "right": lambda c: c.drawRightString,
+            "centre": lambda c: c.drawCentredString}
+
+
+def _keep_order(text: str) -> str:
+    """Text already in drawing order, marked so a layout engine that applies the
+    bidirectional algorithm itself draws it left to right as it stands."""
+    if text.isascii() or not any(unicodedata.bidirectional(ch) in _RTL for ch in text):
+        return text
+    return "\u202d" + text + "\u202c"          # left-to-right override … pop
 
 
 def markup(text: str) -> str:
