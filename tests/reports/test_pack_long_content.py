@@ -120,3 +120,13 @@ def test_a_span_of_a_million_days_takes_a_few_timeline_pages(tmp_path):
     _, reader = _pack(plan, tmp_path)
     found = _sections(reader)
     assert found["Network"] - found["Timeline"] <= limits.TIMELINE_WINDOWS
+
+
+def test_too_many_network_detail_pages_keep_the_critical_ones_and_say_so(tmp_path, monkeypatch):
+    monkeypatch.setattr(limits, "NETWORK_DETAIL_PAGES", 2)
+    plan = _chain(150)
+    _, reader = _pack(plan, tmp_path)
+    found = _sections(reader)
+    overview = re.sub(r"\s+", " ", reader.pages[found["Network"]].extract_text())
+    assert "the 2 detail pages that follow show the critical path's boxes only" in overview
+    assert found["Odds"] - found["Network"] == 3

@@ -11,7 +11,7 @@ TIMELINE_PAGES = 60            # landscape Timeline pages, rows and time windows
 TIMELINE_WINDOWS = 6           # pages across the same rows, for a very long time span
 TABLE_ROWS = 2_500             # rows of the activity table (about 40 portrait pages)
 NETWORK_ACTIVITIES = 5_000     # larger networks get no diagram (laying one out takes minutes)
-NETWORK_DETAIL_PAGES = 40      # detail pages after the overview
+NETWORK_DETAIL_PAGES = 40      # detail pages after the overview (past it: the critical path's only)
 
 
 def least_float(schedule, count: int) -> np.ndarray:
