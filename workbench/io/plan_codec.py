@@ -14,6 +14,7 @@ from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Calendar, Cor
                                   SignOff)
 from workbench.core.network import compile_plan
 
+from .checkup_section import checkup_from_dict, checkup_to_dict
 from .errors import PlanFileError
 from .fields import Fields
 from .plan_migrate import FORMAT, VERSION, upgrade
@@ -69,6 +70,7 @@ def plan_to_dict(plan: Plan) -> dict:
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
         "correlations": [{"name": c.name, "activities": list(c.activities),
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
+        "checkup": checkup_to_dict(plan),
     }
 
 
@@ -235,7 +237,9 @@ def plan_from_dict(data) -> Plan:
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    checkup = checkup_from_dict(top.raw("checkup"))
     top.done()
     plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
+    plan.checkup_thresholds = checkup
     _core(lambda: compile_plan(plan))
     return plan
