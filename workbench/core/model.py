@@ -25,6 +25,10 @@ MAX_ID_LENGTH = 40
 # (thousands of years): beyond that a number is a typing slip, and dates would overflow.
 MAX_UNITS = 1_000_000.0
 EARLIEST_DATE = dt.date(1900, 1, 1)
+# Longest text each field takes at entry: room for any real name or note, while a pasted
+# essay is refused by name (the approval pack also shortens, with an ellipsis, what it prints).
+TEXT_LIMITS = {"name": 500, "group": 200, "notes": 20_000, "title": 300, "revision": 100,
+               "prepared by": 200, "sign-off name": 200, "sign-off role": 200}
 LATEST_DATE = dt.date(2200, 12, 31)
 
 
@@ -62,6 +66,17 @@ def check_demands(act: "Activity") -> None:
         units = _check_number(units, act.id, f"units of resource {res}", allow_none=False)
         if units < 0:
             raise PlanError(f"activity {act.id}: units of resource {res} must not be negative ({units:g})", act.id)
+
+
+def check_text(value, owner: str, field_name: str, culprit: str | None = None) -> str:
+    """Text of at most ``TEXT_LIMITS[field_name]`` characters, else PlanError naming it."""
+    if not isinstance(value, str):
+        raise PlanError(f"{owner}: {field_name} must be text, not {type(value).__name__}", culprit or owner)
+    limit = TEXT_LIMITS[field_name]
+    if len(value) > limit:
+        raise PlanError(f"{owner}: {field_name} is {len(value):,} characters long; use at most {limit:,} "
+                        f"(it begins {value[:30]!r})", culprit or owner)
+    return value
 
 
 Offset = float | dt.date  # a constraint or deadline: plan-unit offset or a calendar date
@@ -105,6 +120,8 @@ class Activity:
         i, a, m, b, d = self.id, self.optimistic, self.most_likely, self.pessimistic, self.duration
         if type(i) is not str or not i or len(i) > MAX_ID_LENGTH or _BAD_ID.search(i):
             return False
+        if not _short_texts(self):
+            return False
         if self.start_no_earlier is not None or self.finish_no_later is not None or self.resources:
             return False
         if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
@@ -121,6 +138,8 @@ class Activity:
         if self._plainly_valid():
             return self
         check_id(self.id)
+        for name in ("name", "group", "notes"):
+            check_text(getattr(self, name), f"activity {self.id}", name, self.id)
         a = _check_number(self.optimistic, self.id, "optimistic")
         m = _check_number(self.most_likely, self.id, "most likely")
         b = _check_number(self.pessimistic, self.id, "pessimistic")
@@ -172,6 +191,12 @@ class Activity:
 
     def with_(self, **changes) -> "Activity":
         return replace(self, **changes)
+
+
+def _short_texts(act: Activity) -> bool:
+    limits, name, group, notes = TEXT_LIMITS, act.name, act.group, act.notes
+    return (type(name) is str and type(group) is str and type(notes) is str and len(name) <= limits["name"]
+            and len(group) <= limits["group"] and len(notes) <= limits["notes"])
 
 
 @dataclass(frozen=True)
@@ -247,7 +272,15 @@ class Settings:
         check_date(self.start, "settings", "start date")
         if self.status_date is not None:
             check_date(self.status_date, "settings", "status date")
+        self._check_texts()
         return self
+
+    def _check_texts(self) -> None:
+        for name, value in (("title", self.title), ("revision", self.revision), ("prepared by", self.prepared_by)):
+            check_text(value, "settings", name, name)
+        for k, person in enumerate(self.sign_off, 1):
+            check_text(person.name, f"settings: sign-off row {k}", "sign-off name", "sign_off")
+            check_text(person.role, f"settings: sign-off row {k}", "sign-off role", "sign_off")
 
 
 @dataclass(frozen=True)
