@@ -13,6 +13,7 @@ from dataclasses import dataclass, field, replace
 from typing import Callable, Iterable
 
 from .errors import PlanError
+from .text import check_text
 
 LINK_TYPES = ("FS", "SS", "FF", "SF")
 UNITS = ("days", "weeks")
@@ -257,6 +258,23 @@ class CorrelationGroup:
 Listener = Callable[[str, dict], None]
 
 
+def check_activity_text(act: Activity) -> Activity:
+    """Refuse text the plan file cannot hold (a lone surrogate), naming activity and field."""
+    for name in ("id", "name", "group", "notes"):
+        check_text(getattr(act, name), f"activity {act.id}" if name != "id" else "an activity", name, act.id)
+    return act
+
+
+def check_settings_text(settings: Settings) -> Settings:
+    for name in ("title", "revision", "prepared_by", "unit", "distribution"):
+        check_text(getattr(settings, name), "settings", name.replace("_", " "), name)
+    check_text(settings.calendar.region, "settings", "calendar region", "calendar")
+    for i, person in enumerate(settings.sign_off, 1):
+        check_text(person.name, f"settings: sign-off {i}", "name", "sign_off")
+        check_text(person.role, f"settings: sign-off {i}", "role", "sign_off")
+    return settings
+
+
 class Plan:
     """An ordered set of activities, the links between them and the plan settings.
 
@@ -272,6 +290,8 @@ class Plan:
         """``validated=True``: the caller (a file reader) has validated every activity and
         link already; only duplicate ids and link ends are checked again."""
         self.settings = settings or Settings()
+        if not validated:
+            check_settings_text(self.settings)
         self._activities: list[Activity] = []
         self._index: dict[str, int] = {}
         self.links: list[Link] = []
@@ -280,7 +300,7 @@ class Plan:
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         for act in activities:
-            self._append(act if validated else act.validated())
+            self._append(act if validated else check_activity_text(act.validated()))
         if validated:
             self.links = list(links)
             index = self._index
@@ -350,7 +370,7 @@ class Plan:
                 raise PlanError(f"link {link.pred} \u2192 {link.succ}: unknown activity {end!r}", link.succ if end == link.pred else end)
 
     def insert_activity(self, row: int, act: Activity) -> None:
-        act.validated()
+        check_activity_text(act.validated())
         if act.id in self._index:
             raise PlanError(f"duplicate activity id {act.id!r}", act.id)
         row = max(0, min(row, len(self._activities)))
@@ -380,7 +400,7 @@ class Plan:
 
     def replace_activity(self, act_id: str, new: Activity) -> Activity:
         """Replace an activity (possibly renaming it: links follow the new id)."""
-        new.validated()
+        check_activity_text(new.validated())
         row = self.row_of(act_id)
         if new.id != act_id and new.id in self._index:
             raise PlanError(f"duplicate activity id {new.id!r}", new.id)
@@ -411,7 +431,7 @@ class Plan:
         return old
 
     def set_settings(self, settings: Settings) -> Settings:
-        settings.validated()
+        check_settings_text(settings.validated())
         self._emit("about_to_change", kind="settings_changed")
         old, self.settings = self.settings, settings
         self._emit("changed", kind="settings_changed")
