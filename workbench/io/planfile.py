@@ -156,10 +156,10 @@ def save_plan(plan: Plan, path, backup: bool = True, accept_owner_change: bool =
     untouched. When the owner or group could not be kept, :class:`OwnershipChange` is
     raised before anything is written, unless ``accept_owner_change``."""
     path = Path(path)
-    if path.is_symlink():
-        path = path.resolve()
     data = encode_plan(plan)
     try:
+        if path.is_symlink():
+            path = path.resolve()
         problem = None if accept_owner_change else atomic.ownership_problem(path)
         if problem:
             raise OwnershipChange(f"{problem}. Save anyway, or save under another name.", "owner")

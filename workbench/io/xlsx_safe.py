@@ -20,7 +20,7 @@ MAX_TOTAL_BYTES = 200 * 1024 * 1024
 MAX_ENTRIES = 10_000
 MAX_RATIO = 100
 RATIO_FLOOR = 1024 * 1024  # entries smaller than this may compress as well as they like
-MAX_CELLS = 20_000_000  # rows × columns read from one sheet (a million activities × 20 columns)
+MAX_CELLS = 12_000_000  # rows × columns read from one sheet (a million activities × 12 columns)
 SHEET_HINTS = ("activities", "activity", "plan", "schedule")
 
 
