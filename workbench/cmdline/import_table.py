@@ -7,6 +7,7 @@ from pathlib import Path
 
 from ..core.analysis import analyze
 from ..core.errors import PlanError
+from .common import refuse_if_locked, save_plan_file
 
 
 def add_arguments(p) -> None:
@@ -14,10 +15,11 @@ def add_arguments(p) -> None:
     p.add_argument("-o", "--output", required=True, metavar="PLAN.slw")
     p.add_argument("--start", metavar="YYYY-MM-DD")
     p.add_argument("--unit", choices=("days", "weeks"), default="days")
+    p.add_argument("--force", action="store_true",
+                   help="replace PLAN.slw even if a window has it open, or its owner or group would change")
 
 
 def run(args) -> int:
-    from ..io.planfile import save_plan
     from ..io.tabular import read_table
     from ..core.model import Settings
 
@@ -36,8 +38,9 @@ def run(args) -> int:
             settings.start = dt.date.fromisoformat(args.start)
         except ValueError:
             raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
+    refuse_if_locked(args.output, args.force)  # before the work of reading
     plan = read_table(src, settings=settings)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
-    save_plan(plan, args.output)
+    save_plan_file(plan, args.output, args.force)
     print(f"imported {len(plan)} activities and {len(plan.links)} links into {args.output}")
     return 0

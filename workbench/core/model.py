@@ -6,6 +6,7 @@ other layers can follow them one-to-one.
 
 from __future__ import annotations
 
+import copy
 import datetime as dt
 import math
 import re
@@ -447,6 +448,21 @@ class Plan:
         self.correlations = list(other.correlations)
         self._reindex()
         self._emit("changed", kind="reset")
+
+    def snapshot(self) -> "Plan":
+        """A copy another thread may read while this plan is edited (an autosave): the
+        lists are copied (activities, links, risks and correlation groups are immutable),
+        everything else deep-copied; no listeners. Cheap: nothing is validated again."""
+        shallow = ("_activities", "links", "risks", "correlations", "_index")
+        new = object.__new__(Plan)
+        for name, value in self.__dict__.items():
+            if name in shallow:
+                value = type(value)(value)
+            elif name not in ("_listeners", "_analyzer"):
+                value = copy.deepcopy(value)
+            new.__dict__[name] = value
+        new._listeners, new._analyzer = [], None
+        return new
 
     def copy(self) -> "Plan":
         return Plan(replace(self.settings, calendar=replace(self.settings.calendar),

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import re
 
-from workbench.core.text import lone_surrogate
+from workbench.core.text import clean_text, lone_surrogate
 
 from .errors import PlanFileError
 
@@ -85,3 +85,21 @@ def refuse_duplicate_links(links) -> None:
             raise PlanFileError(f"link {link.pred} \u2192 {link.succ} ({link.type}) appears twice (links {seen[key]} "
                                 f"and {i}); keep one of them", link.succ)
         seen[key] = i
+
+
+def _cleaned(value):
+    if isinstance(value, str):
+        return clean_text(value)
+    if isinstance(value, dict):
+        return {_cleaned(k): _cleaned(v) for k, v in value.items()}
+    if isinstance(value, list):
+        return [_cleaned(v) for v in value]
+    return value
+
+
+def storable_copy(plan):
+    """The plan with every text it cannot store cleaned (lone surrogates become U+FFFD):
+    what a recovery copy keeps when the plan itself cannot be saved as it is."""
+    from .plan_codec import plan_from_dict, plan_to_dict
+
+    return plan_from_dict(_cleaned(plan_to_dict(plan)))
