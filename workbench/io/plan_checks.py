@@ -87,19 +87,13 @@ def refuse_duplicate_links(links) -> None:
         seen[key] = i
 
 
-def _cleaned(value):
+
+def cleaned_data(value):
+    """Plan data with every text it cannot store cleaned (lone surrogates become U+FFFD)."""
     if isinstance(value, str):
         return clean_text(value)
     if isinstance(value, dict):
-        return {_cleaned(k): _cleaned(v) for k, v in value.items()}
+        return {cleaned_data(k): cleaned_data(v) for k, v in value.items()}
     if isinstance(value, list):
-        return [_cleaned(v) for v in value]
+        return [cleaned_data(v) for v in value]
     return value
-
-
-def storable_copy(plan):
-    """The plan with every text it cannot store cleaned (lone surrogates become U+FFFD):
-    what a recovery copy keeps when the plan itself cannot be saved as it is."""
-    from .plan_codec import plan_from_dict, plan_to_dict
-
-    return plan_from_dict(_cleaned(plan_to_dict(plan)))

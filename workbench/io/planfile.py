@@ -16,7 +16,7 @@ from workbench.core.model import Plan
 from . import atomic
 from .atomic import OwnershipChange
 from .errors import PlanFileError
-from .plan_checks import check_storable, may_hold_surrogates, unstorable_text
+from .plan_checks import check_storable, cleaned_data, may_hold_surrogates, unstorable_text
 from .safe_read import NotReadable, read_regular_file
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
 from .plan_migrate import upgrade
@@ -134,6 +134,12 @@ def encode_plan(plan: Plan) -> bytes:
                             "size")
     loads(text, "not saved")  # never write a file we could not read back
     return data
+
+
+def storable_copy(plan: Plan) -> Plan:
+    """The plan with every text it cannot store cleaned (lone surrogates become U+FFFD):
+    what a recovery copy keeps when the plan itself cannot be saved as it is."""
+    return plan_from_dict(cleaned_data(plan_to_dict(plan)))
 
 
 def _keep_backup(path: Path, accept_owner_change: bool) -> None:

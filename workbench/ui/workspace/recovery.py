@@ -86,8 +86,7 @@ class RecoveryStore:
         """Write (atomically) this window's recovery copy of ``plan``. Safe to call from a
         worker thread with a snapshot of the plan (it reads nothing else of the window)."""
         from workbench.io import atomic
-        from workbench.io.plan_checks import storable_copy
-        from workbench.io.planfile import PlanFileError, save_plan
+        from workbench.io.planfile import PlanFileError, save_plan, storable_copy
         if self.key is None:
             self.claim(None)
         if not self.owns:
