@@ -95,3 +95,16 @@ def test_a_sheet_that_hides_its_size_is_capped_while_reading(tmp_path, monkeypat
                    if name == "xl/worksheets/sheet1.xml" else c)
     message = refusal(tmp_path, data)
     assert "sheet 'Activities' holds more than 7 rows \u00d7 16,384 columns" in message
+
+
+
+def test_a_pasted_or_imported_cell_with_a_lone_surrogate_is_refused_naming_row_and_column():
+    """Rows pasted into the table go through the import's checks (``rows_to_plan``); a
+    clipboard from a broken source may carry half a UTF-16 pair."""
+    from workbench.io.tabular import rows_to_plan
+
+    with pytest.raises(TableImportError) as info:
+        rows_to_plan([{"id": "A", "name": "Dig", "duration": "3"},
+                      {"id": "B", "name": "Pour \udc9f slab", "duration": "2", "predecessors": "A"}])
+    assert "row 3, activity B" in str(info.value)
+    assert "name holds a broken character (lone surrogate U+DC9F" in str(info.value)

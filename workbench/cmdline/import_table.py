@@ -22,6 +22,7 @@ def add_arguments(p) -> None:
 def run(args) -> int:
     from ..io.tabular import read_table
     from ..core.model import Settings
+    from ..core.text import clean_text
 
     src = Path(args.source)
     if src.suffix.lower() not in (".csv", ".xlsx"):
@@ -32,7 +33,7 @@ def run(args) -> int:
         raise PlanError(f"{args.source}: not a regular file", "SRC")
     if Path(args.output).suffix.lower() != ".slw":
         raise PlanError(f"-o {args.output}: the output must be a .slw plan file", "-o")
-    settings = Settings(title=src.stem, unit=args.unit)
+    settings = Settings(title=clean_text(src.stem), unit=args.unit)  # a file name may hold undecodable bytes
     if args.start:
         try:
             settings.start = dt.date.fromisoformat(args.start)
