@@ -156,8 +156,9 @@ class FileController(QObject):
         except planfile.OwnershipChange as exc:
             return self._owner_change(path, exc)
         except Exception as exc:  # noqa: BLE001 - whatever went wrong, the work stays
-            self._keep_recovery_copy()
-            if prompts.ask_save_as_instead(self.widget, _describe(exc, path)):
+            kept = self._keep_recovery_copy()
+            note = "\n\nNothing is lost: the window stays open" + (" and a recovery copy was written." if kept else ".")
+            if prompts.ask_save_as_instead(self.widget, f"Could not save {Path(path).name}.\n{_describe(exc, path).removeprefix('not saved: ')}{note}"):
                 return self._choose_and_write()
             return None
         self.session.undo_stack.setClean()
@@ -174,15 +175,17 @@ class FileController(QObject):
             return self._write(path, accept_owner_change=True)
         return self._choose_and_write() if answer == "save_as" else None
 
-    def _keep_recovery_copy(self) -> None:
+    def _keep_recovery_copy(self) -> bool:
         """After a failed save: the unsaved work goes to the recovery copy at once."""
         if not self.modified:
-            return
+            return False
         self.finish_autosave()
         try:
             self.store.write(self.session.plan.snapshot())
         except Exception as exc:  # noqa: BLE001
             self.message.emit(f"Could not write the recovery copy either: {exc}")
+            return False
+        return True
 
     def maybe_save(self) -> bool:
         """Ask about unsaved changes; True when it is fine to go on."""
