@@ -17,6 +17,8 @@ def add_arguments(p) -> None:
     p.add_argument("--unit", choices=("days", "weeks"), default="days")
     p.add_argument("--force", action="store_true",
                    help="replace PLAN.slw even if a window has it open, or its owner or group would change")
+    p.add_argument("--resources", metavar="RES.csv",
+                   help="the resources (columns id, name, units, cost) for a CSV's 'resources' column")
 
 
 def run(args) -> int:
@@ -39,9 +41,17 @@ def run(args) -> int:
             settings.start = dt.date.fromisoformat(args.start)
         except ValueError:
             raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
+    resources = None
+    if args.resources:
+        from ..io.tabular import read_resource_file
+        res = Path(args.resources)
+        if not res.is_file():
+            raise PlanError(f"--resources {args.resources}: no such file", "--resources")
+        resources = read_resource_file(res)
     refuse_if_locked(args.output, args.force)  # before the work of reading
-    plan = read_table(src, settings=settings)
+    plan = read_table(src, settings=settings, resources=resources)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
     save_plan_file(plan, args.output, args.force)
-    print(f"imported {len(plan)} activities and {len(plan.links)} links into {args.output}")
+    extra = f" and {len(plan.resources)} resources" if plan.resources else ""
+    print(f"imported {len(plan)} activities, {len(plan.links)} links{extra} into {args.output}")
     return 0

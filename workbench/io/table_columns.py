@@ -11,7 +11,7 @@ import re
 from dataclasses import dataclass, field
 
 FIELDS = ("id", "name", "optimistic", "most_likely", "pessimistic", "duration", "predecessors",
-          "group", "notes", "distribution", "start_no_earlier", "finish_no_later")
+          "group", "notes", "distribution", "start_no_earlier", "finish_no_later", "resources")
 
 ALIASES: dict[str, tuple[str, ...]] = {
     "id": ("id", "activity", "activity id", "code", "key", "ref"),
@@ -26,6 +26,7 @@ ALIASES: dict[str, tuple[str, ...]] = {
     "distribution": ("distribution", "dist", "shape"),
     "start_no_earlier": ("start no earlier", "start not before", "not before"),
     "finish_no_later": ("finish no later", "finish not after", "not after"),
+    "resources": ("resources", "resource needs", "needs", "crews"),
 }
 
 LOOKUP = {alias: name for name, aliases in ALIASES.items() for alias in aliases}

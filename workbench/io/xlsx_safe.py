@@ -135,3 +135,26 @@ def _numbered_rows(sheet, source: str) -> list[tuple[int, list[str]]]:
                 values.pop()
             rows.append((number, values))
     return rows
+
+
+def read_xlsx_sheet(content, source: str, name: str) -> list[tuple[int, list[str]]] | None:
+    """The rows of the worksheet called ``name`` (any case), or None when the workbook has
+    none. ``content``: the workbook's bytes or a path."""
+    if isinstance(content, (bytes, bytearray)):
+        content = io.BytesIO(content)
+    elif not hasattr(content, "read"):
+        content = io.BytesIO(Path(content).read_bytes())
+    check_zip(content, source)
+    import openpyxl
+
+    content.seek(0)
+    try:
+        workbook = openpyxl.load_workbook(content, read_only=True, data_only=True)
+    except Exception as exc:  # openpyxl raises many kinds for a broken workbook
+        raise TableImportError([f"cannot read the workbook: {type(exc).__name__}: {exc}"], source) from exc
+    try:
+        found = next((ws for ws in workbook.worksheets
+                      if hasattr(ws, "iter_rows") and ws.title.strip().lower() == name.lower()), None)
+        return None if found is None else _numbered_rows(found, source)
+    finally:
+        workbook.close()
