@@ -79,3 +79,16 @@ def test_an_empty_deadline_is_refused(tmp_path, capsys, verb):
     extra = ["--iterations", "200"] if verb == "simulate" else []
     assert main([verb, str(plan), "--deadline", "", *extra]) == 2
     assert "--deadline: empty" in capsys.readouterr().err
+
+
+def test_level_refuses_to_write_a_plan_a_window_holds(tmp_path, capsys):
+    source = Path(__file__).parents[1] / "data" / "boathouse_crews_v3.slw"
+    target = tmp_path / "levelled.slw"
+    save_plan(footbridge(), target)
+    lock_path(target).write_text("4242\nslackline\nsite-office-pc\n")
+    before = target.read_bytes()
+    assert main(["level", str(source), "-o", str(target)]) == 2
+    assert "process 4242 (slackline) on site-office-pc" in capsys.readouterr().err
+    assert target.read_bytes() == before
+    assert main(["level", str(source), "-o", str(target), "--force"]) == 0
+    assert load_plan(target).resources
