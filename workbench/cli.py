@@ -4,7 +4,7 @@
     slackline analyze PLAN [--deadline N|YYYY-MM-DD] [--json]
     slackline simulate PLAN [--iterations N] [--seed S] [--deadline ...] [--distribution D] [--json]
     slackline report PLAN -o pack.pdf [--paper a4|letter] [--iterations N] [--seed S]
-    slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks]
+    slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks] [--force]
     slackline export PLAN -o OUT.csv|OUT.xlsx
     slackline check PLAN [--json] [--strict] [--iterations N] [--seed S]
 

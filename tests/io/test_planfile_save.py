@@ -11,7 +11,7 @@ from pathlib import Path
 import pytest
 
 from workbench.core import Activity, Link, Plan, Settings
-from workbench.io import planfile
+from workbench.io import atomic, planfile
 from workbench.io.planfile import PlanFileError, load_plan, plan_to_dict, save_plan
 
 
@@ -51,7 +51,7 @@ def test_failed_rename_leaves_previous_file_and_no_temp(tmp_path, monkeypatch):
             raise OSError(28, "No space left on device")
         return real_replace(src, dst)
 
-    monkeypatch.setattr(planfile.os, "replace", failing_replace)
+    monkeypatch.setattr(atomic.os, "replace", failing_replace)
     with pytest.raises(PlanFileError, match="previous file is unchanged"):
         save_plan(make_plan(5, "bad"), path)
     monkeypatch.undo()
@@ -64,14 +64,16 @@ def test_failed_write_midway_leaves_previous_file(tmp_path, monkeypatch):
     save_plan(make_plan(3, "good"), path)
     calls = []
 
-    def failing_write_all(handle, data):
-        handle.write(data[: len(data) // 2])
+    real_write_fd = atomic._write_fd
+
+    def failing_write_all(fd, data):
+        real_write_fd(fd, data[: len(data) // 2])
         calls.append(1)
         if len(calls) == 2:  # first call writes the backup, the second the new file
             raise OSError(5, "Input/output error")
-        handle.write(data[len(data) // 2:])
+        real_write_fd(fd, data[len(data) // 2:])
 
-    monkeypatch.setattr(planfile, "_write_all", failing_write_all)
+    monkeypatch.setattr(atomic, "_write_fd", failing_write_all)
     with pytest.raises(PlanFileError):
         save_plan(make_plan(5, "bad"), path)
     assert load_plan(path).settings.title == "good"
@@ -82,22 +84,21 @@ KILLER = textwrap.dedent("""
     import os, signal, sys
     sys.path.insert(0, {tests!r})
     from test_planfile_save import make_plan
-    from workbench.io import planfile
+    from workbench.io import atomic, planfile
 
-    def write_half_then_die(handle, data):
-        handle.write(data[: len(data) // 2])
-        handle.flush()
+    def write_half_then_die(fd, data):
+        os.write(fd, data[: len(data) // 2])
         if {at_rename!r}:
-            handle.write(data[len(data) // 2:])
+            os.write(fd, data[len(data) // 2:])
             return
         os.kill(os.getpid(), signal.SIGKILL)
 
     def die(src, dst):
         os.kill(os.getpid(), signal.SIGKILL)
 
-    planfile._write_all = write_half_then_die
+    atomic._write_fd = write_half_then_die
     if {at_rename!r}:
-        planfile.os.replace = die
+        atomic.os.replace = die
     planfile.save_plan(make_plan(2000, "interrupted"), sys.argv[1], backup=False)
 """)
 

@@ -227,7 +227,7 @@ def test_failed_export_keeps_the_previous_table(tmp_path, kiosk, monkeypatch):
     from workbench.io import tabular
 
     def broken(rows, target):
-        Path(target).write_text("half")
+        target.write(b"half")
         raise OSError(28, "No space left on device")
 
     monkeypatch.setattr(tabular, "write_csv", broken)

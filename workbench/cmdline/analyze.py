@@ -18,7 +18,7 @@ def add_arguments(p) -> None:
 
 def run(args) -> int:
     plan = load_plan_file(args.plan)
-    deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
+    deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline is not None else None
     result = analyze(plan, deadline=deadline)
     if args.json:
         data = result.to_dict()

@@ -23,6 +23,9 @@ def check_iterations(n: int) -> None:
 
 def parse_offset_or_date(text: str, what: str):
     """``--deadline 47`` or ``--deadline 2027-11-30``."""
+    if not text.strip():
+        raise PlanError(f"{what}: empty; give a number of plan units or a date YYYY-MM-DD "
+                        f"(leave {what} out for none)", what)
     try:
         return check_date(dt.date.fromisoformat(text), what, "date")
     except ValueError as exc:
@@ -54,3 +57,26 @@ def load_plan_file(path: str):
 
 def write_json(obj) -> None:
     sys.stdout.write(json.dumps(obj, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+
+
+def refuse_if_locked(path, force: bool) -> None:
+    """A verb that writes a plan file leaves alone a plan a window has open for editing
+    (unless ``--force``), naming who holds it."""
+    from ..io.lock_info import lock_holder
+
+    holder = None if force else lock_holder(path)
+    if holder is not None:
+        raise PlanError(f"{path}: open for editing in a Slackline window ({holder.describe()}); close it there "
+                        "first, write to another file, or add --force to replace it anyway", "-o")
+
+
+def save_plan_file(plan, path, force: bool) -> None:
+    """Save for a writing verb: honour the window's lock, and say before writing when the
+    file's owner or group would change (``--force`` writes anyway)."""
+    from ..io.planfile import OwnershipChange, save_plan
+
+    refuse_if_locked(path, force)
+    try:
+        save_plan(plan, path, accept_owner_change=force)
+    except OwnershipChange as exc:
+        raise PlanError(f"{exc} (nothing written; add --force to write it anyway)", "-o") from None

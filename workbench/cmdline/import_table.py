@@ -7,6 +7,7 @@ from pathlib import Path
 
 from ..core.analysis import analyze
 from ..core.errors import PlanError
+from .common import refuse_if_locked, save_plan_file
 
 
 def add_arguments(p) -> None:
@@ -14,14 +15,16 @@ def add_arguments(p) -> None:
     p.add_argument("-o", "--output", required=True, metavar="PLAN.slw")
     p.add_argument("--start", metavar="YYYY-MM-DD")
     p.add_argument("--unit", choices=("days", "weeks"), default="days")
+    p.add_argument("--force", action="store_true",
+                   help="replace PLAN.slw even if a window has it open, or its owner or group would change")
     p.add_argument("--resources", metavar="RES.csv",
                    help="the resources (columns id, name, units, cost) for a CSV's 'resources' column")
 
 
 def run(args) -> int:
-    from ..io.planfile import save_plan
     from ..io.tabular import read_table
     from ..core.model import Settings
+    from ..core.text import clean_text
 
     src = Path(args.source)
     if src.suffix.lower() not in (".csv", ".xlsx"):
@@ -32,7 +35,7 @@ def run(args) -> int:
         raise PlanError(f"{args.source}: not a regular file", "SRC")
     if Path(args.output).suffix.lower() != ".slw":
         raise PlanError(f"-o {args.output}: the output must be a .slw plan file", "-o")
-    settings = Settings(title=src.stem, unit=args.unit)
+    settings = Settings(title=clean_text(src.stem), unit=args.unit)  # a file name may hold undecodable bytes
     if args.start:
         try:
             settings.start = dt.date.fromisoformat(args.start)
@@ -45,9 +48,10 @@ def run(args) -> int:
         if not res.is_file():
             raise PlanError(f"--resources {args.resources}: no such file", "--resources")
         resources = read_resource_file(res)
+    refuse_if_locked(args.output, args.force)  # before the work of reading
     plan = read_table(src, settings=settings, resources=resources)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
-    save_plan(plan, args.output)
+    save_plan_file(plan, args.output, args.force)
     extra = f" and {len(plan.resources)} resources" if plan.resources else ""
     print(f"imported {len(plan)} activities, {len(plan.links)} links{extra} into {args.output}")
     return 0

@@ -5,7 +5,7 @@ from __future__ import annotations
 from pathlib import Path
 
 from ..core.errors import PlanError
-from .common import load_plan_file, write_json
+from .common import load_plan_file, refuse_if_locked, save_plan_file, write_json
 from .text import elide, num, table
 
 
@@ -19,6 +19,8 @@ def add_arguments(p) -> None:
                    help="schedules the genetic algorithm may try after the rule (default 0: none)")
     p.add_argument("--seed", type=int, default=0, metavar="S")
     p.add_argument("--json", action="store_true")
+    p.add_argument("--force", action="store_true",
+                   help="write LEVELLED.slw even if a window has it open, or its owner or group would change")
 
 
 def run(args) -> int:
@@ -29,15 +31,16 @@ def run(args) -> int:
         raise PlanError(f"--budget must be a whole number from 0 to 1,000,000, not {args.budget}", "--budget")
     if args.output and Path(args.output).suffix.lower() != ".slw":
         raise PlanError(f"-o {args.output}: the levelled plan is written as a .slw plan file", "-o")
+    if args.output:
+        refuse_if_locked(args.output, args.force)  # before the work of levelling
     plan = load_plan_file(args.plan)
     if not plan.resources:
         raise PlanError(f"{args.plan}: the plan has no resources to level", "PLAN")
     result = level(plan, rule=args.rule, budget=args.budget, seed=args.seed)
     cal = WorkCalendar(plan.settings)
     if args.output:
-        from ..io.planfile import save_plan
         keep_levelled(plan, result).do(plan)
-        save_plan(plan, args.output)
+        save_plan_file(plan, args.output, args.force)
     if args.json:
         write_json(_as_json(result, cal))
     else:

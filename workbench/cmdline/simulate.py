@@ -26,7 +26,7 @@ def run(args) -> int:
     plan = load_plan_file(args.plan)
     from ..core.montecarlo import simulate
 
-    deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
+    deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline is not None else None
     progress = None
     if not args.json and sys.stderr.isatty():
         def progress(done, total):

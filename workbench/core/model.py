@@ -6,6 +6,7 @@ other layers can follow them one-to-one.
 
 from __future__ import annotations
 
+import copy
 import datetime as dt
 import math
 import re
@@ -13,6 +14,7 @@ from dataclasses import dataclass, field, replace
 from typing import Callable, Iterable
 
 from .errors import PlanError
+from .text import check_text
 
 LINK_TYPES = ("FS", "SS", "FF", "SF")
 UNITS = ("days", "weeks")
@@ -68,8 +70,9 @@ def check_demands(act: "Activity") -> None:
             raise PlanError(f"activity {act.id}: units of resource {res} must not be negative ({units:g})", act.id)
 
 
-def check_text(value, owner: str, field_name: str, culprit: str | None = None) -> str:
-    """Text of at most ``TEXT_LIMITS[field_name]`` characters, else PlanError naming it."""
+def check_length(value, owner: str, field_name: str, culprit: str | None = None) -> str:
+    """Text of at most ``TEXT_LIMITS[field_name]`` characters, else PlanError naming it
+    (``check_text`` from ``.text`` checks that the file can hold it)."""
     if not isinstance(value, str):
         raise PlanError(f"{owner}: {field_name} must be text, not {type(value).__name__}", culprit or owner)
     limit = TEXT_LIMITS[field_name]
@@ -139,7 +142,7 @@ class Activity:
             return self
         check_id(self.id)
         for name in ("name", "group", "notes"):
-            check_text(getattr(self, name), f"activity {self.id}", name, self.id)
+            check_length(getattr(self, name), f"activity {self.id}", name, self.id)
         a = _check_number(self.optimistic, self.id, "optimistic")
         m = _check_number(self.most_likely, self.id, "most likely")
         b = _check_number(self.pessimistic, self.id, "pessimistic")
@@ -277,10 +280,10 @@ class Settings:
 
     def _check_texts(self) -> None:
         for name, value in (("title", self.title), ("revision", self.revision), ("prepared by", self.prepared_by)):
-            check_text(value, "settings", name, name)
+            check_length(value, "settings", name, name)
         for k, person in enumerate(self.sign_off, 1):
-            check_text(person.name, f"settings: sign-off row {k}", "sign-off name", "sign_off")
-            check_text(person.role, f"settings: sign-off row {k}", "sign-off role", "sign_off")
+            check_length(person.name, f"settings: sign-off row {k}", "sign-off name", "sign_off")
+            check_length(person.role, f"settings: sign-off row {k}", "sign-off role", "sign_off")
 
 
 @dataclass(frozen=True)
@@ -349,6 +352,23 @@ class Resource:
 Listener = Callable[[str, dict], None]
 
 
+def check_activity_text(act: Activity) -> Activity:
+    """Refuse text the plan file cannot hold (a lone surrogate), naming activity and field."""
+    for name in ("id", "name", "group", "notes"):
+        check_text(getattr(act, name), f"activity {act.id}" if name != "id" else "an activity", name, act.id)
+    return act
+
+
+def check_settings_text(settings: Settings) -> Settings:
+    for name in ("title", "revision", "prepared_by", "unit", "distribution"):
+        check_text(getattr(settings, name), "settings", name.replace("_", " "), name)
+    check_text(settings.calendar.region, "settings", "calendar region", "calendar")
+    for i, person in enumerate(settings.sign_off, 1):
+        check_text(person.name, f"settings: sign-off {i}", "name", "sign_off")
+        check_text(person.role, f"settings: sign-off {i}", "role", "sign_off")
+    return settings
+
+
 class Plan:
     """An ordered set of activities, the links between them and the plan settings.
 
@@ -365,6 +385,8 @@ class Plan:
         """``validated=True``: the caller (a file reader) has validated every activity and
         link already; only duplicate ids and link ends are checked again."""
         self.settings = settings or Settings()
+        if not validated:
+            check_settings_text(self.settings)
         self._activities: list[Activity] = []
         self._index: dict[str, int] = {}
         self.links: list[Link] = []
@@ -375,7 +397,7 @@ class Plan:
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         for act in activities:
-            self._append(act if validated else act.validated())
+            self._append(act if validated else check_activity_text(act.validated()))
         if validated:
             self.links = list(links)
             index = self._index
@@ -489,7 +511,7 @@ class Plan:
         return old
 
     def insert_activity(self, row: int, act: Activity) -> None:
-        act.validated()
+        check_activity_text(act.validated())
         self._check_demand(act)
         if act.id in self._index:
             raise PlanError(f"duplicate activity id {act.id!r}", act.id)
@@ -520,7 +542,7 @@ class Plan:
 
     def replace_activity(self, act_id: str, new: Activity) -> Activity:
         """Replace an activity (possibly renaming it: links follow the new id)."""
-        new.validated()
+        check_activity_text(new.validated())
         self._check_demand(new)
         row = self.row_of(act_id)
         if new.id != act_id and new.id in self._index:
@@ -552,7 +574,7 @@ class Plan:
         return old
 
     def set_settings(self, settings: Settings) -> Settings:
-        settings.validated()
+        check_settings_text(settings.validated())
         self._emit("about_to_change", kind="settings_changed")
         old, self.settings = self.settings, settings
         self._emit("changed", kind="settings_changed")
@@ -581,6 +603,21 @@ class Plan:
         self.resources = list(other.resources)
         self._reindex()
         self._emit("changed", kind="reset")
+
+    def snapshot(self) -> "Plan":
+        """A copy another thread may read while this plan is edited (an autosave): the
+        lists are copied (activities, links, risks and correlation groups are immutable),
+        everything else deep-copied; no listeners. Cheap: nothing is validated again."""
+        shallow = ("_activities", "links", "risks", "correlations", "_index")
+        new = object.__new__(Plan)
+        for name, value in self.__dict__.items():
+            if name in shallow:
+                value = type(value)(value)
+            elif name not in ("_listeners", "_analyzer"):
+                value = copy.deepcopy(value)
+            new.__dict__[name] = value
+        new._listeners, new._analyzer = [], None
+        return new
 
     def copy(self) -> "Plan":
         twin = Plan(replace(self.settings, calendar=replace(self.settings.calendar),

@@ -72,10 +72,15 @@ def _cached(shapes: int, cells: int, compute) -> np.ndarray:
     values = compute()
     try:
         path.parent.mkdir(parents=True, exist_ok=True)
-        tmp = path.with_suffix(f".{os.getpid()}.tmp")
-        with open(tmp, "wb") as fh:
-            np.save(fh, values, allow_pickle=False)
-        os.replace(tmp, path)
+        import tempfile  # an exclusive, unpredictable name: no planted link is followed
+        fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent)
+        try:
+            with os.fdopen(fd, "wb") as fh:
+                np.save(fh, values, allow_pickle=False)
+            os.replace(tmp, path)
+        except OSError:
+            os.unlink(tmp)
+            raise
     except OSError:
         pass  # a read-only home folder only costs the half second next time
     return values

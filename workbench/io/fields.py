@@ -12,6 +12,7 @@ from .errors import PlanFileError
 
 _ISO_DATE = re.compile(r"^\d{4}-\d{2}-\d{2}$")
 _MISSING = object()
+MAX_EXACT_INT = 2 ** 53  # whole numbers beyond this are not plan numbers (and may not fit a float)
 
 
 def show(value) -> str:
@@ -82,6 +83,8 @@ class Fields:
             return default
         if isinstance(value, bool) or not isinstance(value, (int, float)):
             raise self.error(key, f"must be a number, got {show(value)}")
+        if isinstance(value, int) and abs(value) > MAX_EXACT_INT:
+            raise self.error(key, f"is too large a number ({len(str(abs(value)))} digits)")
         if not math.isfinite(value):
             raise self.error(key, f"must be a finite number, got {value}")
         return float(value)

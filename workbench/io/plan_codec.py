@@ -17,6 +17,7 @@ from workbench.core.network import compile_plan
 from .checkup_section import checkup_from_dict, checkup_to_dict
 from .errors import PlanFileError
 from .fields import Fields, show
+from .plan_checks import refuse_duplicate_links
 from .plan_migrate import FORMAT, VERSION, upgrade
 
 ACTIVITY_FIELDS = ("id", "name", "group", "notes", "optimistic", "most_likely", "pessimistic",
@@ -229,6 +230,8 @@ def risk_from_dict(data, position: int, known: set[str]) -> Risk:
         raise f.error("probability", f"must lie between 0 and 1, got {risk.probability:g}")
     if not 0.0 <= risk.optimistic <= risk.most_likely <= risk.pessimistic:
         raise f.error("optimistic", "estimates must satisfy 0 \u2264 optimistic \u2264 most_likely \u2264 pessimistic")
+    if risk.pessimistic > MAX_UNITS:
+        raise f.error("pessimistic", f"delay {risk.pessimistic:g} is beyond {MAX_UNITS:,.0f} plan units")
     f.check_known("activities", risk.activities, known)
     return risk
 
@@ -272,6 +275,7 @@ def plan_from_dict(data) -> Plan:
     acts = [activity_from_dict(x, i) for i, x in enumerate(top.raw_list("activities"), 1)]
     _unique(acts)
     links = _links_from_list(top.raw_list("links"))
+    refuse_duplicate_links(links)
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]

@@ -9,21 +9,26 @@ from __future__ import annotations
 
 import hashlib
 import json
-import os
-import secrets
 from pathlib import Path
 
 from workbench.core.model import Plan
 
+from . import atomic
+from .atomic import OwnershipChange
 from .errors import PlanFileError
+from .plan_checks import check_storable, cleaned_data, may_hold_surrogates, unstorable_text
+from .safe_read import NotReadable, read_regular_file
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
 from .plan_migrate import upgrade
 
-__all__ = ["FORMAT", "VERSION", "PlanFileError", "load_plan", "save_plan", "plan_to_dict",
-           "plan_from_dict", "plan_hash", "dumps", "loads", "upgrade"]
+__all__ = ["FORMAT", "VERSION", "OwnershipChange", "PlanFileError", "load_plan", "save_plan", "plan_to_dict",
+           "plan_from_dict", "plan_hash", "dumps", "loads", "upgrade", "ownership_problem"]
 
-MAX_BYTES = 256 * 1024 * 1024
-CHUNK = 1 << 16
+# The largest plan file read or written. Saving refuses a plan beyond it, so every file
+# Slackline writes can be opened again (a 1,000,000-activity plan is about 280 MB).
+MAX_BYTES = 2 * 1024 ** 3
+TOO_LARGE_ADVICE = ("; Slackline never writes a plan file this large. If it is a plan, split it into "
+                    "smaller plans; otherwise it is not a plan file")
 
 
 # --- text ⇄ data ---------------------------------------------------------------
@@ -66,6 +71,8 @@ def loads(text: str, source: str = "plan file") -> Plan:
         raise PlanFileError(f"{source}: not valid JSON (line {exc.lineno}, column {exc.colno}: {exc.msg})") from exc
     except (ValueError, RecursionError) as exc:
         raise PlanFileError(f"{source}: not valid plan JSON: {exc}") from exc
+    if may_hold_surrogates(text):
+        check_storable(data, source)
     try:
         return plan_from_dict(data)
     except PlanFileError as exc:
@@ -86,18 +93,25 @@ def _decode(raw: bytes, name: str) -> str:
                             "a Slackline plan file is UTF-8 JSON") from exc
 
 
+def _read(path: Path) -> bytes:
+    try:
+        return read_regular_file(path, MAX_BYTES, TOO_LARGE_ADVICE)
+    except NotReadable as exc:
+        raise PlanFileError(str(exc), "file") from None
+    except OSError as exc:
+        raise PlanFileError(f"cannot read {path}: {exc.strerror or exc}") from exc
+
+
 def load_plan(path) -> Plan:
     """Read, upgrade and check a plan file. Raises :class:`PlanFileError` with a message
     naming the file and, where it applies, the activity and field."""
     path = Path(path)
-    try:
-        if path.stat().st_size > MAX_BYTES:
-            raise PlanFileError(f"{path.name}: too large for a plan file ({path.stat().st_size} bytes)")
-        raw = path.read_bytes()
-    except OSError as exc:
-        raise PlanFileError(f"cannot read {path}: {exc.strerror or exc}") from exc
+    raw = _read(path)
     try:
         return loads(_decode(raw, path.name), path.name)
+    except MemoryError:
+        raise PlanFileError(f"{path.name}: not enough memory to open this {len(raw) / 2**20:,.0f} MB plan; "
+                            "close other programs and open it again, or open it on a computer with more memory") from None
     except PlanFileError as exc:
         bak = path.with_name(path.name + ".bak")
         if path.suffix != ".bak" and bak.is_file():
@@ -106,86 +120,58 @@ def load_plan(path) -> Plan:
 
 
 # --- saving ----------------------------------------------------------------------
-def _fsync_folder(folder: Path) -> None:
-    """Make the rename durable; not every OS lets a folder be opened (then skip)."""
-    if os.name == "nt":
-        return
-    try:
-        fd = os.open(folder, os.O_RDONLY)
-    except OSError:
-        return
-    try:
-        os.fsync(fd)
-    except OSError:
-        pass
-    finally:
-        os.close(fd)
-
-
-def _write_all(handle, data: bytes) -> None:
-    for i in range(0, len(data), CHUNK):
-        handle.write(data[i:i + CHUNK])
-
-
-def _open_temp(folder: Path, name: str) -> tuple[int, Path]:
-    """A new file beside the target, created with the usual permissions (umask applies)."""
-    flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
-    while True:
-        tmp = folder / f".{name}.{secrets.token_hex(4)}.tmp"
-        try:
-            return os.open(tmp, flags, 0o666), tmp
-        except FileExistsError:
-            continue
-
-
-def _write_temp(folder: Path, name: str, data: bytes, mode: int | None) -> Path:
-    fd, tmp = _open_temp(folder, name)
-    try:
-        with os.fdopen(fd, "wb") as handle:
-            _write_all(handle, data)
-            handle.flush()
-            os.fsync(handle.fileno())
-        if mode is not None:
-            os.chmod(tmp, mode)
-    except BaseException:
-        tmp.unlink(missing_ok=True)
-        raise
-    return tmp
-
-
-def _keep_backup(path: Path) -> None:
-    """Copy the file about to be replaced to ``NAME.bak`` (itself written atomically)."""
-    data = path.read_bytes()
-    bak = path.with_name(path.name + ".bak")
-    tmp = _write_temp(path.parent, bak.name, data, None)
-    try:
-        os.replace(tmp, bak)
-    except BaseException:
-        tmp.unlink(missing_ok=True)
-        raise
-
-
-def save_plan(plan: Plan, path, backup: bool = True) -> Path:
-    """Write the plan atomically: a temporary file in the same folder, flushed and
-    synced, then renamed over the target (and the folder synced). The previous file is
-    kept as ``NAME.slw.bak``. If anything fails the previous file is untouched."""
-    path = Path(path)
-    if path.is_symlink():
-        path = path.resolve()
+def encode_plan(plan: Plan) -> bytes:
+    """The plan file's bytes, refused (naming the field) when a text cannot be stored as
+    UTF-8 or the file would be too large to open again."""
     text = dumps(plan)
-    loads(text, "not saved")  # never write a file we could not read back
     try:
-        existed = path.exists()
-        mode = (path.stat().st_mode & 0o7777) if existed else None
-        if existed and backup:
-            _keep_backup(path)
-        tmp = _write_temp(path.parent, path.name, text.encode("utf-8"), mode)
-        try:
-            os.replace(tmp, path)
-        except BaseException:
-            tmp.unlink(missing_ok=True)
-            raise
-        _fsync_folder(path.parent)
+        data = text.encode("utf-8")
+    except UnicodeEncodeError:
+        raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
+    if len(data) > MAX_BYTES:
+        raise PlanFileError(f"not saved: the plan file would be {len(data) / 2**20:,.0f} MB, more than the "
+                            f"{MAX_BYTES / 2**20:,.0f} MB a plan file may hold; split the plan into smaller plans",
+                            "size")
+    loads(text, "not saved")  # never write a file we could not read back
+    return data
+
+
+def storable_copy(plan: Plan) -> Plan:
+    """The plan with every text it cannot store cleaned (lone surrogates become U+FFFD):
+    what a recovery copy keeps when the plan itself cannot be saved as it is."""
+    return plan_from_dict(cleaned_data(plan_to_dict(plan)))
+
+
+def _keep_backup(path: Path, accept_owner_change: bool) -> None:
+    """Copy the file about to be replaced to ``NAME.bak`` (written atomically, with the
+    plan's own permissions, owner and group)."""
+    data = _read(path)
+    atomic.write_file(path.with_name(path.name + ".bak"), data, like=path,
+                      accept_owner_change=accept_owner_change)
+
+
+def ownership_problem(path) -> str | None:
+    """What saving over ``path`` would change about its owner or group (ask first), or None."""
+    return atomic.ownership_problem(Path(path).resolve())
+
+
+def save_plan(plan: Plan, path, backup: bool = True, accept_owner_change: bool = False) -> Path:
+    """Write the plan atomically (see :mod:`atomic`): a temporary file in the same folder,
+    synced, given the old file's mode, owner and group, then renamed over the target. The
+    previous file is kept as ``NAME.slw.bak``. If anything fails the previous file is
+    untouched. When the owner or group could not be kept, :class:`OwnershipChange` is
+    raised before anything is written, unless ``accept_owner_change``."""
+    path = Path(path)
+    data = encode_plan(plan)
+    try:
+        if path.is_symlink():
+            path = path.resolve()
+        problem = None if accept_owner_change else atomic.ownership_problem(path)
+        if problem:
+            raise OwnershipChange(f"{problem}. Save anyway, or save under another name.", "owner")
+        if backup and path.is_file():
+            _keep_backup(path, accept_owner_change)
+        atomic.write_file(path, data, accept_owner_change=accept_owner_change)
     except OSError as exc:
         raise PlanFileError(f"could not save {path}: {exc.strerror or exc}; the previous file is unchanged") from exc
     return path

@@ -11,7 +11,7 @@ import re
 from dataclasses import replace
 
 from workbench.core.errors import CycleError, PlanError
-from workbench.core.model import DISTRIBUTIONS, Activity, Link, Plan, Settings
+from workbench.core.model import DISTRIBUTIONS, Activity, Link, Plan, Settings, check_activity_text
 from workbench.core.network import compile_plan
 
 from .errors import TableImportError
@@ -156,7 +156,7 @@ class RowReader:
             self.problem(number, act.id, "id", "an id cannot contain spaces (a predecessor cell could not name it)")
             return
         try:
-            act.validated()
+            check_activity_text(act.validated())
         except PlanError as exc:
             self.problem(number, act.id, None, _strip_activity(str(exc), act.id))
             return

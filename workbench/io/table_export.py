@@ -10,6 +10,7 @@ again on import), in XLSX the cell is typed as a string.
 from __future__ import annotations
 
 import csv
+import io
 import datetime as dt
 import math
 from pathlib import Path
@@ -90,9 +91,13 @@ def csv_value(value, column: str) -> str:
     return guard_csv(str(value)) if column in TEXT_COLUMNS else str(value)
 
 
-def write_csv(rows: list[list], path: Path) -> None:
-    """UTF-8 with a byte-order mark, so spreadsheet programs pick the right encoding."""
-    with open(path, "w", encoding="utf-8-sig", newline="") as handle:
+def write_csv(rows: list[list], target) -> None:
+    """UTF-8 with a byte-order mark, so spreadsheet programs pick the right encoding.
+    ``target`` is a path or a binary file object (the export's exclusive temporary file)."""
+    if isinstance(target, (str, Path)):
+        with open(target, "wb") as raw:
+            return write_csv(rows, raw)
+    with io.TextIOWrapper(target, encoding="utf-8-sig", newline="") as handle:
         writer = csv.writer(handle, lineterminator="\r\n")
         writer.writerow(HEADER)
         for row in rows:

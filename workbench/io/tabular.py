@@ -11,7 +11,6 @@ case-insensitive, with aliases: see :mod:`table_columns`). Unknown columns are i
 
 from __future__ import annotations
 
-import os
 from dataclasses import dataclass, field
 from functools import partial
 from pathlib import Path
@@ -19,12 +18,14 @@ from pathlib import Path
 from workbench.core.errors import PlanError
 from workbench.core.model import Plan, Settings
 
+from . import atomic
 from .csv_text import DELIMITER_NAMES, csv_rows, decode, looks_binary, sniff_delimiter
 from .errors import TableImportError
 from .predecessors import format_predecessors, parse_predecessors
 from .table_columns import LOOKUP, map_header, normalise
 from .table_export import table_rows, write_csv, write_xlsx
 from .row_reader import build_plan, rows_to_plan
+from .safe_read import NotReadable, read_regular_file
 from .xlsx_safe import read_xlsx, read_xlsx_sheet
 
 __all__ = ["ImportReport", "TableImportError", "export_table", "format_predecessors", "load_any",
@@ -58,9 +59,9 @@ class ImportReport:
 
 def _read_bytes(path: Path, source: str) -> bytes:
     try:
-        if path.stat().st_size > MAX_CSV_BYTES:
-            raise TableImportError([f"refused: the file is larger than {MAX_CSV_BYTES // 2**20} MB"], source)
-        return path.read_bytes()
+        return read_regular_file(path, MAX_CSV_BYTES, "; split the table into smaller files")
+    except NotReadable as exc:
+        raise TableImportError([f"refused: {exc}"], source) from None
     except OSError as exc:
         raise TableImportError([f"cannot read {path}: {exc.strerror or exc}"], source) from exc
 
@@ -96,8 +97,8 @@ def table_rows_of(path, sheet: str | None = None) -> list[tuple[int, list[str]]]
     path = Path(path)
     raw = _read_bytes(path, path.name)
     if raw.startswith(ZIP_MAGIC):
-        rows = read_xlsx_sheet(path, path.name, sheet) if sheet else None
-        return rows if rows is not None else read_xlsx(path, path.name)[1]
+        rows = read_xlsx_sheet(raw, path.name, sheet) if sheet else None
+        return rows if rows is not None else read_xlsx(raw, path.name)[1]
     return _csv_table(path, raw, path.name, ImportReport())[0]
 
 
@@ -121,10 +122,10 @@ def read_table_report(path, settings: Settings | None = None, resources=None) ->
         raise TableImportError(["the file is empty"], source)
     if raw.startswith(ZIP_MAGIC):
         report.kind = "xlsx"
-        report.sheet, rows = read_xlsx(path, source)
+        report.sheet, rows = read_xlsx(raw, source)
         decimal_comma = False
         if resources is None:
-            sheet = read_xlsx_sheet(path, source, "Resources")
+            sheet = read_xlsx_sheet(raw, source, "Resources")
             if sheet is not None and report.sheet.strip().lower() != "resources":
                 from .resource_table import resources_from_rows
                 resources = resources_from_rows(sheet, f"{source}, sheet Resources")
@@ -151,8 +152,9 @@ def read_table(path, settings: Settings | None = None, resources=None) -> Plan:
 def export_table(analysis, path) -> Path:
     """Write the plan and its computed schedule to ``.csv`` (UTF-8 with BOM) or ``.xlsx``.
 
-    Written to a temporary file first and renamed into place, so a failed export never
-    leaves a half-written table where a good one was."""
+    Written through an exclusive temporary file with an unpredictable name and renamed into
+    place (:mod:`atomic`), so a failed export never leaves a half-written table where a
+    good one was, and a link planted in a shared folder is never followed."""
     path = Path(path)
     suffix = path.suffix.lower()
     if suffix in XLSX_SUFFIXES:
@@ -162,14 +164,10 @@ def export_table(analysis, path) -> Path:
     else:
         raise PlanError(f"{path.name}: export writes .csv or .xlsx, not {suffix or 'a file without extension'}", "path")
     rows = table_rows(analysis)
-    tmp = path.with_name(f".{path.name}.{os.getpid()}.tmp")
     try:
-        write(rows, tmp)
-        os.replace(tmp, path)
+        atomic.write_with(path, partial(write, rows))
     except OSError as exc:
         raise PlanError(f"could not write {path}: {exc.strerror or exc}", "path") from exc
-    finally:
-        tmp.unlink(missing_ok=True)
     return path
 
 

@@ -7,7 +7,6 @@ import datetime as dt
 import io
 import os
 import secrets
-import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -16,6 +15,7 @@ from reportlab import rl_config
 from workbench import __version__
 from workbench.core.analysis import analyze
 from workbench.core.errors import PlanError
+from workbench.io import atomic
 
 from . import styles
 from .cautions import cautions
@@ -137,16 +137,10 @@ def _progress(progress):
 
 
 def _write(path, data: bytes) -> None:
-    """Write atomically: a half-written pack never replaces a good one."""
+    """Write atomically through an exclusive temporary file (:mod:`workbench.io.atomic`):
+    a half-written pack never replaces a good one, and no planted link is followed."""
     target = Path(path)
-    tmp = None
     try:
-        fd, name = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".part", dir=target.parent)
-        tmp = Path(name)
-        with os.fdopen(fd, "wb") as handle:
-            handle.write(data)
-        os.replace(tmp, target)
+        atomic.write_file(target, data, accept_owner_change=True)
     except OSError as exc:
-        if tmp is not None:
-            tmp.unlink(missing_ok=True)
         raise PlanError(f"cannot write the pack to {target}: {exc.strerror or exc}", "output") from None

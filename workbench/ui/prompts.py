@@ -73,6 +73,15 @@ def ask_save_as_instead(parent: QWidget, message: str) -> bool:
                    icon=QMessageBox.Icon.Warning) == "save_as"
 
 
+def ask_owner_change(parent: QWidget, message: str) -> str:
+    """Before saving a file whose owner or group cannot be kept: 'save', 'save_as' or 'cancel'."""
+    R = QMessageBox.ButtonRole
+    return _choose(parent, "Saving changes who owns the file", message,
+                   [("save_as", "Save As…", R.AcceptRole), ("save", "Save Anyway", R.DestructiveRole),
+                    ("cancel", "Cancel", R.RejectRole)], icon=QMessageBox.Icon.Warning,
+                   detail="Colleagues who share the file through its owner or group may no longer open it.")
+
+
 def show_error(parent: QWidget, title: str, message: str) -> None:
     QMessageBox.warning(parent, title, message)
 

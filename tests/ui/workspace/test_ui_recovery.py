@@ -91,6 +91,7 @@ def test_autosave_writes_to_data_folder_only_when_changed(window, ui_env, tmp_pa
     assert not window.files.autosave()  # nothing changed
     window.session.push(EditActivity("R", name="Survey every room"))
     assert window.files.autosave()
+    window.files.finish_autosave()
     folder = tmp_path / "data" / "recovery"
     copies = list(folder.glob("*.slw"))
     assert len(copies) == 1
@@ -104,6 +105,7 @@ def test_autosave_writes_to_data_folder_only_when_changed(window, ui_env, tmp_pa
 def test_own_running_copy_is_not_offered(window, ui_env):
     window.session.push(EditActivity("R", name="Survey"))
     assert window.files.autosave()
+    window.files.finish_autosave()
     from workbench.ui.workspace.recovery import RecoveryStore
     assert RecoveryStore().orphans() == []  # its lock is held by this live window
 
@@ -111,6 +113,7 @@ def test_own_running_copy_is_not_offered(window, ui_env):
 def test_clean_close_leaves_no_copy(window, ui_env, tmp_path):
     window.session.push(EditActivity("R", name="Survey"))
     assert window.files.autosave()
+    window.files.finish_autosave()
     ui_env.replies["ask_unsaved"] = "discard"
     window.close()
     assert list((tmp_path / "data" / "recovery").glob("*.slw")) == []

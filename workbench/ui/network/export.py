@@ -4,9 +4,10 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from PySide6.QtCore import QRectF, QSize, Qt
+from PySide6.QtCore import QBuffer, QIODevice, QRectF, QSize, Qt
 from PySide6.QtGui import QColor, QImage, QPainter
 
+from workbench.io import atomic
 from workbench.ui.network.paint import NetworkPainter
 
 MAX_PIXELS = 12000    # longest side of an exported image
@@ -53,8 +54,11 @@ def save_picture(net: NetworkPainter, path: str | Path) -> None:
     if net.layout is None:
         raise ValueError("there is no network to export")
     if suffix == ".png":
-        if not render_image(net).save(str(path), "PNG"):
+        buffer = QBuffer()
+        buffer.open(QIODevice.OpenModeFlag.WriteOnly)
+        if not render_image(net).save(buffer, "PNG"):
             raise OSError(f"could not write {path}")
+        atomic.write_file(path, bytes(buffer.data()), accept_owner_change=True)
     elif suffix == ".svg":
         _save_svg(net, path)
     else:
@@ -65,16 +69,17 @@ def _save_svg(net: NetworkPainter, path: Path) -> None:
     from PySide6.QtSvg import QSvgGenerator
 
     src = _extent(net)
-    gen = QSvgGenerator()
-    gen.setFileName(str(path))
+    gen, buffer = QSvgGenerator(), QBuffer()
+    gen.setOutputDevice(buffer)
     gen.setSize(QSize(int(src.width()), int(src.height())))
     gen.setViewBox(QRectF(0, 0, src.width(), src.height()))
     gen.setTitle("Network")
     p = QPainter(gen)
     paint_into(net, p, QRectF(0, 0, src.width(), src.height()))
     p.end()
-    if not path.exists():
+    if not buffer.data().size():
         raise OSError(f"could not write {path}")
+    atomic.write_file(path, bytes(buffer.data()), accept_owner_change=True)
 
 
 def print_pages(net: NetworkPainter, printer) -> int:

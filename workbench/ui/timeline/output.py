@@ -9,11 +9,12 @@ from __future__ import annotations
 import datetime as dt
 from pathlib import Path
 
-from PySide6.QtCore import QRectF, QSize, Qt
+from PySide6.QtCore import QBuffer, QIODevice, QRectF, QSize, Qt
 from PySide6.QtGui import QColor, QFont, QImage, QPainter, QPicture
 from PySide6.QtWidgets import QApplication, QFileDialog, QMessageBox
 
 from workbench.figures import style
+from workbench.io import atomic
 
 
 def render_to(view, painter: QPainter, target: QRectF) -> None:
@@ -79,23 +80,27 @@ def render_image(view, size=None) -> QImage:
 
 def export_png(view, path, size=None) -> None:
     image = render_image(view, size)
-    if not image.save(str(path), "PNG"):
+    buffer = QBuffer()
+    buffer.open(QIODevice.OpenModeFlag.WriteOnly)
+    if not image.save(buffer, "PNG"):
         raise OSError(f"could not write the PNG file {path}")
+    atomic.write_file(path, bytes(buffer.data()), accept_owner_change=True)
 
 
 def export_svg(view, path) -> None:
     from PySide6.QtSvg import QSvgGenerator
     vp = view.plot.viewport().size()
-    gen = QSvgGenerator()
-    gen.setFileName(str(path))
+    gen, buffer = QSvgGenerator(), QBuffer()
+    gen.setOutputDevice(buffer)
     gen.setSize(vp)
     gen.setViewBox(QRectF(0, 0, vp.width(), vp.height()))
     gen.setTitle("Timeline")
     painter = QPainter(gen)
     render_to(view, painter, QRectF(0, 0, vp.width(), vp.height()))
     painter.end()
-    if not Path(path).exists():
+    if not buffer.data().size():
         raise OSError(f"could not write the SVG file {path}")
+    atomic.write_file(path, bytes(buffer.data()), accept_owner_change=True)
 
 
 def paint_page(view, printer) -> None:

@@ -4,6 +4,7 @@ question, plan locks, autosave to a recovery copy and recovery after a crash."""
 from __future__ import annotations
 
 import os
+import threading
 from pathlib import Path
 
 from PySide6.QtCore import QObject, QSettings, QTimer, Signal
@@ -12,7 +13,7 @@ from workbench.core.errors import PlanError
 from workbench.core.model import Plan
 from workbench.ui import prompts
 from workbench.ui.workspace.lock import PlanLock
-from workbench.ui.workspace.recovery import RecoveryStore, remove_copy
+from workbench.ui.workspace.recovery import RecoveryStore
 from workbench.ui.session import Session
 
 RECENT_KEY = "files/recent"
@@ -28,6 +29,7 @@ class FileController(QObject):
     path_changed = Signal()
     recent_changed = Signal()
     message = Signal(str)
+    _autosaved = Signal(str)  # from the autosave thread, delivered on the window's thread
 
     def __init__(self, session: Session, parent_widget, store: RecoveryStore | None = None):
         super().__init__(parent_widget)
@@ -39,6 +41,8 @@ class FileController(QObject):
         self.store = store or RecoveryStore()
         self.store.claim(None)
         self._autosave_due = False
+        self._autosaving: threading.Thread | None = None
+        self._autosaved.connect(self._autosave_finished)
         session.undo_stack.indexChanged.connect(self._mark_due)
         self.timer = QTimer(self)
         self.timer.setInterval(int(os.environ.get("SLACKLINE_AUTOSAVE_MS", AUTOSAVE_MS)))
@@ -57,6 +61,7 @@ class FileController(QObject):
         self._autosave_due = True
 
     def _set_path(self, path: str | None, read_only: bool = False) -> None:
+        self.finish_autosave()
         if self._lock is not None:
             self._lock.release()
             self._lock = None
@@ -142,20 +147,45 @@ class FileController(QObject):
             path += ".slw"
         return self._write(path)
 
-    def _write(self, path: str) -> str | None:
-        """Save to ``path``; on failure offer another name. Returns the path written."""
+    def _write(self, path: str, accept_owner_change: bool = False) -> str | None:
+        """Save to ``path``; on failure keep the recovery copy and offer another name.
+        Returns the path written (None: not saved, and the window must stay open)."""
         from workbench.io import planfile
         try:
-            planfile.save_plan(self.session.plan, path)
-        except (PlanError, OSError) as exc:
-            if prompts.ask_save_as_instead(self.widget, _describe(exc, path)):
+            planfile.save_plan(self.session.plan, path, accept_owner_change=accept_owner_change)
+        except planfile.OwnershipChange as exc:
+            return self._owner_change(path, exc)
+        except Exception as exc:  # noqa: BLE001 - whatever went wrong, the work stays
+            kept = self._keep_recovery_copy()
+            note = "\n\nNothing is lost: the window stays open" + (" and a recovery copy was written." if kept else ".")
+            if prompts.ask_save_as_instead(self.widget, f"Could not save {Path(path).name}.\n{_describe(exc, path).removeprefix('not saved: ')}{note}"):
                 return self._choose_and_write()
             return None
         self.session.undo_stack.setClean()
+        self.finish_autosave()
         self.store.discard()
         self._autosave_due = False
         self.message.emit(f"Saved {Path(path).name}")
         return str(Path(path).resolve())
+
+    def _owner_change(self, path: str, exc: Exception) -> str | None:
+        """Asked before anything is written: save anyway, save under another name, or not."""
+        answer = prompts.ask_owner_change(self.widget, str(exc))
+        if answer == "save":
+            return self._write(path, accept_owner_change=True)
+        return self._choose_and_write() if answer == "save_as" else None
+
+    def _keep_recovery_copy(self) -> bool:
+        """After a failed save: the unsaved work goes to the recovery copy at once."""
+        if not self.modified:
+            return False
+        self.finish_autosave()
+        try:
+            self.store.write(self.session.plan.snapshot())
+        except Exception as exc:  # noqa: BLE001
+            self.message.emit(f"Could not write the recovery copy either: {exc}")
+            return False
+        return True
 
     def maybe_save(self) -> bool:
         """Ask about unsaved changes; True when it is fine to go on."""
@@ -169,22 +199,47 @@ class FileController(QObject):
     def close(self) -> None:
         """After a clean close: no recovery copy, no lock."""
         self.timer.stop()
+        self.finish_autosave()
         self.store.release(remove=True)
         if self._lock is not None:
             self._lock.release()
 
     # --- autosave and recovery ---------------------------------------------------
     def autosave(self) -> bool:
-        if not (self.modified and self._autosave_due):
+        """Start writing the recovery copy: the plan is snapshotted here (cheap) and
+        serialised and written in a worker thread, so typing never waits for it.
+        True when a write was started."""
+        if not (self.modified and self._autosave_due) or self.autosave_running:
             return False
-        try:
-            self.store.write(self.session.plan)
-        except (PlanError, OSError) as exc:
-            self.message.emit(f"Could not write the recovery copy: {exc}")
-            return False
+        snapshot = self.session.plan.snapshot()
         self._autosave_due = False
-        self.message.emit("Recovery copy written")
+        self._autosaving = threading.Thread(target=self._autosave_in_worker, args=(snapshot,),
+                                            name="slackline-autosave", daemon=True)
+        self._autosaving.start()
         return True
+
+    @property
+    def autosave_running(self) -> bool:
+        return self._autosaving is not None and self._autosaving.is_alive()
+
+    def _autosave_in_worker(self, snapshot: Plan) -> None:
+        try:
+            self.store.write(snapshot)
+        except Exception as exc:  # noqa: BLE001 - reported on the window's thread
+            self._autosaved.emit(f"Could not write the recovery copy: {exc}")
+        else:
+            self._autosaved.emit("Recovery copy written")
+
+    def _autosave_finished(self, text: str) -> None:
+        if text.startswith("Could not"):
+            self._autosave_due = True  # try again at the next tick
+        self.message.emit(text)
+
+    def finish_autosave(self) -> None:
+        """Wait for a recovery copy being written (before saving, a new slot, closing)."""
+        if self._autosaving is not None:
+            self._autosaving.join()
+            self._autosaving = None
 
     def offer_recovery(self) -> bool:
         """Offer each copy left by a window that did not close; True if one was restored."""
@@ -195,10 +250,10 @@ class FileController(QObject):
             if answer == "restore" and self._restore(found):
                 return True
             if answer == "open" and found.source and Path(found.source).exists():
-                remove_copy(self.store.folder, found.key)
+                self.store.remove_orphan(found.key)
                 return self.open_path(found.source, ask=False)
             if answer == "discard":
-                remove_copy(self.store.folder, found.key)
+                self.store.remove_orphan(found.key)
         return False
 
     def _restore(self, found) -> bool:
@@ -210,7 +265,7 @@ class FileController(QObject):
             return False
         self.session.load(plan)
         self._set_path(found.source if found.source and Path(found.source).exists() else None)
-        remove_copy(self.store.folder, found.key)
+        self.store.remove_orphan(found.key)
         self.session.undo_stack.resetClean()  # restored work is unsaved until saved
         self.store.write(self.session.plan)
         self.message.emit("Recovered unsaved work; save it to keep it.")

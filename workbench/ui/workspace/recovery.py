@@ -1,9 +1,12 @@
 """Recovery copies of unsaved work, kept in the user data folder (never over the
 planner's own file).
 
-Each open plan writes ``<key>.slw`` and ``<key>.json`` (which file it came from, when)
-into ``<data>/recovery`` and holds ``<key>.lock`` while it runs. A copy whose lock is
-free at start-up was left by a window that did not close cleanly: it is offered back.
+Each window owns its own copy: ``<key>.slw`` and ``<key>.json`` (which file it came from,
+when, which process) in ``<data>/recovery``, where the key is unique to that window and
+session (two windows on one plan never share a copy), and holds ``<key>.lock`` while it
+runs. Only the owner writes or removes its copy. A copy whose lock is free at start-up was
+left by a window that did not close cleanly: a new window adopts it (takes its lock) before
+offering it back or removing it.
 """
 
 from __future__ import annotations
@@ -12,6 +15,7 @@ import datetime as dt
 import hashlib
 import json
 import os
+import socket
 import uuid
 from dataclasses import dataclass
 from pathlib import Path
@@ -43,43 +47,64 @@ class Recovered:
     written: str
 
 
+def _new_key(source: str | None) -> str:
+    """Unique to one window in one session; begins with a digest of the plan's path."""
+    seed = os.path.abspath(source) if source else "new"
+    return f"{hashlib.sha1(seed.encode('utf-8')).hexdigest()[:12]}-{uuid.uuid4().hex[:12]}"
+
+
+def _lock(folder: Path, key: str) -> QLockFile | None:
+    """The lock of ``key``'s copy, taken now; None when another live window holds it."""
+    lock = QLockFile(str(folder / f"{key}.lock"))
+    lock.setStaleLockTime(0)  # only a dead owner makes it stale, never its age
+    return lock if lock.tryLock(0) else None
+
+
 class RecoveryStore:
     """Writes and finds recovery copies for one window."""
 
     def __init__(self, folder: Path | None = None):
         self.folder = (folder or data_dir()) / "recovery"
         self.key: str | None = None
+        self.source: str | None = None
         self._lock: QLockFile | None = None
 
     # --- this window's copy -------------------------------------------------
     def claim(self, source: str | None) -> None:
-        """Start a recovery slot for the plan opened from ``source`` (None: new plan)."""
+        """Start this window's recovery slot for the plan opened from ``source`` (None: a
+        new plan); the previous slot's copy is removed (its work was saved or dropped)."""
         self.release(remove=True)
-        seed = os.path.abspath(source) if source else f"new-{uuid.uuid4().hex}"
-        self.key = hashlib.sha1(seed.encode("utf-8")).hexdigest()[:16]
-        self.source = source
         self.folder.mkdir(parents=True, exist_ok=True)
-        self._lock = QLockFile(str(self.folder / f"{self.key}.lock"))
-        self._lock.setStaleLockTime(0)
-        self._lock.tryLock(100)
+        self.key, self.source = _new_key(source), source
+        self._lock = _lock(self.folder, self.key)
+
+    @property
+    def owns(self) -> bool:
+        return self.key is not None and self._lock is not None
 
     def write(self, plan: Plan) -> Path:
-        """Write (atomically) the recovery copy of ``plan``."""
-        from workbench.io.planfile import save_plan
+        """Write (atomically) this window's recovery copy of ``plan``. Safe to call from a
+        worker thread with a snapshot of the plan (it reads nothing else of the window)."""
+        from workbench.io import atomic
+        from workbench.io.planfile import PlanFileError, save_plan, storable_copy
         if self.key is None:
             self.claim(None)
+        if not self.owns:
+            raise OSError(f"the recovery slot {self.key} is held by another window")
         path = self.folder / f"{self.key}.slw"
-        save_plan(plan, path, backup=False)
-        meta = {"source": self.source, "title": plan.settings.title,
-                "written": dt.datetime.now().isoformat(timespec="seconds")}
-        tmp = self.folder / f"{self.key}.json.tmp"
-        tmp.write_text(json.dumps(meta), encoding="utf-8")
-        os.replace(tmp, self.folder / f"{self.key}.json")
+        try:
+            save_plan(plan, path, backup=False, accept_owner_change=True)
+        except PlanFileError:  # text the file cannot hold: keep the work, cleaned
+            save_plan(storable_copy(plan), path, backup=False, accept_owner_change=True)
+        meta = {"source": self.source, "title": plan.settings.title, "pid": os.getpid(),
+                "host": socket.gethostname(), "written": dt.datetime.now().isoformat(timespec="seconds")}
+        atomic.write_file(self.folder / f"{self.key}.json", json.dumps(meta).encode("utf-8"),
+                          accept_owner_change=True)
         return path
 
     def discard(self) -> None:
-        """Remove this window's copy (after a save or a clean close)."""
-        if self.key:
+        """Remove this window's own copy (after a save or a clean close); never another's."""
+        if self.owns:
             remove_copy(self.folder, self.key)
 
     def release(self, remove: bool = True) -> None:
@@ -109,11 +134,22 @@ class RecoveryStore:
         return found
 
     def _held(self, key: str) -> bool:
-        lock = QLockFile(str(self.folder / f"{key}.lock"))
-        lock.setStaleLockTime(0)
-        if lock.tryLock(0):
-            lock.unlock()
+        lock = _lock(self.folder, key)
+        if lock is None:
+            return True
+        lock.unlock()
+        return False
+
+    def remove_orphan(self, key: str) -> bool:
+        """Remove a copy left by a window that is gone, after taking its lock (so a copy a
+        live window owns is never removed). False when another window holds it."""
+        lock = _lock(self.folder, key)
+        if lock is None:
             return False
+        try:
+            remove_copy(self.folder, key)
+        finally:
+            lock.unlock()
         return True
 
 

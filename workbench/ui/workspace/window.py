@@ -14,6 +14,7 @@ from PySide6.QtWidgets import QDockWidget, QLabel, QMainWindow, QUndoView, QVBox
 from workbench.core.model import Plan
 from workbench.ui.activities.panel import ActivitiesPanel
 from workbench.ui.workspace.files import TABLE_SUFFIXES, FileController
+from workbench.ui import prompts
 from workbench.ui.icons import icon
 from workbench.ui.workspace.notice_bar import NoticeBar
 from workbench.ui.workspace.recovery import RecoveryStore
@@ -265,7 +266,12 @@ class MainWindow(QMainWindow):
 
     # --- closing -------------------------------------------------------------------
     def closeEvent(self, event: QCloseEvent) -> None:
-        if not self.files.maybe_save():
+        try:
+            may_close = self.files.maybe_save()
+        except Exception as exc:  # noqa: BLE001 - a failed save never closes the window
+            prompts.show_error(self, "Not closed", f"The plan could not be saved, so the window stays open: {exc}")
+            may_close = False
+        if not may_close:
             event.ignore()
             return
         self.save_layout()
