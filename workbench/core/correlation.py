@@ -18,7 +18,6 @@ from __future__ import annotations
 import math
 
 import numpy as np
-from scipy import special
 
 from .errors import PlanError
 
@@ -93,6 +92,8 @@ class CorrelationModel:
     def apply(self, scores: np.ndarray, normals: np.ndarray) -> None:
         """Overwrite the correlated rows of uniform ``scores`` from independent ``normals``."""
         if self.mixer is not None:
+            from scipy import special  # imported with the first correlated run, not at start-up
+
             scores[self.rows] = special.ndtr(self.mixer @ normals)
 
     def note(self) -> str:

@@ -13,7 +13,6 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.special import ndtr
 
 MODES = ("by", "after", "between")
 PRESETS = (0.8, 0.9)
@@ -138,6 +137,8 @@ def pert_curve(odds, lo: float, hi: float, samples: int = 401) -> OddsCurve:
         return OddsCurve(x, np.zeros(4), np.array([0.0, 0.0, 1.0, 1.0]), m, 0.0, True)
     x = np.linspace(lo, hi, samples)
     dens = _normal_pdf(x, odds.mean, odds.sd)
+    from scipy.special import ndtr  # imported where needed: the command line's start stays quick
+
     cum = ndtr((x - odds.mean) / odds.sd)
     return OddsCurve(x, dens, cum, float(odds.mean), float(odds.sd), False)
 
