@@ -12,6 +12,7 @@ import datetime as dt
 from workbench.core.errors import PlanError
 from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Calendar, CorrelationGroup, Link, Plan, Risk, Settings,
                                   SignOff)
+from workbench.core.cpm import Analyzer
 from workbench.core.network import compile_plan
 
 from .errors import PlanFileError
@@ -154,8 +155,17 @@ def activity_from_dict(data, position: int) -> Activity:
     return _core(act.validated)
 
 
+def _activities_from_list(items) -> list[Activity]:
+    build = getattr(items, "build", None)     # rows decoded in bulk (plan_bulk) check themselves
+    if build is not None:
+        return build(activity_from_dict)
+    return [activity_from_dict(x, i) for i, x in enumerate(items, 1)]
+
+
 def _links_from_list(items) -> list[Link]:
     """Every link, the common ones built in one tight loop, the rest by :func:`link_from_dict`."""
+    if hasattr(items, "build"):               # rows decoded in bulk (plan_bulk)
+        return items.build(link_from_dict)
     out, keys, types, limit = [], _LINK_KEYS, LINK_TYPES, MAX_UNITS
     for i, d in enumerate(items, 1):
         if type(d) is dict and d.keys() <= keys:
@@ -215,6 +225,8 @@ def _core(check):
 
 
 def _unique(acts: list[Activity]) -> None:
+    if len({a.id for a in acts}) == len(acts):
+        return
     first: dict[str, int] = {}
     for i, act in enumerate(acts, 1):
         if act.id in first:
@@ -229,7 +241,7 @@ def plan_from_dict(data) -> Plan:
     top = Fields(upgrade(data), "plan file")
     top.text("format"), top.number("version")
     settings = settings_from_dict(top.raw("settings", {}))
-    acts = [activity_from_dict(x, i) for i, x in enumerate(top.raw_list("activities"), 1)]
+    acts = _activities_from_list(top.raw_list("activities"))
     _unique(acts)
     links = _links_from_list(top.raw_list("links"))
     known = {a.id for a in acts}
@@ -237,5 +249,7 @@ def plan_from_dict(data) -> Plan:
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
     top.done()
     plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
-    _core(lambda: compile_plan(plan))
+    analyzer = Analyzer(_core(lambda: compile_plan(plan)))
+    analyzer.links = list(plan.links)
+    plan._analyzer = analyzer           # the first analysis reuses the network compiled here
     return plan

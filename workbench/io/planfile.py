@@ -7,6 +7,7 @@
 
 from __future__ import annotations
 
+import codecs
 import hashlib
 import json
 import os
@@ -16,6 +17,7 @@ from pathlib import Path
 from workbench.core.model import Plan
 
 from .errors import PlanFileError
+from .plan_bulk import bulk_plan_data, paused_gc
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
 from .plan_migrate import upgrade
 
@@ -59,17 +61,26 @@ def dumps(plan: Plan) -> str:
     return _layout(plan_to_dict(plan)) + "\n"
 
 
-def loads(text: str, source: str = "plan file") -> Plan:
+def loads(text: str | bytes, source: str = "plan file") -> Plan:
+    """A plan from plan file text (str, or UTF-8 bytes already checked by :func:`_decode`)."""
+    raw = text.encode("utf-8", "surrogatepass") if isinstance(text, str) else text
+    with paused_gc():
+        data = bulk_plan_data(raw, VERSION)   # the fast route; None: read it carefully
+        if data is None:
+            data = _careful_json(raw.decode("utf-8") if isinstance(text, bytes) else text, source)
+        try:
+            return plan_from_dict(data)
+        except PlanFileError as exc:
+            raise PlanFileError(f"{source}: {exc}", exc.culprit) from exc
+
+
+def _careful_json(text: str, source: str):
     try:
-        data = json.loads(text, parse_constant=_no_constant, object_pairs_hook=_no_duplicates)
+        return json.loads(text, parse_constant=_no_constant, object_pairs_hook=_no_duplicates)
     except json.JSONDecodeError as exc:
         raise PlanFileError(f"{source}: not valid JSON (line {exc.lineno}, column {exc.colno}: {exc.msg})") from exc
     except (ValueError, RecursionError) as exc:
         raise PlanFileError(f"{source}: not valid plan JSON: {exc}") from exc
-    try:
-        return plan_from_dict(data)
-    except PlanFileError as exc:
-        raise PlanFileError(f"{source}: {exc}", exc.culprit) from exc
 
 
 def _decode(raw: bytes, name: str) -> str:
@@ -97,7 +108,8 @@ def load_plan(path) -> Plan:
     except OSError as exc:
         raise PlanFileError(f"cannot read {path}: {exc.strerror or exc}") from exc
     try:
-        return loads(_decode(raw, path.name), path.name)
+        _decode(raw, path.name)               # refuses what is not UTF-8 text, saying why
+        return loads(raw.removeprefix(codecs.BOM_UTF8), path.name)
     except PlanFileError as exc:
         bak = path.with_name(path.name + ".bak")
         if path.suffix != ".bak" and bak.is_file():
