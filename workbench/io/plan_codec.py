@@ -58,13 +58,14 @@ def activity_to_dict(a: Activity) -> dict:
             "start_no_earlier": _point(a.start_no_earlier), "finish_no_later": _point(a.finish_no_later)}
 
 
-def plan_to_dict(plan: Plan) -> dict:
-    """The whole plan as JSON-ready data in the current layout (``VERSION``)."""
+def plan_to_dict(plan: Plan, rows: bool = True) -> dict:
+    """The whole plan as JSON-ready data in the current layout (``VERSION``); with
+    ``rows=False`` the activity and link lists are left empty (``plan_lines`` writes them)."""
     return {
         "format": FORMAT, "version": VERSION,
         "settings": settings_to_dict(plan.settings),
-        "activities": [activity_to_dict(a) for a in plan.activities],
-        "links": [{"pred": l.pred, "succ": l.succ, "type": l.type, "lag": float(l.lag)} for l in plan.links],
+        "activities": [activity_to_dict(a) for a in plan.activities] if rows else [],
+        "links": [{"pred": l.pred, "succ": l.succ, "type": l.type, "lag": float(l.lag)} for l in plan.links] if rows else [],
         "risks": [{"id": r.id, "name": r.name, "probability": float(r.probability),
                    "optimistic": float(r.optimistic), "most_likely": float(r.most_likely),
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],

@@ -19,6 +19,7 @@ from workbench.core.model import Plan
 from .errors import PlanFileError
 from .plan_bulk import bulk_plan_data, paused_gc
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
+from .plan_lines import fast_dumps
 from .plan_migrate import upgrade
 
 __all__ = ["FORMAT", "VERSION", "PlanFileError", "load_plan", "save_plan", "plan_to_dict",
@@ -58,7 +59,8 @@ def _layout(value, depth: int = 0) -> str:
 
 def dumps(plan: Plan) -> str:
     """The plan file text (UTF-8 JSON); every float written exactly (shortest repr)."""
-    return _layout(plan_to_dict(plan)) + "\n"
+    with paused_gc():
+        return fast_dumps(plan, _layout) or _layout(plan_to_dict(plan)) + "\n"
 
 
 def loads(text: str | bytes, source: str = "plan file") -> Plan:
