@@ -49,7 +49,10 @@ def load_plan_file(path: str):
         raise PlanError(f"{path}: is a folder, not a plan file", "PLAN")
     if not p.is_file():
         raise PlanError(f"{path}: not a regular file (a pipe or device cannot be read as a plan)", "PLAN")
-    from ..io.tabular import load_any
+    if p.suffix.lower() == ".slw":
+        from ..io.planfile import load_plan as load_any    # without the table readers' imports
+    else:
+        from ..io.tabular import load_any
 
     plan = load_any(p)
     gc.freeze()     # a verb keeps its plan to the end: later collections need not scan it
