@@ -280,12 +280,17 @@ def compile_network(ids: list[str], src: np.ndarray, dst: np.ndarray, lag: np.nd
 def compile_plan(plan) -> Network:
     """Compile a :class:`~workbench.core.model.Plan` (validates unknown ids, self links, cycles)."""
     ids = plan.ids()
-    index = {a: i for i, a in enumerate(ids)}
+    index = getattr(plan, "_index", None)       # the plan's own id -> row map, when it keeps one
+    if not isinstance(index, dict) or len(index) != len(ids) or list(map(index.get, ids)) != list(range(len(ids))):
+        index = {a: i for i, a in enumerate(ids)}
     links = plan.links
     m = len(links)
     try:
-        src, dst, types = (np.fromiter(map(table.__getitem__, map(attrgetter(name), links)), np.int64, m)
-                           for table, name in ((index, "pred"), (index, "succ"), (TYPE_CODES, "type")))
+        src, dst = (np.fromiter(map(index.__getitem__, map(attrgetter(name), links)), np.int64, m)
+                    for name in ("pred", "succ"))
+        kinds = list(map(attrgetter("type"), links))
+        types = (np.zeros(m, dtype=np.int64) if kinds.count("FS") == m
+                 else np.fromiter(map(TYPE_CODES.__getitem__, kinds), np.int64, m))
     except KeyError:
         raise _unknown_end(links, index) from None
     lag = np.fromiter(map(attrgetter("lag"), links), dtype=float, count=m)
