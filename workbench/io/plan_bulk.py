@@ -129,12 +129,7 @@ class ActivityRows(list):
     def plain(self) -> np.ndarray:
         """Per row: True when the bulk checks vouch for it (the common, unconstrained entry)."""
         c = self.columns()
-        a, m, b, d = (np.array(c[k], dtype=float) for k in ("optimistic", "most_likely", "pessimistic", "duration"))
-        with np.errstate(invalid="ignore"):
-            three = (0 <= a) & (a <= m) & (m <= b) & (b <= MAX_UNITS)
-            none = np.isnan(a) & np.isnan(m) & np.isnan(b)
-            fixed = np.isnan(d) | ((0 <= d) & (d <= MAX_UNITS))
-        ok = (three | (none & ~np.isnan(d))) & fixed
+        ok = plain_numbers(*(np.array(c[k], dtype=float) for k in ("optimistic", "most_likely", "pessimistic", "duration")))
         ok &= np.fromiter(map(_plain_id, c["id"]), bool, len(self)) if _BAD_ID.search("\x00".join(c["id"])) \
             else _id_lengths_ok(c["id"])
         for key in ("start_no_earlier", "finish_no_later"):
@@ -157,6 +152,16 @@ class ActivityRows(list):
 
 
 _DISTRIBUTIONS = frozenset(DISTRIBUTIONS) | {None}
+
+
+def plain_numbers(a: np.ndarray, m: np.ndarray, b: np.ndarray, d: np.ndarray) -> np.ndarray:
+    """Per activity (NaN for a missing value): an ordered three-point estimate within range,
+    or none and a duration; any duration within range. What ``Activity`` accepts outright."""
+    with np.errstate(invalid="ignore"):
+        three = (0 <= a) & (a <= m) & (m <= b) & (b <= MAX_UNITS)
+        none = np.isnan(a) & np.isnan(m) & np.isnan(b)
+        fixed = np.isnan(d) | ((0 <= d) & (d <= MAX_UNITS))
+    return (three | (none & ~np.isnan(d))) & fixed
 
 
 def _is_none(value) -> bool:
