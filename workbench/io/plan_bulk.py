@@ -19,9 +19,7 @@ more means a key nobody read (a repeated field).
 
 from __future__ import annotations
 
-import gc
 import json
-from contextlib import contextmanager
 from operator import attrgetter
 from typing import Any
 
@@ -59,20 +57,6 @@ class LinkRow(msgspec.Struct, forbid_unknown_fields=True, gc=False):
 
 _TOP = msgspec.json.Decoder(dict[str, msgspec.Raw])
 _ROWS = {"activities": msgspec.json.Decoder(list[ActivityRow]), "links": msgspec.json.Decoder(list[LinkRow])}
-
-
-@contextmanager
-def paused_gc():
-    """No cyclic garbage collection while a big plan is built: its records hold no cycles,
-    and a collection every few thousand new objects, each scanning all the objects made
-    so far, costs more than the building itself."""
-    was = gc.isenabled()
-    gc.disable()
-    try:
-        yield
-    finally:
-        if was:
-            gc.enable()
 
 
 def _no_duplicates(pairs):

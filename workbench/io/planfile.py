@@ -17,7 +17,8 @@ from pathlib import Path
 from workbench.core.model import Plan
 
 from .errors import PlanFileError
-from .plan_bulk import bulk_plan_data, paused_gc
+from .paused_gc import paused_gc
+from .plan_bulk import bulk_plan_data
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
 from .plan_lines import fast_dumps
 from .plan_migrate import upgrade
@@ -186,14 +187,14 @@ def save_plan(plan: Plan, path, backup: bool = True) -> Path:
     path = Path(path)
     if path.is_symlink():
         path = path.resolve()
-    text = dumps(plan)
+    text = dumps(plan).encode("utf-8")  # bytes once: read back and written from the same copy
     loads(text, "not saved")  # never write a file we could not read back
     try:
         existed = path.exists()
         mode = (path.stat().st_mode & 0o7777) if existed else None
         if existed and backup:
             _keep_backup(path)
-        tmp = _write_temp(path.parent, path.name, text.encode("utf-8"), mode)
+        tmp = _write_temp(path.parent, path.name, text, mode)
         try:
             os.replace(tmp, path)
         except BaseException:

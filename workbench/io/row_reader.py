@@ -17,7 +17,7 @@ from workbench.core.network import compile_plan
 from .errors import TableImportError
 from .fields import parse_iso_date
 from .predecessors import parse_predecessors
-from .plan_bulk import paused_gc
+from .paused_gc import paused_gc
 from .table_bulk import bulk_plan
 from .table_columns import Columns, map_header
 
