@@ -278,6 +278,7 @@ class Plan:
         self.links: list[Link] = []
         self.risks: list[Risk] = list(risks)
         self.correlations: list[CorrelationGroup] = list(correlations)
+        self.checkup_thresholds: dict[str, float] = {}   # Checkup thresholds this plan changed
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         if validated:
@@ -432,6 +433,17 @@ class Plan:
         self._emit("changed", kind="settings_changed")
         return old
 
+    def set_checkup_thresholds(self, values: dict[str, float]) -> dict[str, float]:
+        """Replace the plan's own Checkup thresholds (validated; see core.checkup_limits);
+        return the old ones. Announced as a settings change."""
+        from .checkup_limits import checked_thresholds
+
+        values = checked_thresholds(values)
+        self._emit("about_to_change", kind="settings_changed")
+        old, self.checkup_thresholds = self.checkup_thresholds, values
+        self._emit("changed", kind="settings_changed")
+        return old
+
     def reset(self, other: "Plan") -> None:
         """Take over the whole content of ``other`` (an import, a revert)."""
         self._emit("about_to_change", kind="reset")
@@ -440,10 +452,13 @@ class Plan:
         self.links = list(other.links)
         self.risks = list(other.risks)
         self.correlations = list(other.correlations)
+        self.checkup_thresholds = dict(getattr(other, "checkup_thresholds", {}))
         self._reindex()
         self._emit("changed", kind="reset")
 
     def copy(self) -> "Plan":
-        return Plan(replace(self.settings, calendar=replace(self.settings.calendar),
+        twin = Plan(replace(self.settings, calendar=replace(self.settings.calendar),
                             sign_off=list(self.settings.sign_off)),
                     self._activities, self.links, self.risks, self.correlations)
+        twin.checkup_thresholds = dict(self.checkup_thresholds)
+        return twin

@@ -15,6 +15,7 @@ from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Calendar, Cor
 from workbench.core.cpm import Analyzer
 from workbench.core.network import compile_plan
 
+from .checkup_section import checkup_from_dict, checkup_to_dict
 from .errors import PlanFileError
 from .fields import Fields
 from .plan_migrate import FORMAT, VERSION, upgrade
@@ -71,6 +72,7 @@ def plan_to_dict(plan: Plan, rows: bool = True) -> dict:
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
         "correlations": [{"name": c.name, "activities": list(c.activities),
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
+        "checkup": checkup_to_dict(plan),
     }
 
 
@@ -248,8 +250,10 @@ def plan_from_dict(data) -> Plan:
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    checkup = checkup_from_dict(top.raw("checkup"))
     top.done()
     plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
+    plan.checkup_thresholds = checkup
     analyzer = Analyzer(_core(lambda: compile_plan(plan)))
     analyzer.links = list(plan.links)
     plan._analyzer = analyzer           # the first analysis reuses the network compiled here

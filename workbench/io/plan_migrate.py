@@ -120,6 +120,14 @@ def upgrade_1_to_2(data: dict) -> dict:
 V3_STEPS: list = []
 
 
+def _add_checkup_section(data: dict) -> dict:
+    from .checkup_section import add_checkup_section
+    return add_checkup_section(data)
+
+
+V3_STEPS.append(_add_checkup_section)
+
+
 def upgrade_2_to_3(data: dict) -> dict:
     data = dict(data, version=3)
     for step in V3_STEPS:
