@@ -188,6 +188,7 @@ def main(argv=None) -> None:
     parser.add_argument("--only", choices=("analyze", "simulate", "start", "imports"))
     args = parser.parse_args(argv)
     env = dict(os.environ, PYTHONPATH=str(ROOT))
+    env.pop("PYTHONDONTWRITEBYTECODE", None)    # warm means compiled once: as an installed app is
     with tempfile.TemporaryDirectory() as tmp:
         folder = Path(tmp)
         if args.only in (None, "start"):

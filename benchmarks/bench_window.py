@@ -73,6 +73,7 @@ def window_figures(runs: int, n: int) -> list[str]:
         env = dict(os.environ, QT_QPA_PLATFORM=os.environ.get("QT_QPA_PLATFORM", "offscreen"),
                    SLACKLINE_MULTI_INSTANCE="1", SLACKLINE_DATA_DIR=tmp, XDG_CONFIG_HOME=tmp, HOME=tmp,
                    PYTHONPATH=str(ROOT))
+        env.pop("PYTHONDONTWRITEBYTECODE", None)    # warm means compiled once: as an installed app is
         big = Path(tmp) / "big.slw"
         save_plan(to_plan(layered_network(n, seed=7)), big)
         t = medians(runs, env, start=[sys.executable, "-c", START_SCRIPT],
