@@ -84,7 +84,8 @@ def window_figures(runs: int, n: int) -> list[str]:
                              ("open", f"launch with a {n:,}-activity plan, front views drawn", 3.0)):
         wall, cpu = t[key]
         lines.append(f"{label}: {wall:.2f} s wall, {cpu:.2f} s CPU ({wall / bare[0]:.0f} x python -c pass); "
-                     f"goal <= {goal:g} s: {'met' if min(wall, cpu) <= goal else 'MISSED'}")
+                     f"goal <= {goal:g} s: {'met' if wall <= goal else 'MISSED'} by wall time, "
+                     f"{'met' if cpu <= goal else 'MISSED'} by CPU time (the figure on an idle machine)")
     return lines
 
 
