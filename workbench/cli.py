@@ -74,7 +74,9 @@ def main(argv: list[str] | None = None) -> int:
     if not argv or (argv[0] not in VERBS and not argv[0].startswith("-")):
         problem = _not_a_plan(argv[0]) if argv else None
         return _fail(problem, 2) if problem else open_window(argv)
-    verb = argv[0] if argv[0] in VERBS else None
+    # Only the verb that runs has its arguments added (and its module imported); with no
+    # verb (--version, --help, --self-test) none is: the top-level help lists verbs by name.
+    verb = next((word for word in argv if word in VERBS), "")
     args = build_parser(verb).parse_args(argv)  # exits 2 with usage on malformed arguments
     from .core.errors import PlanError  # after parsing: `--version` and `--help` stay instant
 

@@ -51,3 +51,13 @@ def test_bad_resource_entries_are_refused_by_name(data, change, words):
         plan_from_dict(data)
     for w in words:
         assert w in str(info.value)
+
+
+def test_the_fast_writer_keeps_every_activity_field():
+    """The plan file writer's line pattern must never drop a field written only when set."""
+    from workbench.core.demo import demo_plan
+    from workbench.io.planfile import loads
+
+    plan = demo_plan()
+    assert any(a.resources for a in plan.activities)
+    assert plan_to_dict(loads(dumps(plan))) == plan_to_dict(plan)

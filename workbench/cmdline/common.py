@@ -3,7 +3,9 @@
 from __future__ import annotations
 
 import datetime as dt
+import gc
 import json
+import math
 import sys
 from pathlib import Path
 
@@ -50,13 +52,50 @@ def load_plan_file(path: str):
         raise PlanError(f"{path}: is a folder, not a plan file", "PLAN")
     if not p.is_file():
         raise PlanError(f"{path}: not a regular file (a pipe or device cannot be read as a plan)", "PLAN")
-    from ..io.tabular import load_any
+    if p.suffix.lower() == ".slw":
+        from ..io.planfile import load_plan as load_any    # without the table readers' imports
+    else:
+        from ..io.tabular import load_any
 
-    return load_any(p)
+    plan = load_any(p)
+    gc.freeze()     # a verb keeps its plan to the end: later collections need not scan it
+    return plan
 
 
 def write_json(obj) -> None:
-    sys.stdout.write(json.dumps(obj, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+    """``obj`` as indented JSON on stdout. msgspec writes the same text as the standard
+    library's indenting encoder, about ten times faster; what it would write differently
+    (NaN or an infinity, which it spells null) or cannot write (a lone surrogate) goes to
+    the standard library as before."""
+    import msgspec
+
+    try:
+        text = msgspec.json.encode(obj)
+    except (TypeError, ValueError, UnicodeError, msgspec.EncodeError):
+        text = None
+    if text is None or (b"null" in text and _has_bad_float(obj)):
+        sys.stdout.write(json.dumps(obj, indent=2, ensure_ascii=False, allow_nan=False) + "\n")
+        return
+    text = msgspec.json.format(text, indent=2) + b"\n"
+    out = getattr(sys.stdout, "buffer", None)
+    if out is None:
+        sys.stdout.write(text.decode("utf-8"))
+        return
+    sys.stdout.flush()
+    out.write(text)
+    out.flush()
+
+
+def _has_bad_float(obj) -> bool:
+    if isinstance(obj, float):
+        return obj != obj or obj in (math.inf, -math.inf)
+    if isinstance(obj, dict):
+        return any(map(_has_bad_float, obj.values()))
+    if isinstance(obj, (list, tuple)):
+        return any(map(_has_bad_float, obj))
+    return False
+
+
 
 
 def refuse_if_locked(path, force: bool) -> None:

@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import datetime as dt
 from dataclasses import dataclass
+from operator import attrgetter
 
 import numpy as np
 
@@ -102,12 +103,9 @@ def _finite(value: float):
 
 def moments(plan) -> tuple[np.ndarray, np.ndarray]:
     """PERT mean and variance of every activity, in plan order."""
-    acts = plan.activities
-    n = len(acts)
-    fixed = np.fromiter((a.duration if a.duration is not None else np.nan for a in acts), float, n)
-    three = [np.fromiter((np.nan if getattr(a, k) is None else getattr(a, k) for a in acts), float, n)
-             for k in ("optimistic", "most_likely", "pessimistic")]
-    a, m, b = three
+    acts = plan.activities        # numpy reads a missing value (None) as NaN
+    fixed, a, m, b = (np.array(list(map(attrgetter(k), acts)), dtype=float).reshape(-1)
+                      for k in ("duration", "optimistic", "most_likely", "pessimistic"))
     has = ~(np.isnan(a) | np.isnan(m) | np.isnan(b))
     means = np.where(has, (a + 4.0 * m + b) / 6.0, np.nan_to_num(fixed))
     variances = np.where(has, ((b - a) / 6.0) ** 2, 0.0)

@@ -24,7 +24,6 @@ from __future__ import annotations
 import math
 
 import numpy as np
-from scipy import special
 
 from .errors import PlanError
 
@@ -113,6 +112,8 @@ class CorrelationModel:
             mixed[idx] = own * normals[idx] + common * normals[idx].sum(axis=0)
         if self.mixer is not None:
             mixed[self.dense] = self.mixer @ normals[self.dense]
+        from scipy import special  # imported with the first correlated run, not at start-up
+
         scores[self.rows] = special.ndtr(mixed)
 
     def note(self) -> str:

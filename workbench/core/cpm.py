@@ -21,6 +21,7 @@ the critical paths when the driving links have not changed.
 from __future__ import annotations
 
 from dataclasses import dataclass, field
+from operator import attrgetter
 
 import numpy as np
 
@@ -221,9 +222,13 @@ class Analyzer:
 def constraint_bounds(plan, calendar=None) -> tuple[np.ndarray, np.ndarray]:
     """Per activity the start-no-earlier offset (floor, ≥ 0) and the finish-no-later
     offset (+inf when none), dates resolved through ``calendar``."""
-    n = len(plan.activities)
+    acts = plan.activities
+    n = len(acts)
     floor, fnlt = np.zeros(n), np.full(n, np.inf)
-    for i, act in enumerate(plan.activities):
+    sne, fnl = (list(map(attrgetter(k), acts)) for k in ("start_no_earlier", "finish_no_later"))
+    if sne.count(None) == n and fnl.count(None) == n:
+        return floor, fnlt                      # the common case: no constraint at all
+    for i, act in enumerate(acts):
         if act.start_no_earlier is not None:
             floor[i] = max(0.0, _resolve(calendar, act.start_no_earlier, finish=False))
         if act.finish_no_later is not None:

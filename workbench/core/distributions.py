@@ -16,7 +16,6 @@ A degenerate estimate (a = b) or an activity with a single duration is fixed.
 from __future__ import annotations
 
 import numpy as np
-from scipy import special, stats
 
 from .errors import PlanError
 from .model import DISTRIBUTIONS
@@ -99,6 +98,8 @@ class DurationModel:
         if "normal" in self.groups:
             rows = self.groups["normal"]
             mu, sd = self.te[u][rows], self.span[rows] / 6.0
+            from scipy import special  # only the normal family needs it (keeps start-up quick)
+
             self._normal = (rows, mu[:, None], sd[:, None], special.ndtr(-mu / sd)[:, None])
 
     @property
@@ -147,6 +148,8 @@ class DurationModel:
         if family == "triangular":
             c = self.shape[rows][:, None]
             return np.where(u < c, np.sqrt(u * c), 1.0 - np.sqrt((1.0 - u) * (1.0 - c)))
+        from scipy import special
+
         _, mu, sd, p0 = self._normal
         return np.maximum(mu + sd * special.ndtri(p0 + u * (1.0 - p0)), 0.0)
 
@@ -169,5 +172,7 @@ def _moments(family: str, a: float, m: float, b: float) -> tuple[float, float]:
     if family == "uniform":
         return (a + b) / 2, span * span / 12.0
     mu, sd = (a + 4 * m + b) / 6, span / 6
+    from scipy import stats  # slow to import: only for the normal family's exact moments
+
     dist = stats.truncnorm(-mu / sd, np.inf, loc=mu, scale=sd)
     return float(dist.mean()), float(dist.var())

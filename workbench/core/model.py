@@ -11,6 +11,7 @@ import datetime as dt
 import math
 import re
 from dataclasses import dataclass, field, replace
+from operator import attrgetter
 from typing import Callable, Iterable
 
 from .errors import PlanError
@@ -396,20 +397,33 @@ class Plan:
         self.resources: list[Resource] = [r.validated() for r in resources]
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
-        for act in activities:
-            self._append(act if validated else check_activity_text(act.validated()))
         if validated:
-            self.links = list(links)
-            index = self._index
-            for link in self.links:
-                if link.pred not in index or link.succ not in index:
-                    self._check_link(link)   # raises, naming the unknown end
+            self._take_checked(list(activities), list(links))
         else:
+            for act in activities:
+                self._append(check_activity_text(act.validated()))
             for link in links:
                 self._check_link(link)
                 self.links.append(link)
-
         self._check_all_demands()
+
+    def _take_checked(self, acts: list[Activity], links: list[Link]) -> None:
+        """Activities and links a file reader has validated: only duplicate ids and link
+        ends are checked here, in bulk, falling back to one at a time to name a culprit."""
+        self._index = dict(zip(map(attrgetter("id"), acts), range(len(acts))))
+        if len(self._index) == len(acts):
+            self._activities = acts
+        else:
+            self._index = {}
+            for act in acts:
+                self._append(act)       # raises, naming the duplicate
+        self.links = links
+        ends = set(map(attrgetter("pred"), links))
+        ends.update(map(attrgetter("succ"), links))
+        if not ends <= self._index.keys():
+            for link in links:
+                if link.pred not in self._index or link.succ not in self._index:
+                    self._check_link(link)   # raises, naming the unknown end
 
     # --- reading -------------------------------------------------------
     @property

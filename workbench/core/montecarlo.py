@@ -15,7 +15,6 @@ import functools
 import os
 
 import numpy as np
-from scipy.stats import rankdata
 
 from .analysis import check_in_calendar, moments
 from .calendar import WorkCalendar
@@ -26,6 +25,7 @@ from .distributions import DurationModel, check_family
 from .errors import PlanError
 from .risk_events import RiskModel
 from .score_stream import CHUNK, ScoreStream
+from .order_stats import average_ranks
 from .sim_result import SimulationResult
 
 BLOCK_BYTES = 48 * 2**20       # working memory aimed at per block
@@ -254,7 +254,7 @@ def _main_pass(mc, stream, acc, iterations, block, tick, kept) -> np.ndarray:
 def _sensitivity_pass(mc, stream, acc, finish, block, tick) -> None:
     """Regenerate the scores and correlate them with the finish ranks (bounded memory)."""
     iterations = finish.size
-    rank = rankdata(finish)
+    rank = average_ranks(finish)
     rank -= rank.mean()
     acc.var_rank = float(np.mean(rank * rank))
     for first, count, lo, hi in _chunks(iterations, block):

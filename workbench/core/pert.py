@@ -11,7 +11,8 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.special import ndtr, ndtri  # the standard normal CDF and its inverse
+
+from .normal import ndtr, ndtri  # the standard normal CDF and its inverse (no scipy import)
 
 
 @dataclass(frozen=True)

@@ -15,7 +15,6 @@ from __future__ import annotations
 import functools
 
 import numpy as np
-from scipy import special
 
 SHAPES = 65
 CELLS = 4096
@@ -33,6 +32,8 @@ def exact_quantile(shape, u) -> np.ndarray:
 
     The upper half uses the mirrored distribution so precision near u = 1 is kept.
     """
+    from scipy import special  # only when the table is computed (the cache usually has it)
+
     alpha, beta = pert_shape_parameters(shape)
     alpha, beta, u = np.broadcast_arrays(alpha, beta, np.asarray(u, dtype=float))
     out = special.betaincinv(alpha, beta, u)

@@ -14,10 +14,10 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.stats import binom
 
 from .calendar import round_offset
 from .near_paths import near_critical_paths
+from .order_stats import binomial_quantile
 from .pert import pert_odds
 
 PERCENTILES = (5, 10, 20, 30, 40, 50, 60, 70, 80, 90, 95)
@@ -141,8 +141,8 @@ class SimulationResult:
         """Distribution-free interval for the p-th percentile from order statistics:
         ranks j, k from the binomial(N, p/100) quantiles at (1 ∓ level)/2."""
         n, q, s = self.iterations, p / 100.0, self.sorted_finish()
-        j = int(binom.ppf((1.0 - level) / 2.0, n, q))
-        k = int(binom.ppf((1.0 + level) / 2.0, n, q)) + 1
+        j = int(binomial_quantile((1.0 - level) / 2.0, n, q))
+        k = int(binomial_quantile((1.0 + level) / 2.0, n, q)) + 1
         return float(s[min(max(j, 1), n) - 1]), float(s[min(max(k, 1), n) - 1])
 
     @property

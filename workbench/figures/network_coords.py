@@ -16,7 +16,6 @@ never passes through a node box. Ports are spread along a side when several link
 from __future__ import annotations
 
 import numpy as np
-from scipy.optimize import isotonic_regression
 
 from .network_order import LayeredGraph
 
@@ -85,6 +84,8 @@ class Placer:
         if items.size == 1:
             y[items] = want
             return
+        from scipy.optimize import isotonic_regression   # imported with the first layout, not at start-up
+
         fit = isotonic_regression(want - c, weights=w, increasing=True).x
         y[items] = fit + c
 

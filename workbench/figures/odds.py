@@ -13,7 +13,8 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
-from scipy.special import ndtr
+
+from workbench.core.normal import ndtr   # scalar Φ from the standard library: no scipy at start-up
 
 MODES = ("by", "after", "between")
 PRESETS = (0.8, 0.9)
@@ -138,7 +139,7 @@ def pert_curve(odds, lo: float, hi: float, samples: int = 401) -> OddsCurve:
         return OddsCurve(x, np.zeros(4), np.array([0.0, 0.0, 1.0, 1.0]), m, 0.0, True)
     x = np.linspace(lo, hi, samples)
     dens = _normal_pdf(x, odds.mean, odds.sd)
-    cum = ndtr((x - odds.mean) / odds.sd)
+    cum = np.array([ndtr(z) for z in ((x - odds.mean) / odds.sd).tolist()])   # a few hundred points
     return OddsCurve(x, dens, cum, float(odds.mean), float(odds.sd), False)
 
 

@@ -162,6 +162,11 @@ def _row_order(plan, collapsed, only):
 
 def _row_texts(plan, index, groups, milestone) -> tuple[list[str], list[str], list[str]]:
     acts = plan.activities
+    if not groups and index.tolist() == list(range(len(acts))):     # plain rows in plan order
+        keys = [a.id for a in acts]
+        labels = [f"{a.id}  {a.name}" if a.name else a.id for a in acts]
+        kinds = ["milestone" if m else "activity" for m in np.asarray(milestone, dtype=bool).tolist()]
+        return keys, labels, kinds
     keys, labels, kinds = [], [], []
     for r, i in enumerate(index.tolist()):
         if i < 0:

@@ -17,9 +17,14 @@ _SURROGATE_ESCAPE = re.compile(r"\\u[dD][89a-fA-F][0-9a-fA-F]{2}")
 _LABEL_KEYS = {"activities": ("activity", "id"), "risks": ("risk", "id"), "correlations": ("correlation group", "name")}
 
 
-def may_hold_surrogates(text: str) -> bool:
-    """True when the JSON text has a surrogate escape (a pair is fine, a lone one is not)."""
-    return _SURROGATE_ESCAPE.search(text) is not None
+_SURROGATE_ESCAPE_BYTES = re.compile(_SURROGATE_ESCAPE.pattern.encode("ascii"))
+
+
+def may_hold_surrogates(text: str | bytes) -> bool:
+    """True when the JSON text (or its UTF-8 bytes) has a surrogate escape (a pair is fine,
+    a lone one is not)."""
+    pattern = _SURROGATE_ESCAPE_BYTES if isinstance(text, bytes) else _SURROGATE_ESCAPE
+    return pattern.search(text) is not None
 
 
 def _label(section: str, position: int, entry) -> str:

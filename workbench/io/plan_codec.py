@@ -12,6 +12,7 @@ import datetime as dt
 from workbench.core.errors import PlanError
 from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Availability, Calendar, CorrelationGroup, Link, Plan,
                                   Resource, Risk, Settings, SignOff)
+from workbench.core.cpm import Analyzer
 from workbench.core.network import compile_plan
 
 from .checkup_section import checkup_from_dict, checkup_to_dict
@@ -51,6 +52,11 @@ def settings_to_dict(s: Settings) -> dict:
     }
 
 
+# Activity fields written only when an activity has them (most lines stay short); the fast
+# writer (plan_lines) writes an activity holding any of them through activity_to_dict.
+OPTIONAL_ACTIVITY_FIELDS = ("resources",)
+
+
 def activity_to_dict(a: Activity) -> dict:
     out = {"id": a.id, "name": a.name, "group": a.group, "notes": a.notes,
            "optimistic": _num(a.optimistic), "most_likely": _num(a.most_likely),
@@ -67,13 +73,14 @@ def resource_to_dict(r: Resource) -> dict:
             "periods": [{"start": _point(p.start), "end": _point(p.end), "units": float(p.units)} for p in r.periods]}
 
 
-def plan_to_dict(plan: Plan) -> dict:
-    """The whole plan as JSON-ready data in the current layout (``VERSION``)."""
+def plan_to_dict(plan: Plan, rows: bool = True) -> dict:
+    """The whole plan as JSON-ready data in the current layout (``VERSION``); with
+    ``rows=False`` the activity and link lists are left empty (``plan_lines`` writes them)."""
     return {
         "format": FORMAT, "version": VERSION,
         "settings": settings_to_dict(plan.settings),
-        "activities": [activity_to_dict(a) for a in plan.activities],
-        "links": [{"pred": l.pred, "succ": l.succ, "type": l.type, "lag": float(l.lag)} for l in plan.links],
+        "activities": [activity_to_dict(a) for a in plan.activities] if rows else [],
+        "links": [{"pred": l.pred, "succ": l.succ, "type": l.type, "lag": float(l.lag)} for l in plan.links] if rows else [],
         "risks": [{"id": r.id, "name": r.name, "probability": float(r.probability),
                    "optimistic": float(r.optimistic), "most_likely": float(r.most_likely),
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
@@ -195,8 +202,17 @@ def resource_from_dict(data, position: int) -> Resource:
     return _core(res.validated)
 
 
+def _activities_from_list(items) -> list[Activity]:
+    build = getattr(items, "build", None)     # rows decoded in bulk (plan_bulk) check themselves
+    if build is not None:
+        return build(activity_from_dict)
+    return [activity_from_dict(x, i) for i, x in enumerate(items, 1)]
+
+
 def _links_from_list(items) -> list[Link]:
     """Every link, the common ones built in one tight loop, the rest by :func:`link_from_dict`."""
+    if hasattr(items, "build"):               # rows decoded in bulk (plan_bulk)
+        return items.build(link_from_dict)
     out, keys, types, limit = [], _LINK_KEYS, LINK_TYPES, MAX_UNITS
     for i, d in enumerate(items, 1):
         if type(d) is dict and d.keys() <= keys:
@@ -258,6 +274,8 @@ def _core(check):
 
 
 def _unique(acts: list[Activity]) -> None:
+    if len({a.id for a in acts}) == len(acts):
+        return
     first: dict[str, int] = {}
     for i, act in enumerate(acts, 1):
         if act.id in first:
@@ -272,7 +290,7 @@ def plan_from_dict(data) -> Plan:
     top = Fields(upgrade(data), "plan file")
     top.text("format"), top.number("version")
     settings = settings_from_dict(top.raw("settings", {}))
-    acts = [activity_from_dict(x, i) for i, x in enumerate(top.raw_list("activities"), 1)]
+    acts = _activities_from_list(top.raw_list("activities"))
     _unique(acts)
     links = _links_from_list(top.raw_list("links"))
     refuse_duplicate_links(links)
@@ -284,5 +302,7 @@ def plan_from_dict(data) -> Plan:
     top.done()
     plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True, resources=resources))
     plan.checkup_thresholds = checkup
-    _core(lambda: compile_plan(plan))
+    analyzer = Analyzer(_core(lambda: compile_plan(plan)))
+    analyzer.links = list(plan.links)
+    plan._analyzer = analyzer           # the first analysis reuses the network compiled here
     return plan

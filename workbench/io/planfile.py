@@ -7,6 +7,7 @@
 
 from __future__ import annotations
 
+import codecs
 import hashlib
 import json
 from pathlib import Path
@@ -18,7 +19,10 @@ from .atomic import OwnershipChange
 from .errors import PlanFileError
 from .plan_checks import check_storable, cleaned_data, may_hold_surrogates, unstorable_text
 from .safe_read import NotReadable, read_regular_file
+from .paused_gc import paused_gc
+from .plan_bulk import bulk_plan_data
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
+from .plan_lines import fast_dumps
 from .plan_migrate import upgrade
 
 __all__ = ["FORMAT", "VERSION", "OwnershipChange", "PlanFileError", "load_plan", "save_plan", "plan_to_dict",
@@ -61,22 +65,33 @@ def _layout(value, depth: int = 0) -> str:
 
 def dumps(plan: Plan) -> str:
     """The plan file text (UTF-8 JSON); every float written exactly (shortest repr)."""
-    return _layout(plan_to_dict(plan)) + "\n"
+    with paused_gc():
+        return fast_dumps(plan, _layout) or _layout(plan_to_dict(plan)) + "\n"
 
 
-def loads(text: str, source: str = "plan file") -> Plan:
+def loads(text: str | bytes, source: str = "plan file") -> Plan:
+    """A plan from plan file text (str, or UTF-8 bytes already checked by :func:`_decode`)."""
+    raw = text.encode("utf-8", "surrogatepass") if isinstance(text, str) else text
+    suspicious = may_hold_surrogates(raw)     # a surrogate escape: read carefully, check every text
+    with paused_gc():
+        data = None if suspicious else bulk_plan_data(raw, VERSION)   # the fast route; None: read it carefully
+        if data is None:
+            data = _careful_json(raw.decode("utf-8") if isinstance(text, bytes) else text, source)
+            if suspicious:
+                check_storable(data, source)
+        try:
+            return plan_from_dict(data)
+        except PlanFileError as exc:
+            raise PlanFileError(f"{source}: {exc}", exc.culprit) from exc
+
+
+def _careful_json(text: str, source: str):
     try:
-        data = json.loads(text, parse_constant=_no_constant, object_pairs_hook=_no_duplicates)
+        return json.loads(text, parse_constant=_no_constant, object_pairs_hook=_no_duplicates)
     except json.JSONDecodeError as exc:
         raise PlanFileError(f"{source}: not valid JSON (line {exc.lineno}, column {exc.colno}: {exc.msg})") from exc
     except (ValueError, RecursionError) as exc:
         raise PlanFileError(f"{source}: not valid plan JSON: {exc}") from exc
-    if may_hold_surrogates(text):
-        check_storable(data, source)
-    try:
-        return plan_from_dict(data)
-    except PlanFileError as exc:
-        raise PlanFileError(f"{source}: {exc}", exc.culprit) from exc
 
 
 def _decode(raw: bytes, name: str) -> str:
@@ -108,7 +123,8 @@ def load_plan(path) -> Plan:
     path = Path(path)
     raw = _read(path)
     try:
-        return loads(_decode(raw, path.name), path.name)
+        _decode(raw, path.name)               # refuses what is not UTF-8 text, saying why
+        return loads(raw.removeprefix(codecs.BOM_UTF8), path.name)
     except MemoryError:
         raise PlanFileError(f"{path.name}: not enough memory to open this {len(raw) / 2**20:,.0f} MB plan; "
                             "close other programs and open it again, or open it on a computer with more memory") from None
@@ -132,7 +148,7 @@ def encode_plan(plan: Plan) -> bytes:
         raise PlanFileError(f"not saved: the plan file would be {len(data) / 2**20:,.0f} MB, more than the "
                             f"{MAX_BYTES / 2**20:,.0f} MB a plan file may hold; split the plan into smaller plans",
                             "size")
-    loads(text, "not saved")  # never write a file we could not read back
+    loads(data, "not saved")  # never write a file we could not read back
     return data
 
 

@@ -17,6 +17,8 @@ from workbench.core.network import compile_plan
 from .errors import TableImportError
 from .fields import parse_iso_date
 from .predecessors import parse_predecessors
+from .paused_gc import paused_gc
+from .table_bulk import bulk_plan
 from .table_columns import Columns, map_header
 
 NUMBER_FIELDS = ("optimistic", "most_likely", "pessimistic", "duration")
@@ -198,6 +200,12 @@ def build_plan(header: list[str], rows: list[Row], settings: Settings | None = N
     cols = map_header(header, header_row)
     if cols.problems:
         raise TableImportError(cols.problems, source)
+    if not resources:            # a plan with resources goes through the row reader
+        with paused_gc():
+            fast = bulk_plan(cols, rows, settings, decimal_comma)     # a clean table, read by columns
+            if fast is not None:
+                _check_loops(*fast, source)
+                return fast[0]
     reader = RowReader(cols, decimal_comma, guarded, resources or ())
     for number, cells in rows:
         reader.read(number, cells)

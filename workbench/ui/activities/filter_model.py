@@ -63,6 +63,8 @@ class ActivityFilterModel(QSortFilterProxyModel):
 
     # --- Qt overrides ---------------------------------------------------
     def filterAcceptsRow(self, source_row: int, source_parent: QModelIndex | QPersistentModelIndex) -> bool:
+        if not (self._group or self._critical_only or self._text):
+            return True     # no filter: every row (asked for every row after each edit)
         model = self.sourceModel()
         if model is None:
             return True

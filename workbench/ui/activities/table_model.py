@@ -67,6 +67,8 @@ class ActivityTableModel(QAbstractTableModel):
     def _on_plan_event(self, event: str, info: dict) -> None:
         kind, row = info.get("kind"), info.get("row")
         before = event == "about_to_change"
+        if before and kind == "activity_changed" and row is not None and 0 <= row < len(self._acts):
+            self._old_id = self._acts[row].id
         if not before:
             self._acts = self.plan.activities
         if kind == "activity_inserted":
@@ -79,8 +81,9 @@ class ActivityTableModel(QAbstractTableModel):
             self.beginResetModel() if before else self.endResetModel()
         elif not before and kind == "activity_changed":
             self.dataChanged.emit(self.index(row, 0), self.index(row, self.columnCount() - 1))
-            pred = C.INDEX["predecessors"]  # a rename shows in its successors' cells too
-            self.dataChanged.emit(self.index(0, pred), self.index(self.rowCount() - 1, pred))
+            if getattr(self, "_old_id", None) != self._acts[row].id:   # a rename shows in its successors' cells too
+                pred = C.INDEX["predecessors"]
+                self.dataChanged.emit(self.index(0, pred), self.index(self.rowCount() - 1, pred))
         elif not before and kind in ("links_changed", "settings_changed"):
             self._all_changed()
 

@@ -1,0 +1,113 @@
+"""Reading a clean activity table a column at a time.
+
+The row reader (``row_reader``) reads each row cell by cell and collects every problem
+with its row and column. Most tables are clean, and for a big one that care costs most
+of the import. Here the table is first read as columns: numbers converted and checked
+with numpy, ids and predecessor cells checked in bulk. Only a table in which everything
+is plain goes this way (ids without spaces, plain numbers, predecessor cells that list
+ids only, no constraints, distributions, formula guards or decimal commas); anything
+else returns None and the row reader reads the table as before, naming every problem.
+"""
+
+from __future__ import annotations
+
+from dataclasses import replace
+from itertools import chain, repeat
+
+import numpy as np
+
+from workbench.core.model import _BAD_ID, MAX_ID_LENGTH, Activity, Link, Plan, Settings
+
+from .plan_bulk import plain_numbers
+
+NUMBERS = ("optimistic", "most_likely", "pessimistic", "duration")
+TEXTS = ("name", "group", "notes")
+RARE = ("distribution", "start_no_earlier", "finish_no_later", "resources")   # any of these: the row reader
+
+
+def _columns(cols, rows) -> dict[str, list[str]] | None:
+    """Each known column's stripped cells, when every row is as wide as the header."""
+    widths = set(map(len, (cells for _, cells in rows)))
+    if len(widths) != 1 or min(widths) < cols.width:
+        return None
+    table = list(zip(*(cells for _, cells in rows)))
+    if not all(set(map(type, col)) <= {str} for col in table):
+        return None                          # cells that are not text (a spreadsheet's numbers)
+    if any("".join(col).strip() for col in table[cols.width:]):
+        return None                          # text beyond the header: the row reader says where
+    out = {}
+    for name, i in cols.index.items():
+        if "\x00'" in "\x00" + "\x00".join(table[i]):
+            return None                      # a formula guard to undo
+        out[name] = list(map(str.strip, table[i]))
+    return out
+
+
+def _numbers(col: list[str] | None, n: int) -> np.ndarray | None:
+    if col is None:
+        return np.full(n, np.nan)
+    if "_" in "".join(col):
+        return None
+    try:
+        values = np.array([float(t) if t else np.nan for t in col])
+    except ValueError:
+        return None
+    if np.count_nonzero(np.isnan(values)) != col.count("") or np.isinf(values).any():
+        return None
+    return values
+
+
+def _ids_plain(ids: list[str]) -> bool:
+    lengths = np.fromiter(map(len, ids), np.int64, len(ids))
+    return (bool(ids) and bool((lengths > 0).all()) and bool((lengths <= MAX_ID_LENGTH).all())
+            and not _BAD_ID.search("\x00".join(ids)) and len(set(ids)) == len(ids))
+
+
+def _links(ids: list[str], cells: list[str] | None) -> list[Link] | None:
+    """Plain finish-to-start links from cells that list ids only (``A; B``), each once."""
+    if cells is None or not any(cells):
+        return []
+    if "," in "".join(cells):
+        return None                          # the row reader tells a separator from a decimal comma
+    parts = list(map(str.split, cells, repeat(";")))
+    counts = np.fromiter(map(len, parts), np.int64, len(parts))
+    succs = list(map(ids.__getitem__, np.repeat(np.arange(len(ids)), counts).tolist()))
+    preds = list(map(str.strip, chain.from_iterable(parts)))
+    if "" in preds:                          # empty cells and stray separators name nothing
+        keep = [k for k, pred in enumerate(preds) if pred]
+        preds, succs = [preds[k] for k in keep], [succs[k] for k in keep]
+    if (not set(ids).issuperset(preds) or _BAD_ID.search("\x00".join(preds))
+            or any(map(str.__eq__, preds, succs)) or len(set(zip(preds, succs))) != len(preds)):
+        return None
+    return list(map(Link, preds, succs))
+
+
+def _storable(column: list[str]) -> bool:
+    try:
+        "\x00".join(column).encode("utf-8")
+    except UnicodeEncodeError:
+        return False
+    return True
+
+
+def bulk_plan(cols, rows, settings: Settings | None, decimal_comma: bool) -> tuple[Plan, dict] | None:
+    """The plan and each id's row number, or None when the row reader should read it."""
+    if decimal_comma or not rows or "id" not in cols.index:
+        return None
+    table = _columns(cols, rows)
+    if table is None or any(any(table[k]) for k in RARE if k in table):
+        return None
+    ids, n = table["id"], len(rows)
+    numbers = [_numbers(table.get(k), n) for k in NUMBERS]
+    if not _ids_plain(ids) or any(v is None for v in numbers) or not plain_numbers(*numbers).all():
+        return None
+    links = _links(ids, table.get("predecessors"))
+    if links is None:
+        return None
+    texts = [table.get(k, [""] * n) for k in TEXTS]
+    if not all(_storable(col) for col in texts + [ids]):
+        return None                          # a lone surrogate: the row reader names its row and column
+    values = [[None if x != x else x for x in v.tolist()] for v in numbers]
+    acts = list(map(Activity, ids, *texts, *values))
+    settings = replace(settings) if settings is not None else Settings()
+    return Plan(settings, acts, links, validated=True), dict(zip(ids, (number for number, _ in rows)))
