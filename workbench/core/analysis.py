@@ -11,6 +11,7 @@ import numpy as np
 from .calendar import WorkCalendar, round_offset
 from .cpm import Analyzer, Schedule
 from .pert import PertOdds, pert_odds
+from .progress import engine_inputs, progress_frame
 
 
 @dataclass
@@ -22,6 +23,7 @@ class Analysis:
     means: np.ndarray
     variances: np.ndarray
     deadline: float | None
+    progress: object = None      # a progress.ProgressFrame when analysed from a status date
 
     # --- dates ---------------------------------------------------------
     @property
@@ -114,10 +116,12 @@ def moments(plan) -> tuple[np.ndarray, np.ndarray]:
     return means, variances
 
 
-def analyze(plan, deadline=None) -> Analysis:
+def analyze(plan, deadline=None, status_date=None) -> Analysis:
     """Schedule the plan on PERT means and compute the odds.
 
-    ``deadline`` (an offset or a date) overrides the plan's own deadline setting.
+    ``deadline`` (an offset or a date) overrides the plan's own deadline setting;
+    ``status_date`` the plan's status date. A plan with progress is scheduled from its
+    status date (see :mod:`.progress`): means, variances and odds are the remaining work's.
     Raises :class:`~workbench.core.errors.PlanError` (or CycleError) naming the culprit.
     Re-analysing the same plan after edits that keep its ids and links (estimates, names,
     constraints, settings) reuses the compiled network.
@@ -129,9 +133,13 @@ def analyze(plan, deadline=None) -> Analysis:
     analyzer = Analyzer.reusing(getattr(plan, "_analyzer", None), plan, calendar)
     plan._analyzer = analyzer           # the next analysis of this plan starts from here
     means, variances = moments(plan)
+    frame = progress_frame(plan, calendar, status_date)
+    if frame is not None:
+        analyzer = analyzer.from_status(engine_inputs(frame, analyzer.net, analyzer.floor))
+        means, variances = frame.moments(means, variances)
     schedule = analyzer.run(means, deadline=dl)
     _check_in_calendar(schedule, calendar)
-    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl)
+    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl, frame)
 
 
 def _check_in_calendar(schedule, calendar) -> None:

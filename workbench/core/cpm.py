@@ -167,6 +167,15 @@ class Analyzer:
         self.fnlt = np.full(n, np.inf) if fnlt is None else np.asarray(fnlt, float)
         self._cache: tuple | None = None   # (driving links, critical flags, graph, paths, truncated)
         self.links: list | None = None     # the plan links compiled, when made by ``reusing``
+        self.finish_floor: np.ndarray | None = None   # progress: EF_j ≥ finish_floor_j
+        self.done: np.ndarray | None = None           # progress: activities fixed on their actuals
+
+    def from_status(self, inputs) -> "Analyzer":
+        """An analyzer scheduling from the status date (see :mod:`.progress`): the same
+        compiled network with some links cut, and the floors of progress."""
+        fresh = Analyzer(inputs.network, None, self.fnlt)
+        fresh.floor, fresh.finish_floor, fresh.done = inputs.floor, inputs.finish_floor, inputs.done
+        return fresh
 
     @classmethod
     def for_plan(cls, plan, calendar=None) -> "Analyzer":
@@ -190,7 +199,8 @@ class Analyzer:
         net = self.net
         d = np.asarray(durations, dtype=float)
         offsets = net.link_offsets(d)
-        es_work = _forward_work(net, offsets, self.floor)
+        floor = self.floor if self.finish_floor is None else np.maximum(self.floor, self.finish_floor - d)
+        es_work = _forward_work(net, offsets, floor)
         es = es_work[net.rank]
         ef = es + d
         finish = float(ef.max()) if ef.size else 0.0
@@ -200,6 +210,8 @@ class Analyzer:
         tf = _snap(ls - es)
         ff = _snap(_free_float(net, es_work, kept[0], d, finish))
         critical = tf <= (ref - finish) + EPS
+        if self.done is not None:        # done work: on its actuals, no float, not critical
+            ls[self.done], tf[self.done], ff[self.done], critical[self.done] = es[self.done], 0.0, 0.0, False
         sched = Schedule(net, d, es, ef, ls, ls + d, tf, ff, critical, finish,
                          None if deadline is None else float(deadline))
         if paths:

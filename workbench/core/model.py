@@ -13,10 +13,12 @@ from dataclasses import dataclass, field, replace
 from typing import Callable, Iterable
 
 from .errors import PlanError
+from .progress_fields import Progress
 
 LINK_TYPES = ("FS", "SS", "FF", "SF")
 UNITS = ("days", "weeks")
 DISTRIBUTIONS = ("beta-pert", "triangular", "uniform", "normal", "fixed")
+PROGRESS_RULES = ("retained logic", "progress override")  # out-of-sequence progress, per plan
 
 _PLAIN = (float, int)  # number types accepted as they are (bool is not one of them)
 _BAD_ID = re.compile(r"[;,\s]")
@@ -82,6 +84,7 @@ class Activity:
     distribution: str | None = None  # None: the plan's default
     start_no_earlier: Offset | None = None
     finish_no_later: Offset | None = None
+    progress: Progress | None = None  # actuals and remaining work (None: not started)
 
     def _plainly_valid(self) -> bool:
         """The common case, checked cheaply: a clean id, plain finite numbers in order."""
@@ -89,6 +92,8 @@ class Activity:
         if type(i) is not str or not i or len(i) > MAX_ID_LENGTH or _BAD_ID.search(i):
             return False
         if self.start_no_earlier is not None or self.finish_no_later is not None:
+            return False
+        if self.progress is not None:
             return False
         if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
             return False
@@ -128,6 +133,10 @@ class Activity:
                 check_date(v, f"activity {self.id}", name.replace("_", " "))
             elif v is not None:
                 _check_number(v, self.id, name.replace("_", " "))
+        if self.progress is not None:
+            if not isinstance(self.progress, Progress):
+                raise PlanError(f"activity {self.id}: progress must be a Progress record", self.id)
+            self.progress.validated(self.id)
         return self
 
     @property
@@ -212,6 +221,7 @@ class Settings:
     revision: str = ""
     prepared_by: str = ""
     sign_off: list[SignOff] = field(default_factory=list)
+    progress_rule: str = "retained logic"  # or "progress override" (see core/progress.py)
 
     def validated(self) -> "Settings":
         if self.unit not in UNITS:
@@ -229,6 +239,9 @@ class Settings:
         check_date(self.start, "settings", "start date")
         if self.status_date is not None:
             check_date(self.status_date, "settings", "status date")
+        if self.progress_rule not in PROGRESS_RULES:
+            raise PlanError(f"settings: progress rule must be 'retained logic' or 'progress override', "
+                            f"not {self.progress_rule!r}", "progress_rule")
         return self
 
 
@@ -268,7 +281,8 @@ class Plan:
 
     def __init__(self, settings: Settings | None = None, activities: Iterable[Activity] = (),
                  links: Iterable[Link] = (), risks: Iterable[Risk] = (),
-                 correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False):
+                 correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False,
+                 baselines: Iterable = (), odds_trend: Iterable = ()):
         """``validated=True``: the caller (a file reader) has validated every activity and
         link already; only duplicate ids and link ends are checked again."""
         self.settings = settings or Settings()
@@ -277,6 +291,8 @@ class Plan:
         self.links: list[Link] = []
         self.risks: list[Risk] = list(risks)
         self.correlations: list[CorrelationGroup] = list(correlations)
+        self.baselines: list = list(baselines)      # core.baseline.Baseline, oldest first
+        self.odds_trend: list = list(odds_trend)    # core.baseline.TrendPoint, by status date
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         for act in activities:
@@ -425,10 +441,13 @@ class Plan:
         self.links = list(other.links)
         self.risks = list(other.risks)
         self.correlations = list(other.correlations)
+        self.baselines = list(getattr(other, "baselines", ()))
+        self.odds_trend = list(getattr(other, "odds_trend", ()))
         self._reindex()
         self._emit("changed", kind="reset")
 
     def copy(self) -> "Plan":
         return Plan(replace(self.settings, calendar=replace(self.settings.calendar),
                             sign_off=list(self.settings.sign_off)),
-                    self._activities, self.links, self.risks, self.correlations)
+                    self._activities, self.links, self.risks, self.correlations,
+                    baselines=self.baselines, odds_trend=self.odds_trend)

@@ -23,6 +23,7 @@ from .block_passes import BlockPasses
 from .cpm import Analyzer
 from .distributions import DurationModel, check_family
 from .errors import PlanError
+from .progress import engine_inputs, progress_frame
 from .risk_events import RiskModel
 from .score_stream import CHUNK, ScoreStream
 from .sim_result import SimulationResult
@@ -92,22 +93,37 @@ class Accumulators:
 class MonteCarlo:
     """A plan prepared for simulation: compiled network, duration, correlation and risk models."""
 
-    def __init__(self, plan, distribution=None, deadline=None):
+    def __init__(self, plan, distribution=None, deadline=None, status_date=None):
         plan.settings.validated()
         family = check_family(distribution or plan.settings.distribution, "distribution", "settings")
         self.plan = plan
         self.calendar = WorkCalendar(plan.settings)
         self.analyzer = Analyzer.for_plan(plan, self.calendar)
+        self.means, self.variances = moments(plan)
+        self.progress = progress_frame(plan, self.calendar, status_date)
+        self.durations = DurationModel.for_plan(plan, family)
+        if self.progress is not None:      # only the remaining work is uncertain
+            self._from_status(family)
         self.net = self.analyzer.net
         ids = self.net.ids
-        self.durations = DurationModel.for_plan(plan, family)
         self.correlation = CorrelationModel(plan.correlations, ids, self.durations.uncertain)
         self.risks = RiskModel(plan.risks, ids, family)
+        if self.progress is not None:      # risk events no longer strike done work
+            self.risks.targets = [t[~self.analyzer.done[t]] for t in self.risks.targets]
         chosen = plan.settings.deadline if deadline is None else deadline
         self.deadline = self.calendar.resolve(_check_deadline(chosen), finish=True)
-        self.means, self.variances = moments(plan)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
-        self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt)
+        self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt,
+                                  self.analyzer.finish_floor, self.analyzer.done)
+
+    def _from_status(self, family) -> None:
+        frame, base = self.progress, self.analyzer
+        self.analyzer = base.from_status(engine_inputs(frame, base.net, base.floor))
+        self.means, self.variances = frame.moments(self.means, self.variances)
+        dm = self.durations
+        a, m, b = frame.three_points(dm.a, dm.m, dm.b)
+        families = [act.distribution or family for act in self.plan.activities]
+        self.durations = DurationModel(families, a, m, b, dm.names)
 
     def run_block(self, scores, occurrence, delay_scores, valid=None):
         """Durations and finish of one block (activities × iterations), and per activity
@@ -145,7 +161,8 @@ def _chunks(iterations: int, block_size: int):
 
 
 def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, deadline=None,
-             block_size=None, progress=None, cancel=None, keep_durations: bool = False) -> SimulationResult:
+             block_size=None, progress=None, cancel=None, keep_durations: bool = False,
+             status_date=None) -> SimulationResult:
     """Simulate the plan's finish ``iterations`` times; see the module and docs/simulation.md.
 
     ``seed`` (int) makes the run reproducible; without one a seed is drawn and recorded.
@@ -153,11 +170,13 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     use only, never the results. ``progress(done, total)`` is called between blocks, where
     total counts both passes (2 × iterations); ``cancel()`` returning True raises
     :class:`SimulationCancelled`. ``keep_durations`` also returns every sampled duration
-    (activities × iterations; for small runs and charts).
+    (activities × iterations; for small runs and charts). A plan with progress is
+    simulated from its status date (or ``status_date``): actuals are fixed and only the
+    remaining work is uncertain (see :mod:`.progress`).
     """
     iterations = _check_iterations(iterations)
     seed = _check_seed(seed)
-    mc = MonteCarlo(plan, distribution, deadline)
+    mc = MonteCarlo(plan, distribution, deadline, status_date)
     keep_heap()
     n = mc.net.size
     block = int(block_size) if block_size else default_block_size(n, mc.net.src.size)
