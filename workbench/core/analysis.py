@@ -57,14 +57,20 @@ class Analysis:
     def date_at(self, probability: float) -> dt.date:
         return self.date_of_duration(self.pert.duration_at(probability))
 
-    def to_dict(self) -> dict:
-        """The JSON contract of ``slackline analyze --json``."""
+    def to_dict(self, variance=None) -> dict:
+        """The JSON contract of ``slackline analyze --json``; ``variance`` (a
+        :class:`~.variance.Variance`) adds the baseline columns."""
+        from .progress_json import progress_columns, progress_top, variance_columns
+
         s, p = self.schedule, self.pert
         columns = {k: _rounded(v) for k, v in (("es", s.es), ("ef", s.ef), ("ls", s.ls), ("lf", s.lf),
                                                 ("total_float", s.total_float), ("free_float", s.free_float))}
         columns["critical"] = s.critical.tolist()
         columns["mean"], columns["variance"] = _rounded(self.means), _rounded(self.variances)
         columns.update({k: np.datetime_as_string(v, unit="D").tolist() for k, v in self.dates().items()})
+        columns.update(progress_columns(self))
+        if variance is not None:
+            columns.update(variance_columns(variance))
         names = list(columns)
         acts = {act_id: dict(zip(names, row)) for act_id, row in zip(s.ids, zip(*columns.values()))}
         pert = {"mean": round_offset(p.mean), "variance": round_offset(p.variance),
@@ -86,6 +92,7 @@ class Analysis:
             "critical_paths": s.paths,
             "activities": acts,
             "pert": pert,
+            **progress_top(self, variance),
         }
 
 

@@ -47,6 +47,11 @@ class WorkCalendar:
         self._cal = np.busdaycalendar(weekmask=self.weekmask, holidays=self.holidays)
         self.first_day = np.busday_offset(np.datetime64(settings.start, "D"), 0, roll="forward", busdaycal=self._cal)
 
+    @property
+    def busdaycal(self) -> np.busdaycalendar:
+        """The working days as numpy counts them (for vectorised date arithmetic)."""
+        return self._cal
+
     # --- offsets to dates ------------------------------------------------
     def _day(self, index) -> np.ndarray:
         index = np.asarray(index, dtype=float)

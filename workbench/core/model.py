@@ -433,6 +433,20 @@ class Plan:
         self._emit("changed", kind="settings_changed")
         return old
 
+    def set_baselines(self, baselines: list) -> list:
+        """Replace the baselines at once; return the old list."""
+        self._emit("about_to_change", kind="baselines_changed")
+        old, self.baselines = self.baselines, list(baselines)
+        self._emit("changed", kind="baselines_changed")
+        return old
+
+    def set_odds_trend(self, points: list) -> list:
+        """Replace the odds trend at once; return the old list."""
+        self._emit("about_to_change", kind="odds_trend_changed")
+        old, self.odds_trend = self.odds_trend, list(points)
+        self._emit("changed", kind="odds_trend_changed")
+        return old
+
     def reset(self, other: "Plan") -> None:
         """Take over the whole content of ``other`` (an import, a revert)."""
         self._emit("about_to_change", kind="reset")
