@@ -16,6 +16,7 @@ from workbench.core.network import compile_plan
 
 from .errors import PlanFileError
 from .fields import Fields
+from .plan_living import baselines_from, living_to_dict, progress_from, trend_from_list
 from .plan_migrate import FORMAT, VERSION, upgrade
 
 ACTIVITY_FIELDS = ("id", "name", "group", "notes", "optimistic", "most_likely", "pessimistic",
@@ -69,6 +70,7 @@ def plan_to_dict(plan: Plan) -> dict:
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
         "correlations": [{"name": c.name, "activities": list(c.activities),
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
+        **living_to_dict(plan),
     }
 
 
@@ -235,7 +237,10 @@ def plan_from_dict(data) -> Plan:
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    settings, acts = progress_from(top, settings, acts)
+    baselines, trend = baselines_from(top.raw_list("baselines")), trend_from_list(top.raw_list("odds_trend"))
     top.done()
-    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
+    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True,
+                              baselines=baselines, odds_trend=trend))
     _core(lambda: compile_plan(plan))
     return plan

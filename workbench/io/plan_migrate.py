@@ -117,7 +117,12 @@ def upgrade_1_to_2(data: dict) -> dict:
 # --- version 2 → 3 ---------------------------------------------------------------
 # One step per section that version 3 adds; each takes version-2 data (a dict) and returns
 # it with that section's empty form filled in.
-V3_STEPS: list = []
+def living_sections_v3(data: dict) -> dict:
+    """Progress, baselines and the odds trend (the living schedule): empty in version 2."""
+    return dict(data, progress_rule="retained logic", progress=[], baselines=[], odds_trend=[])
+
+
+V3_STEPS: list = [living_sections_v3]
 
 
 def upgrade_2_to_3(data: dict) -> dict:

@@ -89,14 +89,14 @@ def csv_value(value, column: str) -> str:
     return guard_csv(str(value)) if column in TEXT_COLUMNS else str(value)
 
 
-def write_csv(rows: list[list], path: Path) -> None:
+def write_csv(rows: list[list], path: Path, header=HEADER) -> None:
     """UTF-8 with a byte-order mark, so spreadsheet programs pick the right encoding."""
     with open(path, "w", encoding="utf-8-sig", newline="") as handle:
         writer = csv.writer(handle, lineterminator="\r\n")
-        writer.writerow(HEADER)
+        writer.writerow(header)
         for row in rows:
-            writer.writerow([csv_value(v, c) for v, c in zip(row, HEADER)])
+            writer.writerow([csv_value(v, c) for v, c in zip(row, header)])
 
 
-def write_xlsx(rows: list[list], path: Path, title: str = "") -> None:
-    _write_xlsx(HEADER, rows, path, title)
+def write_xlsx(rows: list[list], path: Path, title: str = "", header=HEADER) -> None:
+    _write_xlsx(header, rows, path, title)
