@@ -7,6 +7,7 @@ import numpy as np
 from ..core.analysis import analyze
 from ..figures.odds import confidence_label
 from .common import load_plan_file, parse_offset_or_date, write_json
+from .living import add_baseline, add_status_date, apply_status_date, status_lines, variance_for
 from .text import CAUTION, column_table, elide, num, nums, pct
 
 
@@ -14,20 +15,24 @@ def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN", help=".slw, .csv or .xlsx")
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
     p.add_argument("--json", action="store_true", help="one JSON object on stdout")
+    add_status_date(p)
+    add_baseline(p)
 
 
 def run(args) -> int:
     plan = load_plan_file(args.plan)
+    apply_status_date(plan, args)
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
     result = analyze(plan, deadline=deadline)
+    variance = variance_for(result, args)
     if args.json:
-        write_json(result.to_dict())
+        write_json(result.to_dict(variance))
     else:
-        print(render_analysis(result))
+        print(render_analysis(result, variance))
     return 0
 
 
-def render_analysis(result) -> str:
+def render_analysis(result, variance=None) -> str:
     s, plan = result.schedule, result.plan
     dates = {k: np.datetime_as_string(v, unit="D").tolist() for k, v in result.dates().items()}
     acts = plan.activities
@@ -38,6 +43,7 @@ def render_analysis(result) -> str:
     headers = ["id", "name", "te", "sd", "early start", "early finish", "late start", "late finish",
                "total float", "free float", "critical"]
     out = [f"{plan.settings.title}", "", column_table(headers, columns, right={2, 3, 8, 9}), ""]
+    out += status_lines(result, variance, plan.settings.unit)
     out += summary_lines(result, plan.settings.unit)
     return "\n".join(out)
 

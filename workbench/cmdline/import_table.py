@@ -14,6 +14,7 @@ def add_arguments(p) -> None:
     p.add_argument("-o", "--output", required=True, metavar="PLAN.slw")
     p.add_argument("--start", metavar="YYYY-MM-DD")
     p.add_argument("--unit", choices=("days", "weeks"), default="days")
+    p.add_argument("--status-date", metavar="YYYY-MM-DD", help="the status date of the progress columns")
 
 
 def run(args) -> int:
@@ -37,6 +38,8 @@ def run(args) -> int:
         except ValueError:
             raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
     plan = read_table(src, settings=settings)
+    from .living import apply_status_date
+    apply_status_date(plan, args)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
     save_plan(plan, args.output)
     print(f"imported {len(plan)} activities and {len(plan.links)} links into {args.output}")

@@ -7,6 +7,7 @@ from pathlib import Path
 
 from ..core.errors import PlanError
 from .common import check_iterations, load_plan_file
+from .living import add_status_date, apply_status_date
 
 
 def add_arguments(p) -> None:
@@ -15,6 +16,7 @@ def add_arguments(p) -> None:
     p.add_argument("--paper", choices=("a4", "letter"), default="a4")
     p.add_argument("--iterations", type=int, default=10_000, metavar="N")
     p.add_argument("--seed", type=int, default=None, metavar="S")
+    add_status_date(p)
 
 
 def run(args) -> int:
@@ -24,6 +26,7 @@ def run(args) -> int:
     if Path(args.output).suffix.lower() != ".pdf":
         raise PlanError(f"-o {args.output}: the approval pack is written as .pdf", "-o")
     plan = load_plan_file(args.plan)
+    apply_status_date(plan, args)
     info = build_pack(plan, args.output, paper=args.paper, iterations=args.iterations, seed=args.seed,
                       plan_path=os.path.basename(args.plan))
     print(f"wrote {args.output} ({getattr(info, 'pages', '?')} pages, seed {getattr(info, 'seed', args.seed)})")
