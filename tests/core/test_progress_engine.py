@@ -189,3 +189,14 @@ def test_progress_needs_a_status_date():
 def test_an_unknown_progress_rule_is_refused():
     with pytest.raises(PlanError, match="progress rule must be"):
         Settings(start=MONDAY, progress_rule="optimism").validated()
+
+
+def test_a_milestones_actual_date_reads_like_its_planned_date():
+    # Go-ahead (nothing leads to it) on Monday: the morning it opens (offset 0); the
+    # hand-over after A on Wednesday: the evening it happens (offset 3).
+    acts = [Activity("GO", duration=0, progress=Progress(actual_start=MONDAY, actual_finish=MONDAY)),
+            Activity("A", duration=3, progress=Progress(actual_start=MONDAY, actual_finish=WEDNESDAY)),
+            Activity("HAND", duration=0, progress=Progress(actual_start=WEDNESDAY, actual_finish=WEDNESDAY))]
+    a = analyze(plan_of(acts, [Link("GO", "A"), Link("A", "HAND")]))
+    assert a.progress.actual_start.tolist() == [0, 0, 3] and a.progress.actual_finish.tolist() == [0, 3, 3]
+    assert a.progress.warnings == []      # starting A the morning of the go-ahead is in sequence

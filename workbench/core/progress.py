@@ -91,16 +91,19 @@ def progress_frame(plan, calendar, status_date: dt.date | None = None) -> Progre
     frame = ProgressFrame(day, T, plan.settings.progress_rule, np.zeros(n, dtype=np.int8),
                           np.full(n, np.nan), np.full(n, np.nan), np.asarray(rows, dtype=np.int64),
                           np.zeros((len(rows), 3)))
+    led = {link.succ for link in plan.links}
     for k, i in enumerate(rows):
-        _resolve_row(frame, k, i, acts[i], calendar)
+        _resolve_row(frame, k, i, acts[i], calendar, acts[i].id in led)
     return frame
 
 
-def _resolve_row(frame: ProgressFrame, k: int, i: int, act, calendar) -> None:
+def _resolve_row(frame: ProgressFrame, k: int, i: int, act, calendar, led: bool) -> None:
+    """One activity's actuals as offsets. A milestone's actual date is read like its
+    planned one: the evening it happens, or the morning it opens when nothing leads to it."""
     p = act.progress.validated(act.id)
-    milestone = act.is_milestone
-    start = _actual(calendar, p.actual_start, frame, act.id, "actual start", finish=milestone)
-    end = _actual(calendar, p.actual_finish, frame, act.id, "actual finish", finish=True)
+    opening = act.is_milestone and not led
+    start = _actual(calendar, p.actual_start, frame, act.id, "actual start", finish=act.is_milestone and led)
+    end = _actual(calendar, p.actual_finish, frame, act.id, "actual finish", finish=not opening)
     if end is not None and end < start - EPS:
         raise PlanError(f"activity {act.id}: actual finish {_shown(p.actual_finish)} is before its actual start "
                         f"{_shown(p.actual_start)}", act.id)

@@ -18,6 +18,7 @@ from workbench.core.analysis import analyze
 from workbench.core.errors import PlanError
 
 from . import styles
+from .baseline_pages import baseline_pages
 from .cautions import cautions
 from .charts import chart_pages
 from .context import PackContext
@@ -88,6 +89,7 @@ def _build(ctx: PackContext, buffer, report) -> PackDocument:
 def story(ctx: PackContext, report) -> list:
     portrait_w, _ = frame_size(ctx.paper, PORTRAIT)
     parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
+    parts += baseline_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(72)
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(80)
@@ -122,7 +124,8 @@ def _footer(plan, plan_path, generated_at, sim) -> FooterInfo:
 
     when = generated_at or dt.datetime.now(dt.timezone.utc).replace(microsecond=0)
     name = Path(plan_path).name if plan_path else "(plan not saved to a file)"
-    return FooterInfo(name, plan_hash(plan), when, __version__, None if sim is None else sim.seed)
+    return FooterInfo(name, plan_hash(plan), when, __version__, None if sim is None else sim.seed,
+                      plan.settings.status_date)
 
 
 def _progress(progress):
