@@ -35,6 +35,8 @@ class PackInfo:
     seed: int | None
     hash: str
     path: str
+    analysis: object = None      # what the pack shows, so the signed pack can become a baseline
+    simulation: object = None
 
 
 def build_pack(plan, path, *, paper: str = "a4", iterations: int = 10_000, seed: int | None = None,
@@ -55,7 +57,7 @@ def build_pack(plan, path, *, paper: str = "a4", iterations: int = 10_000, seed:
     data, pages = render(ctx, report)
     _write(path, data)
     report(100)
-    return PackInfo(pages, footer.seed, footer.plan_hash, str(path))
+    return PackInfo(pages, footer.seed, footer.plan_hash, str(path), analysis, sim)
 
 
 def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:

@@ -53,7 +53,7 @@ class TrendPainter:
     def paint(self, c, w: float, h: float) -> None:
         fig, s = self.fig, self.scale
         ax = Axes(c, LEFT, LEGEND_H + 4 + AXIS_H, w - LEFT - 10, h - LEGEND_H - AXIS_H - 24,
-                  fig.x_lo, fig.x_hi, 0.0, 1.0)
+                  fig.x_lo, fig.x_hi, 0.0, 1.06)
         ax.value_axis([k / 10 for k in range(0, 11, 2)], lambda v: f"{v * 100:.0f} %", grid=True)
         self._x_ticks(ax)
         ax.frame()
