@@ -60,9 +60,9 @@ class RecordTrendPoint(Command):
         plan.set_odds_trend(self.old)
 
 
-def MoveStatusDate(plan: Plan, day: dt.date, progress: dict[str, Progress]) -> Group:
+def MoveStatusDate(plan: Plan, day: dt.date, progress: dict[str, Progress], rule: str | None = None) -> Group:
     """One undo step: the new status date and the progress given for it (per activity id;
-    ``None`` clears an activity's progress)."""
-    parts = [SetSettings(settings_with(plan.settings, status_date=day))]
+    ``None`` clears an activity's progress); ``rule`` changes the progress rule too."""
+    parts = [SetSettings(settings_with(plan.settings, status_date=day, progress_rule=rule or plan.settings.progress_rule))]
     parts += [EditActivity(act_id, progress=p) for act_id, p in progress.items()]
     return Group(parts, f"Move the status date to {day.isoformat()}")

@@ -40,6 +40,8 @@ def changes_for(act, key: str, text: str, parse_number, parse_point) -> dict:
     p = act.progress or Progress()
     if key in ("actual_start", "actual_finish"):
         p = p.with_(**{key: parse_point(text, act.id, key.replace("_", " "))})
+        if key == "actual_finish" and p.actual_finish is not None:   # finished: nothing remains
+            p = p.with_(**dict.fromkeys(_REMAINING))
     elif key == "percent_complete":
         value = parse_number(text.strip().rstrip("%"), act.id, "percent complete")
         p = p.with_(**{**dict.fromkeys(_REMAINING), "percent_complete": value})
