@@ -140,7 +140,7 @@ def analyze(plan, deadline=None, status_date=None) -> Analysis:
     analyzer = Analyzer.reusing(getattr(plan, "_analyzer", None), plan, calendar)
     plan._analyzer = analyzer           # the next analysis of this plan starts from here
     means, variances = moments(plan)
-    frame = progress_frame(plan, calendar, status_date)
+    frame = progress_frame(plan, calendar, status_date, means, analyzer.net)
     if frame is not None:
         analyzer = analyzer.from_status(engine_inputs(frame, analyzer.net, analyzer.floor))
         means, variances = frame.moments(means, variances)

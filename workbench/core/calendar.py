@@ -98,6 +98,14 @@ class WorkCalendar:
         """Offset of the end of ``date`` (working days up to and including it) — for deadlines."""
         return self._count_to(np.datetime64(date, "D") + 1)
 
+    def offsets_before(self, days) -> np.ndarray:
+        """:meth:`offset_before` of many dates at once (datetime64[D] or dates)."""
+        d = np.asarray(days, dtype="datetime64[D]")
+        first = np.full(d.shape, self.first_day)
+        ahead = np.busday_count(first, np.maximum(d, first), busdaycal=self._cal)
+        behind = np.busday_count(np.minimum(d, first), first, busdaycal=self._cal)
+        return (ahead - behind) / self.per_unit
+
     def _count_to(self, day) -> float:
         """Working days from the first working day to the start of ``day`` (negative before it).
 

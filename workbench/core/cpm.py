@@ -173,8 +173,12 @@ class Analyzer:
     def from_status(self, inputs) -> "Analyzer":
         """An analyzer scheduling from the status date (see :mod:`.progress`): the same
         compiled network with some links cut, and the floors of progress."""
+        kept = getattr(self, "_status", None)
+        if kept is not None and _same_inputs(kept, inputs):
+            return kept                  # and with it the remembered critical paths
         fresh = Analyzer(inputs.network, None, self.fnlt)
         fresh.floor, fresh.finish_floor, fresh.done = inputs.floor, inputs.finish_floor, inputs.done
+        self._status = fresh
         return fresh
 
     @classmethod
@@ -228,6 +232,13 @@ class Analyzer:
             c = self._cache = (driving, sched.critical.copy(), graph, found, cut)
         sched.graph = c[2]
         sched.paths, sched.paths_truncated = list(c[3]), c[4]
+
+
+def _same_inputs(kept: "Analyzer", inputs) -> bool:
+    ff_a, ff_b = kept.finish_floor, inputs.finish_floor
+    return (np.array_equal(kept.net.lag, inputs.network.lag) and np.array_equal(kept.floor, inputs.floor)
+            and np.array_equal(kept.done, inputs.done)
+            and (ff_a is ff_b is None or (ff_a is not None and ff_b is not None and np.array_equal(ff_a, ff_b))))
 
 
 def constraint_bounds(plan, calendar=None) -> tuple[np.ndarray, np.ndarray]:

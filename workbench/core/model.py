@@ -346,8 +346,17 @@ class Plan:
             self._listeners.remove(listener)
 
     def _emit(self, event: str, **info) -> None:
+        self._progress_rows = None          # any change may touch progress: found again when asked
         for listener in list(self._listeners):
             listener(event, info)
+
+    def progress_rows(self) -> list[int]:
+        """Rows of the activities with progress (kept until the plan next changes)."""
+        rows = getattr(self, "_progress_rows", None)
+        if rows is None:
+            rows = self._progress_rows = [i for i, a in enumerate(self._activities)
+                                          if a.progress is not None and not a.progress.is_empty]
+        return rows
 
     # --- changing (commands call these) ---------------------------------
     def _append(self, act: Activity) -> None:

@@ -100,7 +100,7 @@ class MonteCarlo:
         self.calendar = WorkCalendar(plan.settings)
         self.analyzer = Analyzer.for_plan(plan, self.calendar)
         self.means, self.variances = moments(plan)
-        self.progress = progress_frame(plan, self.calendar, status_date)
+        self.progress = progress_frame(plan, self.calendar, status_date, self.means, self.analyzer.net)
         self.durations = DurationModel.for_plan(plan, family)
         if self.progress is not None:      # only the remaining work is uncertain
             self._from_status(family)

@@ -33,6 +33,7 @@ import numpy as np
 
 from .errors import PlanError
 from .progress_fields import DONE, IN_PROGRESS, NOT_STARTED, STATE_NAMES
+from .progress_resolve import resolve
 
 EPS = 1e-9
 OVERRIDE = "progress override"
@@ -72,16 +73,19 @@ class ProgressFrame:
 
 
 def has_progress(plan) -> bool:
-    return any(a.progress is not None and not a.progress.is_empty for a in plan.activities)
+    return bool(plan.progress_rows())
 
 
-def progress_frame(plan, calendar, status_date: dt.date | None = None) -> ProgressFrame | None:
+def progress_frame(plan, calendar, status_date: dt.date | None = None, means=None,
+                   net=None) -> ProgressFrame | None:
     """Resolve the plan's progress against its status date (or ``status_date``, which
-    overrides it). None when no activity has progress. Refusals name the activity."""
-    acts = plan.activities
-    rows = [i for i, a in enumerate(acts) if a.progress is not None and not a.progress.is_empty]
+    overrides it). None when no activity has progress. Refusals name the activity.
+    ``means`` (PERT means in plan order) tells milestones apart and ``net`` (the compiled
+    network) which activities have predecessors; both are found when not given."""
+    rows = plan.progress_rows()
     if not rows:
         return None
+    acts = plan.activities
     day = status_date or plan.settings.status_date
     if day is None:
         first = acts[rows[0]].id
@@ -91,70 +95,16 @@ def progress_frame(plan, calendar, status_date: dt.date | None = None) -> Progre
     frame = ProgressFrame(day, T, plan.settings.progress_rule, np.zeros(n, dtype=np.int8),
                           np.full(n, np.nan), np.full(n, np.nan), np.asarray(rows, dtype=np.int64),
                           np.zeros((len(rows), 3)))
-    led = {link.succ for link in plan.links}
-    for k, i in enumerate(rows):
-        _resolve_row(frame, k, i, acts[i], calendar, acts[i].id in led)
-    return frame
-
-
-def _resolve_row(frame: ProgressFrame, k: int, i: int, act, calendar, led: bool) -> None:
-    """One activity's actuals as offsets. A milestone's actual date is read like its
-    planned one: the evening it happens, or the morning it opens when nothing leads to it."""
-    p = act.progress.validated(act.id)
-    opening = act.is_milestone and not led
-    start = _actual(calendar, p.actual_start, frame, act.id, "actual start", finish=act.is_milestone and led)
-    end = _actual(calendar, p.actual_finish, frame, act.id, "actual finish", finish=not opening)
-    if end is not None and end < start - EPS:
-        raise PlanError(f"activity {act.id}: actual finish {_shown(p.actual_finish)} is before its actual start "
-                        f"{_shown(p.actual_start)}", act.id)
-    frame.state[i] = p.state
-    frame.actual_start[i] = np.nan if start is None else start
-    frame.actual_finish[i] = np.nan if end is None else end
-    if p.state == DONE:
-        frame.remaining[k] = end - start
-    elif p.state == IN_PROGRESS:
-        frame.remaining[k] = _remaining(act, p)
-        if not p.gives_remaining:
-            frame.warnings.append(f"activity {act.id} is in progress with no remaining estimate: "
-                                  f"its whole estimate is taken as remaining")
+    if means is None:
+        means = np.array([a.mean for a in acts])
+    led = np.zeros(n, dtype=bool)
+    if net is not None:
+        led[net.dst] = True
     else:
-        frame.remaining[k] = _estimate(act)
-
-
-def _actual(calendar, value, frame: ProgressFrame, act_id: str, what: str, finish: bool) -> float | None:
-    if value is None:
-        return None
-    if isinstance(value, dt.date):
-        if value > frame.status_date:
-            raise PlanError(f"activity {act_id}: {what} {value.isoformat()} is after the status date "
-                            f"{frame.status_date.isoformat()}", act_id)
-        return calendar.offset_through(value) if finish else calendar.offset_before(value)
-    value = float(value)
-    if value > frame.status_offset + EPS:
-        raise PlanError(f"activity {act_id}: {what} at offset {value:g} is after the status date "
-                        f"{frame.status_date.isoformat()} (offset {frame.status_offset:g})", act_id)
-    return value
-
-
-def _shown(value) -> str:
-    return value.isoformat() if isinstance(value, dt.date) else f"offset {value:g}"
-
-
-def _estimate(act) -> tuple[float, float, float]:
-    if act.has_estimate:
-        return act.optimistic, act.most_likely, act.pessimistic
-    d = float(act.duration or 0.0)
-    return d, d, d
-
-
-def _remaining(act, p) -> tuple[float, float, float]:
-    """Remaining three points of work in progress (see progress_fields for the order)."""
-    if p.has_remaining_estimate:
-        return p.remaining_optimistic, p.remaining_most_likely, p.remaining_pessimistic
-    if p.remaining is not None:
-        return p.remaining, p.remaining, p.remaining
-    share = 1.0 - (p.percent_complete or 0.0) / 100.0
-    return tuple(share * x for x in _estimate(act))
+        index = {a.id: i for i, a in enumerate(acts)}
+        led[[index[link.succ] for link in plan.links]] = True
+    resolve(frame, acts, calendar, led, np.asarray(means, dtype=float))
+    return frame
 
 
 # --- engine inputs ---------------------------------------------------------------

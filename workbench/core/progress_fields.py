@@ -62,9 +62,9 @@ class Progress:
 
     @property
     def is_empty(self) -> bool:
-        return all(v is None for v in (self.actual_start, self.actual_finish, self.remaining_optimistic,
-                                       self.remaining_most_likely, self.remaining_pessimistic,
-                                       self.remaining, self.percent_complete))
+        return (self.actual_start is None and self.actual_finish is None and self.remaining_optimistic is None
+                and self.remaining_most_likely is None and self.remaining_pessimistic is None
+                and self.remaining is None and self.percent_complete is None)
 
     @property
     def state(self) -> int:
