@@ -6,6 +6,8 @@ from pathlib import Path
 
 import pytest
 
+from support.ui import ui_env, window  # noqa: F401 (fixtures)
+from workbench.core.montecarlo import simulate
 from workbench.io.planfile import load_plan
 from workbench.ui.session import Session
 from workbench.ui.workspace import baselines_dialog as bd
@@ -94,3 +96,22 @@ def test_the_compared_baseline_is_chosen_in_the_dialog(session):
 def test_a_duplicate_name_is_refused(session):
     assert not bd.record_current(session, "Board approval rev B")
     assert "exists already" in session.last_refusal
+
+
+def test_the_exported_pack_becomes_the_approved_baseline(window, ui_env, tmp_path):
+    from workbench.io.planfile import plan_hash
+    from workbench.ui.workspace.living_menu import record_last_pack
+    from workbench.ui.workspace.pack_export import export_pack
+
+    assert not record_last_pack(window, "Too early")
+    assert "no approval pack" in window.session.last_refusal
+    ui_env.replies.update({"ask_save_path": str(tmp_path / "p.pdf"), "open_externally": True})
+    window.session.set_simulation(simulate(window.session.plan, 300, seed=5))
+    export_pack(window)
+    assert "Record the Last Pack as the Baseline" in window.statusBar().currentMessage()
+    assert record_last_pack(window, "Board, March")
+    (base,) = window.session.plan.baselines
+    assert base.approved and base.plan_hash == plan_hash(window.session.plan) == window.last_pack.hash
+    assert base.simulation.seed == 5
+    window.session.undo_stack.undo()
+    assert window.session.plan.baselines == []

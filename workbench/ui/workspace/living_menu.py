@@ -1,13 +1,41 @@
-"""The Progress menu: move the status date, manage baselines."""
+"""The Progress menu: move the status date, manage baselines, and record the approval pack
+just written as the (approved) baseline — the signed pack becomes the baseline, and the
+plan hash in its footer ties the two."""
 
 from __future__ import annotations
 
 from functools import partial
 
 from PySide6.QtGui import QAction
+from PySide6.QtWidgets import QInputDialog
 
 from workbench.ui.workspace.baselines_dialog import manage_baselines
 from workbench.ui.workspace.status_dialog import move_status_date
+
+
+def record_last_pack(window, name: str | None = None) -> bool:
+    """Record the last exported pack as the approved baseline (asks for a name when none is
+    given); refused when there is no pack or the plan changed since it was written."""
+    from workbench.core.baseline import make_baseline
+    from workbench.core.baseline_commands import RecordBaseline
+    from workbench.core.errors import PlanError
+    from workbench.io.planfile import plan_hash
+
+    session, info = window.session, getattr(window, "last_pack", None)
+    if info is None or info.analysis is None:
+        return session.refuse("no approval pack has been exported from this window yet")
+    if plan_hash(session.plan) != info.hash:
+        return session.refuse("the plan changed since the pack was written; export the pack again first")
+    if name is None:
+        name, ok = QInputDialog.getText(window, "Record the pack as the baseline", "Name of the baseline:",
+                                        text=f"Approval pack {info.hash}")
+        if not ok:
+            return False
+    try:
+        base = make_baseline(name, info.analysis, info.hash, info.simulation, approved=True)
+    except PlanError as exc:
+        return session.refuse(str(exc))
+    return session.push(RecordBaseline(base))
 
 
 def living_menu(window, acts: dict) -> None:
@@ -18,5 +46,8 @@ def living_menu(window, acts: dict) -> None:
     manage = QAction("&Baselines…", window)
     manage.setStatusTip("Record, rename, approve, delete and compare baselines")
     manage.triggered.connect(partial(manage_baselines, window))
-    menu.addActions([move, manage])
-    acts["move_status_date"], acts["baselines"] = move, manage
+    pack = QAction("Record the Last &Pack as the Baseline…", window)
+    pack.setStatusTip("The approval pack just exported becomes the approved baseline (same plan hash)")
+    pack.triggered.connect(lambda: record_last_pack(window))
+    menu.addActions([move, manage, pack])
+    acts["move_status_date"], acts["baselines"], acts["record_pack"] = move, manage, pack
