@@ -162,10 +162,13 @@ def out_of_sequence(frame: ProgressFrame, net) -> list[str]:
 
 def _sequence_note(net, k: int, frame: ProgressFrame) -> str:
     i, j = int(net.src[k]), int(net.dst[k])
-    kind = ("SS", "SF", "FS", "FF")[int(net.src_fin[k] > 0) * 2 + int(net.dst_fin[k] > 0)]
+    from_finish, to_finish = net.src_fin[k] > 0, net.dst_fin[k] > 0
+    kind = ("SS", "SF", "FS", "FF")[int(from_finish) * 2 + int(to_finish)]
     pred, succ = net.ids[i], net.ids[j]
-    verb = "finished" if net.dst_fin[k] > 0 else "started"
-    need = "finish" if net.src_fin[k] > 0 else "start"
-    return (f"out-of-sequence progress: {succ} {verb} before its predecessor {pred} allows it "
-            f"({kind} link: {pred} is {STATE_NAMES[frame.state[i]]}; its {need} comes first); "
-            f"{frame.rule} applies")
+    verb = "finished" if to_finish else "started"
+    end = frame.actual_finish[i] if from_finish else frame.actual_start[i]
+    if np.isnan(end):
+        why = f"{kind} link: {pred} has not {'finished' if from_finish else 'started'}"
+    else:
+        why = f"{kind} link with lag {net.lag[k]:g}: not yet elapsed after {pred} {'finished' if from_finish else 'started'}"
+    return f"out-of-sequence progress: {succ} {verb} before its predecessor {pred} allows it ({why}); {frame.rule} applies"

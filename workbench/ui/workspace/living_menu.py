@@ -4,13 +4,10 @@ plan hash in its footer ties the two."""
 
 from __future__ import annotations
 
-from functools import partial
-
 from PySide6.QtGui import QAction
 from PySide6.QtWidgets import QInputDialog
 
-from workbench.ui.workspace.baselines_dialog import manage_baselines
-from workbench.ui.workspace.status_dialog import move_status_date
+from workbench.ui.workspace import baselines_dialog, status_dialog
 
 
 def record_last_pack(window, name: str | None = None) -> bool:
@@ -42,10 +39,10 @@ def living_menu(window, acts: dict) -> None:
     menu = window.menuBar().addMenu("&Progress")
     move = QAction("Move the &Status Date…", window)
     move.setStatusTip("Report progress to a new status date and re-forecast the remaining work")
-    move.triggered.connect(partial(move_status_date, window))
+    move.triggered.connect(lambda: status_dialog.move_status_date(window))      # looked up when used
     manage = QAction("&Baselines…", window)
     manage.setStatusTip("Record, rename, approve, delete and compare baselines")
-    manage.triggered.connect(partial(manage_baselines, window))
+    manage.triggered.connect(lambda: baselines_dialog.manage_baselines(window))
     pack = QAction("Record the Last &Pack as the Baseline…", window)
     pack.setStatusTip("The approval pack just exported becomes the approved baseline (same plan hash)")
     pack.triggered.connect(lambda: record_last_pack(window))
