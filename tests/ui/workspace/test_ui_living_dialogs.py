@@ -115,3 +115,12 @@ def test_the_exported_pack_becomes_the_approved_baseline(window, ui_env, tmp_pat
     assert base.simulation.seed == 5
     window.session.undo_stack.undo()
     assert window.session.plan.baselines == []
+
+
+def test_the_progress_demo_opens_as_a_new_plan(window, ui_env):
+    from workbench.ui.workspace.living_menu import open_progress_demo
+
+    assert open_progress_demo(window)
+    plan = window.session.plan
+    assert plan.odds_trend and any(b.approved for b in plan.baselines)
+    assert window.files.path is None and window.session.variance() is not None

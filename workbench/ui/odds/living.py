@@ -30,9 +30,13 @@ def show_trend(view) -> None:
             QTimer.singleShot(0, lambda: _share(view.charts))
 
 
+ROOM_PX = 560     # below this the curves take the whole height; the trend waits behind the handle
+
+
 def _share(charts) -> None:
-    height = max(sum(charts.sizes()), 300)
-    charts.setSizes([int(height * 0.62), height - int(height * 0.62)])
+    height = max(sum(charts.sizes()), 1)
+    trend = 0 if height < ROOM_PX else height - int(height * 0.62)
+    charts.setSizes([height - trend, trend])
 
 
 def record_run(session, result) -> None:

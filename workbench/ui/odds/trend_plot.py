@@ -35,7 +35,7 @@ class TrendPlot(QWidget):
         super().__init__(parent)
         self.headline = QLabel(self, wordWrap=True)
         font = QFont()
-        font.setPointSizeF(style.SCREEN.font_size + 2)
+        font.setPointSizeF(style.SCREEN.font_size + 1)
         font.setBold(True)
         self.headline.setFont(font)
         self.axis = _DayAxis("bottom")

@@ -35,6 +35,15 @@ def record_last_pack(window, name: str | None = None) -> bool:
     return session.push(RecordBaseline(base))
 
 
+def open_progress_demo(window) -> bool:
+    """The bundled demo three months later (progress, approved baseline, odds trend), as a
+    new unsaved plan so the bundled file is never overwritten."""
+    from workbench.io.planfile import load_plan
+    from workbench.resources import demo_update_path
+
+    return window.files.new_plan(load_plan(demo_update_path()))
+
+
 def living_menu(window, acts: dict) -> None:
     menu = window.menuBar().addMenu("&Progress")
     move = QAction("Move the &Status Date…", window)
@@ -46,5 +55,11 @@ def living_menu(window, acts: dict) -> None:
     pack = QAction("Record the Last &Pack as the Baseline…", window)
     pack.setStatusTip("The approval pack just exported becomes the approved baseline (same plan hash)")
     pack.triggered.connect(lambda: record_last_pack(window))
+    demo = QAction("Open the Progress &Demo", window)
+    demo.setStatusTip("The demo plan three months later: progress, an approved baseline and the odds trend")
+    demo.triggered.connect(lambda: open_progress_demo(window))
     menu.addActions([move, manage, pack])
+    menu.addSeparator()
+    menu.addAction(demo)
     acts["move_status_date"], acts["baselines"], acts["record_pack"] = move, manage, pack
+    acts["progress_demo"] = demo
