@@ -26,7 +26,13 @@ def run(args) -> int:
     result = analyze(plan, deadline=deadline)
     variance = variance_for(result, args)
     if args.json:
-        write_json(result.to_dict(variance))
+        data = result.to_dict(variance)
+        if plan.resources:
+            from ..core.loading import plan_loading
+            cal = result.calendar
+            span = lambda a, b: (cal.start_date(a).isoformat(), cal.finish_date(b).isoformat())
+            data["resources"] = {l.resource: l.to_dict(span) for l in plan_loading(result)}
+        write_json(data)
     else:
         print(render_analysis(result, variance))
     return 0

@@ -145,16 +145,18 @@ def analyze(plan, deadline=None, status_date=None) -> Analysis:
         analyzer = analyzer.from_status(engine_inputs(frame, analyzer.net, analyzer.floor))
         means, variances = frame.moments(means, variances)
     schedule = analyzer.run(means, deadline=dl)
-    _check_in_calendar(schedule, calendar)
+    check_in_calendar(schedule, calendar, dl)
     return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl, frame)
 
 
-def _check_in_calendar(schedule, calendar) -> None:
+def check_in_calendar(schedule, calendar, deadline=None) -> None:
     """Refuse a schedule whose dates no calendar can show, naming the activity that goes
-    furthest (every view and export converts offsets to dates later)."""
-    from .calendar import MAX_DAYS
+    furthest, or the deadline when it is the one out of range (every view and export
+    converts offsets to dates later)."""
+    from .calendar import MAX_DAYS, OutOfCalendar
     from .errors import PlanError
 
+    _check_deadline_date(calendar, deadline)
     if not schedule.ef.size:
         return
     reach = np.maximum(np.abs(schedule.ef), np.abs(schedule.ls)) * calendar.per_unit
@@ -163,3 +165,30 @@ def _check_in_calendar(schedule, calendar) -> None:
         act = schedule.ids[worst]
         raise PlanError(f"activity {act}: its dates fall more than {MAX_DAYS:,} working days from the "
                         f"start, beyond any calendar; check its duration, lags and constraints", act)
+    columns = (schedule.es, schedule.ef, schedule.ls, schedule.lf)
+    lows = [int(np.argmin(c)) for c in columns]
+    highs = [int(np.argmax(c)) for c in columns]
+    for rows in (lows, highs):
+        offsets = [c[r] for c, r in zip(columns, rows)]
+        try:
+            calendar.start_dates(offsets)
+            calendar.finish_dates(offsets)
+        except OutOfCalendar as exc:
+            act = schedule.ids[rows[exc.worst]]
+            side = "before year 1" if exc.before else "after year 9999"
+            raise PlanError(f"activity {act}: its dates fall {side}, beyond any calendar; check its "
+                            f"duration, lags and constraints, and the deadline", act) from None
+
+
+def _check_deadline_date(calendar, deadline) -> None:
+    from .calendar import OutOfCalendar
+    from .errors import PlanError
+
+    if deadline is None:
+        return
+    try:
+        calendar.finish_dates([deadline])
+    except OutOfCalendar as exc:
+        side = "before year 1" if exc.before else "after year 9999"
+        raise PlanError(f"settings: the deadline (offset {deadline:,.0f}) falls {side}, beyond any "
+                        f"calendar; set a deadline near the plan's dates", "deadline") from None

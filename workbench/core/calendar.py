@@ -14,6 +14,7 @@ import math
 
 import numpy as np
 
+from .errors import PlanError
 from .model import Calendar, Settings
 
 
@@ -34,6 +35,19 @@ def public_holidays(region: str, years: range | list[int]) -> list[dt.date]:
 
 
 MAX_DAYS = 1_500_000  # about 5,700 years of five-day weeks: dates stay inside year 1–9999
+# the dates a date object (and every view, export and pack) can hold
+FIRST_DATE, LAST_DATE = np.datetime64("0001-01-01", "D"), np.datetime64("9999-12-31", "D")
+
+
+class OutOfCalendar(PlanError):
+    """An offset maps to a date before year 1 or after year 9999. ``worst`` is the index
+    (in the offsets given) of the one furthest out, so callers can name its owner."""
+
+    def __init__(self, worst: int, before: bool):
+        side = "before year 1" if before else "after year 9999"
+        super().__init__(f"a date of the schedule falls {side}, beyond any calendar: check "
+                         f"durations, lags, constraints and the deadline", "schedule")
+        self.worst, self.before = worst, before
 
 
 class WorkCalendar:
@@ -53,18 +67,25 @@ class WorkCalendar:
         return self._cal
 
     # --- offsets to dates ------------------------------------------------
-    def _day(self, index) -> np.ndarray:
+    def _day(self, index, strict: bool = True) -> np.ndarray:
+        """Working day ``index`` from the first; ``strict``: OutOfCalendar for a day outside
+        years 1–9999 (views panned beyond any date pass False and clip the result)."""
         index = np.asarray(index, dtype=float)
         if index.size and np.abs(index).max() > MAX_DAYS:
             from .errors import PlanError
             raise PlanError(f"the schedule reaches more than {MAX_DAYS:,} working days from the start, "
                             f"beyond any calendar date: check durations, lags and constraints", "schedule")
-        return np.busday_offset(self.first_day, index.astype(np.int64), roll="forward", busdaycal=self._cal)
+        days = np.busday_offset(self.first_day, index.astype(np.int64), roll="forward", busdaycal=self._cal)
+        if strict and days.size and (days.min() < FIRST_DATE or days.max() > LAST_DATE):
+            outside = (days < FIRST_DATE) | (days > LAST_DATE)
+            worst = int(np.argmax(np.where(outside, np.abs(index), -1.0)))
+            raise OutOfCalendar(worst, bool(days.flat[worst] < FIRST_DATE))
+        return days
 
-    def start_dates(self, offsets) -> np.ndarray:
+    def start_dates(self, offsets, strict: bool = True) -> np.ndarray:
         """The working day on which something starting at ``offsets`` begins."""
         days = np.floor(np.asarray(offsets, dtype=float) * self.per_unit + 1e-9)
-        return self._day(days)
+        return self._day(days, strict)
 
     def finish_dates(self, offsets, starts=None) -> np.ndarray:
         """The working day at whose end something finishing at ``offsets`` ends.

@@ -12,11 +12,12 @@ from __future__ import annotations
 
 import datetime as dt
 import functools
+import os
 
 import numpy as np
 from scipy.stats import rankdata
 
-from .analysis import moments
+from .analysis import check_in_calendar, moments
 from .calendar import WorkCalendar
 from .correlation import CorrelationModel
 from .block_passes import BlockPasses
@@ -54,13 +55,59 @@ class SimulationCancelled(Exception):
     """The run was cancelled between blocks; no result is produced."""
 
 
-def default_block_size(activities: int, links: int) -> int:
-    """Iterations per block so that the block's arrays take about ``BLOCK_BYTES``: per
+def default_block_size(activities: int, links: int, budget: int = BLOCK_BYTES) -> int:
+    """Iterations per block so that the block's arrays take about ``budget`` bytes: per
     iteration and activity the score, the duration, four sampling temporaries and the
     five rows of the block passes (links cost no memory per iteration)."""
     per_iteration = 8 * 11 * max(activities, 1)
-    chunks = max(1, BLOCK_BYTES // (per_iteration * CHUNK))
+    chunks = max(1, budget // (per_iteration * CHUNK))
     return int(min(chunks * CHUNK, MAX_BLOCK))
+
+
+def available_memory() -> int | None:
+    """Bytes the system can still give this process (Linux: MemAvailable), or None when unknown."""
+    try:
+        with open("/proc/meminfo", encoding="ascii") as info:
+            for line in info:
+                if line.startswith("MemAvailable:"):
+                    return int(line.split()[1]) * 1024
+    except (OSError, ValueError, IndexError):
+        pass
+    try:
+        return os.sysconf("SC_AVPHYS_PAGES") * os.sysconf("SC_PAGE_SIZE")
+    except (OSError, ValueError, AttributeError):
+        return None
+
+
+def memory_needed(activities: int, block: int, iterations: int, keep_durations: bool) -> int:
+    """Bytes a run holds at its peak: the block's arrays (per activity and iteration: the
+    eleven of :func:`default_block_size`, the block's scores, a chunk's scores and its
+    centred copy), per-activity sums, the finishes, and kept durations if asked."""
+    n = max(activities, 1)
+    per_block = 8 * n * (12 * block + 2 * CHUNK)
+    fixed = 8 * n * 24 + 8 * 3 * iterations
+    return per_block + fixed + (8 * n * iterations if keep_durations else 0)
+
+
+def memory_plan(activities: int, links: int, iterations: int, keep_durations: bool, block_size=None) -> int:
+    """The block size for this run, chosen so the run fits the memory available now;
+    PlanError naming the figure needed when even the smallest block would not fit."""
+    free = available_memory()
+    budget = BLOCK_BYTES if free is None else max(1, min(BLOCK_BYTES, free // 4))
+    block = int(block_size) if block_size else default_block_size(activities, links, budget)
+    if block <= 0:
+        raise PlanError(f"block size must be positive, not {block_size!r}", "block_size")
+    need = memory_needed(activities, min(block, iterations + CHUNK), iterations, keep_durations)
+    if free is not None and need > 0.8 * free:
+        raise PlanError(f"simulating {activities:,} activities {iterations:,} times needs about "
+                        f"{_size(need)} of memory at once, and this computer has {_size(free)} free; close "
+                        f"other programs or simulate fewer activities"
+                        + (" (or keep fewer sampled durations)" if keep_durations else ""), "memory")
+    return block
+
+
+def _size(n: int) -> str:
+    return f"{n / 2**30:.1f} GB" if n >= 2**30 else f"{n / 2**20:.0f} MB"
 
 
 class Accumulators:
@@ -93,7 +140,7 @@ class Accumulators:
 class MonteCarlo:
     """A plan prepared for simulation: compiled network, duration, correlation and risk models."""
 
-    def __init__(self, plan, distribution=None, deadline=None, status_date=None):
+    def __init__(self, plan, distribution=None, deadline=None, resources: bool = False, status_date=None):
         plan.settings.validated()
         family = check_family(distribution or plan.settings.distribution, "distribution", "settings")
         self.plan = plan
@@ -113,8 +160,16 @@ class MonteCarlo:
         chosen = plan.settings.deadline if deadline is None else deadline
         self.deadline = self.calendar.resolve(_check_deadline(chosen), finish=True)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
+        check_in_calendar(self.schedule, self.calendar, self.deadline)
         self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt,
                                   self.analyzer.finish_floor, self.analyzer.done)
+        self.resource_aware = bool(resources)
+        if resources:                    # crews hold work back in every iteration
+            if self.progress is not None:
+                raise PlanError("a simulation with the crews does not yet start from the status date; "
+                                "run it without resources for a plan with progress", "resources")
+            from .resource_sim import ResourcePasses
+            self.passes = ResourcePasses(plan)
 
     def _from_status(self, family) -> None:
         frame, base = self.progress, self.analyzer
@@ -162,7 +217,7 @@ def _chunks(iterations: int, block_size: int):
 
 def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, deadline=None,
              block_size=None, progress=None, cancel=None, keep_durations: bool = False,
-             status_date=None) -> SimulationResult:
+             resources: bool = False, status_date=None) -> SimulationResult:
     """Simulate the plan's finish ``iterations`` times; see the module and docs/simulation.md.
 
     ``seed`` (int) makes the run reproducible; without one a seed is drawn and recorded.
@@ -170,18 +225,17 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     use only, never the results. ``progress(done, total)`` is called between blocks, where
     total counts both passes (2 × iterations); ``cancel()`` returning True raises
     :class:`SimulationCancelled`. ``keep_durations`` also returns every sampled duration
-    (activities × iterations; for small runs and charts). A plan with progress is
-    simulated from its status date (or ``status_date``): actuals are fixed and only the
-    remaining work is uncertain (see :mod:`.progress`).
+    (activities × iterations; for small runs and charts). ``resources``: schedule every
+    iteration with the plan's resources (:mod:`.resource_sim`), same samples for a seed.
+    A plan with progress is simulated from its status date (or ``status_date``): actuals
+    are fixed and only the remaining work is uncertain (see :mod:`.progress`).
     """
     iterations = _check_iterations(iterations)
     seed = _check_seed(seed)
-    mc = MonteCarlo(plan, distribution, deadline, status_date)
+    mc = MonteCarlo(plan, distribution, deadline, resources, status_date)
     keep_heap()
     n = mc.net.size
-    block = int(block_size) if block_size else default_block_size(n, mc.net.src.size)
-    if block <= 0:
-        raise PlanError(f"block size must be positive, not {block_size!r}", "block_size")
+    block = memory_plan(n, mc.net.src.size, iterations, keep_durations, block_size)
     stream = ScoreStream(seed, mc.durations.uncertain.size, mc.correlation, mc.risks.size)
     acc = Accumulators(n, mc.durations.uncertain.size, mc.means, mc.schedule.finish)
     kept = np.empty((n, iterations)) if keep_durations else None

@@ -95,7 +95,7 @@ def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> 
     lo, hi = max(lo, -reach), min(hi, reach)
     if lo > hi:
         return []
-    ends = calendar.start_dates([lo, hi]).astype("datetime64[D]")
+    ends = calendar.start_dates([lo, hi], strict=False).astype("datetime64[D]")
     first, last = max(ends[0] - 7, FIRST_DAY), min(ends[1] + 7, LAST_DAY)
     at_the_ends = first == FIRST_DAY or last == LAST_DAY
     chosen = choose_level(calendar, lo, hi, max_ticks)

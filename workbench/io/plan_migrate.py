@@ -117,12 +117,28 @@ def upgrade_1_to_2(data: dict) -> dict:
 # --- version 2 → 3 ---------------------------------------------------------------
 # One step per section that version 3 adds; each takes version-2 data (a dict) and returns
 # it with that section's empty form filled in.
+def _v3_resources(data: dict) -> dict:
+    """Resources: a version-2 plan has none (and its activities need none)."""
+    return dict(data, resources=[])
+
+
+V3_STEPS: list = [_v3_resources]
+
+
+def _add_checkup_section(data: dict) -> dict:
+    from .checkup_section import add_checkup_section
+    return add_checkup_section(data)
+
+
+V3_STEPS.append(_add_checkup_section)
+
+
 def living_sections_v3(data: dict) -> dict:
     """Progress, baselines and the odds trend (the living schedule): empty in version 2."""
     return dict(data, progress_rule="retained logic", progress=[], baselines=[], odds_trend=[])
 
 
-V3_STEPS: list = [living_sections_v3]
+V3_STEPS.append(living_sections_v3)
 
 
 def upgrade_2_to_3(data: dict) -> dict:

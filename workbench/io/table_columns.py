@@ -11,7 +11,7 @@ import re
 from dataclasses import dataclass, field
 
 FIELDS = ("id", "name", "optimistic", "most_likely", "pessimistic", "duration", "predecessors",
-          "group", "notes", "distribution", "start_no_earlier", "finish_no_later",
+          "group", "notes", "distribution", "start_no_earlier", "finish_no_later", "resources",
           "actual_start", "actual_finish", "remaining_optimistic", "remaining_most_likely",
           "remaining_pessimistic", "remaining", "percent_complete")
 
@@ -28,6 +28,7 @@ ALIASES: dict[str, tuple[str, ...]] = {
     "distribution": ("distribution", "dist", "shape"),
     "start_no_earlier": ("start no earlier", "start not before", "not before"),
     "finish_no_later": ("finish no later", "finish not after", "not after"),
+    "resources": ("resources", "resource needs", "needs", "crews"),
     "actual_start": ("actual start", "started on", "actually started"),
     "actual_finish": ("actual finish", "finished on", "actually finished"),
     "remaining_optimistic": ("remaining optimistic", "remaining a", "optimistic remaining"),

@@ -7,7 +7,7 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 from . import styles
 from .context import PackContext
 from .layout import Section
-from .tables import fit
+from .tables import cell, fit
 from .text import para
 
 RISK_HEAD = ("Risk event", "Chance", "Delay if it happens\n(a / m / b)", "On activities", "Happened\nin runs",
@@ -71,7 +71,7 @@ def risk_table(ctx: PackContext, width: float) -> list:
     for risk in risks:
         seen = report.get(risk.id, {})
         fired, impact = seen.get("fired"), seen.get("finish_impact")
-        rows.append([fit(f"{risk.id} {risk.name}".strip(), widths[0] - 4), f"{risk.probability * 100:.0f} %",
+        rows.append([cell(fit(f"{risk.id} {risk.name}".strip(), widths[0] - 4)), f"{risk.probability * 100:.0f} %",
                      f"{risk.optimistic:g} / {risk.most_likely:g} / {risk.pessimistic:g} {unit}",
                      fit(", ".join(risk.activities), widths[3] - 4),
                      "—" if fired is None else f"{fired * 100:.1f} %",

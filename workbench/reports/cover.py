@@ -7,9 +7,12 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 from . import styles
 from .context import PackContext
 from .layout import Section
-from .text import format_date, para
+from .text import elide, format_date, para
 
 SIGN_OFF_ROWS_WHEN_EMPTY = 3
+TITLE_MOST = 200          # characters of the title, revision, names printed on the cover
+FACT_MOST = 160
+SIGNER_MOST = 44          # two lines of a sign-off row
 CONTENTS = ("Summary", "Timeline", "Network", "Odds", "Drivers", "Activities",
             "Assumptions and cautions")
 
@@ -18,7 +21,7 @@ def cover(ctx: PackContext, width: float) -> list:
     s = ctx.settings
     story = [Section("Cover", "cover"),
              Paragraph("SLACKLINE \u00b7 APPROVAL PACK", styles.SUBTITLE), Spacer(1, 40),
-             Paragraph(para(s.title), styles.TITLE), Spacer(1, 14),
+             Paragraph(para(elide(s.title, TITLE_MOST)), styles.TITLE), Spacer(1, 14),
              _facts(ctx, width), Spacer(1, 30),
              Paragraph("Contents", styles.H2),
              Paragraph(para(" \u00b7 ".join(CONTENTS)), styles.BODY), Spacer(1, 30),
@@ -37,7 +40,7 @@ def _facts(ctx: PackContext, width: float) -> Table:
             ("Plan file", ctx.footer.file_name),
             ("Plan hash", ctx.footer.plan_hash),
             ("Generated", ctx.footer.generated_at.strftime("%Y-%m-%d %H:%M %Z").strip())]
-    data = [[Paragraph(para(k), styles.BODY), Paragraph(para(v), styles.BODY)] for k, v in rows]
+    data = [[Paragraph(para(k), styles.BODY), Paragraph(para(elide(v, FACT_MOST)), styles.BODY)] for k, v in rows]
     table = Table(data, colWidths=[110, width - 110], hAlign="LEFT")
     table.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"),
                                ("TEXTCOLOR", (0, 0), (0, -1), styles.MUTED),
@@ -48,7 +51,8 @@ def _facts(ctx: PackContext, width: float) -> Table:
 def sign_off_table(people, width: float) -> Table:
     """Name, role, date and signature columns; blank ruled rows when no names are set."""
     head = [Paragraph(f"<b>{h}</b>", styles.SMALL) for h in ("Name", "Role", "Date", "Signature")]
-    rows = [[Paragraph(para(p.name), styles.BODY), Paragraph(para(p.role), styles.BODY), "", ""]
+    rows = [[Paragraph(para(elide(p.name, SIGNER_MOST)), styles.BODY),
+             Paragraph(para(elide(p.role, SIGNER_MOST)), styles.BODY), "", ""]
             for p in people] or [["", "", "", ""] for _ in range(SIGN_OFF_ROWS_WHEN_EMPTY)]
     widths = [width * 0.27, width * 0.25, width * 0.16, width * 0.32]
     table = Table([head] + rows, colWidths=widths, rowHeights=[16] + [38] * len(rows), hAlign="LEFT")

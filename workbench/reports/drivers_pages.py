@@ -8,7 +8,7 @@ from reportlab.platypus import Paragraph
 from workbench.figures import drivers as dg
 
 from . import marks as mk
-from . import styles
+from . import fonts, styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
 from .tables import fit
@@ -53,14 +53,14 @@ def _panel(c, box, bars, signed: bool, title: str, critical: set[str]) -> None:
     px = lambda v: plot_x + (v - lo) / (hi - lo) * plot_w
     c.setFont(styles.BOLD, 10)
     c.setFillColor(styles.TEXT)
-    c.drawString(x0, h - 12, fit(title, w, styles.BOLD, 10))
+    fonts.draw(c, x0, h - 12, fit(title, w, styles.BOLD, 10))
     _grid(c, px, (lo, hi), (top, top - len(bars) * row), signed, plot_w)
     for rect in dg.bar_rects(bars):
         y = top - (rect.row + 0.5) * row
         _bar(c, px(rect.x0), y - row * 0.35, px(rect.x1) - px(rect.x0), row * 0.7, rect.bar, critical)
         c.setFont(styles.BOLD if not rect.bar.is_folded else styles.FONT, 8)
         c.setFillColor(styles.TEXT)
-        c.drawString(x0, y - 3, fit(rect.bar.label, label_w - 6, styles.BOLD, 8))
+        fonts.draw(c, x0, y - 3, fit(rect.bar.label, label_w - 6, styles.BOLD, 8))
         value = f"{rect.bar.value * 100:.0f} %" if not signed else f"{rect.bar.value:+.2f}"
         if rect.bar.is_folded:          # the largest of the rest, not their sum
             value = f"each ≤ {abs(rect.bar.value) * 100:.0f} %" if not signed else f"each |r| ≤ {abs(rect.bar.value):.2f}"

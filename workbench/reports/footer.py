@@ -10,8 +10,8 @@ from dataclasses import dataclass
 
 from reportlab.pdfgen.canvas import Canvas
 
-from . import styles
-from .text import clean
+from . import fonts, styles
+from .text import clean, fit
 
 TOTAL_FORM = "pack-page-total"
 PAGE_LABEL_W = 78.0
@@ -45,8 +45,11 @@ def footer_drawer(info: FooterInfo):
         canvas.setLineWidth(0.4)
         canvas.line(styles.MARGIN, y + 10, width - styles.MARGIN, y + 10)
         canvas.setFillColor(styles.MUTED)
-        canvas.setFont(styles.FONT, 7.5)
-        canvas.drawString(styles.MARGIN, y, info.line())
+        room = width - 2 * styles.MARGIN - PAGE_LABEL_W - 8
+        line = info.line()
+        size = max(6.0, min(7.5, 7.4 * room / max(fonts.width(line, styles.FONT, 7.5), 1.0)))
+        canvas.setFont(styles.FONT, size)          # smaller type before anything is cut off
+        fonts.draw(canvas, styles.MARGIN, y, fit(line, room, styles.FONT, size))
         canvas.setFont(styles.BOLD, 8)
         x = width - styles.MARGIN - PAGE_LABEL_W
         text = f"Page {canvas.getPageNumber()} of "

@@ -5,13 +5,16 @@ from __future__ import annotations
 
 import math
 
+import numpy as np
+
 from reportlab.platypus import Paragraph
 
 from workbench.figures.network_layout import layout_plan
 
-from . import styles
+from . import limits, styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
+from .text import para
 from .network_paint import DETAIL_SCALE, MIN_DETAIL_SCALE, NetworkPainter, View, link_bounds
 
 HEADING_SPACE = 30.0
@@ -20,6 +23,7 @@ DETAIL_NOTE_SPACE = 16.0
 DETAIL_NOTE = ("Each box: id and PERT te; name; ES, EF, total float TF / LS, LF, free float FF (plan units "
                "from the start). Critical: vermillion, heavy outline.")
 MARGIN_UNITS = 12.0
+SUMMARISED = "Overview: ids only;"
 
 
 def cuts(starts, ends, lo: float, hi: float, size: float, pad: float = 6.0) -> list[tuple[float, float]]:
@@ -69,20 +73,31 @@ def overview_view(layout, width: float, height: float) -> View:
     return View(-MARGIN_UNITS, layout.height / 2 - height / fit / 2, total_w, height / fit, fit)
 
 
+def too_large(ctx) -> list:
+    """The Network section of a plan too large to draw: what to use instead."""
+    text = (f"This plan has {len(ctx.plan):,} activities; a network diagram of more than "
+            f"{limits.NETWORK_ACTIVITIES:,} cannot be read on paper, so none is printed. The Network view "
+            "in the window shows it in full; the Timeline and the activity table of this "
+            "pack give every printed activity's dates and floats.")
+    return new_page(LANDSCAPE) + [Section("Network", "network"), Paragraph("Network", styles.H1),
+                                  Paragraph(para(text), styles.BODY)]
+
+
 def network_pages(ctx, frame: tuple[float, float]) -> list:
+    if len(ctx.plan) > limits.NETWORK_ACTIVITIES:
+        return too_large(ctx)
     layout = layout_plan(ctx.plan, ctx.analysis)
     width, height = frame
     chart_h = height - HEADING_SPACE - NOTE_SPACE
     overview = overview_view(layout, width, chart_h)
-    fit = overview.scale
+    views, note = _detail_views(ctx, layout, width, height, overview.scale)
+    if note.startswith(SUMMARISED):               # a third line of note
+        chart_h -= 12
+        overview = overview_view(layout, width, chart_h)
     story = new_page(LANDSCAPE) + [Section("Network", "network"), Paragraph("Network", styles.H1),
                                    ChartFlowable(width, chart_h, NetworkPainter(ctx, layout, overview).paint),
-                                   Paragraph(_note(fit), styles.SMALL)]
-    if fit >= MIN_DETAIL_SCALE:
-        return story
+                                   Paragraph(para(note), styles.SMALL)]
     detail_h = height - HEADING_SPACE - DETAIL_NOTE_SPACE
-    scale = detail_scale(layout, detail_h)
-    views = [v for v in tiles(layout, width, detail_h, scale) if _occupied(layout, v)]
     boxes = link_bounds(layout)
     for k, view in enumerate(views):
         story += new_page(LANDSCAPE) + [
@@ -90,6 +105,33 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
             ChartFlowable(width, detail_h, NetworkPainter(ctx, layout, view, boxes).paint),
             Paragraph(DETAIL_NOTE, styles.SMALL)]
     return story
+
+
+def _detail_views(ctx, layout, width: float, height: float, fit: float) -> tuple[list[View], str]:
+    """The detail pages' windows (none when the overview is legible) and the overview's
+    note; past NETWORK_DETAIL_PAGES, only the pages showing critical boxes, said in the note."""
+    if fit >= MIN_DETAIL_SCALE:
+        return [], _note(fit)
+    detail_h = height - HEADING_SPACE - DETAIL_NOTE_SPACE
+    scale = detail_scale(layout, detail_h)
+    views = [v for v in tiles(layout, width, detail_h, scale) if _occupied(layout, v)]
+    if len(views) <= limits.NETWORK_DETAIL_PAGES:
+        return views, _note(fit)
+    total = len(views)
+    views = _critical_views(layout, views, ctx.analysis.schedule.critical)[:limits.NETWORK_DETAIL_PAGES]
+    return views, _some_detail(total, len(views)) + " " + _note(MIN_DETAIL_SCALE)
+
+
+def _critical_views(layout, views: list[View], critical) -> list[View]:
+    """The views holding at least one critical activity's box, in page order."""
+    b = layout.boxes[np.asarray(critical, dtype=bool)]
+    return [v for v in views if len(b) and bool(((b[:, 0] + b[:, 2] >= v.x0) & (b[:, 0] <= v.x0 + v.w)
+                                                  & (b[:, 1] + b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)).any())]
+
+
+def _some_detail(pages: int, shown: int) -> str:
+    return (f"{SUMMARISED} every box at a legible scale would take {pages:,} pages, so the {shown} "
+            f"detail pages that follow show the critical path's boxes only (the Network view in the window shows all).")
 
 
 def detail_scale(layout, page_h: float) -> float:

@@ -10,7 +10,7 @@ import numpy as np
 
 from reportlab.lib.colors import white as _WHITE
 
-from . import styles
+from . import fonts, styles
 from .tables import fit
 from .text import clean, format_number
 
@@ -94,7 +94,7 @@ class NetworkPainter:
         c.rect(x - 2, y - 2, width + 4, size + 3, stroke=1, fill=1)
         c.setFillColor(styles.TEXT)
         c.setFont(styles.BOLD, size)
-        c.drawString(x, y, text)
+        fonts.draw(c, x, y, text)
         c.restoreState()
 
     def _visible(self, node) -> bool:
@@ -164,7 +164,7 @@ class NetworkPainter:
         name_size = max(7.0, min(9.0, 14 * self.view.scale))
         c.setFillColor(styles.TEXT)
         c.setFont(styles.FONT, name_size)
-        c.drawString(x + 3, y_top - name_size * 1.2, fit(self.ctx.plan.activities[i].name, w - 6, styles.FONT, name_size))
+        fonts.draw(c, x + 3, y_top - name_size * 1.2, fit(self.ctx.plan.activities[i].name, w - 6, styles.FONT, name_size))
         cells = (("ES", s.es[i]), ("EF", s.ef[i]), ("TF", s.total_float[i]),
                  ("LS", s.ls[i]), ("LF", s.lf[i]), ("FF", s.free_float[i]))
         num = max(7.0, min(8.5, 13 * self.view.scale))
@@ -204,7 +204,7 @@ def _exit_point(points, view: View):
 
 def _label_box(c, x, y, width, size, text, font) -> None:
     c.setFont(font, size)
-    c.drawString(x, y, fit(text, width, font, size))
+    fonts.draw(c, x, y, fit(text, width, font, size))
 
 
 def _arrow(c, a, b, size: float) -> None:

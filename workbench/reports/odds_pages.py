@@ -12,10 +12,12 @@ from . import styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
 from .odds_paint import OddsPainter, SCurvePainter
+from .path_pages import short_path
 from .text import format_date, format_number, para
 
 SIDE_W = 250.0
 HEADING_SPACE = 36.0
+SIDE_PATH_MOST = 12       # ids of the PERT path printed in the narrow side panel
 
 
 def question(ctx) -> og.Question:
@@ -81,7 +83,7 @@ def _comparison(ctx, q: og.Question) -> list:
 
 def _readout(ctx) -> list:
     pert = ctx.analysis.pert
-    text = (f"PERT follows one path: {' - '.join(pert.path)}; mean {format_number(pert.mean, 2)}, "
+    text = (f"PERT follows one path: {short_path(pert.path, SIDE_PATH_MOST)}; mean {format_number(pert.mean, 2)}, "
             f"standard deviation {format_number(pert.sd, 2)} {ctx.unit}.")
     story = [Paragraph(para(text), styles.SMALL)]
     if pert.note:

@@ -21,12 +21,15 @@ from . import styles
 from .baseline_pages import baseline_pages
 from .cautions import cautions
 from .charts import chart_pages
+from .checkup_pages import checkup_pages
 from .context import PackContext
 from .cover import cover
 from .footer import FooterInfo, PackCanvas, footer_drawer
 from .layout import LANDSCAPE, PORTRAIT, PackDocument, frame_size, new_page
+from .path_pages import full_path, is_long
 from .summary import summary
 from .tables import activity_table
+from .text import elide
 
 
 @dataclass(frozen=True)
@@ -82,7 +85,7 @@ def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:
 
 
 def _build(ctx: PackContext, buffer, report) -> PackDocument:
-    doc = PackDocument(buffer, ctx.paper, title=ctx.settings.title, author=ctx.settings.prepared_by,
+    doc = PackDocument(buffer, ctx.paper, title=elide(ctx.settings.title, 200), author=elide(ctx.settings.prepared_by, 200),
                        creator=f"Slackline {__version__}", on_page=footer_drawer(ctx.footer))
     doc.build(story(ctx, report), canvasmaker=PackCanvas)
     return doc
@@ -92,11 +95,13 @@ def story(ctx: PackContext, report) -> list:
     portrait_w, _ = frame_size(ctx.paper, PORTRAIT)
     parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
     parts += baseline_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
+    parts += new_page(PORTRAIT) + checkup_pages(ctx, portrait_w)
     report(72)
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(80)
     parts += new_page(PORTRAIT) + activity_table(ctx, portrait_w)
     parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)
+    parts += (new_page(PORTRAIT) + full_path(ctx, portrait_w)) if is_long(ctx) else []
     report(85)
     return parts
 

@@ -9,12 +9,15 @@ from reportlab.lib.styles import ParagraphStyle
 
 from workbench.figures import style
 
+from . import fonts
+
 PAPERS = {"a4": A4, "letter": letter}
 MARGIN = 42.0          # page margin in points (~15 mm)
 FOOTER_SPACE = 30.0    # room kept free for the footer at the bottom of every page
 
-FONT = "Helvetica"
-BOLD = "Helvetica-Bold"
+fonts.register()
+FONT = fonts.FONT          # DejaVu Sans, embedded, with a fallback for CJK (see fonts.py)
+BOLD = fonts.BOLD
 
 
 def colour(hex_colour: str) -> colors.Color:

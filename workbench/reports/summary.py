@@ -11,13 +11,13 @@ from . import styles
 from .context import PackContext
 from .drivers_data import top_drivers
 from .layout import Section
+from .path_pages import is_long, short_path
 
-from .text import format_date, format_number, format_percent, para
+from .text import elide, format_date, format_number, format_percent, para
 
 CONFIDENCES = (0.5, 0.8, 0.9)
 PATH_NAMES_SHOWN = 20
 DRIVERS_SHOWN = 5
-PATH_JOIN = " \u2013 "
 
 
 def summary(ctx: PackContext, width: float) -> list:
@@ -86,7 +86,10 @@ def critical_path(ctx: PackContext, width: float) -> list:
     pert = ctx.analysis.pert
     ids = list(pert.path)
     story = [Paragraph("Critical path", styles.H2),
-             Paragraph("<b>" + para(PATH_JOIN.join(ids)) + "</b>", styles.BODY)]
+             Paragraph("<b>" + para(short_path(ids)) + "</b>", styles.BODY)]
+    if is_long(ctx):
+        story.append(Paragraph("The whole path is listed in order under 'Critical path in full', at the "
+                               "end of this pack.", styles.SMALL))
     if pert.note:
         story.append(Paragraph(para(pert.note), styles.SMALL))
     shown = ids[:PATH_NAMES_SHOWN]
@@ -97,7 +100,7 @@ def critical_path(ctx: PackContext, width: float) -> list:
                                    ("TOPPADDING", (0, 0), (-1, -1), 1), ("BOTTOMPADDING", (0, 0), (-1, -1), 1)]))
         story.append(table)
     if len(ids) > len(shown):
-        story.append(Paragraph(f"... and {len(ids) - len(shown)} more: see the activity table.", styles.SMALL))
+        story.append(Paragraph(f"... and {len(ids) - len(shown):,} more: see the activity table.", styles.SMALL))
     return story
 
 
@@ -130,8 +133,14 @@ def _through_others(ctx: PackContext, shown) -> str:
             continue
         for group in ctx.plan.correlations:
             if d.id in group.activities:
-                others = ", ".join(a for a in group.activities if a != d.id)
-                notes.append(f"{d.id} is rarely critical but its duration moves with {others} "
-                             f"('{group.name}'), so it correlates with the finish through them.")
+                notes.append(f"{d.id} is rarely critical but its duration moves with {_others(group, d.id)} "
+                             f"('{elide(group.name, 80)}'), so it correlates with the finish through them.")
                 break
     return (" " + " ".join(notes)) if notes else ""
+
+
+def _others(group, act_id: str, most: int = 8) -> str:
+    others = [a for a in group.activities if a != act_id]
+    if len(others) <= most:
+        return ", ".join(others)
+    return ", ".join(others[:most]) + f" and {len(others) - most:,} others"

@@ -2,27 +2,26 @@
 
 from __future__ import annotations
 
-from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import LongTable, Paragraph, TableStyle
 
-from . import styles
+from . import fonts, limits, styles
 from .context import PackContext
 from .layout import Section
-from .text import clean, format_date
+from .limits import least_float, summarised
+from .text import fit, format_date
 
 HEAD = ("ID", "Name", "te", "sd", "ES", "EF", "LS", "LF", "Total\nfloat", "Free\nfloat", "Crit.")
 SHARES = (0.085, 0.255, 0.055, 0.05, 0.09, 0.09, 0.09, 0.09, 0.065, 0.065, 0.065)
 FONT_SIZE = 8
 
 
-def fit(text: str, width: float, font: str = styles.FONT, size: float = FONT_SIZE) -> str:
-    """Text shortened with '...' so it fits ``width`` points."""
-    text = clean(text)
-    if stringWidth(text, font, size) <= width:
-        return text
-    while text and stringWidth(text + "...", font, size) > width:
-        text = text[:-1]
-    return text.rstrip() + "..."
+def cell(text: str):
+    """A table cell for fitted text: the text itself, or a Paragraph when part of it
+    needs the fallback font (a plain cell draws in one font)."""
+    parts = fonts.runs(text, styles.FONT)
+    if len(parts) == 1 and parts[0][1] == styles.FONT:
+        return parts[0][0]
+    return Paragraph(fonts.markup(text), styles.CELL)
 
 
 def _fixed(x: float) -> str:
@@ -30,12 +29,15 @@ def _fixed(x: float) -> str:
     return f"{round(float(x), 9) + 0.0:.2f}"
 
 
-def activity_rows(ctx: PackContext, widths: list[float]) -> list[list[str]]:
+def activity_rows(ctx: PackContext, widths: list[float], shown=None) -> list[list[str]]:
+    """One row per activity, or per plan row in ``shown``."""
     a, s = ctx.analysis, ctx.analysis.schedule
     dates = a.dates()
+    acts = ctx.plan.activities
     rows = []
-    for i, act in enumerate(ctx.plan.activities):
-        rows.append([fit(act.id, widths[0] - 4, styles.BOLD), fit(act.name, widths[1] - 4),
+    for i in (range(len(acts)) if shown is None else shown.tolist()):
+        act = acts[i]
+        rows.append([cell(fit(act.id, widths[0] - 4, styles.BOLD)), cell(fit(act.name, widths[1] - 4)),
                      _fixed(a.means[i]), _fixed(a.variances[i] ** 0.5),
                      *(format_date(dates[k][i]) for k in ("early_start", "early_finish", "late_start", "late_finish")),
                      _fixed(s.total_float[i]), _fixed(s.free_float[i]),
@@ -43,13 +45,13 @@ def activity_rows(ctx: PackContext, widths: list[float]) -> list[list[str]]:
     return rows
 
 
-def _table_style(ctx: PackContext) -> TableStyle:
+def _table_style(ctx: PackContext, shown) -> TableStyle:
     cmds = [("FONT", (0, 0), (-1, -1), styles.FONT, FONT_SIZE), ("FONT", (0, 0), (-1, 0), styles.BOLD, FONT_SIZE),
             ("FONT", (0, 1), (0, -1), styles.BOLD, FONT_SIZE), ("VALIGN", (0, 0), (-1, -1), "MIDDLE"),
             ("ALIGN", (2, 0), (-1, -1), "RIGHT"), ("LINEBELOW", (0, 0), (-1, 0), 0.8, styles.TEXT),
             ("TOPPADDING", (0, 0), (-1, -1), 1.5), ("BOTTOMPADDING", (0, 0), (-1, -1), 1.5),
             ("LEFTPADDING", (0, 0), (-1, -1), 2), ("RIGHTPADDING", (0, 0), (-1, -1), 2)]
-    for row, critical in enumerate(ctx.analysis.schedule.critical, start=1):
+    for row, critical in enumerate(ctx.analysis.schedule.critical[shown].tolist(), start=1):
         if critical:
             cmds += [("TEXTCOLOR", (-1, row), (-1, row), styles.CRITICAL), ("FONT", (-1, row), (-1, row), styles.BOLD, FONT_SIZE)]
         if row % 2 == 0:
@@ -59,8 +61,10 @@ def _table_style(ctx: PackContext) -> TableStyle:
 
 def activity_table(ctx: PackContext, width: float) -> list:
     widths = [width * share for share in SHARES]
-    table = LongTable([list(HEAD)] + activity_rows(ctx, widths), colWidths=widths, repeatRows=1)
-    table.setStyle(_table_style(ctx))
+    total = len(ctx.plan)
+    shown = least_float(ctx.analysis.schedule, limits.TABLE_ROWS)
+    table = LongTable([list(HEAD)] + activity_rows(ctx, widths, shown), colWidths=widths, repeatRows=1)
+    table.setStyle(_table_style(ctx, shown))
     unit = ctx.unit
     intro = (f"te: PERT expected duration, sd: its standard deviation, floats in {unit}; "
              "ES/EF/LS/LF are calendar dates (start dates are the first working day, finish "
@@ -69,5 +73,7 @@ def activity_table(ctx: PackContext, width: float) -> list:
         intro += (f" The late dates come from the deadline ({format_date(ctx.date_of(ctx.deadline()))}), so "
                   "floats are measured to it: the critical activities are those with the least float, "
                   "which is more than zero when the plan finishes early and negative when it is late.")
+    if shown.size < total:
+        intro += " " + summarised(shown.size, total, "this table")
     return [Section("Activities", "activities"), Paragraph("Activities", styles.H1),
             Paragraph(intro, styles.SMALL), table]

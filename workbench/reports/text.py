@@ -1,4 +1,4 @@
-"""Text helpers for the approval pack: safe strings for the standard PDF fonts and the
+"""Text helpers for the approval pack: strings ready for the pack's fonts (``fonts``) and the
 number and date formats of the pack. Probabilities use ``workbench.figures.odds.format_probability``,
 the same function the Odds view shows them with."""
 
@@ -6,23 +6,49 @@ from __future__ import annotations
 
 import datetime as dt
 import math
-from xml.sax.saxutils import escape
+import re
 
-_SUBSTITUTES = {"\u2192": "->", "\u2264": "<=", "\u2265": ">=", "\u03c3": "sd", "\u2212": "-",
+from . import fonts
+
+NARROWEST = 0.1           # no printing character is narrower than a tenth of the font size
+_CONTROL = re.compile("[\x00-\x08\x0b-\x1f\x7f-\x9f]")
+_SUBSTITUTES = {"\u2192": "->", "\u2264": "<=", "\u2265": ">=", "\u2212": "-",
                 "\u2248": "~", "\u00d7": "x", "\u221e": "inf"}
 
 
 def clean(text) -> str:
-    """Text the standard (WinAnsi) PDF fonts can show: known symbols spelt out, the rest '?'."""
+    """Text ready to draw: a few symbols spelt out as the pack always has, control
+    characters and unpaired surrogates dropped, right-to-left runs in drawing order."""
     text = "" if text is None else str(text)
     for sym, sub in _SUBSTITUTES.items():
         text = text.replace(sym, sub)
-    return text.encode("cp1252", "replace").decode("cp1252")
+    if not text.isascii() or _CONTROL.search(text):
+        text = _CONTROL.sub("", text.encode("utf-8", "ignore").decode("utf-8"))   # no lone surrogates
+    return fonts.visual(text)
+
+
+def fit(text: str, width: float, font: str = fonts.FONT, size: float = 8.0) -> str:
+    """Text shortened with '...' so it fits ``width`` points. Only as many characters as
+    could ever fit are looked at, and the cut is found by bisection, so a pasted essay
+    costs no more than a name."""
+    text = "" if text is None else str(text)
+    most = int(width / (NARROWEST * size)) + 2
+    text = clean(text[:most + 1])
+    if len(text) <= most and fonts.width(text, font, size) <= width:
+        return text
+    lo, hi = 0, min(len(text), most)          # text[:lo] + '...' fits; text[:hi] + '...' may not
+    while lo < hi:
+        mid = (lo + hi + 1) // 2
+        if fonts.width(text[:mid] + "...", font, size) <= width:
+            lo = mid
+        else:
+            hi = mid - 1
+    return text[:lo].rstrip() + "..."
 
 
 def para(text) -> str:
-    """Clean text escaped for a platypus Paragraph."""
-    return escape(clean(text))
+    """Clean text as Paragraph markup (escaped; characters of other scripts in the fallback font)."""
+    return fonts.markup(clean(text))
 
 
 def format_percent(p: float) -> str:
@@ -54,5 +80,6 @@ def plural_unit(unit: str, value: float) -> str:
 
 
 def elide(text: str, limit: int) -> str:
-    text = clean(text)
+    """At most ``limit`` characters; longer text ends in '...' (only its head is cleaned)."""
+    text = clean(("" if text is None else str(text))[: limit + 1])
     return text if len(text) <= limit else text[: max(1, limit - 3)].rstrip() + "..."

@@ -7,7 +7,7 @@ from dataclasses import dataclass
 from reportlab.lib import colors
 
 from . import marks as mk
-from . import styles
+from . import fonts, styles
 from .axes import Axes, text_width
 from .tables import fit
 
@@ -193,12 +193,12 @@ class TimelineTile:
             font = styles.BOLD if group or self._critical_row(r) else styles.FONT
             c.setFont(font, LABEL_SIZE)
             c.setFillColor(styles.TEXT)
-            c.drawString(indent, self.yc(ax, r) - LABEL_SIZE * 0.35, fit(geo.labels[r], LABEL_W - indent - 6, font, LABEL_SIZE))
+            fonts.draw(c, indent, self.yc(ax, r) - LABEL_SIZE * 0.35, fit(geo.labels[r], LABEL_W - indent - 6, font, LABEL_SIZE))
         group = self.continued_group()
         if group is not None:            # the tile starts inside a group whose row is on the page before
             c.setFont(styles.BOLD, LABEL_SIZE)
             c.setFillColor(styles.MUTED)
-            c.drawString(4, ax.y + ax.h + 4, fit(f"{group} (continued)", LABEL_W - 10, styles.BOLD, LABEL_SIZE))
+            fonts.draw(c, 4, ax.y + ax.h + 4, fit(f"{group} (continued)", LABEL_W - 10, styles.BOLD, LABEL_SIZE))
         c.restoreState()
 
     def continued_group(self) -> str | None:

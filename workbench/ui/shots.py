@@ -14,7 +14,8 @@ from pathlib import Path
 
 SIZE = (1920, 1080)
 SEED = 20270301
-VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png"}
+VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png",
+              "Checkup": "checkup.png", "Resources": "resources.png"}
 
 
 def _settle(app, rounds: int = 5) -> None:

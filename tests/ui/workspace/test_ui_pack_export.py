@@ -85,3 +85,19 @@ def test_no_path_chosen_does_nothing(window, ui_env, answer):
     ui_env.replies.update({"ask_save_path": answer})
     assert pack_export.export_pack(window) is None
     assert ui_env.names() == ["ask_save_path"]
+
+
+@pytest.mark.parametrize("fault", [MemoryError(), RuntimeError("Flowable too large on page 674")])
+def test_a_pack_that_fails_unexpectedly_says_so_and_writes_nothing(window, ui_env, tmp_path, monkeypatch, fault):
+    from workbench.reports import pack
+
+    def fail(*args, **kwargs):
+        raise fault
+
+    target = tmp_path / "pack.pdf"
+    ui_env.replies.update({"ask_save_path": str(target), "show_error": None})
+    monkeypatch.setattr(pack, "build_pack", fail)
+    assert pack_export.export_pack(window) is None
+    message = [a for n, a in ui_env.asked if n == "show_error"][0][2]
+    assert "could not be written" in message and str(target) in message
+    assert not target.exists() and "open_externally" not in ui_env.names()

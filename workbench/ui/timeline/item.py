@@ -243,7 +243,7 @@ def nonworking_finder(calendar):
         days = np.arange(max(0, int(np.floor(lo * per))), int(np.ceil(hi * per)) + 1)
         if days.size > 4000:
             return np.zeros(0)
-        dates = calendar.start_dates(days / per).astype("datetime64[D]")
+        dates = calendar.start_dates(days / per, strict=False).astype("datetime64[D]")
         gap = np.flatnonzero(np.diff(dates).astype(int) > 1) + 1
         return days[gap] / per
     return find

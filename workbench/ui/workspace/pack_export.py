@@ -62,6 +62,13 @@ def export_pack(window) -> str | None:
     return path
 
 
+def not_written(path: str, exc: BaseException) -> str:
+    """The message for a pack that failed for a reason no check foresaw."""
+    reason = "the computer ran out of memory" if isinstance(exc, MemoryError) else f"{type(exc).__name__}: {exc}"
+    return (f"The approval pack could not be written ({reason[:300]}). Nothing was written to {path}; "
+            "an earlier pack there is kept, and the plan is unchanged. Please report this with the plan file.")
+
+
 def _write_with_progress(window, path: str):
     from workbench.reports.pack import build_pack
     session = window.session
@@ -86,6 +93,9 @@ def _write_with_progress(window, path: str):
         return None
     except PlanError as exc:
         prompts.show_error(window, "Export approval pack", str(exc))
+        return None
+    except Exception as exc:     # a fault of ours (MemoryError too): say so; the plan is untouched
+        prompts.show_error(window, "Export approval pack", not_written(path, exc))
         return None
     finally:
         dialog.close()
