@@ -124,3 +124,10 @@ def test_the_progress_demo_opens_as_a_new_plan(window, ui_env):
     plan = window.session.plan
     assert plan.odds_trend and any(b.approved for b in plan.baselines)
     assert window.files.path is None and window.session.variance() is not None
+
+
+def test_the_settings_dialog_keeps_the_progress_rule(session):
+    from workbench.ui.workspace.settings_dialog import SettingsDialog
+
+    assert session.plan.settings.progress_rule == "progress override"
+    assert SettingsDialog(session.plan.settings).result_settings().progress_rule == "progress override"
