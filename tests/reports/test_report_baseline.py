@@ -89,3 +89,10 @@ def test_report_can_record_the_signed_pack_as_the_baseline(tmp_path, capsys):
     assert not plan.baselines[0].approved
     footer = PdfReader(str(tmp_path / "pack.pdf")).pages[0].extract_text()
     assert f"plan hash {new.plan_hash}" in footer
+
+
+def test_the_timeline_pages_draw_the_approved_baseline_done_work_and_slips(pack):
+    _, _, reader = pack
+    text = reader.pages[_sections(reader)["Timeline"]].extract_text()
+    for label in ("Done", "Baseline", "Later than baseline"):
+        assert label in text
