@@ -7,6 +7,7 @@
     slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks] [--force]
     slackline export PLAN -o OUT.csv|OUT.xlsx
     slackline check PLAN [--json] [--strict] [--iterations N] [--seed S]
+    slackline baseline PLAN.slw --name NAME [--approved] [--iterations N] [--seed S] [--list]
 
 Exit codes: 0 success, 2 bad input (the message names the culprit), 1 an internal fault.
 """
@@ -29,6 +30,7 @@ VERBS = {
     "export": ("export", "write the plan with its schedule to CSV/XLSX"),
     "check": ("check", "Checkup: grade the schedule's soundness (exit 1 with --strict when a check fails)"),
     "level": ("level", "level resources: a schedule within every resource's units"),
+    "baseline": ("baseline", "record a named baseline in the plan file (or --list them)"),
 }
 
 

@@ -20,3 +20,8 @@ def docs_dir() -> Path:
 
 def demo_path() -> Path:
     return resources_dir() / "demo.slw"
+
+
+def demo_update_path() -> Path:
+    """The demo three months later: progress, the approved baseline, the odds trend."""
+    return resources_dir() / "demo_update.slw"

@@ -15,7 +15,9 @@ PROMPTS = ("ask_open_path", "ask_save_path", "ask_unsaved", "ask_recovery", "ask
 # The dialogs that edit something live beside their dialog classes (not in prompts).
 DIALOGS = {"edit_settings": "workbench.ui.workspace.settings_dialog",
            "pick_predecessors": "workbench.ui.activities.predecessor_dialog",
-           "preview_import": "workbench.ui.workspace.import_dialog"}
+           "preview_import": "workbench.ui.workspace.import_dialog",
+           "move_status_date": "workbench.ui.workspace.status_dialog",
+           "manage_baselines": "workbench.ui.workspace.baselines_dialog"}
 
 
 def sample_plan() -> Plan:

@@ -7,6 +7,7 @@ import numpy as np
 from ..core.analysis import analyze
 from ..figures.odds import confidence_label
 from .common import load_plan_file, parse_offset_or_date, write_json
+from .living import add_baseline, add_status_date, apply_status_date, status_lines, variance_for
 from .text import CAUTION, column_table, elide, num, nums, pct
 
 
@@ -14,14 +15,18 @@ def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN", help=".slw, .csv or .xlsx")
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
     p.add_argument("--json", action="store_true", help="one JSON object on stdout")
+    add_status_date(p)
+    add_baseline(p)
 
 
 def run(args) -> int:
     plan = load_plan_file(args.plan)
+    apply_status_date(plan, args)
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline is not None else None
     result = analyze(plan, deadline=deadline)
+    variance = variance_for(result, args)
     if args.json:
-        data = result.to_dict()
+        data = result.to_dict(variance)
         if plan.resources:
             from ..core.loading import plan_loading
             cal = result.calendar
@@ -29,11 +34,11 @@ def run(args) -> int:
             data["resources"] = {l.resource: l.to_dict(span) for l in plan_loading(result)}
         write_json(data)
     else:
-        print(render_analysis(result))
+        print(render_analysis(result, variance))
     return 0
 
 
-def render_analysis(result) -> str:
+def render_analysis(result, variance=None) -> str:
     s, plan = result.schedule, result.plan
     dates = {k: np.datetime_as_string(v, unit="D").tolist() for k, v in result.dates().items()}
     acts = plan.activities
@@ -44,6 +49,7 @@ def render_analysis(result) -> str:
     headers = ["id", "name", "te", "sd", "early start", "early finish", "late start", "late finish",
                "total float", "free float", "critical"]
     out = [f"{plan.settings.title}", "", column_table(headers, columns, right={2, 3, 8, 9}), ""]
+    out += status_lines(result, variance, plan.settings.unit)
     out += summary_lines(result, plan.settings.unit)
     return "\n".join(out)
 

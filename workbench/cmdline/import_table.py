@@ -19,6 +19,7 @@ def add_arguments(p) -> None:
                    help="replace PLAN.slw even if a window has it open, or its owner or group would change")
     p.add_argument("--resources", metavar="RES.csv",
                    help="the resources (columns id, name, units, cost) for a CSV's 'resources' column")
+    p.add_argument("--status-date", metavar="YYYY-MM-DD", help="the status date of the progress columns")
 
 
 def run(args) -> int:
@@ -50,6 +51,8 @@ def run(args) -> int:
         resources = read_resource_file(res)
     refuse_if_locked(args.output, args.force)  # before the work of reading
     plan = read_table(src, settings=settings, resources=resources)
+    from .living import apply_status_date
+    apply_status_date(plan, args)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
     save_plan_file(plan, args.output, args.force)
     extra = f" and {len(plan.resources)} resources" if plan.resources else ""

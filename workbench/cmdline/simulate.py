@@ -5,6 +5,7 @@ from __future__ import annotations
 import sys
 
 from .common import check_iterations, load_plan_file, parse_offset_or_date, write_json
+from .living import add_status_date, apply_status_date
 from .text import CAUTION, elide, num, pct, table
 
 DISTRIBUTION_CHOICES = ("beta-pert", "triangular", "uniform", "normal")
@@ -19,11 +20,15 @@ def add_arguments(p) -> None:
     p.add_argument("--json", action="store_true")
     p.add_argument("--resources", action="store_true",
                    help="schedule every iteration with the plan's resources (levelled order)")
+    add_status_date(p)
+    p.add_argument("--record-trend", action="store_true",
+                   help="record this run as the odds trend point of the status date (saves the .slw)")
 
 
 def run(args) -> int:
     check_iterations(args.iterations)
     plan = load_plan_file(args.plan)
+    apply_status_date(plan, args)
     from ..core.montecarlo import simulate
 
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline is not None else None
@@ -36,6 +41,9 @@ def run(args) -> int:
     if progress:
         print(file=sys.stderr)
     data = result.to_dict()
+    data.update(status_fields(plan))
+    if args.record_trend:
+        record_trend(plan, args, result, deadline)
     if args.json:
         write_json(data)
     else:
@@ -43,10 +51,34 @@ def run(args) -> int:
     return 0
 
 
+def status_fields(plan) -> dict:
+    from ..core.progress import has_progress
+    day = plan.settings.status_date if has_progress(plan) else None
+    return {"status_date": day.isoformat() if day else None}
+
+
+def record_trend(plan, args, result, deadline) -> None:
+    """Add the run to the plan's odds trend (one point per status date) and save atomically."""
+    from ..core.analysis import analyze
+    from ..core.baseline import make_trend_point
+    from ..core.baseline_commands import RecordTrendPoint
+    from ..core.errors import PlanError
+    from ..io.planfile import plan_hash, save_plan
+
+    if not args.plan.lower().endswith(".slw"):
+        raise PlanError(f"--record-trend: {args.plan} is not a .slw plan file (a table cannot hold the trend)", "--record-trend")
+    RecordTrendPoint(make_trend_point(analyze(plan, deadline=deadline), result, plan_hash(plan))).do(plan)
+    save_plan(plan, args.plan)
+    print(f"recorded the odds trend point of {plan.odds_trend[-1].status_date.isoformat()} in {args.plan}",
+          file=sys.stderr)
+
+
 def render_simulation(plan, data: dict) -> str:
     unit = plan.settings.unit
     mode = ", resource-aware (crews hold work back in every iteration)" if data.get("resource_aware") else ""
     out = [f"{plan.settings.title}: {data['iterations']} iterations, seed {data['seed']}{mode}", ""]
+    if data.get("status_date"):
+        out[1:1] = [f"From the status date {data['status_date']}: actual dates fixed, only remaining work uncertain"]
     out.append(f"Mean finish    {num(data['mean'])} {unit} (sd {num(data['sd'], 3)}); "
                f"PERT mean {num(data.get('pert_mean', float('nan')))}; "
                + (f"later by {num(data['merge_bias'], 3)} {unit} (merging paths and crews)" if data.get("resource_aware")

@@ -12,6 +12,7 @@ import numpy as np
 from .calendar import WorkCalendar, round_offset
 from .cpm import Analyzer, Schedule
 from .pert import PertOdds, pert_odds
+from .progress import engine_inputs, progress_frame
 
 
 @dataclass
@@ -23,6 +24,7 @@ class Analysis:
     means: np.ndarray
     variances: np.ndarray
     deadline: float | None
+    progress: object = None      # a progress.ProgressFrame when analysed from a status date
 
     # --- dates ---------------------------------------------------------
     @property
@@ -56,14 +58,20 @@ class Analysis:
     def date_at(self, probability: float) -> dt.date:
         return self.date_of_duration(self.pert.duration_at(probability))
 
-    def to_dict(self) -> dict:
-        """The JSON contract of ``slackline analyze --json``."""
+    def to_dict(self, variance=None) -> dict:
+        """The JSON contract of ``slackline analyze --json``; ``variance`` (a
+        :class:`~.variance.Variance`) adds the baseline columns."""
+        from .progress_json import progress_columns, progress_top, variance_columns
+
         s, p = self.schedule, self.pert
         columns = {k: _rounded(v) for k, v in (("es", s.es), ("ef", s.ef), ("ls", s.ls), ("lf", s.lf),
                                                 ("total_float", s.total_float), ("free_float", s.free_float))}
         columns["critical"] = s.critical.tolist()
         columns["mean"], columns["variance"] = _rounded(self.means), _rounded(self.variances)
         columns.update({k: np.datetime_as_string(v, unit="D").tolist() for k, v in self.dates().items()})
+        columns.update(progress_columns(self))
+        if variance is not None:
+            columns.update(variance_columns(variance))
         names = list(columns)
         acts = {act_id: dict(zip(names, row)) for act_id, row in zip(s.ids, zip(*columns.values()))}
         pert = {"mean": round_offset(p.mean), "variance": round_offset(p.variance),
@@ -85,6 +93,7 @@ class Analysis:
             "critical_paths": s.paths,
             "activities": acts,
             "pert": pert,
+            **progress_top(self, variance),
         }
 
 
@@ -112,10 +121,12 @@ def moments(plan) -> tuple[np.ndarray, np.ndarray]:
     return means, variances
 
 
-def analyze(plan, deadline=None) -> Analysis:
+def analyze(plan, deadline=None, status_date=None) -> Analysis:
     """Schedule the plan on PERT means and compute the odds.
 
-    ``deadline`` (an offset or a date) overrides the plan's own deadline setting.
+    ``deadline`` (an offset or a date) overrides the plan's own deadline setting;
+    ``status_date`` the plan's status date. A plan with progress is scheduled from its
+    status date (see :mod:`.progress`): means, variances and odds are the remaining work's.
     Raises :class:`~workbench.core.errors.PlanError` (or CycleError) naming the culprit.
     Re-analysing the same plan after edits that keep its ids and links (estimates, names,
     constraints, settings) reuses the compiled network.
@@ -127,9 +138,13 @@ def analyze(plan, deadline=None) -> Analysis:
     analyzer = Analyzer.reusing(getattr(plan, "_analyzer", None), plan, calendar)
     plan._analyzer = analyzer           # the next analysis of this plan starts from here
     means, variances = moments(plan)
+    frame = progress_frame(plan, calendar, status_date, means, analyzer.net)
+    if frame is not None:
+        analyzer = analyzer.from_status(engine_inputs(frame, analyzer.net, analyzer.floor))
+        means, variances = frame.moments(means, variances)
     schedule = analyzer.run(means, deadline=dl)
     check_in_calendar(schedule, calendar, dl)
-    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl)
+    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl, frame)
 
 
 def check_in_calendar(schedule, calendar, deadline=None) -> None:

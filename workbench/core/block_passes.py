@@ -111,12 +111,16 @@ class BlockPasses:
     ``floor`` and ``fnlt`` are the activities' start floors and finish-no-later offsets
     (plan order, as :class:`~.cpm.Analyzer` keeps them)."""
 
-    def __init__(self, net: Network, floor: np.ndarray, fnlt: np.ndarray):
+    def __init__(self, net: Network, floor: np.ndarray, fnlt: np.ndarray, finish_floor=None, done=None):
         self.net, n = net, net.size
         plain = (net.src_fin > 0) & (net.dst_fin == 0) & (net.lag == 0)
         self.fwd = _order(net, net.dst, net.src, plain, reverse=False)
         self.bwd = _order(net, net.src, net.dst, plain, reverse=True)
-        self.floor = np.asarray(floor, dtype=float)[self.fwd.nodes][:, None]
+        self.floor = self.base_floor = np.asarray(floor, dtype=float)[self.fwd.nodes][:, None]
+        # Progress (see core/progress.py): finish floors EF ≥ f become start floors f − d per
+        # iteration; done activities are never counted critical.
+        self.finish_floor = None if finish_floor is None else np.asarray(finish_floor, float)[self.fwd.nodes][:, None]
+        self.done = None if done is None else np.asarray(done, dtype=bool)
         self.fnlt = np.asarray(fnlt, dtype=float)[self.bwd.nodes][:, None]
         self.es_rows = self.fwd.row[self.bwd.nodes]        # forward row of each backward row
         self.bounded = [bool(np.isfinite(self.fnlt[a:b]).any()) for a, b, _, _ in self.bwd.levels]
@@ -148,12 +152,16 @@ class BlockPasses:
         buf = self._buffers(width)
         d.take(self.fwd.nodes, axis=0, out=buf["d_f"][:n])
         d.take(self.bwd.nodes, axis=0, out=buf["d_b"][:n])
+        if self.finish_floor is not None:
+            self.floor = np.maximum(self.base_floor, self.finish_floor - buf["d_f"][:n])
         self._forward(buf)
         finish = buf["ef"].max(axis=0)
         ref = finish if deadline is None else np.full(width, float(deadline))
         threshold = ref - finish + EPS
         self._backward(buf, ref)
         counts = self._critical(buf, threshold, valid)
+        if self.done is not None:
+            counts[self.done] = 0
         return finish, counts
 
     def _forward(self, buf) -> None:

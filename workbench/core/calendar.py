@@ -61,6 +61,11 @@ class WorkCalendar:
         self._cal = np.busdaycalendar(weekmask=self.weekmask, holidays=self.holidays)
         self.first_day = np.busday_offset(np.datetime64(settings.start, "D"), 0, roll="forward", busdaycal=self._cal)
 
+    @property
+    def busdaycal(self) -> np.busdaycalendar:
+        """The working days as numpy counts them (for vectorised date arithmetic)."""
+        return self._cal
+
     # --- offsets to dates ------------------------------------------------
     def _day(self, index, strict: bool = True) -> np.ndarray:
         """Working day ``index`` from the first; ``strict``: OutOfCalendar for a day outside
@@ -113,6 +118,14 @@ class WorkCalendar:
     def offset_through(self, date: dt.date) -> float:
         """Offset of the end of ``date`` (working days up to and including it) — for deadlines."""
         return self._count_to(np.datetime64(date, "D") + 1)
+
+    def offsets_before(self, days) -> np.ndarray:
+        """:meth:`offset_before` of many dates at once (datetime64[D] or dates)."""
+        d = np.asarray(days, dtype="datetime64[D]")
+        first = np.full(d.shape, self.first_day)
+        ahead = np.busday_count(first, np.maximum(d, first), busdaycal=self._cal)
+        behind = np.busday_count(np.minimum(d, first), first, busdaycal=self._cal)
+        return (ahead - behind) / self.per_unit
 
     def _count_to(self, day) -> float:
         """Working days from the first working day to the start of ``day`` (negative before it).

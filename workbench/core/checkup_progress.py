@@ -52,7 +52,9 @@ def progress_facts(plan, calendar) -> ProgressFacts:
     acts = plan.activities
     status = plan.settings.status_date
     offset = None if status is None else calendar.resolve(status, finish=True)
-    tracked = bool(acts) and (hasattr(acts[0], "actual_start") or hasattr(acts[0], "actual_finish"))
+    recorded = getattr(plan, "progress_rows", None)      # the living-schedule model: any progress?
+    tracked = bool(acts) and (hasattr(acts[0], "actual_start") or hasattr(acts[0], "actual_finish")
+                              or (recorded is not None and bool(recorded())))
     if tracked:
         starts = np.array([_actual(calendar, a, "actual_start", False) for a in acts], dtype=float)
         finishes = np.array([_actual(calendar, a, "actual_finish", True) for a in acts], dtype=float)
@@ -65,6 +67,8 @@ def progress_facts(plan, calendar) -> ProgressFacts:
 
 def _actual(calendar, act, name: str, finish: bool) -> float:
     value = getattr(act, name, None)
+    if value is None and getattr(act, "progress", None) is not None:   # the living-schedule model
+        value = getattr(act.progress, name, None)
     return np.nan if value is None else float(calendar.resolve(value, finish=finish))
 
 
@@ -78,7 +82,11 @@ def _approved(plan):
 def _baseline_finishes(baseline, ids: list[str], calendar) -> np.ndarray:
     table = getattr(baseline, "finishes", None)
     if table is None:
-        table = {k: getattr(v, "finish", None) for k, v in (getattr(baseline, "activities", None) or {}).items()}
+        acts = getattr(baseline, "activities", None) or {}
+        if isinstance(acts, dict):
+            table = {k: getattr(v, "finish", None) for k, v in acts.items()}
+        else:                            # core.baseline.Baseline: a tuple of BaselineActivity
+            table = {a.id: a.finish for a in acts}
     out = np.full(len(ids), np.nan)
     for i, act_id in enumerate(ids):
         value = table.get(act_id)

@@ -168,6 +168,19 @@ class Analyzer:
         self.fnlt = np.full(n, np.inf) if fnlt is None else np.asarray(fnlt, float)
         self._cache: tuple | None = None   # (driving links, critical flags, graph, paths, truncated)
         self.links: list | None = None     # the plan links compiled, when made by ``reusing``
+        self.finish_floor: np.ndarray | None = None   # progress: EF_j ≥ finish_floor_j
+        self.done: np.ndarray | None = None           # progress: activities fixed on their actuals
+
+    def from_status(self, inputs) -> "Analyzer":
+        """An analyzer scheduling from the status date (see :mod:`.progress`): the same
+        compiled network with some links cut, and the floors of progress."""
+        kept = getattr(self, "_status", None)
+        if kept is not None and _same_inputs(kept, inputs):
+            return kept                  # and with it the remembered critical paths
+        fresh = Analyzer(inputs.network, None, self.fnlt)
+        fresh.floor, fresh.finish_floor, fresh.done = inputs.floor, inputs.finish_floor, inputs.done
+        self._status = fresh
+        return fresh
 
     @classmethod
     def for_plan(cls, plan, calendar=None) -> "Analyzer":
@@ -191,7 +204,8 @@ class Analyzer:
         net = self.net
         d = np.asarray(durations, dtype=float)
         offsets = net.link_offsets(d)
-        es_work = _forward_work(net, offsets, self.floor)
+        floor = self.floor if self.finish_floor is None else np.maximum(self.floor, self.finish_floor - d)
+        es_work = _forward_work(net, offsets, floor)
         es = es_work[net.rank]
         ef = es + d
         finish = float(ef.max()) if ef.size else 0.0
@@ -201,6 +215,8 @@ class Analyzer:
         tf = _snap(ls - es)
         ff = _snap(_free_float(net, es_work, kept[0], d, finish))
         critical = tf <= (ref - finish) + EPS
+        if self.done is not None:        # done work: on its actuals, no float, not critical
+            ls[self.done], tf[self.done], ff[self.done], critical[self.done] = es[self.done], 0.0, 0.0, False
         sched = Schedule(net, d, es, ef, ls, ls + d, tf, ff, critical, finish,
                          None if deadline is None else float(deadline))
         if paths:
@@ -217,6 +233,13 @@ class Analyzer:
             c = self._cache = (driving, sched.critical.copy(), graph, found, cut)
         sched.graph = c[2]
         sched.paths, sched.paths_truncated = list(c[3]), c[4]
+
+
+def _same_inputs(kept: "Analyzer", inputs) -> bool:
+    ff_a, ff_b = kept.finish_floor, inputs.finish_floor
+    return (np.array_equal(kept.net.lag, inputs.network.lag) and np.array_equal(kept.floor, inputs.floor)
+            and np.array_equal(kept.done, inputs.done)
+            and (ff_a is ff_b is None or (ff_a is not None and ff_b is not None and np.array_equal(ff_a, ff_b))))
 
 
 def constraint_bounds(plan, calendar=None) -> tuple[np.ndarray, np.ndarray]:

@@ -16,10 +16,12 @@ from typing import Callable, Iterable
 
 from .errors import PlanError
 from .text import check_text
+from .progress_fields import Progress
 
 LINK_TYPES = ("FS", "SS", "FF", "SF")
 UNITS = ("days", "weeks")
 DISTRIBUTIONS = ("beta-pert", "triangular", "uniform", "normal", "fixed")
+PROGRESS_RULES = ("retained logic", "progress override")  # out-of-sequence progress, per plan
 
 _PLAIN = (float, int)  # number types accepted as they are (bool is not one of them)
 _BAD_ID = re.compile(r"[;,\s]")
@@ -118,6 +120,7 @@ class Activity:
     start_no_earlier: Offset | None = None
     finish_no_later: Offset | None = None
     resources: tuple[tuple[str, float], ...] = ()  # (resource id, units) needed for the whole duration
+    progress: Progress | None = None  # actuals and remaining work (None: not started)
 
     def _plainly_valid(self) -> bool:
         """The common case, checked cheaply: a clean id, plain finite numbers in order."""
@@ -127,6 +130,8 @@ class Activity:
         if not _short_texts(self):
             return False
         if self.start_no_earlier is not None or self.finish_no_later is not None or self.resources:
+            return False
+        if self.progress is not None:
             return False
         if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
             return False
@@ -169,6 +174,10 @@ class Activity:
             elif v is not None:
                 _check_number(v, self.id, name.replace("_", " "))
         check_demands(self)
+        if self.progress is not None:
+            if not isinstance(self.progress, Progress):
+                raise PlanError(f"activity {self.id}: progress must be a Progress record", self.id)
+            self.progress.validated(self.id)
         return self
 
     @property
@@ -259,6 +268,7 @@ class Settings:
     revision: str = ""
     prepared_by: str = ""
     sign_off: list[SignOff] = field(default_factory=list)
+    progress_rule: str = "retained logic"  # or "progress override" (see core/progress.py)
 
     def validated(self) -> "Settings":
         if self.unit not in UNITS:
@@ -277,6 +287,9 @@ class Settings:
         if self.status_date is not None:
             check_date(self.status_date, "settings", "status date")
         self._check_texts()
+        if self.progress_rule not in PROGRESS_RULES:
+            raise PlanError(f"settings: progress rule must be 'retained logic' or 'progress override', "
+                            f"not {self.progress_rule!r}", "progress_rule")
         return self
 
     def _check_texts(self) -> None:
@@ -382,7 +395,7 @@ class Plan:
     def __init__(self, settings: Settings | None = None, activities: Iterable[Activity] = (),
                  links: Iterable[Link] = (), risks: Iterable[Risk] = (),
                  correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False,
-                 resources: Iterable[Resource] = ()):
+                 resources: Iterable[Resource] = (), baselines: Iterable = (), odds_trend: Iterable = ()):
         """``validated=True``: the caller (a file reader) has validated every activity and
         link already; only duplicate ids and link ends are checked again."""
         self.settings = settings or Settings()
@@ -395,6 +408,8 @@ class Plan:
         self.correlations: list[CorrelationGroup] = list(correlations)
         self.checkup_thresholds: dict[str, float] = {}   # Checkup thresholds this plan changed
         self.resources: list[Resource] = [r.validated() for r in resources]
+        self.baselines: list = list(baselines)      # core.baseline.Baseline, oldest first
+        self.odds_trend: list = list(odds_trend)    # core.baseline.TrendPoint, by status date
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         if validated:
@@ -463,8 +478,17 @@ class Plan:
             self._listeners.remove(listener)
 
     def _emit(self, event: str, **info) -> None:
+        self._progress_rows = None          # any change may touch progress: found again when asked
         for listener in list(self._listeners):
             listener(event, info)
+
+    def progress_rows(self) -> list[int]:
+        """Rows of the activities with progress (kept until the plan next changes)."""
+        rows = getattr(self, "_progress_rows", None)
+        if rows is None:
+            rows = self._progress_rows = [i for i, a in enumerate(self._activities)
+                                          if a.progress is not None and not a.progress.is_empty]
+        return rows
 
     # --- changing (commands call these) ---------------------------------
     def _append(self, act: Activity) -> None:
@@ -605,6 +629,20 @@ class Plan:
         self._emit("changed", kind="settings_changed")
         return old
 
+    def set_baselines(self, baselines: list) -> list:
+        """Replace the baselines at once; return the old list."""
+        self._emit("about_to_change", kind="baselines_changed")
+        old, self.baselines = self.baselines, list(baselines)
+        self._emit("changed", kind="baselines_changed")
+        return old
+
+    def set_odds_trend(self, points: list) -> list:
+        """Replace the odds trend at once; return the old list."""
+        self._emit("about_to_change", kind="odds_trend_changed")
+        old, self.odds_trend = self.odds_trend, list(points)
+        self._emit("changed", kind="odds_trend_changed")
+        return old
+
     def reset(self, other: "Plan") -> None:
         """Take over the whole content of ``other`` (an import, a revert)."""
         self._emit("about_to_change", kind="reset")
@@ -615,6 +653,8 @@ class Plan:
         self.correlations = list(other.correlations)
         self.checkup_thresholds = dict(getattr(other, "checkup_thresholds", {}))
         self.resources = list(other.resources)
+        self.baselines = list(getattr(other, "baselines", ()))
+        self.odds_trend = list(getattr(other, "odds_trend", ()))
         self._reindex()
         self._emit("changed", kind="reset")
 
@@ -636,6 +676,7 @@ class Plan:
     def copy(self) -> "Plan":
         twin = Plan(replace(self.settings, calendar=replace(self.settings.calendar),
                             sign_off=list(self.settings.sign_off)),
-                    self._activities, self.links, self.risks, self.correlations, resources=self.resources)
+                    self._activities, self.links, self.risks, self.correlations, resources=self.resources,
+                    baselines=self.baselines, odds_trend=self.odds_trend)
         twin.checkup_thresholds = dict(self.checkup_thresholds)
         return twin

@@ -23,6 +23,7 @@ from .block_passes import BlockPasses
 from .cpm import Analyzer
 from .distributions import DurationModel, check_family
 from .errors import PlanError
+from .progress import engine_inputs, progress_frame
 from .risk_events import RiskModel
 from .score_stream import CHUNK, ScoreStream
 from .order_stats import average_ranks
@@ -139,27 +140,45 @@ class Accumulators:
 class MonteCarlo:
     """A plan prepared for simulation: compiled network, duration, correlation and risk models."""
 
-    def __init__(self, plan, distribution=None, deadline=None, resources: bool = False):
+    def __init__(self, plan, distribution=None, deadline=None, resources: bool = False, status_date=None):
         plan.settings.validated()
         family = check_family(distribution or plan.settings.distribution, "distribution", "settings")
         self.plan = plan
         self.calendar = WorkCalendar(plan.settings)
         self.analyzer = Analyzer.for_plan(plan, self.calendar)
+        self.means, self.variances = moments(plan)
+        self.progress = progress_frame(plan, self.calendar, status_date, self.means, self.analyzer.net)
+        self.durations = DurationModel.for_plan(plan, family)
+        if self.progress is not None:      # only the remaining work is uncertain
+            self._from_status(family)
         self.net = self.analyzer.net
         ids = self.net.ids
-        self.durations = DurationModel.for_plan(plan, family)
         self.correlation = CorrelationModel(plan.correlations, ids, self.durations.uncertain)
         self.risks = RiskModel(plan.risks, ids, family)
+        if self.progress is not None:      # risk events no longer strike done work
+            self.risks.targets = [t[~self.analyzer.done[t]] for t in self.risks.targets]
         chosen = plan.settings.deadline if deadline is None else deadline
         self.deadline = self.calendar.resolve(_check_deadline(chosen), finish=True)
-        self.means, self.variances = moments(plan)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
         check_in_calendar(self.schedule, self.calendar, self.deadline)
-        self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt)
+        self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt,
+                                  self.analyzer.finish_floor, self.analyzer.done)
         self.resource_aware = bool(resources)
         if resources:                    # crews hold work back in every iteration
+            if self.progress is not None:
+                raise PlanError("a simulation with the crews does not yet start from the status date; "
+                                "run it without resources for a plan with progress", "resources")
             from .resource_sim import ResourcePasses
             self.passes = ResourcePasses(plan)
+
+    def _from_status(self, family) -> None:
+        frame, base = self.progress, self.analyzer
+        self.analyzer = base.from_status(engine_inputs(frame, base.net, base.floor))
+        self.means, self.variances = frame.moments(self.means, self.variances)
+        dm = self.durations
+        a, m, b = frame.three_points(dm.a, dm.m, dm.b)
+        families = [act.distribution or family for act in self.plan.activities]
+        self.durations = DurationModel(families, a, m, b, dm.names)
 
     def run_block(self, scores, occurrence, delay_scores, valid=None):
         """Durations and finish of one block (activities × iterations), and per activity
@@ -198,7 +217,7 @@ def _chunks(iterations: int, block_size: int):
 
 def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, deadline=None,
              block_size=None, progress=None, cancel=None, keep_durations: bool = False,
-             resources: bool = False) -> SimulationResult:
+             resources: bool = False, status_date=None) -> SimulationResult:
     """Simulate the plan's finish ``iterations`` times; see the module and docs/simulation.md.
 
     ``seed`` (int) makes the run reproducible; without one a seed is drawn and recorded.
@@ -208,10 +227,12 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     :class:`SimulationCancelled`. ``keep_durations`` also returns every sampled duration
     (activities × iterations; for small runs and charts). ``resources``: schedule every
     iteration with the plan's resources (:mod:`.resource_sim`), same samples for a seed.
+    A plan with progress is simulated from its status date (or ``status_date``): actuals
+    are fixed and only the remaining work is uncertain (see :mod:`.progress`).
     """
     iterations = _check_iterations(iterations)
     seed = _check_seed(seed)
-    mc = MonteCarlo(plan, distribution, deadline, resources)
+    mc = MonteCarlo(plan, distribution, deadline, resources, status_date)
     keep_heap()
     n = mc.net.size
     block = memory_plan(n, mc.net.src.size, iterations, keep_durations, block_size)

@@ -10,7 +10,9 @@ can draw each style in one batched call:
 - ``free_float``: a mark at EF + free float, where that is short of LF; ``negative_float``: [LF, EF] where LF < EF
   (a deadline or finish-no-later date that cannot be met);
 - ``late``: late-date bars [LS, LF] (optional); ``summary`` / ``summary_critical``: group rows;
-- ``whisker``: P10–P90 of an activity's finish (when the simulation offers it).
+- ``whisker``: P10–P90 of an activity's finish (when the simulation offers it);
+- ``baseline``, ``done``, ``slipped``: the compared baseline's bars, work done so far and
+  finishes later than the baseline (see :mod:`.timeline_living`).
 
 Rows follow the table order; the activities of a group are gathered under a summary row
 placed where the group first appears. A collapsed group shows only its summary row.
@@ -22,6 +24,8 @@ import math
 from dataclasses import dataclass, field
 
 import numpy as np
+
+from .timeline_living import living_marks
 
 EPS = 1e-9
 BAR_KINDS = ("critical", "work", "late", "summary", "summary_critical", "whisker")
@@ -276,11 +280,13 @@ def critical_ids(analysis) -> set[str]:
 
 
 def timeline_geometry(analysis, simulation=None, *, collapsed=(), late_bars: bool = False,
-                      connectors: bool = False, only=None) -> TimelineGeometry:
+                      connectors: bool = False, only=None, variance=None) -> TimelineGeometry:
     """Geometry of the Timeline for an :class:`~workbench.core.analysis.Analysis`.
 
     ``collapsed``: group names shown as their summary row only; ``only``: ids to show
-    (e.g. :func:`critical_ids`), None for all; ``late_bars``/``connectors``: optional layers.
+    (e.g. :func:`critical_ids`), None for all; ``late_bars``/``connectors``: optional layers;
+    ``variance`` (against a baseline) adds the baseline bars and slip marks, progress the done work
+    (see :mod:`.timeline_living`).
     """
     s, plan = analysis.schedule, analysis.plan
     collapsed = frozenset(collapsed)
@@ -290,6 +296,7 @@ def timeline_geometry(analysis, simulation=None, *, collapsed=(), late_bars: boo
     marks = _activity_marks(s, act_rows, idx, late_bars)
     marks.update(_summary_marks(s, groups) if groups else {"summary": Marks.empty(), "summary_critical": Marks.empty()})
     marks["whisker"] = _whisker_marks(simulation, s, act_rows, idx)
+    marks.update(living_marks(analysis, variance, act_rows, idx, Marks))
     keys, labels, kinds = _row_texts(plan, index, groups, (s.ef - s.es) <= EPS)
     row_pos = np.full(len(s.ids), -1, dtype=np.int64)
     row_pos[idx] = act_rows

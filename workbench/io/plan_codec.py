@@ -19,6 +19,7 @@ from .checkup_section import checkup_from_dict, checkup_to_dict
 from .errors import PlanFileError
 from .fields import Fields, show
 from .plan_checks import refuse_duplicate_links
+from .plan_living import baselines_from, living_to_dict, progress_from, trend_from_list
 from .plan_migrate import FORMAT, VERSION, upgrade
 
 ACTIVITY_FIELDS = ("id", "name", "group", "notes", "optimistic", "most_likely", "pessimistic",
@@ -88,6 +89,7 @@ def plan_to_dict(plan: Plan, rows: bool = True) -> dict:
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
         "checkup": checkup_to_dict(plan),
         "resources": [resource_to_dict(r) for r in plan.resources],
+        **living_to_dict(plan),
     }
 
 
@@ -299,8 +301,11 @@ def plan_from_dict(data) -> Plan:
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
     checkup = checkup_from_dict(top.raw("checkup"))
     resources = [resource_from_dict(x, i) for i, x in enumerate(top.raw_list("resources"), 1)]
+    settings, acts = progress_from(top, settings, acts)
+    baselines, trend = baselines_from(top.raw_list("baselines")), trend_from_list(top.raw_list("odds_trend"))
     top.done()
-    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True, resources=resources))
+    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True, resources=resources,
+                              baselines=baselines, odds_trend=trend))
     plan.checkup_thresholds = checkup
     analyzer = Analyzer(_core(lambda: compile_plan(plan)))
     analyzer.links = list(plan.links)

@@ -133,6 +133,14 @@ def _add_checkup_section(data: dict) -> dict:
 V3_STEPS.append(_add_checkup_section)
 
 
+def living_sections_v3(data: dict) -> dict:
+    """Progress, baselines and the odds trend (the living schedule): empty in version 2."""
+    return dict(data, progress_rule="retained logic", progress=[], baselines=[], odds_trend=[])
+
+
+V3_STEPS.append(living_sections_v3)
+
+
 def upgrade_2_to_3(data: dict) -> dict:
     data = dict(data, version=3)
     for step in V3_STEPS:

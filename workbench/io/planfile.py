@@ -195,8 +195,11 @@ def save_plan(plan: Plan, path, backup: bool = True, accept_owner_change: bool =
 
 def plan_hash(plan: Plan) -> str:
     """First 12 hex digits of the SHA-256 of the canonical plan data (sorted keys, no
-    whitespace): the same inputs always give the same hash."""
-    text = json.dumps(plan_to_dict(plan), sort_keys=True, separators=(",", ":"), ensure_ascii=False,
+    whitespace): the same inputs always give the same hash. The plan's history (its
+    baselines and odds trend) is left out, so recording a baseline keeps the hash it holds."""
+    data = plan_to_dict(plan)
+    data.pop("baselines", None), data.pop("odds_trend", None)
+    text = json.dumps(data, sort_keys=True, separators=(",", ":"), ensure_ascii=False,
                       allow_nan=False)
     return hashlib.sha256(text.encode("utf-8")).hexdigest()[:12]
 

@@ -12,6 +12,7 @@ from dataclasses import replace
 
 from workbench.core.errors import CycleError, PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity, Link, Plan, Settings, check_activity_text
+from workbench.core.progress_fields import Progress
 from workbench.core.network import compile_plan
 
 from .errors import TableImportError
@@ -23,6 +24,8 @@ from .table_columns import Columns, map_header
 
 NUMBER_FIELDS = ("optimistic", "most_likely", "pessimistic", "duration")
 TEXT_FIELDS = ("name", "group", "notes")
+PROGRESS_NUMBERS = ("remaining_optimistic", "remaining_most_likely", "remaining_pessimistic", "remaining",
+                    "percent_complete")
 GUARDED = ("=", "+", "-", "@", "\t", "\r")
 DISTRIBUTION_ALIASES = {"pert": "beta-pert", "beta": "beta-pert", "betapert": "beta-pert", "tri": "triangular"}
 _DECIMAL_COMMA = re.compile(r"^[+-]?\d+,\d+$")
@@ -89,6 +92,17 @@ class RowReader:
             self.problem(number, act_id, name, f"{text!r} is not a valid date (write YYYY-MM-DD)")
         return day
 
+    def progress(self, number: int, act_id: str, cells: list[str]) -> Progress | None:
+        """The progress columns of a row (None when they are all empty); "45%" reads as 45."""
+        at = cells
+        pc_col = self.cols.index.get("percent_complete")
+        if pc_col is not None and pc_col < len(cells) and str(cells[pc_col]).strip().endswith("%"):
+            at = list(cells)
+            at[pc_col] = str(cells[pc_col]).strip()[:-1]
+        p = Progress(self.point(number, act_id, cells, "actual_start"), self.point(number, act_id, cells, "actual_finish"),
+                     *(self.number(number, act_id, at, k) for k in PROGRESS_NUMBERS))
+        return None if p.is_empty else p
+
     def distribution(self, number: int, act_id: str, cells: list[str]):
         text = self.cell(cells, "distribution").lower()
         if not text:
@@ -113,7 +127,8 @@ class RowReader:
         act = Activity(act_id, **texts, **values, distribution=self.distribution(number, act_id, cells),
                        start_no_earlier=self.point(number, act_id, cells, "start_no_earlier"),
                        finish_no_later=self.point(number, act_id, cells, "finish_no_later"),
-                       resources=self.needs(number, act_id, cells))
+                       resources=self.needs(number, act_id, cells),
+                       progress=self.progress(number, act_id, cells))
         self._predecessors(number, act_id, cells)
         if len(self.problems) == before:
             self._accept(number, act)

@@ -19,10 +19,13 @@ import numpy as np
 from workbench.core.model import _BAD_ID, MAX_ID_LENGTH, Activity, Link, Plan, Settings
 
 from .plan_bulk import plain_numbers
+from .table_columns import FIELDS
 
 NUMBERS = ("optimistic", "most_likely", "pessimistic", "duration")
 TEXTS = ("name", "group", "notes")
-RARE = ("distribution", "start_no_earlier", "finish_no_later", "resources")   # any of these: the row reader
+# Every other import column (constraints, resources, progress, costs, ...): a table using any
+# of them is read by the row reader, so a column added there can never be dropped here.
+RARE = tuple(f for f in FIELDS if f not in ("id", "predecessors") + NUMBERS + TEXTS)
 
 
 def _columns(cols, rows) -> dict[str, list[str]] | None:

@@ -11,7 +11,9 @@ import re
 from dataclasses import dataclass, field
 
 FIELDS = ("id", "name", "optimistic", "most_likely", "pessimistic", "duration", "predecessors",
-          "group", "notes", "distribution", "start_no_earlier", "finish_no_later", "resources")
+          "group", "notes", "distribution", "start_no_earlier", "finish_no_later", "resources",
+          "actual_start", "actual_finish", "remaining_optimistic", "remaining_most_likely",
+          "remaining_pessimistic", "remaining", "percent_complete")
 
 ALIASES: dict[str, tuple[str, ...]] = {
     "id": ("id", "activity", "activity id", "code", "key", "ref"),
@@ -27,6 +29,13 @@ ALIASES: dict[str, tuple[str, ...]] = {
     "start_no_earlier": ("start no earlier", "start not before", "not before"),
     "finish_no_later": ("finish no later", "finish not after", "not after"),
     "resources": ("resources", "resource needs", "needs", "crews"),
+    "actual_start": ("actual start", "started on", "actually started"),
+    "actual_finish": ("actual finish", "finished on", "actually finished"),
+    "remaining_optimistic": ("remaining optimistic", "remaining a", "optimistic remaining"),
+    "remaining_most_likely": ("remaining most likely", "remaining m", "most likely remaining"),
+    "remaining_pessimistic": ("remaining pessimistic", "remaining b", "pessimistic remaining"),
+    "remaining": ("remaining", "remaining duration", "still to do", "days left"),
+    "percent_complete": ("percent complete", "% complete", "pct complete", "percent done", "% done"),
 }
 
 LOOKUP = {alias: name for name, aliases in ALIASES.items() for alias in aliases}

@@ -91,21 +91,21 @@ def csv_value(value, column: str) -> str:
     return guard_csv(str(value)) if column in TEXT_COLUMNS else str(value)
 
 
-def write_csv(rows: list[list], target) -> None:
+def write_csv(rows: list[list], target, header=HEADER) -> None:
     """UTF-8 with a byte-order mark, so spreadsheet programs pick the right encoding.
     ``target`` is a path or a binary file object (the export's exclusive temporary file)."""
     if isinstance(target, (str, Path)):
         with open(target, "wb") as raw:
-            return write_csv(rows, raw)
+            return write_csv(rows, raw, header)
     with io.TextIOWrapper(target, encoding="utf-8-sig", newline="") as handle:
         writer = csv.writer(handle, lineterminator="\r\n")
-        writer.writerow(HEADER)
+        writer.writerow(header)
         for row in rows:
-            writer.writerow([csv_value(v, c) for v, c in zip(row, HEADER)])
+            writer.writerow([csv_value(v, c) for v, c in zip(row, header)])
 
 
-def write_xlsx(rows: list[list], path: Path, title: str = "", resources=()) -> None:
+def write_xlsx(rows: list[list], path: Path, title: str = "", resources=(), header=HEADER) -> None:
     """The activities, and the plan's resources on a sheet named Resources (read back on import)."""
     extra = [("Resources", ("id", "name", "units", "cost"),
               [[r.id, r.name, r.units, r.cost] for r in resources])] if resources else ()
-    _write_xlsx(HEADER, rows, path, title, extra)
+    _write_xlsx(header, rows, path, title, extra)

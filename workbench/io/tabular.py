@@ -23,7 +23,8 @@ from .csv_text import DELIMITER_NAMES, csv_rows, decode, looks_binary, sniff_del
 from .errors import TableImportError
 from .predecessors import format_predecessors, parse_predecessors
 from .table_columns import LOOKUP, map_header, normalise
-from .table_export import table_rows, write_csv, write_xlsx
+from .table_export import HEADER, table_rows, write_csv, write_xlsx
+from .table_progress import table_layout
 from .row_reader import build_plan, rows_to_plan
 from .safe_read import NotReadable, read_regular_file
 from .xlsx_safe import read_xlsx, read_xlsx_sheet
@@ -149,21 +150,23 @@ def read_table(path, settings: Settings | None = None, resources=None) -> Plan:
     return read_table_report(path, settings, resources)[0]
 
 
-def export_table(analysis, path) -> Path:
-    """Write the plan and its computed schedule to ``.csv`` (UTF-8 with BOM) or ``.xlsx``.
+def export_table(analysis, path, variance=None) -> Path:
+    """Write the plan and its computed schedule to ``.csv`` (UTF-8 with BOM) or ``.xlsx``;
+    with progress and, for a compared baseline (``variance``), their columns.
 
     Written through an exclusive temporary file with an unpredictable name and renamed into
     place (:mod:`atomic`), so a failed export never leaves a half-written table where a
     good one was, and a link planted in a shared folder is never followed."""
     path = Path(path)
     suffix = path.suffix.lower()
+    header, rows = table_layout(analysis, variance)
+    more = {} if header == HEADER else {"header": header}   # progress or variance columns
     if suffix in XLSX_SUFFIXES:
-        write = partial(write_xlsx, title=analysis.plan.settings.title, resources=analysis.plan.resources)
+        write = partial(write_xlsx, title=analysis.plan.settings.title, resources=analysis.plan.resources, **more)
     elif suffix in CSV_SUFFIXES:
-        write = write_csv
+        write = partial(write_csv, **more)
     else:
         raise PlanError(f"{path.name}: export writes .csv or .xlsx, not {suffix or 'a file without extension'}", "path")
-    rows = table_rows(analysis)
     try:
         atomic.write_with(path, partial(write, rows))
     except OSError as exc:

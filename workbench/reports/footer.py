@@ -24,11 +24,13 @@ class FooterInfo:
     generated_at: dt.datetime
     version: str
     seed: int | None
+    status_date: dt.date | None = None
 
     def line(self) -> str:
         seed = "no simulation" if self.seed is None else f"seed {self.seed}"
         when = self.generated_at.strftime("%Y-%m-%d %H:%M %Z").strip()
-        return clean(f"{self.file_name}  \u00b7  plan hash {self.plan_hash}  \u00b7  generated {when}"
+        status = "" if self.status_date is None else f"status date {self.status_date.isoformat()}  \u00b7  "
+        return clean(f"{self.file_name}  \u00b7  {status}plan hash {self.plan_hash}  \u00b7  generated {when}"
                      f"  \u00b7  Slackline {self.version}  \u00b7  {seed}")
 
 

@@ -34,6 +34,8 @@ def odds_pages(ctx, frame: tuple[float, float]) -> list:
     q = question(ctx)
     date = format_date(ctx.date_of(q.d1))
     heading = f"Odds: finishing by {'the deadline, ' if ctx.deadline() is not None else ''}{date}"
+    if ctx.analysis.progress is not None:
+        heading += f", from the status date {format_date(ctx.analysis.progress.status_date)}"
     page = [Section("Odds", "odds"), Paragraph(para(heading), styles.H1),
             _side_by_side(ChartFlowable(chart_w, chart_h, OddsPainter(ctx, q).paint), _comparison(ctx, q), chart_w)]
     curve = [Section("S-curve", "scurve"), Paragraph("Odds: chance of finishing by each date (S-curve)", styles.H1),

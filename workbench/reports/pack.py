@@ -18,6 +18,7 @@ from workbench.core.errors import PlanError
 from workbench.io import atomic
 
 from . import styles
+from .baseline_pages import baseline_pages
 from .cautions import cautions
 from .charts import chart_pages
 from .checkup_pages import checkup_pages
@@ -37,6 +38,8 @@ class PackInfo:
     seed: int | None
     hash: str
     path: str
+    analysis: object = None      # what the pack shows, so the signed pack can become a baseline
+    simulation: object = None
 
 
 def build_pack(plan, path, *, paper: str = "a4", iterations: int = 10_000, seed: int | None = None,
@@ -57,7 +60,7 @@ def build_pack(plan, path, *, paper: str = "a4", iterations: int = 10_000, seed:
     data, pages = render(ctx, report)
     _write(path, data)
     report(100)
-    return PackInfo(pages, footer.seed, footer.plan_hash, str(path))
+    return PackInfo(pages, footer.seed, footer.plan_hash, str(path), analysis, sim)
 
 
 def render(ctx: PackContext, report=lambda done: None) -> tuple[bytes, int]:
@@ -91,6 +94,7 @@ def _build(ctx: PackContext, buffer, report) -> PackDocument:
 def story(ctx: PackContext, report) -> list:
     portrait_w, _ = frame_size(ctx.paper, PORTRAIT)
     parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
+    parts += baseline_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     parts += new_page(PORTRAIT) + checkup_pages(ctx, portrait_w)
     report(72)
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
@@ -127,7 +131,8 @@ def _footer(plan, plan_path, generated_at, sim) -> FooterInfo:
 
     when = generated_at or dt.datetime.now(dt.timezone.utc).replace(microsecond=0)
     name = Path(plan_path).name if plan_path else "(plan not saved to a file)"
-    return FooterInfo(name, plan_hash(plan), when, __version__, None if sim is None else sim.seed)
+    return FooterInfo(name, plan_hash(plan), when, __version__, None if sim is None else sim.seed,
+                      plan.settings.status_date)
 
 
 def _progress(progress):

@@ -19,6 +19,7 @@ from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
 from .limits import least_float, summarised
 from .text import format_date, para
+from .timeline_living_paint import approved_variance
 from .timeline_tile import TimelineTile, TileSpec
 
 ROW_H = 14.0          # smallest row height; short plans get taller rows
@@ -89,7 +90,7 @@ def _tiles(geo, per_page: int, per_unit: float) -> list:
 def timeline_pages(ctx, frame: tuple[float, float]) -> list:
     width, height = frame
     chart_h, per_page, only = _rows_shown(ctx, height)
-    geo = timeline_geometry(ctx.analysis, ctx.simulation, only=only)
+    geo = timeline_geometry(ctx.analysis, ctx.simulation, only=only, variance=approved_variance(ctx))
     cal = ctx.analysis.calendar
     tiles = _tiles(geo, per_page, cal.per_unit)
     chunks = sorted({rows for rows, _ in tiles})

@@ -10,6 +10,7 @@ from . import marks as mk
 from . import fonts, styles
 from .axes import Axes, text_width
 from .tables import fit
+from .timeline_living_paint import draw_living, living_legend
 
 LABEL_W = 200.0
 AXIS_H = 18.0
@@ -58,7 +59,8 @@ class TimelineTile:
         self._labels(ax)
         self._finish_label(ax)
         ax.frame()
-        mk.legend(c, 0, max(2.0, ax.y - AXIS_H - LEGEND_H + 4), self._legend_items())
+        items = self._legend_items()
+        mk.legend(c, 0, max(2.0, ax.y - AXIS_H - LEGEND_H + 4), items, legend_size(c, items, w))
 
     # --- layers --------------------------------------------------------------
     def _bands(self, ax: Axes) -> None:
@@ -89,6 +91,7 @@ class TimelineTile:
         m = self._visible("critical")
         for r, x0, x1 in zip(m.rows, m.x0, m.x1):
             mk.critical_bar(c, ax.px(x0), self.yc(ax, r) - bh / 2, ax.px(x1) - ax.px(x0), bh)
+        draw_living(self, ax, bh)
         for kind, fill in (("milestone", styles.TEXT), ("milestone_critical", styles.CRITICAL)):
             m = self._visible(kind)
             for r, x0 in zip(m.rows, m.x0):
@@ -239,7 +242,14 @@ class TimelineTile:
             items.append(("Negative float", line(styles.DEADLINE, 2.0, (2, 1.5))))
         if len(self.geo.marks["whisker"]) or self.geo.finish_whisker:
             items.append(("P10-P90 finish", line(styles.PROBABILITY, 2.0)))
-        return items
+        return items + living_legend(self.geo)
+
+
+def legend_size(c, items, width: float, size: float = 8.0) -> float:
+    """The largest type size (8 pt down to 6) at which the one-line legend fits ``width``."""
+    while size > 6.0 and sum(26 + c.stringWidth(label, styles.FONT, size) for label, _ in items) > width:
+        size -= 0.5
+    return size
 
 
 def _free_float_swatch(c, x, y, w, h):

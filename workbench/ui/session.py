@@ -41,6 +41,25 @@ class _UndoAdapter(QUndoCommand):
         self.session.recalculate()
 
 
+class _PlanOnlyAdapter(QUndoCommand):
+    """A QUndoCommand for a change that leaves the schedule as it is (an odds trend point)."""
+
+    def __init__(self, session: "Session", command):
+        super().__init__(command.text)
+        self.session, self.command, self._skip_first_redo = session, command, True
+
+    def redo(self) -> None:
+        if self._skip_first_redo:
+            self._skip_first_redo = False
+            return
+        self.command.do(self.session.plan)
+        self.session.simulation_changed.emit()
+
+    def undo(self) -> None:
+        self.command.undo(self.session.plan)
+        self.session.simulation_changed.emit()
+
+
 class Session(QObject):
     """One open plan. Views read ``plan``/``analysis``/``simulation`` and listen to signals."""
 
@@ -59,6 +78,8 @@ class Session(QObject):
         self.recalc_ms = 0.0
         self.last_refusal: str | None = None
         self._selected: list[str] = []
+        self.compare_baseline: str | None = None   # variance against this baseline (None: the approved one)
+        self._variance: tuple | None = None
         self.recalculate(emit=False)
 
     # --- edits ---------------------------------------------------------
@@ -121,6 +142,37 @@ class Session(QObject):
     def set_simulation(self, result) -> None:
         self.simulation = result
         self.simulation_changed.emit()
+
+    # --- the living schedule -------------------------------------------
+    def variance(self):
+        """The analysis compared with the chosen baseline (else the approved one): a core
+        Variance, or None without a baseline or a schedule. Computed once per analysis."""
+        from workbench.core.baseline import approved
+        from workbench.core.variance import variance_against
+
+        if self.analysis is None:
+            return None
+        names = {b.name: b for b in self.plan.baselines}
+        base = names.get(self.compare_baseline) or approved(self.plan.baselines)
+        key = (id(self.analysis), base)
+        if self._variance is None or self._variance[0] != key:
+            self._variance = (key, None if base is None else variance_against(self.analysis, base))
+        return self._variance[1]
+
+    def compare_with(self, name: str | None) -> None:
+        """Choose the baseline the variance columns and bars compare with (a view choice,
+        not an edit of the plan)."""
+        self.compare_baseline = name
+        self.schedule_changed.emit()
+
+    def record_trend(self, point) -> None:
+        """Add the odds trend point of a finished simulation as one undo step, keeping the
+        simulation on screen (a trend point does not change the schedule)."""
+        from workbench.core.baseline_commands import RecordTrendPoint
+
+        command = RecordTrendPoint(point)
+        command.do(self.plan)
+        self.undo_stack.push(_PlanOnlyAdapter(self, command))
 
     # --- selection -----------------------------------------------------
     def select(self, ids: list[str]) -> None:

@@ -13,6 +13,7 @@ from dataclasses import dataclass
 
 from workbench.core.errors import PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity
+from workbench.ui.activities import progress_columns as PC
 
 
 @dataclass(frozen=True)
@@ -48,6 +49,19 @@ COLUMNS: tuple[Column, ...] = (
     Column("start_no_earlier", "Not before", "Start no earlier than: a date (YYYY-MM-DD) or an offset"),
     Column("finish_no_later", "Not after", "Finish no later than: a date (YYYY-MM-DD) or an offset"),
     Column("notes", "Notes", "Free text"),
+    Column("state", "State", "Done, in progress or not started (from the actual dates)", editable=False),
+    Column("actual_start", "Actual start", "When work began: a date (YYYY-MM-DD) or an offset; empty = not started"),
+    Column("actual_finish", "Actual finish", "When work ended: a date or an offset; empty = not finished"),
+    Column("remaining", "Remaining", "Work in progress: remaining duration, or 'a / m / b' as a remaining "
+                                     "three-point estimate", numeric=True),
+    Column("percent_complete", "% done", "Work in progress: percent complete; remaining = (1 − % done) × estimate",
+           numeric=True),
+    Column("baseline_start", "Baseline start", "Start date in the compared baseline", editable=False),
+    Column("baseline_finish", "Baseline finish", "Finish date in the compared baseline", editable=False),
+    Column("start_variance", "Start var.", "Start now minus baseline start (positive = later)", editable=False,
+           numeric=True),
+    Column("finish_variance", "Finish var.", "Finish now minus baseline finish (positive = later)", editable=False,
+           numeric=True),
 )
 KEYS = tuple(c.key for c in COLUMNS)
 INDEX = {c.key: i for i, c in enumerate(COLUMNS)}
@@ -148,11 +162,17 @@ def changes_for(act: Activity, key: str, text: str) -> dict:
         return {"distribution": parse_distribution(text, act.id)}
     if key in ("start_no_earlier", "finish_no_later"):
         return {key: parse_constraint(text, act.id, title)}
+    if key in PC.EDITABLE:
+        return PC.changes_for(act, key, text, parse_number, parse_constraint)
     raise PlanError(f"activity {act.id}: column {title!r} cannot be edited", act.id)
 
 
 def edit_text(act: Activity, key: str) -> str:
     """The text shown for an editable field (display and editor alike)."""
+    return _edit_text(act, key)
+
+
+def _field_text(act: Activity, key: str) -> str:
     value = getattr(act, key)
     if key in ESTIMATE or key == "duration":
         return format_number(value)
@@ -161,3 +181,9 @@ def edit_text(act: Activity, key: str) -> str:
     if key == "distribution":
         return value or ""
     return value
+
+
+def _edit_text(act: Activity, key: str) -> str:
+    if key in PC.EDITABLE:
+        return PC.edit_text(act, key, format_number, format_constraint)
+    return _field_text(act, key)

@@ -22,7 +22,9 @@ from workbench.ui.session import Session
 ALL_GROUPS = "All groups"
 WIDTH_CHARS = {"id": 5, "name": 32, "group": 13, "predecessors": 12, "notes": 20, "distribution": 9,
                "start_no_earlier": 10, "finish_no_later": 10, "early_start": 11, "early_finish": 11,
-               "late_start": 11, "late_finish": 11, "critical": 5}
+               "late_start": 11, "late_finish": 11, "critical": 5, "state": 10, "actual_start": 10,
+               "actual_finish": 10, "remaining": 9, "baseline_start": 11, "baseline_finish": 11}
+BASELINE_KEYS = ("baseline_start", "baseline_finish", "start_variance", "finish_variance")
 
 
 class ActivitiesPanel(QWidget):
@@ -45,7 +47,9 @@ class ActivitiesPanel(QWidget):
         self.actions = self._make_actions()
         session.selection_changed.connect(self._show_selection)
         session.schedule_changed.connect(self._refresh_groups)
+        session.schedule_changed.connect(self._show_baseline_columns)
         self._refresh_groups()
+        self._show_baseline_columns()
 
     # --- building --------------------------------------------------------
     def _make_table(self) -> QTableView:
@@ -78,6 +82,12 @@ class ActivitiesPanel(QWidget):
             chars = WIDTH_CHARS.get(col.key, 6)
             text = metrics.horizontalAdvance("0" * chars) + 14
             table.setColumnWidth(i, max(text, heading.horizontalAdvance(col.title) + 16))
+
+    def _show_baseline_columns(self) -> None:
+        """The baseline dates and variances are shown while a baseline is compared."""
+        hidden = self.session.variance() is None
+        for key in BASELINE_KEYS:
+            self.table.setColumnHidden(C.INDEX[key], hidden)
 
     def _make_filter_bar(self) -> QHBoxLayout:
         bar = QHBoxLayout()

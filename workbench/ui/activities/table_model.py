@@ -17,6 +17,8 @@ from workbench.core.commands import EditActivity, SetPredecessors
 from workbench.core.errors import PlanError
 from workbench.figures import style
 from workbench.ui.activities import columns as C
+from workbench.ui.activities import progress_columns as PC
+from workbench.ui.activities.living_values import living_columns, progress_value
 from workbench.ui.activities.links_text import format_predecessors, parse_predecessors
 from workbench.ui.session import Session
 
@@ -107,7 +109,8 @@ class ActivityTableModel(QAbstractTableModel):
         if analysis is not None:
             s = analysis.schedule
             self._columns = {"te": analysis.means, "sd": analysis.variances ** 0.5, "total_float": s.total_float,
-                             "free_float": s.free_float, "critical": s.critical, **self._dates}
+                             "free_float": s.free_float, "critical": s.critical, **self._dates,
+                             **living_columns(analysis, self.session.variance())}
         if emit and self.rowCount():
             self.dataChanged.emit(self.index(0, COMPUTED[0]), self.index(self.rowCount() - 1, COMPUTED[-1]))
 
@@ -152,12 +155,16 @@ class ActivityTableModel(QAbstractTableModel):
         act = self._acts[row]
         if key == "predecessors":
             return format_predecessors(self._links_into().get(act.id, ()))
+        if key in PC.EDITABLE:
+            return progress_value(act, key)
         if key in _EDITABLE:
             return getattr(act, key)
         i = self.computed_row(row)
         if i is None:
             return None
         value = self._columns[key][i]
+        if key in PC.COMPUTED:
+            return None if value is None or value != value else value     # NaN: not in the baseline
         return value if key in self._dates else value.item()
 
     def _links_into(self) -> dict:
@@ -180,7 +187,9 @@ class ActivityTableModel(QAbstractTableModel):
             return ""
         if key == "critical":
             return C.CRITICAL_MARK if value else ""
-        if key in self._dates:
+        if key == "state":
+            return value
+        if key in self._dates or key in ("baseline_start", "baseline_finish"):
             return C.format_date(value)
         return C.format_number(value)
 

@@ -14,7 +14,9 @@ from workbench.figures import odds as fo
 from workbench.ui.odds.controls import OddsControls
 from workbench.ui.odds.panel import OddsPanel
 from workbench.ui.odds.plot import OddsPlot
+from workbench.ui.odds.living import record_run, show_trend, status_note
 from workbench.ui.odds.runner import OddsRunner
+from workbench.ui.odds.trend_plot import TrendPlot
 from workbench.ui.session import WhenShown, take_simulation
 
 
@@ -57,8 +59,15 @@ class OddsView(QWidget):
         side.setWidget(self.panel)
         side.setWidgetResizable(True)
         side.setMinimumWidth(400)
+        self.trend = TrendPlot(self)
+        self._trend_slot = lambda: show_trend(self)     # one slot, so a hidden view draws it once
+        self.charts = QSplitter(Qt.Vertical)
+        self.charts.addWidget(self.plot)
+        self.charts.addWidget(self.trend)
+        self.charts.setStretchFactor(0, 3)
+        self.charts.setStretchFactor(1, 2)
         self.splitter = QSplitter(Qt.Horizontal)
-        self.splitter.addWidget(self.plot)
+        self.splitter.addWidget(self.charts)
         self.splitter.addWidget(side)
         self.splitter.setStretchFactor(0, 1)
         self.splitter.setStretchFactor(1, 0)
@@ -98,6 +107,7 @@ class OddsView(QWidget):
         self.when_shown.call(self.refresh)
 
     def _on_simulation_changed(self) -> None:
+        self.when_shown.call(self._trend_slot)
         take_simulation(self)
         self._follow_run()
         self.when_shown.call(self._show_simulation)
@@ -117,6 +127,7 @@ class OddsView(QWidget):
             self.panel.error.setText(f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
             return
         self.plot.set_calendar(a.calendar)
+        show_trend(self)
         self._follow_target(a)
         self._default_dates(a)
         self._show_simulation()
@@ -247,7 +258,7 @@ class OddsView(QWidget):
         rows += [(f"{p} date", d_pert, d_sim) for p, d_pert, d_sim in self._answer_dates]
         cells = "".join(f"<tr><td>{r}</td><td>{p}</td><td>{s}</td></tr>" for r, p, s in rows)
         self.panel.headline.setText(
-            f"{fo.question_headline(q, a.calendar, a.deadline)}"
+            f"{status_note(a)}{fo.question_headline(q, a.calendar, a.deadline)}"
             "<table cellspacing='0' cellpadding='3' style='font-size:12pt'>"
             "<tr><td></td><td><u>PERT</u></td><td><u>Simulation</u></td></tr>"
             f"{cells}</table>")
@@ -314,6 +325,7 @@ class OddsView(QWidget):
             self.result, self.stale = result, True   # overtaken by an edit: show, but stale
             self.when_shown.call(self._show_simulation)
             return
+        record_run(self.session, result)        # first: the redraw below shows the new point
         self.session.set_simulation(result)
 
     def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)

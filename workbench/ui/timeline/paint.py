@@ -14,6 +14,7 @@ from PySide6.QtGui import QColor, QPainter, QPainterPath, QPixmap
 
 from workbench.figures import style
 from workbench.ui.timeline import fused
+from workbench.ui.timeline.paint_living import draw_living
 from workbench.ui.timeline.batch import colour_of, common_size, lines, pen, rects, rects_of, shared_array, whole_pixels
 
 DENSE_ROW_PX = 3.0
@@ -314,6 +315,7 @@ def draw_all(p: QPainter, px, marks: dict, geo, w: style.Weights, preview, rows,
         draw_slack_lines(p, px, marks["float"], w, h)
         draw_bars(p, px, marks["work"], style.WORK, style.WORK_EDGE, w.bar_outline * s, h)
         draw_bars(p, px, marks["critical"], style.CRITICAL, style.CRITICAL_EDGE, w.critical_outline * s, h)
+    draw_living(p, px, marks, w, h, spans)
     draw_negative_float(p, px, marks["negative_float"], w, h)
     draw_whiskers(p, px, marks["whisker"], w, h)
     draw_summaries(p, px, marks["summary"], False, w, h)

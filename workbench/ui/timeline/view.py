@@ -120,7 +120,8 @@ class TimelineView(QWidget):
             return
         only = critical_ids(analysis) if self.critical_only else None
         self.geometry = timeline_geometry(analysis, self.session.simulation, collapsed=self.collapsed,
-                                          late_bars=self.late_bars, connectors=self.connectors, only=only)
+                                          late_bars=self.late_bars, connectors=self.connectors, only=only,
+                                          variance=self.session.variance())
         self._message.setVisible(False)
         if not self.geometry.n_rows:
             self._show_message("No activities yet: add some in the Activities table." if only is None

@@ -12,6 +12,7 @@ from PySide6.QtWidgets import QApplication, QMenu, QToolBar
 from workbench.core.commands import SetSettings
 from workbench.ui import prompts
 from workbench.ui.workspace import settings_dialog
+from workbench.ui.workspace.living_menu import living_menu
 from workbench.ui.icons import icon
 from workbench.ui.workspace.pack_export import export_pack
 from workbench.ui.workspace.table_transfer import export_table
@@ -121,6 +122,7 @@ def build_menus(window) -> dict[str, QAction]:
     edit_menu.addActions([panel[k] for k in ("insert", "delete", "move_up", "move_down", "paste", "predecessors")])
     edit_menu.addSeparator()
     edit_menu.addAction(acts["find"])
+    living_menu(window, acts)
     _view_menu(window, acts)
     help_menu = window.menuBar().addMenu("&Help")
     acts["guide"] = _action(window, "Window &Guide", partial(show_guide, window), StandardKey.HelpContents)

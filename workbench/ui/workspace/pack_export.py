@@ -54,7 +54,10 @@ def export_pack(window) -> str | None:
     if info is None:
         return None
     simulated = f", seed {info.seed}" if info.seed is not None else ""
-    window.statusBar().showMessage(f"Approval pack written: {path} ({info.pages} pages{simulated})", 10_000)
+    window.last_pack = info            # Progress ▸ Record the Last Pack as the Baseline can keep it
+    window.statusBar().showMessage(f"Approval pack written: {path} ({info.pages} pages{simulated}); "
+                                   f"Progress ▸ Record the Last Pack as the Baseline makes it the baseline",
+                                   10_000)
     prompts.open_externally(window, path)
     return path
 

@@ -165,7 +165,8 @@ class SettingsDialog(QDialog):
             status_date=from_qdate(self.status.date()) if self.has_status.isChecked() else None,
             target_confidence=self.confidence.value() / 100.0,
             distribution=self.distribution.currentText(), revision=self.revision.text().strip(),
-            prepared_by=self.prepared_by.text().strip(), sign_off=self._signatories())
+            prepared_by=self.prepared_by.text().strip(), sign_off=self._signatories(),
+            progress_rule=self.original.progress_rule)      # set in Progress ▸ Move the Status Date
 
     def _deadline_value(self):
         if not self.has_deadline.isChecked():
