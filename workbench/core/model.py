@@ -82,6 +82,13 @@ class Activity:
     distribution: str | None = None  # None: the plan's default
     start_no_earlier: Offset | None = None
     finish_no_later: Offset | None = None
+    # costs and the fastest achievable estimate (see core/crash_terms.py)
+    cost: float | None = None
+    crash_cost: float | None = None
+    crash_optimistic: float | None = None
+    crash_most_likely: float | None = None
+    crash_pessimistic: float | None = None
+    crash_duration: float | None = None
 
     def _plainly_valid(self) -> bool:
         """The common case, checked cheaply: a clean id, plain finite numbers in order."""
@@ -89,6 +96,8 @@ class Activity:
         if type(i) is not str or not i or len(i) > MAX_ID_LENGTH or _BAD_ID.search(i):
             return False
         if self.start_no_earlier is not None or self.finish_no_later is not None:
+            return False
+        if self.cost is not None or self.crash_cost is not None or self.has_crash:
             return False
         if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
             return False
@@ -128,7 +137,15 @@ class Activity:
                 check_date(v, f"activity {self.id}", name.replace("_", " "))
             elif v is not None:
                 _check_number(v, self.id, name.replace("_", " "))
+        from .crash_terms import check_costs
+        check_costs(self)
         return self
+
+    @property
+    def has_crash(self) -> bool:
+        """A crash estimate was given (three points or a fixed crash duration)."""
+        return (self.crash_duration is not None or self.crash_optimistic is not None
+                or self.crash_most_likely is not None or self.crash_pessimistic is not None)
 
     @property
     def has_estimate(self) -> bool:
@@ -212,6 +229,9 @@ class Settings:
     revision: str = ""
     prepared_by: str = ""
     sign_off: list[SignOff] = field(default_factory=list)
+    indirect_cost: float = 0.0          # per plan unit of project duration
+    late_penalty: float = 0.0           # per plan unit past the deadline
+    bought: "BoughtTime | None" = None  # the trade-off option last applied, for the pack
 
     def validated(self) -> "Settings":
         if self.unit not in UNITS:
@@ -229,7 +249,23 @@ class Settings:
         check_date(self.start, "settings", "start date")
         if self.status_date is not None:
             check_date(self.status_date, "settings", "status date")
+        for name in ("indirect_cost", "late_penalty"):
+            value = getattr(self, name)
+            if isinstance(value, bool) or not isinstance(value, _PLAIN) or not 0.0 <= value < math.inf:
+                raise PlanError(f"settings: {name.replace('_', ' ')} must be a number of at least 0, not {value!r}", name)
         return self
+
+
+@dataclass(frozen=True)
+class BoughtTime:
+    """A trade-off option applied to the plan: what was bought, for how much, and the odds
+    it was expected to give (None for a deterministic option)."""
+
+    label: str
+    cost: float
+    chance: float | None = None
+    standard_error: float | None = None
+    crashed: tuple[tuple[str, float], ...] = ()
 
 
 @dataclass(frozen=True)

@@ -14,6 +14,7 @@ from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Calendar, Cor
                                   SignOff)
 from workbench.core.network import compile_plan
 
+from .cost_section import costs_to_dict, merge_costs, read_costs
 from .errors import PlanFileError
 from .fields import Fields
 from .plan_migrate import FORMAT, VERSION, upgrade
@@ -69,6 +70,7 @@ def plan_to_dict(plan: Plan) -> dict:
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
         "correlations": [{"name": c.name, "activities": list(c.activities),
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
+        "costs": costs_to_dict(plan),
     }
 
 
@@ -235,6 +237,9 @@ def plan_from_dict(data) -> Plan:
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    settings, per_activity = read_costs(top.raw("costs"), settings)
+    _core(settings.validated)
+    acts = [_core(a.validated) for a in merge_costs(acts, per_activity)] if per_activity else acts
     top.done()
     plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
     _core(lambda: compile_plan(plan))

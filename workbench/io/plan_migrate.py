@@ -24,6 +24,7 @@ from __future__ import annotations
 
 from workbench.core.errors import PlanError
 
+from .cost_section import add_empty_costs
 from .errors import PlanFileError
 from .fields import Fields, parse_iso_date, show
 from .predecessors import parse_predecessors
@@ -118,6 +119,8 @@ def upgrade_1_to_2(data: dict) -> dict:
 # One step per section that version 3 adds; each takes version-2 data (a dict) and returns
 # it with that section's empty form filled in.
 V3_STEPS: list = []
+
+V3_STEPS.append(add_empty_costs)     # the costs section (issue 15)
 
 
 def upgrade_2_to_3(data: dict) -> dict:

@@ -19,7 +19,8 @@ from .fields import parse_iso_date
 from .predecessors import parse_predecessors
 from .table_columns import Columns, map_header
 
-NUMBER_FIELDS = ("optimistic", "most_likely", "pessimistic", "duration")
+NUMBER_FIELDS = ("optimistic", "most_likely", "pessimistic", "duration",
+                 "cost", "crash_cost", "crash_optimistic", "crash_most_likely", "crash_pessimistic", "crash_duration")
 TEXT_FIELDS = ("name", "group", "notes")
 GUARDED = ("=", "+", "-", "@", "\t", "\r")
 DISTRIBUTION_ALIASES = {"pert": "beta-pert", "beta": "beta-pert", "betapert": "beta-pert", "tri": "triangular"}
