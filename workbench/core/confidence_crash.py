@@ -15,8 +15,9 @@ Why: exact for a fixed K, monotone, and it uses the same LP as the deterministic
 a greedy by criticality would need a polish by this very LP anyway.
 
 The in-sample chance of an optimised plan flatters it (the plan was fitted to those
-scenarios); the honest figure is the chance on a fresh, independent scenario set, with its
-standard error √(p(1−p)/N).
+scenarios), so the search aims one standard error above the target in sample
+(⌈(p + √(p(1−p)/N))·N⌉ scenarios); the honest figure is the chance on a fresh,
+independent scenario set, with its standard error √(p(1−p)/N).
 """
 
 from __future__ import annotations
@@ -31,6 +32,7 @@ from .crash_scenarios import MET
 from .montecarlo import SimulationCancelled
 
 ROUNDS = 8
+GUARD = 1.0          # standard errors aimed above the target in sample
 MARGIN = 1e-7        # the LP aims this far inside the deadline (its feasibility tolerance)
 
 
@@ -126,7 +128,8 @@ def _ticker(progress, cancel, total: int):
 def crash_to_confidence(problem, target: float, inside, outside, starts, progress=None, cancel=None) -> ConfidencePlan:
     """The cheapest crash whose in-sample chance (scenario set ``inside``) reaches ``target``;
     its chance on ``outside`` (an independent set) with the standard error."""
-    need = math.ceil(target * inside.iterations - 1e-9)
+    n = inside.iterations
+    need = min(n, math.ceil((target + GUARD * _se(target, n)) * n - 1e-9))
     search = _Search(problem, inside, _ticker(progress, cancel, 40))
     full = problem.span.copy()
     if np.sum(inside.finishes(full) <= inside.deadline + MET) < need:
