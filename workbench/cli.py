@@ -6,6 +6,7 @@
     slackline report PLAN -o pack.pdf [--paper a4|letter] [--iterations N] [--seed S]
     slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks]
     slackline export PLAN -o OUT.csv|OUT.xlsx
+    slackline tradeoff PLAN [--deadline N|YYYY-MM-DD] [--confidence P] [--iterations N] [--seed S] [--json]
 
 Exit codes: 0 success, 2 bad input (the message names the culprit), 1 an internal fault.
 """
@@ -26,6 +27,7 @@ VERBS = {
     "report": ("report", "write the approval pack (PDF)"),
     "import": ("import_table", "read a CSV/XLSX activity list into a .slw plan"),
     "export": ("export", "write the plan with its schedule to CSV/XLSX"),
+    "tradeoff": ("tradeoff", "what it costs to buy time: cost curve, crash to a date or a confidence"),
 }
 
 
