@@ -143,8 +143,7 @@ def test_lp_duality_and_complementary_slackness():
     bounds = problem.bounds()
     res = linprog(problem.objective(), A_ub=A, b_ub=b, bounds=bounds, method="highs")
     y, lo, up = res.ineqlin.marginals, res.lower.marginals, res.upper.marginals
-    lower = np.array([l for l, _ in bounds], float)
-    upper = np.array([np.inf if u is None else u for _, u in bounds], float)
+    lower, upper = bounds[:, 0], bounds[:, 1]
     dual = y @ b + lo @ lower + np.where(np.isfinite(upper), up * np.nan_to_num(upper, posinf=0), 0).sum()
     assert res.fun == pytest.approx(350.0) and dual == pytest.approx(res.fun, abs=1e-7)
     assert np.abs(y * (b - A @ res.x)).max() < 1e-7                  # complementary slackness

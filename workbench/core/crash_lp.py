@@ -81,10 +81,12 @@ class Solution:
     marginals: np.ndarray  # duals of the rows (≤ 0)
 
 
-def solve(rows: Rows, columns: int, objective, bounds, T: float, what: str = "the plan") -> Solution | None:
+def solve(rows: Rows, columns: int, objective, bounds, T: float, what: str = "the plan",
+          presolve: bool = True) -> Solution | None:
     """Minimise ``objective`` under ``rows`` with project duration T; None if infeasible."""
     A = sparse.csr_matrix((rows.val, (rows.row, rows.col)), shape=(rows.b.size, columns))
-    res = linprog(objective, A_ub=A, b_ub=rows.b + T * rows.t, bounds=bounds, method="highs")
+    res = linprog(objective, A_ub=A, b_ub=rows.b + T * rows.t, bounds=bounds, method="highs",
+                  options={"presolve": presolve})
     if res.status == 2:
         return None
     if res.status != 0:

@@ -56,8 +56,11 @@ class CrashProblem:
         x_col[self.crashable] = n + np.arange(k)
         return np.arange(n), x_col, n + k
 
-    def bounds(self) -> list:
-        return [(f, None) for f in self.floor] + [(0.0, s) for s in self.span[self.crashable]]
+    def bounds(self) -> np.ndarray:
+        k = self.crashable.size
+        lower = np.concatenate([self.floor, np.zeros(k)])
+        upper = np.concatenate([np.full(self.size, np.inf), self.span[self.crashable]])
+        return np.column_stack([lower, upper])
 
     def objective(self) -> np.ndarray:
         return np.concatenate([np.zeros(self.size), self.slope[self.crashable]])
@@ -92,7 +95,7 @@ class CrashProblem:
         extended = Rows(np.concatenate([rows.row, tied]), np.concatenate([rows.col, np.full(tied.size, ncol)]),
                         np.concatenate([rows.val, -np.ones(tied.size)]), rows.b, np.zeros_like(rows.t))
         objective = np.concatenate([np.zeros(ncol), [1.0]])
-        found = solve(extended, ncol + 1, objective, self.bounds() + [(None, None)], 0.0)
+        found = solve(extended, ncol + 1, objective, np.vstack([self.bounds(), [-np.inf, np.inf]]), 0.0)
         return min(float(found.values[-1]), self.normal_finish)
 
     def direct_cost(self, days: np.ndarray) -> float:
