@@ -98,8 +98,7 @@ def tradeoff(plan, deadline=None, targets=(), iterations: int = 2000, seed=None,
         raise PlanError(f"the deadline (offset {round_offset(dl):g}) cannot be met even with every activity fully "
                         f"crashed: the shortest the plan can finish is {round_offset(curve.shortest):g} "
                         f"{s.unit}", "deadline")
-    if targets:
-        _odds(result, point, targets, _check_iterations(iterations), _check_seed(seed), progress, cancel)
+    _odds(result, point, targets, _check_iterations(iterations), _check_seed(seed), progress, cancel)
     return result
 
 
@@ -115,10 +114,12 @@ def _odds(result: Tradeoff, point: Breakpoint, targets, iterations: int, seed: i
         if isinstance(t, bool) or not isinstance(t, (int, float)) or not 0.0 < t < 1.0:
             raise PlanError(f"confidence must lie between 0 and 1, not {t!r}", "confidence")
     result.seed, result.iterations = seed, iterations
-    inside = ScenarioSet(problem, iterations, seed, dl)
     outside = ScenarioSet(problem, iterations, seed + 1, dl)
     chance = outside.chance(point.days)
     result.to_deadline = DeadlinePlan(point, chance, math.sqrt(chance * (1 - chance) / iterations))
+    if not targets:
+        return
+    inside = ScenarioSet(problem, iterations, seed, dl)
     starts = [np.zeros(problem.size), point.days]
     steps = len(targets)
     for k, t in enumerate(targets):

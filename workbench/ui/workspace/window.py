@@ -31,6 +31,8 @@ VIEWS = (
      "The Odds view will appear here: the chance of finishing by any date."),
     ("Drivers", "workbench.ui.drivers.view", "DriversView",
      "The Drivers view will appear here: which activities drive the finish date."),
+    ("Trade-off", "workbench.ui.tradeoff.view", "TradeoffView",
+     "The Trade-off view will appear here: what it costs to buy time."),
 )
 STATE_VERSION = 1
 
