@@ -73,7 +73,7 @@ class TradeoffView(QWidget):
         head.addWidget(self.status, 1)
         self.axis = DateAxis()
         self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis)
-        self.chance_plot = _plot("Extra cost against the chance of the deadline", "extra cost", "chance (%)")
+        self.chance_plot = _plot("Extra cost vs chance of the deadline", "extra cost", "chance (%)")
         charts = QHBoxLayout()
         charts.addWidget(self.curve_plot, 3)
         charts.addWidget(self.chance_plot, 2)
@@ -97,7 +97,7 @@ class TradeoffView(QWidget):
         self.summary.setWordWrap(True)
         self.table = QTableWidget(0, 4)
         self.table.setHorizontalHeaderLabels(["id", "activity", "shortened by", "extra cost"])
-        self.table.horizontalHeader().setStretchLastSection(True)
+        self.table.horizontalHeader().setSectionResizeMode(1, self.table.horizontalHeader().ResizeMode.Stretch)
         self.table.setEditTriggers(QTableWidget.EditTrigger.NoEditTriggers)
         side = QVBoxLayout()
         for w in (QLabel("Option"), self.option, self.summary, self.apply):
