@@ -83,7 +83,8 @@ class Solution:
 
 def solve(rows: Rows, columns: int, objective, bounds, T: float, what: str = "the plan",
           presolve: bool = True) -> Solution | None:
-    """Minimise ``objective`` under ``rows`` with project duration T; None if infeasible."""
+    """Minimise ``objective`` under ``rows`` with project duration T; None if infeasible.
+    (The deterministic rows are lean already: there HiGHS's presolve costs more than it saves.)"""
     A = sparse.csr_matrix((rows.val, (rows.row, rows.col)), shape=(rows.b.size, columns))
     res = linprog(objective, A_ub=A, b_ub=rows.b + T * rows.t, bounds=bounds, method="highs",
                   options={"presolve": presolve})

@@ -81,7 +81,7 @@ class CrashProblem:
     def at(self, T: float) -> Solution | None:
         """The cheapest crash that finishes by T (None when T cannot be reached)."""
         _, _, ncol = self.columns()
-        return solve(self.rows(), ncol, self.objective(), self.bounds(), T)
+        return solve(self.rows(), ncol, self.objective(), self.bounds(), T, presolve=False)
 
     def shortest(self) -> float:
         """The shortest project duration any crash reaches (the links may make a fully

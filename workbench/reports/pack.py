@@ -26,6 +26,7 @@ from .footer import FooterInfo, PackCanvas, footer_drawer
 from .layout import LANDSCAPE, PORTRAIT, PackDocument, frame_size, new_page
 from .summary import summary
 from .tables import activity_table
+from .tradeoff_pages import tradeoff_pages
 
 
 @dataclass(frozen=True)
@@ -90,6 +91,7 @@ def story(ctx: PackContext, report) -> list:
     parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
     report(72)
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
+    parts += tradeoff_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(80)
     parts += new_page(PORTRAIT) + activity_table(ctx, portrait_w)
     parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)
