@@ -31,6 +31,6 @@ def test_chance_points_and_merging(result):
 def test_ticks_and_money():
     assert ftr.nice_ticks(0, 1.0e6, 6) == [0, 200000, 400000, 600000, 800000, 1000000]
     assert ftr.nice_ticks(3, 3) == [3]
-    assert [ftr.money(v) for v in (950, 12500, 1250000, -30000)] == ["950", "12.5k", "1.25M", "-30k"]
+    assert [ftr.money(v) for v in (950, 5000, 12500, 1250000, -30000)] == ["950", "5k", "12.5k", "1.25M", "-30k"]
     lo, hi = ftr.cost_span([0.0, 0.0])
     assert lo < 0 < hi

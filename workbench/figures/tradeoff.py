@@ -79,12 +79,12 @@ def cost_span(costs) -> tuple[float, float]:
 
 
 def money(value: float) -> str:
-    """Short money labels for axes: 950, 12.5k, 1.25M (no currency: the plan's own)."""
+    """Short money labels for axes: 950, 5k, 12.5k, 1.25M (no currency: the plan's own)."""
     v = abs(value)
     sign = "-" if value < 0 else ""
     if v >= 1e6:
         return f"{sign}{v / 1e6:.3g}M"
-    if v >= 1e4:
+    if v >= 1e3:
         return f"{sign}{v / 1e3:.3g}k"
     return f"{value:,.0f}"
 

@@ -32,14 +32,40 @@ class DateAxis(pg.AxisItem):
         return [self.calendar.finish_date(max(v, 0.0)).strftime("%d %b %Y") for v in values]
 
 
-def _plot(title: str, left: str, bottom: str, axis=None) -> pg.PlotWidget:
-    w = pg.PlotWidget(background="w", axisItems={"bottom": axis} if axis else None)
-    w.setTitle(title, color="#000000", size="14pt")
+class MoneyAxis(pg.AxisItem):
+    """Costs as 950, 12.5k, 1.25M (never in scientific notation)."""
+
+    def __init__(self, **kw):
+        super().__init__("left", **kw)
+        self.enableAutoSIPrefix(False)
+
+    def tickStrings(self, values, scale, spacing):  # noqa: N802 (Qt override)
+        return [ftr.money(v) for v in values]
+
+
+def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.PlotWidget:
+    axes = {"left": MoneyAxis()}
+    if axis is not None:
+        axes["bottom"] = axis
+    w = pg.PlotWidget(background="w", axisItems=axes)
+    w.setTitle(title, color="#000000", size="13pt")
     w.setLabel("left", left)
     w.setLabel("bottom", bottom)
     w.showGrid(x=True, y=True, alpha=0.2)
-    w.addLegend(offset=(10, 10), labelTextSize="11pt")
+    font = pg.QtGui.QFont()
+    font.setPointSize(11)
+    for side in ("left", "bottom"):
+        w.getAxis(side).setTickFont(font)
+        w.getAxis(side).setTextPen("#000000")
+    if legend is not None:
+        w.addLegend(offset=legend, labelTextSize="11pt", labelTextColor="#000000", brush=pg.mkBrush(255, 255, 255, 220))
     return w
+
+
+def _font(size: int):
+    font = pg.QtGui.QFont()
+    font.setPointSize(size)
+    return font
 
 
 class TradeoffView(QWidget):
@@ -72,8 +98,8 @@ class TradeoffView(QWidget):
             head.addWidget(w)
         head.addWidget(self.status, 1)
         self.axis = DateAxis()
-        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis)
-        self.chance_plot = _plot("Extra cost vs chance of the deadline", "extra cost", "chance (%)")
+        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(-10, -60))
+        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)")
         charts = QHBoxLayout()
         charts.addWidget(self.curve_plot, 3)
         charts.addWidget(self.chance_plot, 2)
@@ -176,28 +202,43 @@ class TradeoffView(QWidget):
             style = pg.mkPen(colour, width=width)
             p.plot(lines.durations, ys, pen=style, symbol="o", symbolSize=6, symbolBrush=colour, name=name)
         x, y = lines.optimum
-        p.plot([x], [y], pen=None, symbol="star", symbolSize=20, symbolBrush=ftr.OPTIMUM, name="optimum")
+        p.plot([x], [y], pen=None, symbol="star", symbolSize=22, symbolBrush=ftr.OPTIMUM, name="least total cost")
+        when = self.axis.calendar.finish_date(x).strftime("%d %b")
+        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(0.5, 1.3))
+        label.setFont(_font(11))
+        label.setPos(x, y)
+        p.addItem(label)
         if lines.deadline is not None:
             p.addItem(pg.InfiniteLine(lines.deadline, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=3, style=pg.QtCore.Qt.PenStyle.DashLine),
                                       label="deadline", labelOpts={"color": ftr.DEADLINE, "position": 0.95}))
 
     def _draw_chances(self, points) -> None:
         p = self.chance_plot
-        for pt in points:
-            symbol, colour = ("x", ftr.DEADLINE) if pt.textbook else ("o", ftr.CHANCE)
-            p.plot([100 * pt.chance], [pt.extra_cost], pen=None, symbol=symbol, symbolSize=16,
-                   symbolBrush=colour, symbolPen=pg.mkPen("#000000", width=1.5), name=pt.label)
-            bar = pg.ErrorBarItem(x=np.array([100 * pt.chance]), y=np.array([pt.extra_cost]),
-                                  width=np.array([200 * pt.standard_error]), pen="#000000")
-            p.addItem(bar)
-        p.setXRange(0, 100)
+        target = self.session.plan.settings.target_confidence
+        p.addItem(pg.InfiniteLine(100 * target, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=2, style=pg.QtCore.Qt.PenStyle.DotLine),
+                                  label=f"target {target:.0%}", labelOpts={"color": ftr.DEADLINE, "position": 0.3}))
+        for pt in ftr.merged(points):
+            symbol, colour = ("s", ftr.DEADLINE) if pt.textbook else ("o", ftr.CHANCE)
+            x = 100 * pt.chance
+            p.plot([x], [pt.extra_cost], pen=None, symbol=symbol, symbolSize=16,
+                   symbolBrush=colour, symbolPen=pg.mkPen("#000000", width=1.5))
+            p.addItem(pg.ErrorBarItem(x=np.array([x]), y=np.array([pt.extra_cost]),
+                                      width=np.array([200 * pt.standard_error]), pen="#000000"))
+            anchor = (-0.05, -0.1) if pt.textbook else (1.05, 1.1) if x > 55 else (-0.05, 1.1)
+            label = pg.TextItem("textbook crash" if pt.textbook else pt.label,
+                                color="#000000", anchor=anchor)
+            label.setFont(_font(11))
+            label.setPos(x, pt.extra_cost)
+            p.addItem(label)
+        p.setXRange(0, 100, padding=0.04)
+        p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
 
     # --- options -------------------------------------------------------------
     def _list_options(self) -> None:
         r = self.result
         if r.to_deadline is not None:
             d = r.to_deadline
-            self.options.append(("Crash the mean schedule to the deadline", d.point.days,
+            self.options.append(("Textbook: crash the mean schedule to the deadline", d.point.days,
                                  d.point.direct_cost - r.problem.base_cost, d.chance, d.standard_error))
         for c in r.confidence:
             if c.reachable:
