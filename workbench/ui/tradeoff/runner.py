@@ -25,16 +25,23 @@ class _Job(QRunnable):
         try:
             result = tradeoff(self.plan, progress=self._progress, cancel=self.stop.is_set, **self.kwargs)
         except SimulationCancelled:
-            self.signals.failed.emit(self.ticket, "")
+            self._emit("failed", self.ticket, "")
         except (PlanError, ValueError) as exc:
-            self.signals.failed.emit(self.ticket, str(exc))
+            self._emit("failed", self.ticket, str(exc))
         except Exception as exc:  # an engine bug must not take the window down
-            self.signals.failed.emit(self.ticket, f"trade-off failed: {type(exc).__name__}: {exc}")
+            self._emit("failed", self.ticket, f"trade-off failed: {type(exc).__name__}: {exc}")
         else:
-            self.signals.finished.emit(self.ticket, result)
+            self._emit("finished", self.ticket, result)
+
+    def _emit(self, name: str, *args) -> None:
+        """Report back, unless the window went away meanwhile (then nobody is listening)."""
+        try:
+            getattr(self.signals, name).emit(*args)
+        except RuntimeError:
+            self.stop.set()
 
     def _progress(self, done, total) -> None:
-        self.signals.progress.emit(self.ticket, int(done), int(total))
+        self._emit("progress", self.ticket, int(done), int(total))
 
 
 class TradeoffRunner(QObject):

@@ -10,6 +10,7 @@ from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QProgressBar, QPu
 
 from workbench.core.buy_time import BuyTimeCommand
 from workbench.core.calendar import WorkCalendar
+from workbench.core.crash_problem import has_cost_data
 from workbench.figures import tradeoff as ftr
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.tradeoff.runner import TradeoffRunner
@@ -143,6 +144,10 @@ class TradeoffView(QWidget):
         if self.session.analysis is None:
             self.status.setText("The plan cannot be scheduled; fix it in the Activities table.")
             return
+        if not has_cost_data(self.session.plan):
+            self.runner.stop()
+            self._on_failed("no cost data")
+            return
         self.runner.start(self.session.plan, **self._kwargs())
         self._set_running(True)
 
@@ -153,7 +158,7 @@ class TradeoffView(QWidget):
         self._set_running(True)
 
     def _set_running(self, running: bool) -> None:
-        self.find.setEnabled(not running)
+        self.find.setEnabled(not running and has_cost_data(self.session.plan))
         self.cancel.setEnabled(running)
         self.progress.setVisible(running)
         self.progress.setRange(0, 0)
@@ -180,6 +185,13 @@ class TradeoffView(QWidget):
                             + (f" Confidence plans from {result.iterations:,} scenarios, checked on as many "
                                f"fresh ones (seed {result.seed})." if result.confidence else ""))
         self._draw()
+
+    def finish_work(self) -> None:
+        """Wait for the worker and take its result (for screenshots and scripts)."""
+        from PySide6.QtCore import QCoreApplication
+
+        self.runner.wait()
+        QCoreApplication.processEvents()
 
     # --- drawing -------------------------------------------------------------
     def _draw(self) -> None:
