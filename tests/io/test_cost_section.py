@@ -6,7 +6,6 @@ from pathlib import Path
 import pytest
 
 from workbench.core.demo import demo_plan
-from workbench.core.model import BoughtTime
 from workbench.io.errors import PlanFileError, TableImportError
 from workbench.io.planfile import dumps, load_plan, loads, plan_to_dict
 from workbench.io.row_reader import rows_to_plan

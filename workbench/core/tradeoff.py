@@ -20,9 +20,6 @@ from .crash_scenarios import ScenarioSet
 from .errors import PlanError
 from .montecarlo import _check_iterations, _check_seed
 
-CHART_TARGETS = (0.5, 0.8, 0.9)
-
-
 @dataclass
 class DeadlinePlan:
     """The textbook answer: crash the PERT-mean schedule just to the deadline."""
@@ -58,12 +55,6 @@ class Tradeoff:
         return tradeoff_to_dict(self, target)
 
 
-def _optimum(curve: CostCurve, total) -> Breakpoint:
-    """The least total cost: at a breakpoint of the direct curve or at the deadline."""
-    candidates = list(curve.points)
-    return min(candidates, key=lambda p: (round(total(p.duration, p.direct_cost), 6), p.duration))
-
-
 def _with_deadline(curve: CostCurve, deadline: float | None) -> list[Breakpoint]:
     extra = curve.at(deadline) if deadline is not None else None
     return [extra] if extra is not None else []
@@ -89,6 +80,7 @@ def tradeoff(plan, deadline=None, targets=(), iterations: int = 2000, seed=None,
     dl = deadline_offset(plan, deadline)
     result = Tradeoff(problem, curve, indirect, late, dl, curve.points[-1])
     total = result.total_cost
+    # the total is convex and piecewise linear: least at a breakpoint or at the deadline
     result.optimum = min(curve.points + _with_deadline(curve, dl),
                          key=lambda p: (round(total(p.duration, p.direct_cost), 6), p.duration))
     if dl is None:
