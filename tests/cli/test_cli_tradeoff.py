@@ -72,3 +72,13 @@ def test_text_output_carries_the_caution(capsys):
     assert main(["tradeoff", str(DEMO), "--iterations", "128", "--seed", "2"]) == 0
     out = capsys.readouterr().out
     assert "Total-cost optimum" in out and "fresh simulation" in out and "Caution" in out
+
+
+def test_spreadsheet_plan_without_deadline_gives_the_curve_only(tmp_path, capsys):
+    plan = tmp_path / "costed.csv"
+    plan.write_text("id,duration,predecessors,cost,crash cost,crash duration\n"
+                    "A,10,,1000,1400,6\nB,8,,500,650,5\nC,5,A;B,800,1100,4\n", encoding="utf-8")
+    assert main(["tradeoff", str(plan), "--json"]) == 0
+    d = json.loads(capsys.readouterr().out)
+    assert [(p["duration"], p["direct_cost"]) for p in d["curve"]] == [(10, 3100), (11, 2800), (13, 2500), (15, 2300)]
+    assert d["to_deadline"] is None and d["to_confidence"] is None and d["deadline"] is None

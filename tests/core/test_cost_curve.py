@@ -58,11 +58,12 @@ def small_plans(draw, types=("FS", "SS", "FF", "SF")):
         d = draw(st.integers(1, 6))
         span = draw(st.integers(0, min(2, d)))
         cost = draw(st.integers(0, 50))
+        floor = draw(st.none() | st.integers(0, 4))          # a start-no-earlier constraint
         if span:
             acts.append(Activity(f"T{i}", duration=d, cost=cost, crash_cost=cost + span * draw(st.integers(1, 9)),
-                                 crash_duration=d - span))
+                                 crash_duration=d - span, start_no_earlier=floor))
         else:
-            acts.append(Activity(f"T{i}", duration=d, cost=cost))
+            acts.append(Activity(f"T{i}", duration=d, cost=cost, start_no_earlier=floor))
     links = []
     for j in range(1, n):
         for i in draw(st.sets(st.integers(0, j - 1), min_size=0, max_size=2)):

@@ -115,7 +115,7 @@ def cost_curve(plan=None, problem: CrashProblem | None = None) -> CostCurve:
         curve.points = [zero]
         return curve
     lo = _probe(problem, t_min, curve)
-    hi = _probe(problem, t_max, curve)
+    hi = _Probe(t_max, 0.0, 0.0, zero.days)    # nothing to buy there; 0 is a subgradient at T_max
     found: list[_Probe] = []
     _between(problem, lo, hi, curve, _tolerance(problem), found)
     probes = [lo] + sorted(found, key=lambda p: p.T)

@@ -244,6 +244,13 @@ class TradeoffView(QWidget):
             p.addItem(label)
         p.setXRange(0, 100, padding=0.04)
         p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
+        if not self.result.confidence:
+            hint = pg.TextItem("Find confidence plans: what a 50, 80 or 90 %\nchance of the deadline would cost",
+                               color="#555555", anchor=(0.5, 0.5))
+            hint.setFont(_font(12))
+            lo, hi = ftr.cost_span([q.extra_cost for q in points])
+            hint.setPos(50, lo + 0.6 * (hi - lo))
+            p.addItem(hint)
 
     # --- options -------------------------------------------------------------
     def _list_options(self) -> None:
@@ -276,7 +283,8 @@ class TradeoffView(QWidget):
             for col, text in enumerate(cells):
                 self.table.setItem(row, col, QTableWidgetItem(text))
         odds = "" if chance is None else f"; chance {chance:.1%} \u00b1 {se:.1%} (fresh simulation)"
-        self.summary.setText(f"{extra:,.0f} extra{odds}")
+        nothing = "" if crashed else " Nothing to buy: the mean schedule already meets this."
+        self.summary.setText(f"{extra:,.0f} extra{odds}.{nothing}")
         self.apply.setEnabled(bool(crashed))
 
     def apply_option(self) -> bool:

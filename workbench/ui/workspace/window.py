@@ -125,6 +125,7 @@ class MainWindow(QMainWindow):
             self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, dock)
         self.splitDockWidget(self.docks["Timeline"], self.docks["Odds"], Qt.Orientation.Horizontal)
         self.tabifyDockWidget(self.docks["Timeline"], self.docks["Network"])
+        self.tabifyDockWidget(self.docks["Network"], self.docks["Trade-off"])
         self.tabifyDockWidget(self.docks["Odds"], self.docks["Drivers"])
         self.tabifyDockWidget(self.docks["Drivers"], self.docks["History"])
         self.docks["Timeline"].raise_()
