@@ -54,3 +54,24 @@ def test_cancel_leaves_a_message(qtbot, view):
     view.runner.stop()
     qtbot.waitUntil(lambda: not view.runner.running, timeout=60000)
     assert "cancelled" in view.status.text()
+
+
+def test_a_deadline_no_crash_can_meet_clears_the_view_and_says_why(qtbot, view):
+    from dataclasses import replace
+
+    from workbench.core.commands import SetSettings
+
+    session = view.session
+    assert session.push(SetSettings(replace(session.plan.settings, deadline=60.0)))
+    qtbot.waitUntil(lambda: view.result is None, timeout=30000)
+    assert "cannot be met even with every activity fully crashed" in view.status.text()
+    assert view.option.count() == 0 and view.table.rowCount() == 0
+
+
+def test_plan_without_costs_says_what_to_add(qtbot):
+    from support.plans import house_plan
+
+    v = TradeoffView(Session(house_plan()))
+    qtbot.addWidget(v)
+    v.show()
+    assert "No cost data" in v.status.text() and not v.find.isEnabled()

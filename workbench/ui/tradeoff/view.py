@@ -168,12 +168,14 @@ class TradeoffView(QWidget):
         self.progress.setValue(done)
 
     def _on_failed(self, message: str) -> None:
+        """A cancelled search keeps what was shown; a refusal clears it and says why."""
         self._set_running(False)
-        self.status.setText(message or "Search cancelled; nothing changed.")
-        if message and "no cost data" in message:
-            self.status.setText(NO_COSTS)
-            self.result = None
-            self._draw()
+        if not message:
+            self.status.setText("Search cancelled; nothing changed.")
+            return
+        self.status.setText(NO_COSTS if "no cost data" in message else message[:1].upper() + message[1:] + ".")
+        self.result = None
+        self._draw()
 
     def _on_result(self, result) -> None:
         self._set_running(False)
@@ -183,7 +185,10 @@ class TradeoffView(QWidget):
         self.status.setText(f"Shortest reachable {result.curve.shortest:.1f} {unit}, all-normal "
                             f"{result.curve.normal:.1f}; total-cost optimum {o.duration:.1f} {unit}."
                             + (f" Confidence plans from {result.iterations:,} scenarios, checked on as many "
-                               f"fresh ones (seed {result.seed})." if result.confidence else ""))
+                               f"fresh ones (seed {result.seed})." if result.confidence else "")
+                            + (" No deadline is set: give the plan one (Plan settings) to see the odds and "
+                               "the confidence plans." if result.deadline is None else ""))
+        self.find.setEnabled(result.deadline is not None)
         self._draw()
 
     def finish_work(self) -> None:
