@@ -152,3 +152,16 @@ def test_lp_duality_and_complementary_slackness():
     assert y @ rows.t == pytest.approx(-150.0)                      # dC/dT on that segment
     reduced = problem.objective() - A.T @ y - lo - up                 # dual feasibility
     assert np.abs(reduced).max() < 1e-7
+
+
+def test_free_crash_is_bought_only_where_it_helps():
+    """A crash costing nothing extra (crash cost = cost) is still not bought when not needed."""
+    from workbench.core.tradeoff import tradeoff
+
+    plan = hand_plan()
+    plan.replace_activity("A", plan.activity("A").with_(crash_cost=1000.0))
+    result = tradeoff(plan, deadline=40.0, targets=[0.9], iterations=64, seed=1)
+    assert result.to_deadline.point.days.sum() == 0 and not result.confidence[0].days.any()
+    curve = result.curve
+    assert [(p.duration, p.direct_cost) for p in curve.points][-2:] == [(13, 2300), (15, 2300)]
+    assert curve.crashed(curve.points[-2]) == {"A": 2.0}

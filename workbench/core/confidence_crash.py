@@ -57,7 +57,7 @@ class _Search:
         n, k = problem.size, problem.crashable.size
         self.x_col = np.full(n, -1, dtype=np.int64)
         self.x_col[problem.crashable] = np.arange(k)
-        self.objective_x = problem.slope[problem.crashable]
+        self.objective_x = problem.crash_prices()
         self.T = scenarios.deadline - MARGIN * max(1.0, abs(scenarios.deadline))
 
     def lp(self, which: list[int]) -> np.ndarray | None:

@@ -16,7 +16,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from .calendar import round_offset
+from .crash_lp import shown
 from .crash_problem import FEASIBLE_SLACK, CrashProblem
 
 MAX_SOLVES = 20_000
@@ -53,7 +53,7 @@ class CostCurve:
 
     def crashed(self, point: Breakpoint) -> dict[str, float]:
         ids = self.problem.ids
-        return {ids[i]: round_offset(point.days[i]) for i in np.flatnonzero(point.days > 1e-9)}
+        return {ids[i]: shown(point.days[i]) for i in np.flatnonzero(point.days > 1e-9)}
 
     def at(self, T: float) -> Breakpoint | None:
         """The cheapest crash finishing by T: on a segment, the blend of its ends; past the
@@ -119,5 +119,5 @@ def cost_curve(plan=None, problem: CrashProblem | None = None) -> CostCurve:
     found: list[_Probe] = []
     _between(problem, lo, hi, curve, _tolerance(problem), found)
     probes = [lo] + sorted(found, key=lambda p: p.T)
-    curve.points = [Breakpoint(p.T, problem.base_cost + p.extra, p.days) for p in probes] + [zero]
+    curve.points = [Breakpoint(p.T, problem.direct_cost(p.days), p.days) for p in probes] + [zero]
     return curve

@@ -24,6 +24,13 @@ from scipy.optimize import linprog
 from .errors import PlanError
 
 
+def shown(value: float) -> float:
+    """A duration or amount from the LP as reported: to a millionth of a plan unit (the
+    solver's tolerances make the digits beyond noise)."""
+    r = round(float(value), 6)
+    return 0.0 if r == 0 else r
+
+
 @dataclass
 class Rows:
     """Sparse rows A·v ≤ b + T·t over the columns of one problem."""

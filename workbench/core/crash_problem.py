@@ -13,6 +13,7 @@ from .crash_terms import cost_slope, crash_range
 from .errors import PlanError
 from .network import compile_plan
 
+TIE_BREAK = 1e-9
 FEASIBLE_SLACK = 1e-9   # relative: durations within this of the shortest count as reachable
 
 
@@ -62,8 +63,15 @@ class CrashProblem:
         upper = np.concatenate([np.full(self.size, np.inf), self.span[self.crashable]])
         return np.column_stack([lower, upper])
 
+    def crash_prices(self) -> np.ndarray:
+        """The LP's price per unit bought of each crashable activity: its cost slope, and
+        for a free crash (crash cost = normal cost) a billionth of the dearest slope, so
+        the LP does not buy free days it does not need."""
+        slopes = self.slope[self.crashable]
+        return np.where(slopes > 0, slopes, TIE_BREAK * max(1.0, float(slopes.max(initial=0.0))))
+
     def objective(self) -> np.ndarray:
-        return np.concatenate([np.zeros(self.size), self.slope[self.crashable]])
+        return np.concatenate([np.zeros(self.size), self.crash_prices()])
 
     def rows(self) -> Rows:
         if self._rows is None:

@@ -13,6 +13,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from .calendar import round_offset
+from .crash_lp import shown
 from .confidence_crash import ConfidencePlan, crash_to_confidence
 from .cost_curve import Breakpoint, CostCurve, cost_curve
 from .crash_problem import CrashProblem
@@ -48,7 +49,7 @@ class Tradeoff:
 
     def crashed(self, days: np.ndarray) -> dict[str, float]:
         ids = self.problem.ids
-        return {ids[i]: round_offset(days[i]) for i in np.flatnonzero(days > 1e-6)}
+        return {ids[i]: shown(days[i]) for i in np.flatnonzero(days > 1e-6)}
 
     def to_dict(self, target: float | None = None) -> dict:
         from .tradeoff_json import tradeoff_to_dict
@@ -88,7 +89,7 @@ def tradeoff(plan, deadline=None, targets=(), iterations: int = 2000, seed=None,
     point = curve.at(dl)
     if point is None:
         raise PlanError(f"the deadline (offset {round_offset(dl):g}) cannot be met even with every activity fully "
-                        f"crashed: the shortest the plan can finish is {round_offset(curve.shortest):g} "
+                        f"crashed: the shortest the plan can finish is {shown(curve.shortest):g} "
                         f"{s.unit}", "deadline")
     _odds(result, point, targets, _check_iterations(iterations), _check_seed(seed), progress, cancel)
     return result

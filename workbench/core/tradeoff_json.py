@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 
 from .calendar import round_offset
+from .crash_lp import shown
 
 
 def _money(value: float) -> float:
@@ -37,9 +38,9 @@ def tradeoff_to_dict(result, target: float | None = None) -> dict:
         "deadline": None if result.deadline is None else round_offset(result.deadline),
         "unit": result.problem.plan.settings.unit,
         "indirect_cost": result.indirect_cost, "penalty": result.penalty,
-        "curve": [{"duration": round_offset(p.duration), "direct_cost": _money(p.direct_cost),
+        "curve": [{"duration": shown(p.duration), "direct_cost": _money(p.direct_cost),
                    "crashed": curve.crashed(p)} for p in curve.points],
-        "optimum": {"duration": round_offset(o.duration), "direct_cost": _money(o.direct_cost),
+        "optimum": {"duration": shown(o.duration), "direct_cost": _money(o.direct_cost),
                     "indirect_cost": _money(result.indirect_cost * o.duration),
                     "total_cost": _money(result.total_cost(o.duration, o.direct_cost))},
         "to_deadline": None, "to_confidence": None,
