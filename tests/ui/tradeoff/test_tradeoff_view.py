@@ -75,3 +75,18 @@ def test_plan_without_costs_says_what_to_add(qtbot):
     qtbot.addWidget(v)
     v.show()
     assert "No cost data" in v.status.text() and not v.find.isEnabled()
+
+
+def test_indirect_cost_is_edited_here_as_one_undo_step(qtbot, view):
+    session = view.session
+    edit = view.costs.edits["indirect_cost"]
+    assert edit.text() == "2,400"
+    edit.setText("5,000")
+    assert view.costs.commit("indirect_cost")
+    assert session.plan.settings.indirect_cost == 5000
+    qtbot.waitUntil(lambda: view.result is not None and view.result.indirect_cost == 5000, timeout=30000)
+    edit.setText("-3")
+    assert not view.costs.commit("indirect_cost") and "at least 0" in session.last_refusal
+    assert edit.text() == "5,000"
+    session.undo_stack.undo()
+    assert session.plan.settings.indirect_cost == 2400

@@ -13,6 +13,7 @@ from workbench.core.calendar import WorkCalendar
 from workbench.core.crash_problem import has_cost_data
 from workbench.figures import tradeoff as ftr
 from workbench.ui.session import refresh_when_shown
+from workbench.ui.tradeoff.cost_settings import CostSettings
 from workbench.ui.tradeoff.runner import TradeoffRunner
 
 CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
@@ -126,8 +127,9 @@ class TradeoffView(QWidget):
         self.table.setHorizontalHeaderLabels(["id", "activity", "shortened by", "extra cost"])
         self.table.horizontalHeader().setSectionResizeMode(1, self.table.horizontalHeader().ResizeMode.Stretch)
         self.table.setEditTriggers(QTableWidget.EditTrigger.NoEditTriggers)
+        self.costs = CostSettings(self.session)
         side = QVBoxLayout()
-        for w in (QLabel("Option"), self.option, self.summary, self.apply):
+        for w in (self.costs, QLabel("Option"), self.option, self.summary, self.apply):
             side.addWidget(w)
         side.addStretch(1)
         row = QHBoxLayout()
@@ -141,6 +143,7 @@ class TradeoffView(QWidget):
 
     def refresh(self) -> None:
         """The curve and the crash to the deadline (fast); confidence plans on request."""
+        self.costs.show_settings()
         if self.session.analysis is None:
             self.status.setText("The plan cannot be scheduled; fix it in the Activities table.")
             return
