@@ -90,3 +90,13 @@ def test_indirect_cost_is_edited_here_as_one_undo_step(qtbot, view):
     assert edit.text() == "5,000"
     session.undo_stack.undo()
     assert session.plan.settings.indirect_cost == 2400
+
+
+def test_clicking_a_crash_row_selects_the_activity(qtbot, view):
+    view.iterations.setValue(300)
+    view.search()
+    qtbot.waitUntil(lambda: not view.runner.running, timeout=60000)
+    view.option.setCurrentIndex(view.option.count() - 2)        # the last confidence plan
+    assert view.table.rowCount() > 0
+    view.table.selectRow(0)
+    assert view.session.selected() == [view.table.item(0, 0).text()]

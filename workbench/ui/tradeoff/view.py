@@ -127,6 +127,8 @@ class TradeoffView(QWidget):
         self.table.setHorizontalHeaderLabels(["id", "activity", "shortened by", "extra cost"])
         self.table.horizontalHeader().setSectionResizeMode(1, self.table.horizontalHeader().ResizeMode.Stretch)
         self.table.setEditTriggers(QTableWidget.EditTrigger.NoEditTriggers)
+        self.table.setSelectionBehavior(QTableWidget.SelectionBehavior.SelectRows)
+        self.table.itemSelectionChanged.connect(self._select_in_views)
         self.costs = CostSettings(self.session)
         side = QVBoxLayout()
         for w in (self.costs, QLabel("Option"), self.option, self.summary, self.apply):
@@ -294,6 +296,12 @@ class TradeoffView(QWidget):
         nothing = "" if crashed else " Nothing to buy: the mean schedule already meets this."
         self.summary.setText(f"{extra:,.0f} extra{odds}.{nothing}")
         self.apply.setEnabled(bool(crashed))
+
+    def _select_in_views(self) -> None:
+        rows = sorted({i.row() for i in self.table.selectedItems()})
+        ids = [self.table.item(r, 0).text() for r in rows if self.table.item(r, 0) is not None]
+        if ids:
+            self.session.select(ids)
 
     def apply_option(self) -> bool:
         i = self.option.currentIndex()
