@@ -7,6 +7,7 @@
     slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks]
     slackline export PLAN -o OUT.csv|OUT.xlsx
     slackline tradeoff PLAN [--deadline N|YYYY-MM-DD] [--confidence P] [--iterations N] [--seed S] [--json]
+    slackline check PLAN [--json] [--strict] [--iterations N] [--seed S]
 
 Exit codes: 0 success, 2 bad input (the message names the culprit), 1 an internal fault.
 """
@@ -28,6 +29,8 @@ VERBS = {
     "import": ("import_table", "read a CSV/XLSX activity list into a .slw plan"),
     "export": ("export", "write the plan with its schedule to CSV/XLSX"),
     "tradeoff": ("tradeoff", "what it costs to buy time: cost curve, crash to a date or a confidence"),
+    "check": ("check", "Checkup: grade the schedule's soundness (exit 1 with --strict when a check fails)"),
+    "level": ("level", "level resources: a schedule within every resource's units"),
 }
 
 

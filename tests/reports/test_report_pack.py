@@ -19,7 +19,7 @@ from workbench.io.planfile import plan_hash
 from workbench.reports.pack import build_pack
 
 WHEN = dt.datetime(2027, 2, 23, 9, 30, tzinfo=dt.timezone.utc)
-SECTIONS = ["Cover", "Summary", "Timeline", "Network", "Odds", "S-curve", "Drivers", "Activities",
+SECTIONS = ["Cover", "Summary", "Checkup", "Timeline", "Network", "Odds", "S-curve", "Drivers", "Activities",
             "Assumptions and cautions"]
 
 

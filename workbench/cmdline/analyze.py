@@ -21,7 +21,13 @@ def run(args) -> int:
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
     result = analyze(plan, deadline=deadline)
     if args.json:
-        write_json(result.to_dict())
+        data = result.to_dict()
+        if plan.resources:
+            from ..core.loading import plan_loading
+            cal = result.calendar
+            span = lambda a, b: (cal.start_date(a).isoformat(), cal.finish_date(b).isoformat())
+            data["resources"] = {l.resource: l.to_dict(span) for l in plan_loading(result)}
+        write_json(data)
     else:
         print(render_analysis(result))
     return 0

@@ -14,6 +14,8 @@ def add_arguments(p) -> None:
     p.add_argument("-o", "--output", required=True, metavar="PLAN.slw")
     p.add_argument("--start", metavar="YYYY-MM-DD")
     p.add_argument("--unit", choices=("days", "weeks"), default="days")
+    p.add_argument("--resources", metavar="RES.csv",
+                   help="the resources (columns id, name, units, cost) for a CSV's 'resources' column")
 
 
 def run(args) -> int:
@@ -36,8 +38,16 @@ def run(args) -> int:
             settings.start = dt.date.fromisoformat(args.start)
         except ValueError:
             raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
-    plan = read_table(src, settings=settings)
+    resources = None
+    if args.resources:
+        from ..io.tabular import read_resource_file
+        res = Path(args.resources)
+        if not res.is_file():
+            raise PlanError(f"--resources {args.resources}: no such file", "--resources")
+        resources = read_resource_file(res)
+    plan = read_table(src, settings=settings, resources=resources)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything
     save_plan(plan, args.output)
-    print(f"imported {len(plan)} activities and {len(plan.links)} links into {args.output}")
+    extra = f" and {len(plan.resources)} resources" if plan.resources else ""
+    print(f"imported {len(plan)} activities, {len(plan.links)} links{extra} into {args.output}")
     return 0

@@ -17,6 +17,8 @@ def add_arguments(p) -> None:
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
     p.add_argument("--distribution", choices=DISTRIBUTION_CHOICES, default=None)
     p.add_argument("--json", action="store_true")
+    p.add_argument("--resources", action="store_true",
+                   help="schedule every iteration with the plan's resources (levelled order)")
 
 
 def run(args) -> int:
@@ -30,7 +32,7 @@ def run(args) -> int:
         def progress(done, total):
             print(f"\rsimulating {done}/{total}", end="", file=sys.stderr, flush=True)
     result = simulate(plan, args.iterations, args.seed, distribution=args.distribution,
-                      deadline=deadline, progress=progress)
+                      deadline=deadline, progress=progress, resources=args.resources)
     if progress:
         print(file=sys.stderr)
     data = result.to_dict()
@@ -43,9 +45,12 @@ def run(args) -> int:
 
 def render_simulation(plan, data: dict) -> str:
     unit = plan.settings.unit
-    out = [f"{plan.settings.title}: {data['iterations']} iterations, seed {data['seed']}", ""]
+    mode = ", resource-aware (crews hold work back in every iteration)" if data.get("resource_aware") else ""
+    out = [f"{plan.settings.title}: {data['iterations']} iterations, seed {data['seed']}{mode}", ""]
     out.append(f"Mean finish    {num(data['mean'])} {unit} (sd {num(data['sd'], 3)}); "
-               f"PERT mean {num(data.get('pert_mean', float('nan')))}; merge bias {num(data['merge_bias'], 3)} {unit}")
+               f"PERT mean {num(data.get('pert_mean', float('nan')))}; "
+               + (f"later by {num(data['merge_bias'], 3)} {unit} (merging paths and crews)" if data.get("resource_aware")
+                  else f"merge bias {num(data['merge_bias'], 3)} {unit}"))
     dates = data.get("percentile_dates", {})
     for key in ("P10", "P50", "P80", "P90"):
         if key in data["percentiles"]:

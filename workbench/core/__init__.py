@@ -8,12 +8,12 @@ from .calendar import WorkCalendar, public_holidays
 from .cpm import Analyzer, Schedule
 from .errors import CycleError, PlanError
 from .model import (DISTRIBUTIONS, LINK_TYPES, Activity, Calendar, CorrelationGroup, Link, Plan,
-                    Risk, Settings, SignOff)
+                    Availability, Resource, Risk, Settings, SignOff)
 from .network import Network, compile_network, compile_plan
 from .pert import PertOdds
 
 __all__ = [
-    "Activity", "Analysis", "Analyzer", "Calendar", "CorrelationGroup", "CycleError", "DISTRIBUTIONS",
+    "Activity", "Analysis", "Availability", "Resource", "Analyzer", "Calendar", "CorrelationGroup", "CycleError", "DISTRIBUTIONS",
     "LINK_TYPES", "Link", "Network", "PertOdds", "Plan", "PlanError", "Risk", "Schedule", "Settings",
     "SignOff", "WorkCalendar", "analyze", "compile_network", "compile_plan", "moments", "public_holidays",
 ]

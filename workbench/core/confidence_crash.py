@@ -16,7 +16,7 @@ a greedy by criticality would need a polish by this very LP anyway.
 
 The in-sample chance of an optimised plan flatters it (the plan was fitted to those
 scenarios), so the search aims one standard error above the target in sample
-(⌈(p + √(p(1−p)/N))·N⌉ scenarios); the honest figure is the chance on a fresh,
+(⌈(p + √(p(1−p)/N))·N⌉ scenarios, or as many as full crashing meets if fewer); the honest figure is the chance on a fresh,
 independent scenario set, with its standard error √(p(1−p)/N).
 """
 
@@ -129,10 +129,11 @@ def crash_to_confidence(problem, target: float, inside, outside, starts, progres
     """The cheapest crash whose in-sample chance (scenario set ``inside``) reaches ``target``;
     its chance on ``outside`` (an independent set) with the standard error."""
     n = inside.iterations
-    need = min(n, math.ceil((target + GUARD * _se(target, n)) * n - 1e-9))
+    reachable = int(np.sum(inside.finishes(problem.span) <= inside.deadline + MET))
+    need = min(reachable, n, math.ceil((target + GUARD * _se(target, n)) * n - 1e-9))
     search = _Search(problem, inside, _ticker(progress, cancel, 40))
     full = problem.span.copy()
-    if np.sum(inside.finishes(full) <= inside.deadline + MET) < need:
+    if reachable < math.ceil(target * n - 1e-9):
         return ConfidencePlan(target, None, math.nan, inside.chance(full), outside.chance(full),
                               _se(outside.chance(full), outside.iterations), search.solves)
     found = [d for d in (search.run(s, need) for s in starts) if d is not None]

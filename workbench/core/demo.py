@@ -2,7 +2,8 @@
 
 Forty-odd activities in seven groups, all four link types, lags (one negative), a
 regional holiday calendar stored as dates, a committed opening date a little after the
-PERT finish, sign-off names, one risk event and one correlation group. Three streams of
+PERT finish, sign-off names, one risk event and one correlation group, and four crews whose limits
+make levelling hold a few activities back. Three streams of
 work (the building and its services, the X-ray unit on a long delivery, the new staff)
 run side by side and merge only at the inspection near the end, so a simulation's mean
 finish sits visibly above the single-path PERT mean.
@@ -16,7 +17,7 @@ from __future__ import annotations
 import datetime as dt
 
 from .calendar import public_holidays
-from .model import Activity, Calendar, CorrelationGroup, Link, Plan, Risk, Settings, SignOff
+from .model import Activity, Calendar, CorrelationGroup, Link, Plan, Resource, Risk, Settings, SignOff
 
 REGION = "GB-ENG"
 START = dt.date(2027, 3, 1)
@@ -106,6 +107,21 @@ COSTS = {
 INDIRECT_PER_DAY = 2400.0      # site management, the project office, the temporary clinic's lease
 LATE_PER_DAY = 3000.0          # running the temporary clinic past the committed opening
 
+# The crews: how many of each the contractor has on site, and who needs how many.
+RESOURCES = [
+    Resource("elec", "Electricians", 4.0),
+    Resource("plumb", "Plumbers and gas fitters", 3.0),
+    Resource("joiner", "Joiners and ceiling fixers", 6.0),
+    Resource("hoist", "Hoist and lifting crew", 1.0),
+]
+NEEDS = {
+    "B3": (("hoist", 1.0), ("joiner", 2.0)), "B4": (("joiner", 4.0),), "B5": (("joiner", 2.0),),
+    "B6": (("joiner", 2.0),), "B7": (("hoist", 1.0),), "B8": (("joiner", 2.0),),
+    "S1": (("elec", 3.0),), "S2": (("plumb", 3.0),), "S4": (("elec", 3.0),), "S5": (("plumb", 2.0),),
+    "S6": (("elec", 1.0),), "I1": (("elec", 2.0),), "I3": (("elec", 2.0),), "E4": (("joiner", 2.0),),
+    "E7": (("joiner", 2.0),),
+}
+
 SIGN_OFF = [
     SignOff("Priya Natarajan", "Director of Clinical Services"),
     SignOff("Tomasz Wren", "Estates and Facilities Manager"),
@@ -115,11 +131,12 @@ SIGN_OFF = [
 
 def _activity(row) -> Activity:
     act_id, name, group, estimate = row
+    needs = NEEDS.get(act_id, ())
     if isinstance(estimate, tuple):
         a, m, b = (float(x) for x in estimate)
-        act = Activity(act_id, name, group, optimistic=a, most_likely=m, pessimistic=b)
+        act = Activity(act_id, name, group, optimistic=a, most_likely=m, pessimistic=b, resources=needs)
     else:
-        act = Activity(act_id, name, group, duration=float(estimate))
+        act = Activity(act_id, name, group, duration=float(estimate), resources=needs)
     return _costed(act)
 
 
@@ -154,4 +171,4 @@ def demo_plan() -> Plan:
     risks = [Risk("R1", "Asbestos found behind the banking-hall panelling", 0.2, 5.0, 10.0, 20.0, ("B2",))]
     together = [CorrelationGroup("Fit-out contractor's productivity", ("B3", "B4", "B5", "B6"), 0.5)]
     return Plan(demo_settings(), [_activity(r) for r in ACTIVITIES], [_link(r) for r in LINKS],
-                risks, together)
+                risks, together, resources=RESOURCES)

@@ -48,6 +48,22 @@ def check_id(act_id) -> str:
                         f"use at most {MAX_ID_LENGTH}", act_id[:MAX_ID_LENGTH])
     return act_id
 
+def check_demands(act: "Activity") -> None:
+    """An activity's resource needs: (resource id, units) pairs, each id once, units a
+    finite number ≥ 0. Whether the resource exists is the plan's check."""
+    seen = set()
+    for item in act.resources:
+        if not (isinstance(item, tuple) and len(item) == 2 and isinstance(item[0], str) and item[0].strip()):
+            raise PlanError(f"activity {act.id}: a resource need must be a resource id and its units, not {item!r}", act.id)
+        res, units = item
+        if res in seen:
+            raise PlanError(f"activity {act.id}: resource {res!r} is listed twice", act.id)
+        seen.add(res)
+        units = _check_number(units, act.id, f"units of resource {res}", allow_none=False)
+        if units < 0:
+            raise PlanError(f"activity {act.id}: units of resource {res} must not be negative ({units:g})", act.id)
+
+
 Offset = float | dt.date  # a constraint or deadline: plan-unit offset or a calendar date
 
 
@@ -82,6 +98,7 @@ class Activity:
     distribution: str | None = None  # None: the plan's default
     start_no_earlier: Offset | None = None
     finish_no_later: Offset | None = None
+    resources: tuple[tuple[str, float], ...] = ()  # (resource id, units) needed for the whole duration
     # costs and the fastest achievable estimate (see core/crash_terms.py)
     cost: float | None = None
     crash_cost: float | None = None
@@ -95,7 +112,7 @@ class Activity:
         i, a, m, b, d = self.id, self.optimistic, self.most_likely, self.pessimistic, self.duration
         if type(i) is not str or not i or len(i) > MAX_ID_LENGTH or _BAD_ID.search(i):
             return False
-        if self.start_no_earlier is not None or self.finish_no_later is not None:
+        if self.start_no_earlier is not None or self.finish_no_later is not None or self.resources:
             return False
         if self.cost is not None or self.crash_cost is not None or self.has_crash:
             return False
@@ -139,6 +156,7 @@ class Activity:
                 _check_number(v, self.id, name.replace("_", " "))
         from .crash_terms import check_costs
         check_costs(self)
+        check_demands(self)
         return self
 
     @property
@@ -290,6 +308,47 @@ class CorrelationGroup:
     coefficient: float
 
 
+@dataclass(frozen=True)
+class Availability:
+    """A period [start, end) in which a resource has ``units`` available instead of its usual
+    number (a crew on leave, a second crane hired). Ends are offsets or dates."""
+
+    start: Offset
+    end: Offset
+    units: float
+
+
+@dataclass(frozen=True)
+class Resource:
+    """A crew, machine or rig that activities need: ``units`` available at any time (unless a
+    period says otherwise), optionally a cost per unit per plan unit."""
+
+    id: str
+    name: str = ""
+    units: float = 1.0
+    cost: float | None = None
+    periods: tuple[Availability, ...] = ()
+
+    def validated(self) -> "Resource":
+        owner = f"resource {self.id}"
+        if not isinstance(self.id, str) or not self.id.strip() or _BAD_ID.search(self.id) or len(self.id) > MAX_ID_LENGTH:
+            raise PlanError(f"resource id {self.id!r} must be 1–{MAX_ID_LENGTH} characters without spaces, ';' or ','", "resource")
+        units = _check_number(self.units, owner, "units", allow_none=False)
+        if units < 0:
+            raise PlanError(f"{owner}: units must not be negative ({units:g})", self.id)
+        if self.cost is not None and _check_number(self.cost, owner, "cost") < 0:
+            raise PlanError(f"{owner}: cost must not be negative ({self.cost:g})", self.id)
+        for p in self.periods:
+            if _check_number(p.units, owner, "units of an availability period", allow_none=False) < 0:
+                raise PlanError(f"{owner}: an availability period's units must not be negative ({p.units:g})", self.id)
+        return self
+
+    @property
+    def most_units(self) -> float:
+        """The most units this resource ever has."""
+        return max([self.units] + [p.units for p in self.periods])
+
+
 Listener = Callable[[str, dict], None]
 
 
@@ -304,7 +363,8 @@ class Plan:
 
     def __init__(self, settings: Settings | None = None, activities: Iterable[Activity] = (),
                  links: Iterable[Link] = (), risks: Iterable[Risk] = (),
-                 correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False):
+                 correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False,
+                 resources: Iterable[Resource] = ()):
         """``validated=True``: the caller (a file reader) has validated every activity and
         link already; only duplicate ids and link ends are checked again."""
         self.settings = settings or Settings()
@@ -313,6 +373,8 @@ class Plan:
         self.links: list[Link] = []
         self.risks: list[Risk] = list(risks)
         self.correlations: list[CorrelationGroup] = list(correlations)
+        self.checkup_thresholds: dict[str, float] = {}   # Checkup thresholds this plan changed
+        self.resources: list[Resource] = [r.validated() for r in resources]
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         for act in activities:
@@ -327,6 +389,8 @@ class Plan:
             for link in links:
                 self._check_link(link)
                 self.links.append(link)
+
+        self._check_all_demands()
 
     # --- reading -------------------------------------------------------
     @property
@@ -385,8 +449,51 @@ class Plan:
             if end not in self._index:
                 raise PlanError(f"link {link.pred} \u2192 {link.succ}: unknown activity {end!r}", link.succ if end == link.pred else end)
 
+    def resource(self, res_id: str) -> Resource:
+        for r in self.resources:
+            if r.id == res_id:
+                return r
+        raise PlanError(f"no resource with id {res_id!r}", res_id)
+
+    def _check_demand(self, act: Activity) -> None:
+        """Each resource an activity needs exists and can ever supply the units asked for."""
+        if not act.resources:
+            return
+        known = {r.id: r for r in self.resources}
+        for res, units in act.resources:
+            if res not in known:
+                raise PlanError(f"activity {act.id}: unknown resource {res!r}"
+                                + (f" (resources: {', '.join(sorted(known))})" if known else " (the plan has no resources)"), act.id)
+            most = known[res].most_units
+            if units > most:
+                raise PlanError(f"activity {act.id}: needs {units:g} units of {res} but at most {most:g} ever exist; "
+                                f"it could never be scheduled", act.id)
+
+    def _check_all_demands(self) -> None:
+        ids = [r.id for r in self.resources]
+        if len(set(ids)) != len(ids):
+            dup = next(i for i in ids if ids.count(i) > 1)
+            raise PlanError(f"duplicate resource id {dup!r}", dup)
+        for act in self._activities:
+            if act.resources:
+                self._check_demand(act)
+
+    def set_resources(self, resources: list[Resource]) -> list[Resource]:
+        """Replace the plan's resources (checked against every activity's needs first)."""
+        new, old = [r.validated() for r in resources], self.resources
+        self.resources = new
+        try:
+            self._check_all_demands()
+        finally:
+            self.resources = old
+        self._emit("about_to_change", kind="settings_changed")
+        self.resources = new
+        self._emit("changed", kind="settings_changed")
+        return old
+
     def insert_activity(self, row: int, act: Activity) -> None:
         act.validated()
+        self._check_demand(act)
         if act.id in self._index:
             raise PlanError(f"duplicate activity id {act.id!r}", act.id)
         row = max(0, min(row, len(self._activities)))
@@ -417,6 +524,7 @@ class Plan:
     def replace_activity(self, act_id: str, new: Activity) -> Activity:
         """Replace an activity (possibly renaming it: links follow the new id)."""
         new.validated()
+        self._check_demand(new)
         row = self.row_of(act_id)
         if new.id != act_id and new.id in self._index:
             raise PlanError(f"duplicate activity id {new.id!r}", new.id)
@@ -453,6 +561,17 @@ class Plan:
         self._emit("changed", kind="settings_changed")
         return old
 
+    def set_checkup_thresholds(self, values: dict[str, float]) -> dict[str, float]:
+        """Replace the plan's own Checkup thresholds (validated; see core.checkup_limits);
+        return the old ones. Announced as a settings change."""
+        from .checkup_limits import checked_thresholds
+
+        values = checked_thresholds(values)
+        self._emit("about_to_change", kind="settings_changed")
+        old, self.checkup_thresholds = self.checkup_thresholds, values
+        self._emit("changed", kind="settings_changed")
+        return old
+
     def reset(self, other: "Plan") -> None:
         """Take over the whole content of ``other`` (an import, a revert)."""
         self._emit("about_to_change", kind="reset")
@@ -461,10 +580,14 @@ class Plan:
         self.links = list(other.links)
         self.risks = list(other.risks)
         self.correlations = list(other.correlations)
+        self.checkup_thresholds = dict(getattr(other, "checkup_thresholds", {}))
+        self.resources = list(other.resources)
         self._reindex()
         self._emit("changed", kind="reset")
 
     def copy(self) -> "Plan":
-        return Plan(replace(self.settings, calendar=replace(self.settings.calendar),
+        twin = Plan(replace(self.settings, calendar=replace(self.settings.calendar),
                             sign_off=list(self.settings.sign_off)),
-                    self._activities, self.links, self.risks, self.correlations)
+                    self._activities, self.links, self.risks, self.correlations, resources=self.resources)
+        twin.checkup_thresholds = dict(self.checkup_thresholds)
+        return twin

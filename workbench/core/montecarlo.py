@@ -92,7 +92,7 @@ class Accumulators:
 class MonteCarlo:
     """A plan prepared for simulation: compiled network, duration, correlation and risk models."""
 
-    def __init__(self, plan, distribution=None, deadline=None):
+    def __init__(self, plan, distribution=None, deadline=None, resources: bool = False):
         plan.settings.validated()
         family = check_family(distribution or plan.settings.distribution, "distribution", "settings")
         self.plan = plan
@@ -108,6 +108,10 @@ class MonteCarlo:
         self.means, self.variances = moments(plan)
         self.schedule = self.analyzer.run(self.means, deadline=self.deadline)
         self.passes = BlockPasses(self.net, self.analyzer.floor, self.analyzer.fnlt)
+        self.resource_aware = bool(resources)
+        if resources:                    # crews hold work back in every iteration
+            from .resource_sim import ResourcePasses
+            self.passes = ResourcePasses(plan)
 
     def run_block(self, scores, occurrence, delay_scores, valid=None):
         """Durations and finish of one block (activities × iterations), and per activity
@@ -145,7 +149,8 @@ def _chunks(iterations: int, block_size: int):
 
 
 def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, deadline=None,
-             block_size=None, progress=None, cancel=None, keep_durations: bool = False) -> SimulationResult:
+             block_size=None, progress=None, cancel=None, keep_durations: bool = False,
+             resources: bool = False) -> SimulationResult:
     """Simulate the plan's finish ``iterations`` times; see the module and docs/simulation.md.
 
     ``seed`` (int) makes the run reproducible; without one a seed is drawn and recorded.
@@ -153,11 +158,12 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     use only, never the results. ``progress(done, total)`` is called between blocks, where
     total counts both passes (2 × iterations); ``cancel()`` returning True raises
     :class:`SimulationCancelled`. ``keep_durations`` also returns every sampled duration
-    (activities × iterations; for small runs and charts).
+    (activities × iterations; for small runs and charts). ``resources``: schedule every
+    iteration with the plan's resources (:mod:`.resource_sim`), same samples for a seed.
     """
     iterations = _check_iterations(iterations)
     seed = _check_seed(seed)
-    mc = MonteCarlo(plan, distribution, deadline)
+    mc = MonteCarlo(plan, distribution, deadline, resources)
     keep_heap()
     n = mc.net.size
     block = int(block_size) if block_size else default_block_size(n, mc.net.src.size)

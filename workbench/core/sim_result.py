@@ -57,6 +57,7 @@ class SimulationResult:
     unit: str = "days"
     durations: np.ndarray | None = field(default=None, repr=False)
     target_confidence: float = 0.8
+    resource_aware: bool = False
 
     @classmethod
     def build(cls, mc, seed, finish, acc, block, kept) -> "SimulationResult":
@@ -77,7 +78,8 @@ class SimulationResult:
                    mean_d + mc.means, np.sqrt(var_d), float(mc.schedule.finish), pert.sd, mc.deadline,
                    mc.calendar, mc.schedule, mc.analyzer.floor, mc.variances,
                    mc.risks.report(float(finish.sum()), iters), mc.correlation.repaired, mc.correlation.note(),
-                   block, mc.plan.settings.unit, kept, float(mc.plan.settings.target_confidence))
+                   block, mc.plan.settings.unit, kept, float(mc.plan.settings.target_confidence),
+                   getattr(mc, "resource_aware", False))
 
     # --- the finish distribution ------------------------------------------------
     @property
@@ -181,6 +183,8 @@ class SimulationResult:
                        probability=p, probability_stderr=err)
         if self.correlation_repaired:
             out["correlation_note"] = self.correlation_note
+        if self.resource_aware:
+            out["resource_aware"] = True
         return out
 
 

@@ -10,17 +10,18 @@ from __future__ import annotations
 import datetime as dt
 
 from workbench.core.errors import PlanError
-from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Calendar, CorrelationGroup, Link, Plan, Risk, Settings,
-                                  SignOff)
+from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Availability, Calendar, CorrelationGroup, Link, Plan,
+                                  Resource, Risk, Settings, SignOff)
 from workbench.core.network import compile_plan
 
 from .cost_section import costs_to_dict, merge_costs, read_costs
+from .checkup_section import checkup_from_dict, checkup_to_dict
 from .errors import PlanFileError
-from .fields import Fields
+from .fields import Fields, show
 from .plan_migrate import FORMAT, VERSION, upgrade
 
 ACTIVITY_FIELDS = ("id", "name", "group", "notes", "optimistic", "most_likely", "pessimistic",
-                   "duration", "distribution", "start_no_earlier", "finish_no_later")
+                   "duration", "distribution", "start_no_earlier", "finish_no_later", "resources")
 
 
 # --- writing -------------------------------------------------------------
@@ -51,11 +52,19 @@ def settings_to_dict(s: Settings) -> dict:
 
 
 def activity_to_dict(a: Activity) -> dict:
-    return {"id": a.id, "name": a.name, "group": a.group, "notes": a.notes,
-            "optimistic": _num(a.optimistic), "most_likely": _num(a.most_likely),
-            "pessimistic": _num(a.pessimistic), "duration": _num(a.duration),
-            "distribution": a.distribution,
-            "start_no_earlier": _point(a.start_no_earlier), "finish_no_later": _point(a.finish_no_later)}
+    out = {"id": a.id, "name": a.name, "group": a.group, "notes": a.notes,
+           "optimistic": _num(a.optimistic), "most_likely": _num(a.most_likely),
+           "pessimistic": _num(a.pessimistic), "duration": _num(a.duration),
+           "distribution": a.distribution,
+           "start_no_earlier": _point(a.start_no_earlier), "finish_no_later": _point(a.finish_no_later)}
+    if a.resources:          # written only when the activity needs some (most lines stay short)
+        out["resources"] = {r: float(u) for r, u in a.resources}
+    return out
+
+
+def resource_to_dict(r: Resource) -> dict:
+    return {"id": r.id, "name": r.name, "units": float(r.units), "cost": _num(r.cost),
+            "periods": [{"start": _point(p.start), "end": _point(p.end), "units": float(p.units)} for p in r.periods]}
 
 
 def plan_to_dict(plan: Plan) -> dict:
@@ -71,6 +80,8 @@ def plan_to_dict(plan: Plan) -> dict:
         "correlations": [{"name": c.name, "activities": list(c.activities),
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
         "costs": costs_to_dict(plan),
+        "checkup": checkup_to_dict(plan),
+        "resources": [resource_to_dict(r) for r in plan.resources],
     }
 
 
@@ -105,7 +116,7 @@ def _sign_off(f: Fields) -> SignOff:
 
 _ACT_TEXT = ("id", "name", "group", "notes")
 _ACT_NUMBERS = ("optimistic", "most_likely", "pessimistic", "duration")
-_ACT_ALL = frozenset(_ACT_TEXT + _ACT_NUMBERS + ("distribution", "start_no_earlier", "finish_no_later"))
+_ACT_ALL = frozenset(_ACT_TEXT + _ACT_NUMBERS + ("distribution", "start_no_earlier", "finish_no_later", "resources"))
 _LINK_KEYS = frozenset(("pred", "succ", "type", "lag"))
 
 
@@ -118,7 +129,7 @@ def _quick_activity(data) -> Activity | None:
     if type(data) is not dict or not data.keys() <= _ACT_ALL:
         return None
     get = data.get
-    if get("start_no_earlier") is not None or get("finish_no_later") is not None:
+    if get("start_no_earlier") is not None or get("finish_no_later") is not None or get("resources"):
         return None
     if not all(type(get(k, "")) is str for k in _ACT_TEXT) or type(get("distribution", "")) not in (str, type(None)):
         return None
@@ -151,9 +162,38 @@ def activity_from_dict(data, position: int) -> Activity:
                    notes=f.text("notes"), optimistic=f.number("optimistic"),
                    most_likely=f.number("most_likely"), pessimistic=f.number("pessimistic"),
                    duration=f.number("duration"), distribution=f.text("distribution", None),
-                   start_no_earlier=f.point("start_no_earlier"), finish_no_later=f.point("finish_no_later"))
+                   start_no_earlier=f.point("start_no_earlier"), finish_no_later=f.point("finish_no_later"),
+                   resources=_needs(f))
     f.done()
     return _core(act.validated)
+
+
+def _needs(f: Fields) -> tuple:
+    """An activity's ``"resources": {"crew": 2, "crane": 1}`` (absent or {} for none)."""
+    raw = f.raw("resources", {})
+    if not isinstance(raw, dict):
+        raise f.error("resources", f"must be an object of resource ids and units, like {{\"crew\": 2}}, got {show(raw)}")
+    out = []
+    for res, units in raw.items():
+        if isinstance(units, bool) or not isinstance(units, (int, float)):
+            raise f.error("resources", f"units of resource {res!r} must be a number, got {show(units)}")
+        out.append((res, float(units)))
+    return tuple(out)
+
+
+def resource_from_dict(data, position: int) -> Resource:
+    f = Fields.entry(data, "resource", position)
+    periods = []
+    for k, p in enumerate(f.sub_list("periods"), 1):
+        start, end = p.point("start"), p.point("end")
+        if start is None or end is None:
+            raise f.error("periods", f"period {k} needs a start and an end")
+        periods.append(Availability(start, end, p.number("units", required=True)))
+        p.done()
+    res = Resource(f.text("id", required=True), f.text("name"), f.number("units", default=1.0),
+                   f.number("cost"), tuple(periods))
+    f.done()
+    return _core(res.validated)
 
 
 def _links_from_list(items) -> list[Link]:
@@ -240,7 +280,10 @@ def plan_from_dict(data) -> Plan:
     settings, per_activity = read_costs(top.raw("costs"), settings)
     _core(settings.validated)
     acts = [_core(a.validated) for a in merge_costs(acts, per_activity)] if per_activity else acts
+    checkup = checkup_from_dict(top.raw("checkup"))
+    resources = [resource_from_dict(x, i) for i, x in enumerate(top.raw_list("resources"), 1)]
     top.done()
-    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True))
+    plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True, resources=resources))
+    plan.checkup_thresholds = checkup
     _core(lambda: compile_plan(plan))
     return plan

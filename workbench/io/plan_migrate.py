@@ -118,7 +118,20 @@ def upgrade_1_to_2(data: dict) -> dict:
 # --- version 2 → 3 ---------------------------------------------------------------
 # One step per section that version 3 adds; each takes version-2 data (a dict) and returns
 # it with that section's empty form filled in.
-V3_STEPS: list = []
+def _v3_resources(data: dict) -> dict:
+    """Resources: a version-2 plan has none (and its activities need none)."""
+    return dict(data, resources=[])
+
+
+V3_STEPS: list = [_v3_resources]
+
+
+def _add_checkup_section(data: dict) -> dict:
+    from .checkup_section import add_checkup_section
+    return add_checkup_section(data)
+
+
+V3_STEPS.append(_add_checkup_section)
 
 V3_STEPS.append(add_empty_costs)     # the costs section (issue 15)
 

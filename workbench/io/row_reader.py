@@ -41,8 +41,9 @@ def unguard(text: str) -> str:
 class RowReader:
     """Reads activity rows against one header; collects problems instead of stopping."""
 
-    def __init__(self, cols: Columns, decimal_comma: bool = False, guarded: bool = True):
+    def __init__(self, cols: Columns, decimal_comma: bool = False, guarded: bool = True, resources=()):
         self.cols, self.decimal_comma, self.guarded = cols, decimal_comma, guarded
+        self.resources = {r.id: r for r in resources}
         self.problems: list[str] = []
         self.rows: dict[str, int] = {}  # id → row number
         self.activities: list[Activity] = []
@@ -110,10 +111,31 @@ class RowReader:
         texts = {n: self.cell(cells, n) for n in TEXT_FIELDS}
         act = Activity(act_id, **texts, **values, distribution=self.distribution(number, act_id, cells),
                        start_no_earlier=self.point(number, act_id, cells, "start_no_earlier"),
-                       finish_no_later=self.point(number, act_id, cells, "finish_no_later"))
+                       finish_no_later=self.point(number, act_id, cells, "finish_no_later"),
+                       resources=self.needs(number, act_id, cells))
         self._predecessors(number, act_id, cells)
         if len(self.problems) == before:
             self._accept(number, act)
+
+    def needs(self, number: int, act_id: str, cells: list[str]) -> tuple:
+        """The ``resources`` cell, each resource known and never asked for more than exists."""
+        from .resource_table import parse_needs
+
+        try:
+            needs = parse_needs(self.cell(cells, "resources"), act_id)
+        except PlanError as exc:
+            self.problem(number, act_id, "resources", _strip_activity(str(exc), act_id))
+            return ()
+        for res, units in needs:
+            known = self.resources.get(res)
+            if known is None:
+                where = (f"resources: {', '.join(sorted(self.resources))}" if self.resources else
+                         "give the resources in a sheet named Resources, or with --resources FILE")
+                self.problem(number, act_id, "resources", f"unknown resource {res!r} ({where})")
+            elif units > known.most_units:
+                self.problem(number, act_id, "resources", f"needs {units:g} units of {res} but at most "
+                             f"{known.most_units:g} ever exist; it could never be scheduled")
+        return needs
 
     def _overflow(self, number: int, act_id: str, cells: list[str]) -> None:
         """Text beyond the last header cell is refused, never silently dropped (often a
@@ -171,13 +193,13 @@ def _all_ids(rows: list[Row], reader: RowReader) -> set[str]:
 
 def build_plan(header: list[str], rows: list[Row], settings: Settings | None = None, *,
                header_row: int = 1, decimal_comma: bool = False, guarded: bool = True,
-               source: str = "") -> Plan:
+               source: str = "", resources=()) -> Plan:
     """A checked plan from a header and numbered rows, or TableImportError with every problem.
     ``guarded``: text may carry the CSV export's formula guard (not so in XLSX cells)."""
     cols = map_header(header, header_row)
     if cols.problems:
         raise TableImportError(cols.problems, source)
-    reader = RowReader(cols, decimal_comma, guarded)
+    reader = RowReader(cols, decimal_comma, guarded, resources or ())
     for number, cells in rows:
         reader.read(number, cells)
     links = reader.check_links(_all_ids(rows, reader))
@@ -186,7 +208,7 @@ def build_plan(header: list[str], rows: list[Row], settings: Settings | None = N
     if reader.problems:
         raise TableImportError(sorted(reader.problems, key=_row_number), source)
     settings = replace(settings) if settings is not None else Settings()
-    plan = Plan(settings, reader.activities, links)
+    plan = Plan(settings, reader.activities, links, resources=list(resources or ()))
     _check_loops(plan, reader.rows, source)
     return plan
 

@@ -11,7 +11,7 @@ import re
 from dataclasses import dataclass, field
 
 FIELDS = ("id", "name", "optimistic", "most_likely", "pessimistic", "duration", "predecessors",
-          "group", "notes", "distribution", "start_no_earlier", "finish_no_later",
+          "group", "notes", "distribution", "start_no_earlier", "finish_no_later", "resources",
           "cost", "crash_cost", "crash_optimistic", "crash_most_likely", "crash_pessimistic", "crash_duration")
 
 ALIASES: dict[str, tuple[str, ...]] = {
@@ -27,6 +27,7 @@ ALIASES: dict[str, tuple[str, ...]] = {
     "distribution": ("distribution", "dist", "shape"),
     "start_no_earlier": ("start no earlier", "start not before", "not before"),
     "finish_no_later": ("finish no later", "finish not after", "not after"),
+    "resources": ("resources", "resource needs", "needs", "crews"),
     "cost": ("cost", "normal cost", "direct cost"),
     "crash_cost": ("crash cost",),
     "crash_optimistic": ("crash optimistic",),

@@ -18,16 +18,17 @@ from workbench.core.calendar import round_offset
 
 from .predecessors import format_number, format_predecessors
 from .xlsx_write import write_xlsx as _write_xlsx
+from .resource_table import format_needs
 from .row_reader import GUARDED
 
 PLAN_COLUMNS = ("id", "name", "group", "optimistic", "most_likely", "pessimistic", "duration", "distribution",
-                "predecessors", "start_no_earlier", "finish_no_later", "notes",
+                "predecessors", "start_no_earlier", "finish_no_later", "notes", "resources",
                 "cost", "crash_cost", "crash_optimistic", "crash_most_likely", "crash_pessimistic", "crash_duration")
 COMPUTED_COLUMNS = ("te", "sd", "early_start", "early_finish", "late_start", "late_finish",
                     "early_start_date", "early_finish_date", "late_start_date", "late_finish_date",
                     "total_float", "free_float", "critical")
 HEADER = PLAN_COLUMNS + COMPUTED_COLUMNS
-TEXT_COLUMNS = {"id", "name", "group", "distribution", "predecessors", "notes", "critical"}
+TEXT_COLUMNS = {"id", "name", "group", "distribution", "predecessors", "notes", "critical", "resources"}
 
 
 def _point(value):
@@ -39,7 +40,7 @@ def _point(value):
 def plan_cells(act, links) -> list:
     return [act.id, act.name, act.group, act.optimistic, act.most_likely, act.pessimistic, act.duration,
             act.distribution or "", format_predecessors(links),
-            _point(act.start_no_earlier), _point(act.finish_no_later), act.notes,
+            _point(act.start_no_earlier), _point(act.finish_no_later), act.notes, format_needs(act.resources),
             act.cost, act.crash_cost, act.crash_optimistic, act.crash_most_likely, act.crash_pessimistic,
             act.crash_duration]
 
@@ -101,5 +102,8 @@ def write_csv(rows: list[list], path: Path) -> None:
             writer.writerow([csv_value(v, c) for v, c in zip(row, HEADER)])
 
 
-def write_xlsx(rows: list[list], path: Path, title: str = "") -> None:
-    _write_xlsx(HEADER, rows, path, title)
+def write_xlsx(rows: list[list], path: Path, title: str = "", resources=()) -> None:
+    """The activities, and the plan's resources on a sheet named Resources (read back on import)."""
+    extra = [("Resources", ("id", "name", "units", "cost"),
+              [[r.id, r.name, r.units, r.cost] for r in resources])] if resources else ()
+    _write_xlsx(HEADER, rows, path, title, extra)

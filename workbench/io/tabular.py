@@ -25,7 +25,7 @@ from .predecessors import format_predecessors, parse_predecessors
 from .table_columns import LOOKUP, map_header, normalise
 from .table_export import table_rows, write_csv, write_xlsx
 from .row_reader import build_plan, rows_to_plan
-from .xlsx_safe import read_xlsx
+from .xlsx_safe import read_xlsx, read_xlsx_sheet
 
 __all__ = ["ImportReport", "TableImportError", "export_table", "format_predecessors", "load_any",
            "parse_predecessors", "read_table", "read_table_report", "rows_to_plan"]
@@ -90,8 +90,29 @@ def _csv_table(path: Path, raw: bytes, source: str, report: ImportReport):
     return csv_rows(text, delimiter, source), delimiter != ","
 
 
-def read_table_report(path, settings: Settings | None = None) -> tuple[Plan, ImportReport]:
-    """Read a CSV or XLSX activity table (all or nothing) and say how it was read."""
+def table_rows_of(path, sheet: str | None = None) -> list[tuple[int, list[str]]]:
+    """The numbered rows of a CSV file, or of an XLSX workbook's sheet ``sheet`` (its first
+    sheet when it has none by that name)."""
+    path = Path(path)
+    raw = _read_bytes(path, path.name)
+    if raw.startswith(ZIP_MAGIC):
+        rows = read_xlsx_sheet(path, path.name, sheet) if sheet else None
+        return rows if rows is not None else read_xlsx(path, path.name)[1]
+    return _csv_table(path, raw, path.name, ImportReport())[0]
+
+
+def read_resource_file(path) -> list:
+    """A resources table (columns id, name, units, cost) from its own CSV file, or an XLSX
+    workbook's Resources sheet (else its first)."""
+    from .resource_table import SHEET, resources_from_rows
+
+    path = Path(path)
+    return resources_from_rows(table_rows_of(path, sheet=SHEET), path.name)
+
+
+def read_table_report(path, settings: Settings | None = None, resources=None) -> tuple[Plan, ImportReport]:
+    """Read a CSV or XLSX activity table (all or nothing) and say how it was read.
+    ``resources``: the plan's resources (else an XLSX workbook's ``Resources`` sheet, if any)."""
     path = Path(path)
     source = path.name
     report = ImportReport()
@@ -102,6 +123,11 @@ def read_table_report(path, settings: Settings | None = None) -> tuple[Plan, Imp
         report.kind = "xlsx"
         report.sheet, rows = read_xlsx(path, source)
         decimal_comma = False
+        if resources is None:
+            sheet = read_xlsx_sheet(path, source, "Resources")
+            if sheet is not None and report.sheet.strip().lower() != "resources":
+                from .resource_table import resources_from_rows
+                resources = resources_from_rows(sheet, f"{source}, sheet Resources")
     elif path.suffix.lower() in XLSX_SUFFIXES:
         raise TableImportError(["not a valid XLSX workbook (it is not a zip container; an old .xls or a "
                                 "password-protected file? save it as .xlsx or CSV)"], source)
@@ -112,14 +138,14 @@ def read_table_report(path, settings: Settings | None = None) -> tuple[Plan, Imp
         raise TableImportError(["the file is empty" if report.kind == "csv" else "the sheet is empty"], source)
     report.ignored_columns = map_header(header, header_row).ignored
     plan = build_plan(header, body, settings, header_row=header_row, decimal_comma=decimal_comma,
-                      guarded=report.kind == "csv", source=source)
+                      guarded=report.kind == "csv", source=source, resources=resources)
     report.activities, report.links = len(plan), len(plan.links)
     return plan, report
 
 
-def read_table(path, settings: Settings | None = None) -> Plan:
+def read_table(path, settings: Settings | None = None, resources=None) -> Plan:
     """A checked Plan from a CSV/XLSX table; default settings start today, in days."""
-    return read_table_report(path, settings)[0]
+    return read_table_report(path, settings, resources)[0]
 
 
 def export_table(analysis, path) -> Path:
@@ -130,7 +156,7 @@ def export_table(analysis, path) -> Path:
     path = Path(path)
     suffix = path.suffix.lower()
     if suffix in XLSX_SUFFIXES:
-        write = partial(write_xlsx, title=analysis.plan.settings.title)
+        write = partial(write_xlsx, title=analysis.plan.settings.title, resources=analysis.plan.resources)
     elif suffix in CSV_SUFFIXES:
         write = write_csv
     else:

@@ -92,3 +92,20 @@ def _numbered_rows(sheet) -> list[tuple[int, list[str]]]:
         if number is not None:
             rows.append((number, [cell_text(c.value) for c in cells]))
     return rows
+
+
+def read_xlsx_sheet(path: Path, source: str, name: str) -> list[tuple[int, list[str]]] | None:
+    """The rows of the sheet called ``name`` (any case), or None when the workbook has none."""
+    check_zip(path, source)
+    import openpyxl
+
+    with open(path, "rb") as handle:
+        try:
+            workbook = openpyxl.load_workbook(handle, read_only=True, data_only=True)
+        except Exception as exc:  # openpyxl raises many kinds for a broken workbook
+            raise TableImportError([f"cannot read the workbook: {type(exc).__name__}: {exc}"], source) from exc
+        try:
+            found = next((s for s in workbook.sheetnames if s.strip().lower() == name.lower()), None)
+            return None if found is None else _numbered_rows(workbook[found])
+        finally:
+            workbook.close()

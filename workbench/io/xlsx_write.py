@@ -56,7 +56,8 @@ class _CellMaker:
         return cell
 
 
-def write_xlsx(header, rows: list[list], path: Path, title: str = "") -> None:
+def write_xlsx(header, rows: list[list], path: Path, title: str = "", extra=()) -> None:
+    """The Activities sheet, then each (sheet name, header, rows) of ``extra``."""
     from openpyxl import Workbook
 
     book = Workbook(write_only=True)
@@ -67,6 +68,12 @@ def write_xlsx(header, rows: list[list], path: Path, title: str = "") -> None:
     sheet.append([cells.header(name) for name in header])
     for row in rows:
         sheet.append([cells.value(v) for v in row])
+    for name, more_header, more_rows in extra:
+        more = book.create_sheet(name)
+        more_cells = _CellMaker(more)
+        more.append([more_cells.header(h) for h in more_header])
+        for row in more_rows:
+            more.append([more_cells.value(v) for v in row])
     if title:
         book.properties.title = cells.illegal.sub("\ufffd", title)
     book.save(path)

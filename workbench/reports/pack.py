@@ -20,6 +20,7 @@ from workbench.core.errors import PlanError
 from . import styles
 from .cautions import cautions
 from .charts import chart_pages
+from .checkup_pages import checkup_pages
 from .context import PackContext
 from .cover import cover
 from .footer import FooterInfo, PackCanvas, footer_drawer
@@ -89,6 +90,7 @@ def _build(ctx: PackContext, buffer, report) -> PackDocument:
 def story(ctx: PackContext, report) -> list:
     portrait_w, _ = frame_size(ctx.paper, PORTRAIT)
     parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
+    parts += new_page(PORTRAIT) + checkup_pages(ctx, portrait_w)
     report(72)
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     parts += tradeoff_pages(ctx, frame_size(ctx.paper, LANDSCAPE))

@@ -15,7 +15,7 @@ from pathlib import Path
 SIZE = (1920, 1080)
 SEED = 20270301
 VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png",
-              "Trade-off": "tradeoff.png"}
+              "Checkup": "checkup.png", "Resources": "resources.png", "Trade-off": "tradeoff.png"}
 
 
 def _settle(app, rounds: int = 5) -> None:

@@ -20,7 +20,7 @@ from workbench.ui.present.chart_slide import session_context
 from workbench.ui.present.window import open_present
 from workbench.ui.session import Session
 
-TITLES = ["Summary", "Timeline", "Network", "Odds", "Drivers"]
+TITLES = ["Summary", "Timeline", "Network", "Odds", "Drivers", "Checkup"]
 
 
 @pytest.fixture
@@ -46,13 +46,13 @@ def test_clicker_keys_step_and_stop_at_the_ends(window, qtbot, forward, back):
     for _ in range(6):
         qtbot.keyClick(window, forward)
         seen.append(window.current_title())
-    assert seen == TITLES[1:] + ["Drivers", "Drivers"]
+    assert seen == TITLES[1:] + ["Checkup"]
     qtbot.keyClick(window, back)
-    assert window.current_title() == "Odds"
+    assert window.current_title() == "Drivers"
     qtbot.keyClick(window, Qt.Key.Key_Home)
     assert window.current_index() == 0
     qtbot.keyClick(window, Qt.Key.Key_End)
-    assert window.current_index() == 4
+    assert window.current_index() == 5
 
 
 def test_keys_work_while_a_chart_inside_has_the_focus(window, qtbot):
@@ -167,4 +167,4 @@ def test_unschedulable_plan_shows_a_message_not_a_crash(qtbot):
     for _ in range(win.slide_count()):
         win.grab()
         win.next_slide()
-    assert win.current_title() == "Drivers"
+    assert win.current_title() == "Checkup"

@@ -33,6 +33,8 @@ def shoot(outdir, plan, simulation=None, size=SIZE) -> list[Path]:
 
     app = QApplication.instance() or QApplication([])
     session = Session(plan)
+    from workbench.ui.checkup.keeper import checkup_keeper
+    checkup_keeper(session, threaded=False)      # the Checkup slide's odds checks are ready when shot
     if simulation is not None:
         session.set_simulation(simulation)
     window = PresentWindow(session)

@@ -1,4 +1,4 @@
-"""The slides of Present mode, in order: summary, timeline, network, odds, drivers.
+"""The slides of Present mode, in order: summary, timeline, network, odds, drivers, checkup.
 
 A window view is reused when it offers a ``set_present(True)`` hook (large type, heavy
 lines); otherwise the slide draws the approval pack's chart for it, scaled up. The
@@ -21,7 +21,8 @@ from workbench.ui.present.summary_slide import PresentSummarySlide
 
 PRESENT_TOP = 8      # driver bars on a projector
 SLIDES = (("Summary", None), ("Timeline", "timeline"), ("Network", "network"), ("Odds", "odds"),
-          ("Drivers", "drivers"))
+          ("Drivers", "drivers"),
+          ("Checkup", "checkup"))
 
 
 def _view_class(package: str):
@@ -88,6 +89,10 @@ def build_slides(session) -> list[tuple[str, object]]:
     for title, dotted in SLIDES:
         if dotted is None:
             slides.append((title, PresentSummarySlide(session)))
+            continue
+        if title == "Checkup":
+            from workbench.ui.present.checkup_slide import PresentCheckupSlide
+            slides.append((title, PresentCheckupSlide(session)))
             continue
         if title == "Network":      # in parts, so ids stay legible on a projector
             slides.append((title, PresentNetworkSlide(session)))

@@ -7,7 +7,7 @@ from workbench.figures.odds import confidence_label
 
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
-from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QSizePolicy
+from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QPushButton, QSizePolicy
 
 from workbench.ui.session import Session
 
@@ -74,6 +74,7 @@ class SummaryStrip(QFrame):
                 line = QHBoxLayout()
                 line.addWidget(cap)
                 line.addWidget(value, 1)
+                line.addWidget(self._checkup_button(path_font))
                 grid.addLayout(line, 2, 0, 1, 4)
             else:
                 grid.addWidget(cap, 0, col)
@@ -84,6 +85,23 @@ class SummaryStrip(QFrame):
         grid.setVerticalSpacing(2)
         session.schedule_changed.connect(self.refresh)
         self.refresh()
+
+    def _checkup_button(self, font) -> QPushButton:
+        """"Checkup: 11 of 14 pass": a click shows the Checkup (the window connects it)."""
+        from workbench.ui.checkup.keeper import checkup_keeper
+
+        self.checkup = QPushButton("Checkup", self)
+        self.checkup.setFont(font)
+        self.checkup.setFlat(True)
+        self.checkup.setAccessibleName("Checkup summary")
+        self.checkup.setToolTip("Schedule quality: the DCMA 14-point assessment and our own checks. Click for details.")
+        self.keeper = checkup_keeper(self.session)
+        self.keeper.updated.connect(self._show_checkup)
+        self._show_checkup()
+        return self.checkup
+
+    def _show_checkup(self, _checkup=None) -> None:
+        self.checkup.setText(self.keeper.summary_text())
 
     def texts(self) -> dict[str, str]:
         a = self.session.analysis

@@ -33,6 +33,10 @@ VIEWS = (
      "The Drivers view will appear here: which activities drive the finish date."),
     ("Trade-off", "workbench.ui.tradeoff.view", "TradeoffView",
      "The Trade-off view will appear here: what it costs to buy time."),
+    ("Checkup", "workbench.ui.checkup.view", "CheckupView",
+     "The Checkup will appear here: is this schedule sound enough to sign?"),
+    ("Resources", "workbench.ui.resources.view", "ResourcesView",
+     "The Resources view will appear here: loading, levelling and the odds with the crews."),
 )
 STATE_VERSION = 1
 
@@ -84,12 +88,20 @@ class MainWindow(QMainWindow):
         layout.setContentsMargins(0, 0, 0, 0)
         layout.setSpacing(2)
         self.summary = SummaryStrip(self.session, centre)
+        self.summary.checkup.clicked.connect(self.show_checkup)
         self.notice = NoticeBar(centre)
         self.activities = ActivitiesPanel(self.session, centre)
         layout.addWidget(self.summary)
         layout.addWidget(self.notice)
         layout.addWidget(self.activities, 1)
         self.setCentralWidget(centre)
+
+    def show_checkup(self) -> None:
+        """Bring the Checkup dock forward (the summary strip's "Checkup: N of M pass")."""
+        dock = self.docks["Checkup"]
+        dock.show()
+        dock.raise_()
+        self.view("Checkup")
 
     def _add_dock(self, title: str, widget: QWidget, area) -> QDockWidget:
         dock = QDockWidget(title, self)
@@ -117,7 +129,7 @@ class MainWindow(QMainWindow):
         self._arrange()
 
     def _arrange(self) -> None:
-        """Default layout: Timeline and Network on the lower left, Odds, Drivers and
+        """Default layout: Timeline, Network and Resources on the lower left, Odds, Drivers and
         History on the lower right, the table above them."""
         for dock in self.docks.values():
             dock.setFloating(False)
@@ -126,8 +138,10 @@ class MainWindow(QMainWindow):
         self.splitDockWidget(self.docks["Timeline"], self.docks["Odds"], Qt.Orientation.Horizontal)
         self.tabifyDockWidget(self.docks["Timeline"], self.docks["Network"])
         self.tabifyDockWidget(self.docks["Network"], self.docks["Trade-off"])
+        self.tabifyDockWidget(self.docks["Network"], self.docks["Resources"])
         self.tabifyDockWidget(self.docks["Odds"], self.docks["Drivers"])
-        self.tabifyDockWidget(self.docks["Drivers"], self.docks["History"])
+        self.tabifyDockWidget(self.docks["Drivers"], self.docks["Checkup"])
+        self.tabifyDockWidget(self.docks["Checkup"], self.docks["History"])
         self.docks["Timeline"].raise_()
         self.docks["Odds"].raise_()
         self._default_sizes()

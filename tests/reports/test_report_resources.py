@@ -1,0 +1,33 @@
+"""The pack's Resources pages: present for a plan with resources (loading, what levelling
+moves, the odds with and without the crews), absent otherwise."""
+
+import datetime as dt
+
+from pypdf import PdfReader
+
+from workbench.core.demo import demo_plan
+from workbench.core.levelling import level
+from workbench.reports.pack import build_pack
+
+from support.plans import footbridge_plan
+
+WHEN = dt.datetime(2027, 2, 1, 9, 0)
+
+
+def pages_text(path):
+    return [p.extract_text() for p in PdfReader(str(path)).pages]
+
+
+def test_demo_pack_has_the_resources_pages(tmp_path):
+    build_pack(demo_plan(), tmp_path / "p.pdf", iterations=500, seed=5, generated_at=WHEN)
+    text = "\n".join(pages_text(tmp_path / "p.pdf"))
+    assert "Resources: who is needed when" in text and "Electricians" in text
+    moved = level(demo_plan()).moves
+    assert "What levelling moves, and what holds it" in text and f"{moved[0].id}  " in text
+    assert "The odds with and without the crews" in text and "seed 5" in text
+    assert "Waiting for crews adds" in text and "Caution" in text
+
+
+def test_a_plan_without_resources_has_no_resources_page(tmp_path):
+    build_pack(footbridge_plan(), tmp_path / "p.pdf", iterations=200, seed=5, generated_at=WHEN)
+    assert not any("Resources: who is needed when" in t for t in pages_text(tmp_path / "p.pdf"))

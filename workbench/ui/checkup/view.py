@@ -1,0 +1,126 @@
+"""The Checkup view: every check with its figure, threshold and a mark that reads without
+colour; clicking a check selects its offending activities in every view."""
+
+from __future__ import annotations
+
+from PySide6.QtCore import Qt
+from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QHeaderView, QLabel, QPushButton, QTableView,
+                               QVBoxLayout, QWidget)
+
+from workbench.core.checkup_limits import STANDARD_NAME, STANDARD_SOURCE
+from workbench.ui.checkup.keeper import checkup_keeper
+from workbench.ui.checkup.table_model import CheckupTableModel
+
+HINT = "Click a check to select its offenders in every view."
+STANDARD_EDITION = "DCMA-EA PAM 200.1, October 2012"
+CAUTION = ("Odds checks rest on estimates, which are judgement; PERT assumes one path and independent "
+           "durations. The decision rests with your organisation's own approval rules.")
+
+
+class CheckupView(QWidget):
+    """The session's Checkup, refreshed when the edits pause."""
+
+    def __init__(self, session, parent=None):
+        super().__init__(parent)
+        self.session = session
+        self.keeper = checkup_keeper(session)
+        self.model = CheckupTableModel(self)
+        self._build()
+        self.keeper.updated.connect(self.show_checkup)
+        self.show_checkup(self.keeper.checkup)
+
+    def _build(self) -> None:
+        self.headline = QLabel()
+        font = self.headline.font()
+        font.setPointSizeF(font.pointSizeF() * 1.35)
+        font.setBold(True)
+        self.headline.setFont(font)
+        self.standard = QLabel(f"{STANDARD_NAME} ({STANDARD_EDITION}) and our own checks (common practice). {HINT}")
+        self.standard.setToolTip(f"Standard: {STANDARD_SOURCE}")
+        self.standard.setWordWrap(True)
+        self.thresholds = QPushButton("Thresholds\u2026")
+        self.thresholds.setToolTip("This plan's thresholds (an organisation sets its own)")
+        self.thresholds.clicked.connect(self.edit_thresholds)
+        self.table = self._table()
+        self.detail = QLabel()
+        self.detail.setWordWrap(True)
+        self.detail.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        self.detail.setAccessibleName("Check details")
+        head = QHBoxLayout()
+        head.addWidget(self.headline, 1)
+        head.addWidget(self.thresholds)
+        caution = QLabel(CAUTION)
+        caution.setWordWrap(True)
+        caution.setStyleSheet("color: #444444; font-size: 8pt;")
+        lay = QVBoxLayout(self)
+        lay.addLayout(head)
+        lay.addWidget(self.standard)
+        lay.addWidget(self.table, 1)
+        lay.addWidget(self.detail)
+        lay.addWidget(caution)
+
+    def _table(self) -> QTableView:
+        table = QTableView(self)
+        table.setModel(self.model)
+        table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
+        table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
+        table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
+        table.verticalHeader().hide()
+        table.setWordWrap(False)
+        header = table.horizontalHeader()
+        header.setSectionResizeMode(QHeaderView.ResizeMode.Interactive)
+        header.setSectionResizeMode(0, QHeaderView.ResizeMode.ResizeToContents)
+        header.setSectionResizeMode(2, QHeaderView.ResizeMode.Stretch)
+        header.setMinimumSectionSize(40)
+        em = table.fontMetrics().horizontalAdvance("M")
+        header.resizeSection(1, 14 * em)       # long names elide; the tooltip and details have them whole
+        header.resizeSection(3, 8 * em)
+        table.setTextElideMode(Qt.TextElideMode.ElideRight)
+        table.setAccessibleName("Checkup checks")
+        table.clicked.connect(lambda index: self.pick(index.row()))
+        table.activated.connect(lambda index: self.pick(index.row()))
+        return table
+
+    def show_checkup(self, checkup) -> None:
+        current = self.table.currentIndex().row()
+        self.model.set_checkup(checkup)
+        if checkup is None:
+            self.headline.setText("Checkup: the plan cannot be scheduled yet")
+            self.detail.setText(self.session.analysis_error or "")
+            return
+        self.headline.setText(f"{checkup.summary_text()}  \u00b7  {checkup.count('n/a')} not applicable")
+        if 0 <= current < len(checkup):
+            self.table.selectRow(current)
+            self._describe(checkup.checks[current])
+
+    def pick(self, row: int) -> None:
+        """Select a check: describe it, and select its offenders in every view."""
+        check = self.model.check_at(row)
+        if check is None:
+            return
+        self._describe(check)
+        self.session.select(check.offenders)
+
+    def _describe(self, check) -> None:
+        shown = ", ".join(check.offenders[:20]) + (f" and {len(check.offenders) - 20} more"
+                                                   if len(check.offenders) > 20 else "")
+        parts = [f"<b>{_escape(check.mark)} \u2014 {_escape(check.name)}</b>: {_escape(check.value_text)} "
+                 f"(threshold {_escape(check.threshold)})"]
+        if shown:
+            parts.append(f"Offenders: {shown}")
+        parts.append("Source: " + ("common practice (no published source)" if check.source == "common practice"
+                                   else check.source))
+        if check.changed:
+            parts.append("This plan's own threshold: it differs from the default (the standard's figure "
+                         "for the standard's checks).")
+        if check.note:
+            parts.append(check.note)
+        self.detail.setText("<br>".join(_escape(p) if i else p for i, p in enumerate(parts)))
+
+    def edit_thresholds(self) -> None:
+        from workbench.ui.checkup.thresholds_dialog import ThresholdsDialog
+        ThresholdsDialog(self.session, self).exec()
+
+
+def _escape(text: str) -> str:
+    return text.replace("&", "&amp;").replace("<", "&lt;").replace(">", "&gt;")
