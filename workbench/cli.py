@@ -6,6 +6,7 @@
     slackline report PLAN -o pack.pdf [--paper a4|letter] [--iterations N] [--seed S]
     slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks] [--force]
     slackline export PLAN -o OUT.csv|OUT.xlsx
+    slackline tradeoff PLAN [--deadline N|YYYY-MM-DD] [--confidence P] [--iterations N] [--seed S] [--json]
     slackline check PLAN [--json] [--strict] [--iterations N] [--seed S]
     slackline baseline PLAN.slw --name NAME [--approved] [--iterations N] [--seed S] [--list]
 
@@ -28,6 +29,7 @@ VERBS = {
     "report": ("report", "write the approval pack (PDF)"),
     "import": ("import_table", "read a CSV/XLSX activity list into a .slw plan"),
     "export": ("export", "write the plan with its schedule to CSV/XLSX"),
+    "tradeoff": ("tradeoff", "what it costs to buy time: cost curve, crash to a date or a confidence"),
     "check": ("check", "Checkup: grade the schedule's soundness (exit 1 with --strict when a check fails)"),
     "level": ("level", "level resources: a schedule within every resource's units"),
     "baseline": ("baseline", "record a named baseline in the plan file (or --list them)"),

@@ -85,6 +85,7 @@ def chain_data(n: int, name_of=lambda i: f"Step {i}", **settings) -> dict:
                            "start_no_earlier": None, "finish_no_later": None} for i in range(n)]
     data["links"] = [{"pred": f"C{i}", "succ": f"C{i + 1}", "type": "FS", "lag": 0.0} for i in range(n - 1)]
     data["risks"], data["correlations"] = [], []
+    data.get("costs", {}).pop("activities", None)       # the demo's per-activity costs name its own ids
     return data
 
 

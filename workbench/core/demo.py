@@ -85,6 +85,28 @@ LINKS = [
     ("O1", "O2"), ("P3", "O2"), ("E6", "O2"), ("O2", "O3"),
 ]
 
+# Our own invented figures: id → (normal direct cost, crash cost, crash factor). The crash
+# estimate is the normal three points times the factor (overtime, a second crew, an
+# expediting fee, an agency recruiter); no factor: the activity cannot be shortened.
+COSTS = {
+    "A1": (4000, None, None), "A2": (6500, None, None), "A3": (5000, 7500, 0.7),
+    "A4": (8000, 12000, 0.6), "D1": (3500, 5000, 0.7), "D2": (14000, 19000, 0.75),
+    "D3": (26000, 34000, 0.75), "D4": (9000, 12500, 0.7), "B1": (12000, 15000, 0.6),
+    "B2": (38000, 47000, 0.75), "B3": (64000, 80000, 0.75), "B4": (92000, 112000, 0.8),
+    "B5": (28000, 34000, 0.75), "B6": (21000, 27000, 0.7), "B7": (85000, 98000, 0.85),
+    "B8": (18000, 22000, 0.7), "S1": (31000, 38000, 0.75), "S2": (36000, 44000, 0.75),
+    "S3": (74000, 88000, 0.8), "S4": (27000, 33000, 0.75), "S5": (15000, 19500, 0.7),
+    "S6": (4500, None, None), "E1": (3000, 4000, 0.75), "E2": (240000, 270000, 0.8),
+    "E3": (46000, 50000, 0.75), "E4": (12000, 14500, 0.8), "E5": (9000, 11500, 0.8),
+    "E6": (2500, None, None), "E7": (8000, 10000, 0.75), "I1": (16000, 19000, 0.75),
+    "I2": (22000, 28000, 0.75), "I3": (11000, 13000, 0.8), "I4": (3000, None, None),
+    "P1": (18000, 30000, 0.8), "P2": (9500, 12000, 0.75), "P3": (6000, None, None),
+    "X0": (14000, 17000, 0.7), "X1": (60000, None, None), "O1": (3000, 4500, 0.67),
+    "O2": (1500, None, None), "M0": (0, None, None), "O3": (0, None, None),
+}
+INDIRECT_PER_DAY = 2400.0      # site management, the project office, the temporary clinic's lease
+LATE_PER_DAY = 3000.0          # running the temporary clinic past the committed opening
+
 # The crews: how many of each the contractor has on site, and who needs how many.
 RESOURCES = [
     Resource("elec", "Electricians", 4.0),
@@ -112,8 +134,19 @@ def _activity(row) -> Activity:
     needs = NEEDS.get(act_id, ())
     if isinstance(estimate, tuple):
         a, m, b = (float(x) for x in estimate)
-        return Activity(act_id, name, group, optimistic=a, most_likely=m, pessimistic=b, resources=needs)
-    return Activity(act_id, name, group, duration=float(estimate), resources=needs)
+        act = Activity(act_id, name, group, optimistic=a, most_likely=m, pessimistic=b, resources=needs)
+    else:
+        act = Activity(act_id, name, group, duration=float(estimate), resources=needs)
+    return _costed(act)
+
+
+def _costed(act: Activity) -> Activity:
+    cost, crash_cost, factor = COSTS[act.id]
+    if factor is None:
+        return act.with_(cost=float(cost))
+    a, m, b = (round(float(x) * factor, 1) for x in (act.optimistic, act.most_likely, act.pessimistic))
+    return act.with_(cost=float(cost), crash_cost=float(crash_cost), crash_optimistic=a,
+                     crash_most_likely=m, crash_pessimistic=b)
 
 
 def _link(row) -> Link:
@@ -129,7 +162,7 @@ def demo_settings() -> Settings:
         calendar=Calendar(workdays=(0, 1, 2, 3, 4), holidays=holidays, region=REGION),
         deadline=COMMITTED_OPENING, target_confidence=0.8, distribution="beta-pert",
         revision="B", prepared_by="Kestrel Vale Health Partnership project office",
-        sign_off=list(SIGN_OFF),
+        sign_off=list(SIGN_OFF), indirect_cost=INDIRECT_PER_DAY, late_penalty=LATE_PER_DAY,
     )
 
 

@@ -121,6 +121,13 @@ class Activity:
     finish_no_later: Offset | None = None
     resources: tuple[tuple[str, float], ...] = ()  # (resource id, units) needed for the whole duration
     progress: Progress | None = None  # actuals and remaining work (None: not started)
+    # costs and the fastest achievable estimate (see core/crash_terms.py)
+    cost: float | None = None
+    crash_cost: float | None = None
+    crash_optimistic: float | None = None
+    crash_most_likely: float | None = None
+    crash_pessimistic: float | None = None
+    crash_duration: float | None = None
 
     def _plainly_valid(self) -> bool:
         """The common case, checked cheaply: a clean id, plain finite numbers in order."""
@@ -131,7 +138,7 @@ class Activity:
             return False
         if self.start_no_earlier is not None or self.finish_no_later is not None or self.resources:
             return False
-        if self.progress is not None:
+        if self.progress is not None or self.cost is not None or self.crash_cost is not None or self.has_crash:
             return False
         if self.distribution is not None and self.distribution not in DISTRIBUTIONS:
             return False
@@ -173,12 +180,20 @@ class Activity:
                 check_date(v, f"activity {self.id}", name.replace("_", " "))
             elif v is not None:
                 _check_number(v, self.id, name.replace("_", " "))
+        from .crash_terms import check_costs
+        check_costs(self)
         check_demands(self)
         if self.progress is not None:
             if not isinstance(self.progress, Progress):
                 raise PlanError(f"activity {self.id}: progress must be a Progress record", self.id)
             self.progress.validated(self.id)
         return self
+
+    @property
+    def has_crash(self) -> bool:
+        """A crash estimate was given (three points or a fixed crash duration)."""
+        return (self.crash_duration is not None or self.crash_optimistic is not None
+                or self.crash_most_likely is not None or self.crash_pessimistic is not None)
 
     @property
     def has_estimate(self) -> bool:
@@ -269,6 +284,9 @@ class Settings:
     prepared_by: str = ""
     sign_off: list[SignOff] = field(default_factory=list)
     progress_rule: str = "retained logic"  # or "progress override" (see core/progress.py)
+    indirect_cost: float = 0.0          # per plan unit of project duration
+    late_penalty: float = 0.0           # per plan unit past the deadline
+    bought: "BoughtTime | None" = None  # the trade-off option last applied, for the pack
 
     def validated(self) -> "Settings":
         if self.unit not in UNITS:
@@ -290,6 +308,10 @@ class Settings:
         if self.progress_rule not in PROGRESS_RULES:
             raise PlanError(f"settings: progress rule must be 'retained logic' or 'progress override', "
                             f"not {self.progress_rule!r}", "progress_rule")
+        for name in ("indirect_cost", "late_penalty"):
+            value = getattr(self, name)
+            if isinstance(value, bool) or not isinstance(value, _PLAIN) or not 0.0 <= value < math.inf:
+                raise PlanError(f"settings: {name.replace('_', ' ')} must be a number of at least 0, not {value!r}", name)
         return self
 
     def _check_texts(self) -> None:
@@ -298,6 +320,18 @@ class Settings:
         for k, person in enumerate(self.sign_off, 1):
             check_length(person.name, f"settings: sign-off row {k}", "sign-off name", "sign_off")
             check_length(person.role, f"settings: sign-off row {k}", "sign-off role", "sign_off")
+
+
+@dataclass(frozen=True)
+class BoughtTime:
+    """A trade-off option applied to the plan: what was bought, for how much, and the odds
+    it was expected to give (None for a deterministic option)."""
+
+    label: str
+    cost: float
+    chance: float | None = None
+    standard_error: float | None = None
+    crashed: tuple[tuple[str, float], ...] = ()
 
 
 @dataclass(frozen=True)

@@ -15,6 +15,7 @@ from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Availability,
 from workbench.core.cpm import Analyzer
 from workbench.core.network import compile_plan
 
+from .cost_section import costs_to_dict, merge_costs, read_costs
 from .checkup_section import checkup_from_dict, checkup_to_dict
 from .errors import PlanFileError
 from .fields import Fields, show
@@ -87,6 +88,7 @@ def plan_to_dict(plan: Plan, rows: bool = True) -> dict:
                    "pessimistic": float(r.pessimistic), "activities": list(r.activities)} for r in plan.risks],
         "correlations": [{"name": c.name, "activities": list(c.activities),
                           "coefficient": float(c.coefficient)} for c in plan.correlations],
+        "costs": costs_to_dict(plan),
         "checkup": checkup_to_dict(plan),
         "resources": [resource_to_dict(r) for r in plan.resources],
         **living_to_dict(plan),
@@ -299,6 +301,9 @@ def plan_from_dict(data) -> Plan:
     known = {a.id for a in acts}
     risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
     corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    settings, per_activity = read_costs(top.raw("costs"), settings)
+    _core(settings.validated)
+    acts = [_core(a.validated) for a in merge_costs(acts, per_activity)] if per_activity else acts
     checkup = checkup_from_dict(top.raw("checkup"))
     resources = [resource_from_dict(x, i) for i, x in enumerate(top.raw_list("resources"), 1)]
     settings, acts = progress_from(top, settings, acts)

@@ -24,6 +24,7 @@ from __future__ import annotations
 
 from workbench.core.errors import PlanError
 
+from .cost_section import add_empty_costs
 from .errors import PlanFileError
 from .fields import Fields, parse_iso_date, show
 from .predecessors import parse_predecessors
@@ -131,6 +132,8 @@ def _add_checkup_section(data: dict) -> dict:
 
 
 V3_STEPS.append(_add_checkup_section)
+
+V3_STEPS.append(add_empty_costs)     # the costs section (issue 15)
 
 
 def living_sections_v3(data: dict) -> dict:

@@ -22,7 +22,8 @@ from .paused_gc import paused_gc
 from .table_bulk import bulk_plan
 from .table_columns import Columns, map_header
 
-NUMBER_FIELDS = ("optimistic", "most_likely", "pessimistic", "duration")
+NUMBER_FIELDS = ("optimistic", "most_likely", "pessimistic", "duration",
+                 "cost", "crash_cost", "crash_optimistic", "crash_most_likely", "crash_pessimistic", "crash_duration")
 TEXT_FIELDS = ("name", "group", "notes")
 PROGRESS_NUMBERS = ("remaining_optimistic", "remaining_most_likely", "remaining_pessimistic", "remaining",
                     "percent_complete")

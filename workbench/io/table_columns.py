@@ -13,7 +13,8 @@ from dataclasses import dataclass, field
 FIELDS = ("id", "name", "optimistic", "most_likely", "pessimistic", "duration", "predecessors",
           "group", "notes", "distribution", "start_no_earlier", "finish_no_later", "resources",
           "actual_start", "actual_finish", "remaining_optimistic", "remaining_most_likely",
-          "remaining_pessimistic", "remaining", "percent_complete")
+          "remaining_pessimistic", "remaining", "percent_complete",
+          "cost", "crash_cost", "crash_optimistic", "crash_most_likely", "crash_pessimistic", "crash_duration")
 
 ALIASES: dict[str, tuple[str, ...]] = {
     "id": ("id", "activity", "activity id", "code", "key", "ref"),
@@ -36,6 +37,12 @@ ALIASES: dict[str, tuple[str, ...]] = {
     "remaining_pessimistic": ("remaining pessimistic", "remaining b", "pessimistic remaining"),
     "remaining": ("remaining", "remaining duration", "still to do", "days left"),
     "percent_complete": ("percent complete", "% complete", "pct complete", "percent done", "% done"),
+    "cost": ("cost", "normal cost", "direct cost"),
+    "crash_cost": ("crash cost",),
+    "crash_optimistic": ("crash optimistic",),
+    "crash_most_likely": ("crash most likely",),
+    "crash_pessimistic": ("crash pessimistic",),
+    "crash_duration": ("crash duration",),
 }
 
 LOOKUP = {alias: name for name, aliases in ALIASES.items() for alias in aliases}

@@ -23,7 +23,8 @@ from .resource_table import format_needs
 from .row_reader import GUARDED
 
 PLAN_COLUMNS = ("id", "name", "group", "optimistic", "most_likely", "pessimistic", "duration", "distribution",
-                "predecessors", "start_no_earlier", "finish_no_later", "notes", "resources")
+                "predecessors", "start_no_earlier", "finish_no_later", "notes", "resources",
+                "cost", "crash_cost", "crash_optimistic", "crash_most_likely", "crash_pessimistic", "crash_duration")
 COMPUTED_COLUMNS = ("te", "sd", "early_start", "early_finish", "late_start", "late_finish",
                     "early_start_date", "early_finish_date", "late_start_date", "late_finish_date",
                     "total_float", "free_float", "critical")
@@ -40,7 +41,9 @@ def _point(value):
 def plan_cells(act, links) -> list:
     return [act.id, act.name, act.group, act.optimistic, act.most_likely, act.pessimistic, act.duration,
             act.distribution or "", format_predecessors(links),
-            _point(act.start_no_earlier), _point(act.finish_no_later), act.notes, format_needs(act.resources)]
+            _point(act.start_no_earlier), _point(act.finish_no_later), act.notes, format_needs(act.resources),
+            act.cost, act.crash_cost, act.crash_optimistic, act.crash_most_likely, act.crash_pessimistic,
+            act.crash_duration]
 
 
 def _links_into(plan) -> dict[str, list]:

@@ -30,6 +30,7 @@ from .path_pages import full_path, is_long
 from .summary import summary
 from .tables import activity_table
 from .text import elide
+from .tradeoff_pages import tradeoff_pages
 
 
 @dataclass(frozen=True)
@@ -98,6 +99,7 @@ def story(ctx: PackContext, report) -> list:
     parts += new_page(PORTRAIT) + checkup_pages(ctx, portrait_w)
     report(72)
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
+    parts += tradeoff_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(80)
     parts += new_page(PORTRAIT) + activity_table(ctx, portrait_w)
     parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)

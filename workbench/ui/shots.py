@@ -15,7 +15,7 @@ from pathlib import Path
 SIZE = (1920, 1080)
 SEED = 20270301
 VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png",
-              "Checkup": "checkup.png", "Resources": "resources.png"}
+              "Checkup": "checkup.png", "Resources": "resources.png", "Trade-off": "tradeoff.png"}
 
 
 def _settle(app, rounds: int = 5) -> None:
@@ -27,6 +27,10 @@ def _grab(widget, path: Path, app) -> None:
     widget.resize(*SIZE)
     widget.show()
     _settle(app)
+    finish = getattr(widget, "finish_work", None)
+    if callable(finish):  # a view computing in a worker shows its result, not its progress bar
+        finish()
+        _settle(app)
     fit = getattr(widget, "fit_every_row", None) or getattr(widget, "fit_all", None)
     if callable(fit):  # a chart shows the whole plan (every row, when the chart offers it)
         fit()

@@ -172,7 +172,7 @@ def test_views_are_real_or_say_what_will_come(window):
         if isinstance(widget, QLabel):
             assert title in widget.text() and "will appear here" in widget.text()
         else:
-            assert type(widget).__name__ == f"{title}View"
+            assert type(widget).__name__ == f"{title.replace('-', '')}View"
 
 
 def test_dock_layout_and_geometry_persist(ui_env, qtbot):

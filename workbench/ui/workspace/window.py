@@ -32,6 +32,8 @@ VIEWS = (
      "The Odds view will appear here: the chance of finishing by any date."),
     ("Drivers", "workbench.ui.drivers.view", "DriversView",
      "The Drivers view will appear here: which activities drive the finish date."),
+    ("Trade-off", "workbench.ui.tradeoff.view", "TradeoffView",
+     "The Trade-off view will appear here: what it costs to buy time."),
     ("Checkup", "workbench.ui.checkup.view", "CheckupView",
      "The Checkup will appear here: is this schedule sound enough to sign?"),
     ("Resources", "workbench.ui.resources.view", "ResourcesView",
@@ -136,6 +138,7 @@ class MainWindow(QMainWindow):
             self.addDockWidget(Qt.DockWidgetArea.BottomDockWidgetArea, dock)
         self.splitDockWidget(self.docks["Timeline"], self.docks["Odds"], Qt.Orientation.Horizontal)
         self.tabifyDockWidget(self.docks["Timeline"], self.docks["Network"])
+        self.tabifyDockWidget(self.docks["Network"], self.docks["Trade-off"])
         self.tabifyDockWidget(self.docks["Network"], self.docks["Resources"])
         self.tabifyDockWidget(self.docks["Odds"], self.docks["Drivers"])
         self.tabifyDockWidget(self.docks["Drivers"], self.docks["Checkup"])

@@ -1,0 +1,311 @@
+"""The Trade-off view: the cost–duration curve on the plan's dates, the confidence plans
+as cost against chance, a table of what to crash, and Apply as one undo step."""
+
+from __future__ import annotations
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QProgressBar, QPushButton, QSpinBox,
+                               QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+
+from workbench.core.buy_time import BuyTimeCommand
+from workbench.core.calendar import WorkCalendar
+from workbench.core.crash_problem import has_cost_data
+from workbench.figures import tradeoff as ftr
+from workbench.ui.session import refresh_when_shown
+from workbench.ui.tradeoff.cost_settings import CostSettings
+from workbench.ui.tradeoff.runner import TradeoffRunner
+
+CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
+           "simulation, not a promise; the decision rests with your organisation's own approval rules.")
+NO_COSTS = "No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can be shortened."
+
+
+class DateAxis(pg.AxisItem):
+    """Plan offsets labelled with the calendar dates they finish on."""
+
+    def __init__(self, **kw):
+        super().__init__("bottom", **kw)
+        self.calendar = None
+
+    def tickStrings(self, values, scale, spacing):  # noqa: N802 (Qt override)
+        if self.calendar is None:
+            return [f"{v:g}" for v in values]
+        return [self.calendar.finish_date(max(v, 0.0)).strftime("%d %b %Y") for v in values]
+
+
+class MoneyAxis(pg.AxisItem):
+    """Costs as 950, 12.5k, 1.25M (never in scientific notation)."""
+
+    def __init__(self, **kw):
+        super().__init__("left", **kw)
+        self.enableAutoSIPrefix(False)
+
+    def tickStrings(self, values, scale, spacing):  # noqa: N802 (Qt override)
+        return [ftr.money(v) for v in values]
+
+
+def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.PlotWidget:
+    axes = {"left": MoneyAxis()}
+    if axis is not None:
+        axes["bottom"] = axis
+    w = pg.PlotWidget(background="w", axisItems=axes)
+    w.setTitle(title, color="#000000", size="13pt")
+    w.setLabel("left", left)
+    w.setLabel("bottom", bottom)
+    w.showGrid(x=True, y=True, alpha=0.2)
+    font = pg.QtGui.QFont()
+    font.setPointSize(11)
+    for side in ("left", "bottom"):
+        w.getAxis(side).setTickFont(font)
+        w.getAxis(side).setTextPen("#000000")
+    if legend is not None:
+        w.addLegend(offset=legend, labelTextSize="11pt", labelTextColor="#000000", brush=pg.mkBrush(255, 255, 255, 220))
+    return w
+
+
+def _font(size: int):
+    font = pg.QtGui.QFont()
+    font.setPointSize(size)
+    return font
+
+
+class TradeoffView(QWidget):
+    def __init__(self, session, parent=None):
+        super().__init__(parent)
+        self.session, self.result, self.options = session, None, []
+        self.runner = TradeoffRunner(self)
+        self.runner.progress.connect(self._on_progress)
+        self.runner.finished.connect(self._on_result)
+        self.runner.failed.connect(self._on_failed)
+        self._build()
+        self.when_shown = refresh_when_shown(self, self.refresh, session.schedule_changed)
+        self.refresh()
+
+    def _build(self) -> None:
+        self.status = QLabel()
+        self.status.setWordWrap(True)
+        self.iterations = QSpinBox()
+        self.iterations.setRange(200, 20000)
+        self.iterations.setSingleStep(500)
+        self.iterations.setValue(2000)
+        self.find = QPushButton("Find confidence plans")
+        self.find.clicked.connect(self.search)
+        self.cancel = QPushButton("Cancel")
+        self.cancel.clicked.connect(self.runner.stop)
+        self.progress = QProgressBar()
+        self.progress.setVisible(False)
+        head = QHBoxLayout()
+        for w in (QLabel("Scenarios"), self.iterations, self.find, self.cancel, self.progress):
+            head.addWidget(w)
+        head.addWidget(self.status, 1)
+        self.axis = DateAxis()
+        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(-10, -60))
+        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)")
+        charts = QHBoxLayout()
+        charts.addWidget(self.curve_plot, 3)
+        charts.addWidget(self.chance_plot, 2)
+        lay = QVBoxLayout(self)
+        lay.addLayout(head)
+        lay.addLayout(charts, 3)
+        lay.addLayout(self._table_row(), 2)
+        caution = QLabel(CAUTION)
+        caution.setWordWrap(True)
+        lay.addWidget(caution)
+        self._set_running(False)
+
+    def _table_row(self):
+        self.option = QComboBox()
+        self.option.currentIndexChanged.connect(self._fill_table)
+        self.apply = QPushButton("Apply as a scenario")
+        self.apply.setToolTip("Replace the estimates of the activities listed by their crashed ones "
+                              "(one step in the edit history: Undo takes it back)")
+        self.apply.clicked.connect(self.apply_option)
+        self.summary = QLabel()
+        self.summary.setWordWrap(True)
+        self.table = QTableWidget(0, 4)
+        self.table.setHorizontalHeaderLabels(["id", "activity", "shortened by", "extra cost"])
+        self.table.horizontalHeader().setSectionResizeMode(1, self.table.horizontalHeader().ResizeMode.Stretch)
+        self.table.setEditTriggers(QTableWidget.EditTrigger.NoEditTriggers)
+        self.table.setSelectionBehavior(QTableWidget.SelectionBehavior.SelectRows)
+        self.table.itemSelectionChanged.connect(self._select_in_views)
+        self.costs = CostSettings(self.session)
+        side = QVBoxLayout()
+        for w in (self.costs, QLabel("Option"), self.option, self.summary, self.apply):
+            side.addWidget(w)
+        side.addStretch(1)
+        row = QHBoxLayout()
+        row.addLayout(side, 1)
+        row.addWidget(self.table, 3)
+        return row
+
+    # --- running -------------------------------------------------------------
+    def _kwargs(self, targets=()) -> dict:
+        return {"targets": tuple(targets), "iterations": self.iterations.value(), "seed": 1}
+
+    def refresh(self) -> None:
+        """The curve and the crash to the deadline (fast); confidence plans on request."""
+        self.costs.show_settings()
+        if self.session.analysis is None:
+            self.status.setText("The plan cannot be scheduled; fix it in the Activities table.")
+            return
+        if not has_cost_data(self.session.plan):
+            self.runner.stop()
+            self._on_failed("no cost data")
+            return
+        self.runner.start(self.session.plan, **self._kwargs())
+        self._set_running(True)
+
+    def search(self) -> None:
+        target = self.session.plan.settings.target_confidence
+        targets = sorted({0.5, 0.8, 0.9, round(target, 4)})
+        self.runner.start(self.session.plan, **self._kwargs(targets))
+        self._set_running(True)
+
+    def _set_running(self, running: bool) -> None:
+        self.find.setEnabled(not running and has_cost_data(self.session.plan))
+        self.cancel.setEnabled(running)
+        self.progress.setVisible(running)
+        self.progress.setRange(0, 0)
+
+    def _on_progress(self, done: int, total: int) -> None:
+        self.progress.setRange(0, total)
+        self.progress.setValue(done)
+
+    def _on_failed(self, message: str) -> None:
+        """A cancelled search keeps what was shown; a refusal clears it and says why."""
+        self._set_running(False)
+        if not message:
+            self.status.setText("Search cancelled; nothing changed.")
+            return
+        self.status.setText(NO_COSTS if "no cost data" in message else message[:1].upper() + message[1:] + ".")
+        self.result = None
+        self._draw()
+
+    def _on_result(self, result) -> None:
+        self._set_running(False)
+        self.result = result
+        unit = self.session.plan.settings.unit
+        o = result.optimum
+        self.status.setText(f"Shortest reachable {result.curve.shortest:.1f} {unit}, all-normal "
+                            f"{result.curve.normal:.1f}; total-cost optimum {o.duration:.1f} {unit}."
+                            + (f" Confidence plans from {result.iterations:,} scenarios, checked on as many "
+                               f"fresh ones (seed {result.seed})." if result.confidence else "")
+                            + (" No deadline is set: give the plan one (Plan settings) to see the odds and "
+                               "the confidence plans." if result.deadline is None else ""))
+        self.find.setEnabled(result.deadline is not None)
+        self._draw()
+
+    def finish_work(self) -> None:
+        """Wait for the worker and take its result (for screenshots and scripts)."""
+        from PySide6.QtCore import QCoreApplication
+
+        self.runner.wait()
+        QCoreApplication.processEvents()
+
+    # --- drawing -------------------------------------------------------------
+    def _draw(self) -> None:
+        for w in (self.curve_plot, self.chance_plot):
+            w.clear()
+        self.options = []
+        self.option.clear()
+        if self.result is None:
+            self.table.setRowCount(0)
+            return
+        self.axis.calendar = WorkCalendar(self.session.plan.settings)
+        self._draw_curve(ftr.curve_lines(self.result))
+        self._draw_chances(ftr.chance_points(self.result))
+        self._list_options()
+
+    def _draw_curve(self, lines) -> None:
+        p = self.curve_plot
+        for ys, colour, name, width in ((lines.direct, ftr.DIRECT, "direct", 3), (lines.indirect, ftr.INDIRECT, "indirect", 2),
+                                        (lines.total, ftr.TOTAL, "total", 4)):
+            style = pg.mkPen(colour, width=width)
+            p.plot(lines.durations, ys, pen=style, symbol="o", symbolSize=6, symbolBrush=colour, name=name)
+        x, y = lines.optimum
+        p.plot([x], [y], pen=None, symbol="star", symbolSize=22, symbolBrush=ftr.OPTIMUM, name="least total cost")
+        when = self.axis.calendar.finish_date(x).strftime("%d %b")
+        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(0.5, 1.3))
+        label.setFont(_font(11))
+        label.setPos(x, y)
+        p.addItem(label)
+        if lines.deadline is not None:
+            p.addItem(pg.InfiniteLine(lines.deadline, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=3, style=pg.QtCore.Qt.PenStyle.DashLine),
+                                      label="deadline", labelOpts={"color": ftr.DEADLINE, "position": 0.95}))
+
+    def _draw_chances(self, points) -> None:
+        p = self.chance_plot
+        target = self.session.plan.settings.target_confidence
+        p.addItem(pg.InfiniteLine(100 * target, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=2, style=pg.QtCore.Qt.PenStyle.DotLine),
+                                  label=f"target {target:.0%}", labelOpts={"color": ftr.DEADLINE, "position": 0.3}))
+        for pt in ftr.merged(points):
+            symbol, colour = ("s", ftr.DEADLINE) if pt.textbook else ("o", ftr.CHANCE)
+            x = 100 * pt.chance
+            p.plot([x], [pt.extra_cost], pen=None, symbol=symbol, symbolSize=16,
+                   symbolBrush=colour, symbolPen=pg.mkPen("#000000", width=1.5))
+            p.addItem(pg.ErrorBarItem(x=np.array([x]), y=np.array([pt.extra_cost]),
+                                      width=np.array([200 * pt.standard_error]), pen="#000000"))
+            anchor = (-0.05, -0.1) if pt.textbook else (1.05, 1.1) if x > 55 else (-0.05, 1.1)
+            label = pg.TextItem("textbook crash" if pt.textbook else pt.label,
+                                color="#000000", anchor=anchor)
+            label.setFont(_font(11))
+            label.setPos(x, pt.extra_cost)
+            p.addItem(label)
+        p.setXRange(0, 100, padding=0.04)
+        p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
+        if not self.result.confidence:
+            hint = pg.TextItem("Find confidence plans: what a 50, 80 or 90 %\nchance of the deadline would cost",
+                               color="#555555", anchor=(0.5, 0.5))
+            hint.setFont(_font(12))
+            lo, hi = ftr.cost_span([q.extra_cost for q in points])
+            hint.setPos(50, lo + 0.6 * (hi - lo))
+            p.addItem(hint)
+
+    # --- options -------------------------------------------------------------
+    def _list_options(self) -> None:
+        r = self.result
+        if r.to_deadline is not None:
+            d = r.to_deadline
+            self.options.append(("Textbook: crash the mean schedule to the deadline", d.point.days,
+                                 d.point.direct_cost - r.problem.base_cost, d.chance, d.standard_error))
+        for c in r.confidence:
+            if c.reachable:
+                self.options.append((f"{c.target:.0%} chance of the deadline", c.days, c.extra_cost,
+                                     c.chance_out_of_sample, c.standard_error))
+        o = r.optimum
+        self.options.append(("Total-cost optimum", o.days, o.direct_cost - r.problem.base_cost, None, None))
+        for label, *_ in self.options:
+            self.option.addItem(label)
+        self._fill_table()
+
+    def _fill_table(self) -> None:
+        i = self.option.currentIndex()
+        if not 0 <= i < len(self.options):
+            self.table.setRowCount(0)
+            return
+        label, days, extra, chance, se = self.options[i]
+        crashed = self.result.crashed(days)
+        plan, slope = self.session.plan, dict(zip(self.result.problem.ids, self.result.problem.slope))
+        self.table.setRowCount(len(crashed))
+        for row, (act_id, x) in enumerate(crashed.items()):
+            cells = [act_id, plan.activity(act_id).name, f"{x:.2f}", f"{slope[act_id] * x:,.0f}"]
+            for col, text in enumerate(cells):
+                self.table.setItem(row, col, QTableWidgetItem(text))
+        odds = "" if chance is None else f"; chance {chance:.1%} \u00b1 {se:.1%} (fresh simulation)"
+        nothing = "" if crashed else " Nothing to buy: the mean schedule already meets this."
+        self.summary.setText(f"{extra:,.0f} extra{odds}.{nothing}")
+        self.apply.setEnabled(bool(crashed))
+
+    def _select_in_views(self) -> None:
+        rows = sorted({i.row() for i in self.table.selectedItems()})
+        ids = [self.table.item(r, 0).text() for r in rows if self.table.item(r, 0) is not None]
+        if ids:
+            self.session.select(ids)
+
+    def apply_option(self) -> bool:
+        i = self.option.currentIndex()
+        if not 0 <= i < len(self.options):
+            return False
+        label, days, extra, chance, se = self.options[i]
+        return self.session.push(BuyTimeCommand(self.result.crashed(days), label, extra, chance, se))
