@@ -11,7 +11,7 @@ from dataclasses import dataclass
 from reportlab.pdfgen.canvas import Canvas
 
 from . import styles
-from .text import clean
+from .text import clean, format_timestamp
 
 TOTAL_FORM = "pack-page-total"
 PAGE_LABEL_W = 78.0
@@ -27,7 +27,7 @@ class FooterInfo:
 
     def line(self) -> str:
         seed = "no simulation" if self.seed is None else f"seed {self.seed}"
-        when = self.generated_at.strftime("%Y-%m-%d %H:%M %Z").strip()
+        when = f"{format_timestamp(self.generated_at)} {self.generated_at:%Z}".strip()
         return clean(f"{self.file_name}  \u00b7  plan hash {self.plan_hash}  \u00b7  generated {when}"
                      f"  \u00b7  Slackline {self.version}  \u00b7  {seed}")
 
