@@ -27,6 +27,7 @@ def para(text) -> str:
 
 format_percent = fm.format_percent   # one number and date style: workbench.core.formatting
 format_date = fm.format_date
+format_day_month = fm.format_day_month
 format_number = fm.format_number
 format_timestamp = fm.format_timestamp
 format_duration = fm.format_duration
