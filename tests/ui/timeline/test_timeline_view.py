@@ -311,8 +311,8 @@ def test_clicking_a_group_row_collapses_it(qtbot):
 def test_hover_shows_the_activity_numbers(view):
     _, row, x0, x1 = bar(view, "C")
     view._hover(QPointF((x0 + x1) / 2, row), None)
-    assert view.plot.toolTip().startswith("C  Assemble")
-    assert "estimate 6 / 9 / 18" in view.plot.toolTip()
+    assert view.item.toolTip().startswith("C  Assemble")
+    assert "estimate 6 / 9 / 18" in view.item.toolTip()
 
 
 def test_long_labels_are_elided_to_the_column(qtbot):

@@ -212,7 +212,7 @@ class TimelineView(QWidget):
         row = None if geo is None or pos is None else geo.row_at(pos.y())
         if row is None or geo.kinds[row] == "group":
             self.item.setCursor(Qt.CursorShape.ArrowCursor)
-            self.plot.setToolTip("")
+            self.item.setToolTip("")
             QToolTip.hideText()
             return
         near_end = self._near_bar_end(row, pos.x())
@@ -220,7 +220,9 @@ class TimelineView(QWidget):
         text = tooltip_text(self.session.analysis, self.session.simulation, geo.keys[row])
         if screen_pos is not None:
             QToolTip.showText(screen_pos, text, self.plot)
-        self.plot.setToolTip(text)
+        # The scene answers Qt's tooltip event (sent once the pointer rests) from the item
+        # under the pointer: with the text on the item it keeps the tooltip, not hides it.
+        self.item.setToolTip(text)
 
     def _near_bar_end(self, row: int, x: float) -> bool:
         span = bar_span(self.geometry, row)
