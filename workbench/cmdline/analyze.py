@@ -6,18 +6,19 @@ import numpy as np
 
 from ..core.analysis import analyze
 from ..figures.odds import confidence_label
-from .common import load_plan_file, parse_offset_or_date, write_json
+from .common import add_plan_settings, load_plan_with_settings, parse_offset_or_date, write_json
 from .text import CAUTION, column_table, elide, num, nums, pct
 
 
 def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN", help=".slw, .csv or .xlsx")
+    add_plan_settings(p)
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
     p.add_argument("--json", action="store_true", help="one JSON object on stdout")
 
 
 def run(args) -> int:
-    plan = load_plan_file(args.plan)
+    plan = load_plan_with_settings(args)
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
     result = analyze(plan, deadline=deadline)
     if args.json:

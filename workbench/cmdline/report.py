@@ -6,11 +6,12 @@ import os
 from pathlib import Path
 
 from ..core.errors import PlanError
-from .common import check_iterations, load_plan_file
+from .common import add_plan_settings, check_iterations, load_plan_with_settings
 
 
 def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN")
+    add_plan_settings(p)
     p.add_argument("-o", "--output", required=True, metavar="PACK.pdf")
     p.add_argument("--paper", choices=("a4", "letter"), default="a4")
     p.add_argument("--iterations", type=int, default=10_000, metavar="N")
@@ -23,7 +24,7 @@ def run(args) -> int:
     check_iterations(args.iterations)
     if Path(args.output).suffix.lower() != ".pdf":
         raise PlanError(f"-o {args.output}: the approval pack is written as .pdf", "-o")
-    plan = load_plan_file(args.plan)
+    plan = load_plan_with_settings(args)
     info = build_pack(plan, args.output, paper=args.paper, iterations=args.iterations, seed=args.seed,
                       plan_path=os.path.basename(args.plan))
     print(f"wrote {args.output} ({getattr(info, 'pages', '?')} pages, seed {getattr(info, 'seed', args.seed)})")

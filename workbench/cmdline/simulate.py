@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import sys
 
-from .common import check_iterations, load_plan_file, parse_offset_or_date, write_json
+from .common import add_plan_settings, check_iterations, load_plan_with_settings, parse_offset_or_date, write_json
 from .text import CAUTION, elide, num, pct, table
 
 DISTRIBUTION_CHOICES = ("beta-pert", "triangular", "uniform", "normal")
@@ -12,6 +12,7 @@ DISTRIBUTION_CHOICES = ("beta-pert", "triangular", "uniform", "normal")
 
 def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN")
+    add_plan_settings(p)
     p.add_argument("--iterations", type=int, default=10_000, metavar="N")
     p.add_argument("--seed", type=int, default=None, metavar="S")
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
@@ -21,7 +22,7 @@ def add_arguments(p) -> None:
 
 def run(args) -> int:
     check_iterations(args.iterations)
-    plan = load_plan_file(args.plan)
+    plan = load_plan_with_settings(args)
     from ..core.montecarlo import simulate
 
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline else None
@@ -34,6 +35,8 @@ def run(args) -> int:
     if progress:
         print(file=sys.stderr)
     data = result.to_dict()
+    data["title"] = plan.settings.title
+    data["names"] = {a.id: a.name for a in plan.activities}      # ids above, names here
     if args.json:
         write_json(data)
     else:

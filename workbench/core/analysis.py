@@ -94,7 +94,8 @@ class Analysis:
         columns["mean"], columns["variance"] = _rounded(self.means), _rounded(self.variances)
         columns.update({k: np.datetime_as_string(v, unit="D").tolist() for k, v in self.dates().items()})
         names = list(columns)
-        acts = {act_id: dict(zip(names, row)) for act_id, row in zip(s.ids, zip(*columns.values()))}
+        acts = {act_id: {"name": a.name, **dict(zip(names, row))}
+                for act_id, a, row in zip(s.ids, self.plan.activities, zip(*columns.values()))}
         pert = {"mean": round_offset(p.mean), "variance": round_offset(p.variance),
                 "sd": round_offset(p.sd), "path": list(p.path)}
         if p.note:
