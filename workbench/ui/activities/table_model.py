@@ -14,6 +14,7 @@ from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelInd
 from PySide6.QtGui import QBrush, QColor, QFont
 
 from workbench.core.commands import EditActivity, SetPredecessors
+from workbench.core import formatting as fm
 from workbench.core.errors import PlanError
 from workbench.figures import style
 from workbench.ui.activities import columns as C
@@ -179,7 +180,7 @@ class ActivityTableModel(QAbstractTableModel):
             return C.CRITICAL_MARK if value else ""
         if key in self._dates:
             return C.format_date(value)
-        return C.format_number(value)
+        return fm.format_number(value)       # computed figures, rounded for people
 
     def data(self, index: _Index, role: int = Qt.ItemDataRole.DisplayRole):
         role = int(role)
