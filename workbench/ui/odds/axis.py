@@ -3,8 +3,9 @@
 from __future__ import annotations
 
 import pyqtgraph as pg
+from PySide6.QtGui import QFont, QFontMetricsF
 
-from workbench.figures.ticks import date_ticks
+from workbench.figures.ticks import fitted_date_ticks
 
 
 class OddsAxis(pg.AxisItem):
@@ -23,8 +24,8 @@ class OddsAxis(pg.AxisItem):
     def tickValues(self, minVal, maxVal, size):  # noqa: N802 (Qt override)
         if self.calendar is None:
             return super().tickValues(minVal, maxVal, size)
-        room = max(2, int(size // 95))
-        ticks = date_ticks(self.calendar, minVal, maxVal, room)
+        metrics = QFontMetricsF(self.style.get("tickFont") or QFont())
+        ticks = fitted_date_ticks(self.calendar, minVal, maxVal, size, metrics.horizontalAdvance, gap=16.0)
         self._labels = {round(o, 6): text for o, text in ticks}
         return [(1.0, [o for o, _ in ticks])]
 
