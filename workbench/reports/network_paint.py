@@ -65,7 +65,7 @@ class NetworkPainter:
         for node in self.layout.nodes:
             if node.id in shown:
                 self._node(c, node, h)
-        if (self.detail or self.view.rows is not None) and len(shown) < len(self.layout.nodes):
+        if self.detail and len(shown) < len(self.layout.nodes):
             placed: list[tuple[str, float, float]] = []
             for link in sorted(links, key=lambda l: not l.critical):
                 self._off_page_tag(c, link, shown, h, placed)

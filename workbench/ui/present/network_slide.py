@@ -1,7 +1,7 @@
 """The Network slide of Present mode: the pack's activity-on-node diagram, shown in
 parts just large enough that every id reads from the back of a room (at least ID_PX
 pixels high). Parts are set one under another on a slide while they fit (a wide network
-wraps like text, with tags naming the boxes its links lead to); [ and ] step between
+wraps like text); [ and ] step between
 slides only when there is more than one. A small network shows whole."""
 
 from __future__ import annotations
