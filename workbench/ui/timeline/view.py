@@ -24,7 +24,7 @@ from workbench.ui.timeline.present import PRESENT_HINT, fold_all, present_key, s
 from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
 
-HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
+HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
 GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
 
 
@@ -75,6 +75,7 @@ class TimelineView(QWidget):
         pi.addItem(self.item)
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
+        self.view_box.sigResized.connect(lambda *_: stack_finish_labels(self))   # labels apart again
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
@@ -283,10 +284,11 @@ class TimelineView(QWidget):
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
         height = max(self.view_box.height(), 200.0)
-        header_px = max(HEADER_PX, 2.0 * self._font().pixelSize())    # room for the line labels
+        header_px = max(HEADER_PX, 4.0 * self._font().pixelSize())    # two lines of line labels
         n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
         header = header_px * n / max(height - header_px, 1.0)
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
+        stack_finish_labels(self)
 
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
         """How many rows (from the top) a fit shows in ``room_px`` pixels."""
