@@ -92,7 +92,7 @@ class Axes:
             ticks = date_ticks(calendar, self.x_lo, self.x_hi, max_ticks)
         else:       # as fine as the labels allow: days or weeks when there is room
             measure = lambda text: c.stringWidth(clean(text), styles.FONT, TICK_FONT)
-            ticks = fitted_date_ticks(calendar, self.x_lo, self.x_hi, self.w, measure, gap=6.0)
+            ticks = fitted_date_ticks(calendar, self.x_lo, self.x_hi, self.w, measure, gap=10.0)
         c.saveState()
         c.setFont(styles.FONT, TICK_FONT)
         base = self.y + self.h if at_top else self.y

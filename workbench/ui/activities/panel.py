@@ -23,6 +23,8 @@ ALL_GROUPS = "All groups"
 WIDTH_CHARS = {"id": 5, "name": 32, "group": 13, "predecessors": 12, "notes": 20, "distribution": 9,
                "start_no_earlier": 10, "finish_no_later": 10, "early_start": 11, "early_finish": 11,
                "late_start": 11, "late_finish": 11, "critical": 5}
+DATE_KEYS = {"start_no_earlier", "finish_no_later", "early_start", "early_finish", "late_start", "late_finish"}
+DATE_SAMPLE = "Wed 30 Sep 2027"      # the widest date in Slackline's one format
 
 
 class ActivitiesPanel(QWidget):
@@ -76,7 +78,8 @@ class ActivitiesPanel(QWidget):
         heading = QFontMetrics(bold)
         for i, col in enumerate(C.COLUMNS):
             chars = WIDTH_CHARS.get(col.key, 6)
-            text = metrics.horizontalAdvance("0" * chars) + 14
+            sample = DATE_SAMPLE if col.key in DATE_KEYS else "0" * chars
+            text = metrics.horizontalAdvance(sample) + 14
             table.setColumnWidth(i, max(text, heading.horizontalAdvance(col.title) + 16))
 
     def _make_filter_bar(self) -> QHBoxLayout:
