@@ -43,10 +43,13 @@ def footer_drawer(info: FooterInfo):
         canvas.setLineWidth(0.4)
         canvas.line(styles.MARGIN, y + 10, width - styles.MARGIN, y + 10)
         canvas.setFillColor(styles.MUTED)
-        canvas.setFont(styles.FONT, 7.5)
-        canvas.drawString(styles.MARGIN, y, info.line())
-        canvas.setFont(styles.BOLD, 8)
         x = width - styles.MARGIN - PAGE_LABEL_W
+        line = info.line()
+        room = x - styles.MARGIN - 8          # the trace line never runs into the page number
+        size = min(7.5, 7.5 * room / max(canvas.stringWidth(line, styles.FONT, 7.5), 1.0))
+        canvas.setFont(styles.FONT, size)
+        canvas.drawString(styles.MARGIN, y, line)
+        canvas.setFont(styles.BOLD, 8)
         text = f"Page {canvas.getPageNumber()} of "
         canvas.drawString(x, y, text)
         canvas.translate(x + canvas.stringWidth(text, styles.BOLD, 8), y)
