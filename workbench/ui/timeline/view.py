@@ -239,7 +239,8 @@ class TimelineView(QWidget):
             return False
         act_id, row, es = self._drag
         act = self.session.plan.activity(act_id)
-        changes = dragged_estimate(act, pos.x() - es)
+        per_unit = self.session.analysis.calendar.per_unit if self.session.analysis is not None else 1
+        changes = dragged_estimate(act, pos.x() - es, resolution=1.0 / per_unit)   # whole working days
         value = changes.get("most_likely", changes.get("duration"))
         if phase == "move":
             self.item.set_preview((row, es, es + act.with_(**changes).mean))
