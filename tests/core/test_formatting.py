@@ -69,3 +69,8 @@ def test_percentages_never_claim_certainty_they_do_not_have():
     assert fm.format_percent(0.99996) == "> 99.9 %"
     assert fm.format_percent(0.00002) == "< 0.1 %"
     assert fm.format_percent(1.0) == "100 %" and fm.format_percent(0.0) == "0 %"
+
+
+def test_a_stored_timestamp_reads_as_people_write_it():
+    assert fm.format_stored_timestamp("2027-03-01T14:05:33") == "Mon 1 Mar 2027 14:05"
+    assert fm.format_stored_timestamp("not a time") == "not a time"
