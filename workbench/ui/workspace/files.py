@@ -9,10 +9,10 @@ from pathlib import Path
 from PySide6.QtCore import QObject, QSettings, QTimer, Signal
 
 from workbench.core.errors import PlanError
+from workbench.core.formatting import format_stored_timestamp
 from workbench.core.model import Plan
 from workbench.ui import prompts
 from workbench.ui.workspace.lock import PlanLock
-from workbench.core.formatting import format_stored_timestamp
 from workbench.ui.workspace.recovery import RecoveryStore, remove_copy
 from workbench.ui.session import Session
 
