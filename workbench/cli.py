@@ -1,9 +1,9 @@
 """The ``slackline`` command: no arguments opens the window; verbs work headless.
 
     slackline [PLAN]                       open the window (on PLAN, or the last plan)
-    slackline analyze PLAN [--deadline N|YYYY-MM-DD] [--json]
-    slackline simulate PLAN [--iterations N] [--seed S] [--deadline ...] [--distribution D] [--json]
-    slackline report PLAN -o pack.pdf [--paper a4|letter] [--iterations N] [--seed S]
+    slackline analyze PLAN [--start D] [--title T] [--deadline N|YYYY-MM-DD] [--json]
+    slackline simulate PLAN [--start D] [--title T] [--iterations N] [--seed S] [--deadline ...] [--distribution D] [--json]
+    slackline report PLAN -o pack.pdf [--start D] [--title T] [--paper a4|letter] [--iterations N] [--seed S]
     slackline import SRC.csv|SRC.xlsx -o PLAN.slw [--start YYYY-MM-DD] [--unit days|weeks] [--force]
     slackline export PLAN -o OUT.csv|OUT.xlsx
     slackline tradeoff PLAN [--deadline N|YYYY-MM-DD] [--confidence P] [--iterations N] [--seed S] [--json]
@@ -93,17 +93,27 @@ def main(argv: list[str] | None = None) -> int:
         return _dispatch(args)
     except PlanError as exc:
         return _fail(str(exc), 2)
+    except BrokenPipeError:  # output piped into a pager or `head` that stopped reading
+        return _quiet_exit()
     except (OSError, UnicodeError) as exc:
         return _fail(f"{getattr(exc, 'filename', None) or ''} {exc.strerror if isinstance(exc, OSError) and exc.strerror else exc}".strip(), 2)
-    except BrokenPipeError:  # output piped into a pager or `head` that stopped reading
-        sys.stderr.close()
-        return 0
     except KeyboardInterrupt:
         return _fail("interrupted", 130)
     except Exception as exc:  # an internal fault: say so plainly, keep the trace for developers
         if os.environ.get("SLACKLINE_DEBUG"):
             raise
         return _fail(f"internal error ({type(exc).__name__}: {exc}); rerun with SLACKLINE_DEBUG=1 for details", 1)
+
+
+def _quiet_exit() -> int:
+    """The reader of our output went away (``| head``): stop without a word. Standard output
+    is pointed at the null device so the interpreter's final flush cannot complain either."""
+    try:
+        devnull = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(devnull, sys.stdout.fileno())
+    except (OSError, ValueError):
+        pass
+    return 0
 
 
 def open_window(argv: list[str]) -> int:

@@ -6,13 +6,14 @@ import numpy as np
 
 from ..core.analysis import analyze
 from ..figures.odds import confidence_label
-from .common import load_plan_file, parse_offset_or_date, write_json
+from .common import add_plan_settings, load_plan_with_settings, parse_offset_or_date, write_json
 from .living import add_baseline, add_status_date, apply_status_date, status_lines, variance_for
 from .text import CAUTION, column_table, elide, num, nums, pct
 
 
 def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN", help=".slw, .csv or .xlsx")
+    add_plan_settings(p)
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
     p.add_argument("--json", action="store_true", help="one JSON object on stdout")
     add_status_date(p)
@@ -20,7 +21,7 @@ def add_arguments(p) -> None:
 
 
 def run(args) -> int:
-    plan = load_plan_file(args.plan)
+    plan = load_plan_with_settings(args)
     apply_status_date(plan, args)
     deadline = parse_offset_or_date(args.deadline, "--deadline") if args.deadline is not None else None
     result = analyze(plan, deadline=deadline)

@@ -42,6 +42,36 @@ def parse_offset_or_date(text: str, what: str):
     return value
 
 
+def add_plan_settings(p) -> None:
+    """``--start`` and ``--title``: what a CSV/XLSX list cannot carry (they also override a plan file's)."""
+    p.add_argument("--start", metavar="YYYY-MM-DD", help="project start (default: the plan's; a table: today)")
+    p.add_argument("--title", metavar="TEXT", help="plan title (default: the plan's; a table: its file name)")
+
+
+def load_plan_with_settings(args):
+    """The plan named by ``args.plan`` with ``--start`` and ``--title`` applied; a table
+    without ``--title`` is titled by its file name rather than "Untitled plan"."""
+    from dataclasses import replace
+
+    plan = load_plan_file(args.plan)
+    changes = {}
+    if getattr(args, "start", None):
+        try:
+            changes["start"] = check_date(dt.date.fromisoformat(args.start), "--start", "date")
+        except ValueError as exc:
+            if isinstance(exc, PlanError):
+                raise
+            raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
+    title = getattr(args, "title", None)
+    if title is not None and title.strip():
+        changes["title"] = title.strip()
+    elif Path(args.plan).suffix.lower() != ".slw":
+        changes["title"] = Path(args.plan).stem
+    if changes:
+        plan.set_settings(replace(plan.settings, **changes))
+    return plan
+
+
 def load_plan_file(path: str):
     p = Path(path)
     if p.suffix.lower() not in PLAN_SUFFIXES:

@@ -6,12 +6,13 @@ import os
 from pathlib import Path
 
 from ..core.errors import PlanError
-from .common import check_iterations, load_plan_file
+from .common import add_plan_settings, check_iterations, load_plan_with_settings
 from .living import add_status_date, apply_status_date
 
 
 def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN")
+    add_plan_settings(p)
     p.add_argument("-o", "--output", required=True, metavar="PACK.pdf")
     p.add_argument("--paper", choices=("a4", "letter"), default="a4")
     p.add_argument("--iterations", type=int, default=10_000, metavar="N")
@@ -28,7 +29,7 @@ def run(args) -> int:
     check_iterations(args.iterations)
     if Path(args.output).suffix.lower() != ".pdf":
         raise PlanError(f"-o {args.output}: the approval pack is written as .pdf", "-o")
-    plan = load_plan_file(args.plan)
+    plan = load_plan_with_settings(args)
     apply_status_date(plan, args)
     if args.record_baseline:
         check_recordable(plan, args)

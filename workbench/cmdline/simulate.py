@@ -4,7 +4,7 @@ from __future__ import annotations
 
 import sys
 
-from .common import check_iterations, load_plan_file, parse_offset_or_date, write_json
+from .common import add_plan_settings, check_iterations, load_plan_with_settings, parse_offset_or_date, write_json
 from .living import add_status_date, apply_status_date
 from .text import CAUTION, elide, num, pct, table
 
@@ -13,6 +13,7 @@ DISTRIBUTION_CHOICES = ("beta-pert", "triangular", "uniform", "normal")
 
 def add_arguments(p) -> None:
     p.add_argument("plan", metavar="PLAN")
+    add_plan_settings(p)
     p.add_argument("--iterations", type=int, default=10_000, metavar="N")
     p.add_argument("--seed", type=int, default=None, metavar="S")
     p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
@@ -27,7 +28,7 @@ def add_arguments(p) -> None:
 
 def run(args) -> int:
     check_iterations(args.iterations)
-    plan = load_plan_file(args.plan)
+    plan = load_plan_with_settings(args)
     apply_status_date(plan, args)
     from ..core.montecarlo import simulate
 
@@ -44,6 +45,8 @@ def run(args) -> int:
     data.update(status_fields(plan))
     if args.record_trend:
         record_trend(plan, args, result, deadline)
+    data["title"] = plan.settings.title
+    data["names"] = {a.id: a.name for a in plan.activities}      # ids above, names here
     if args.json:
         write_json(data)
     else:

@@ -25,6 +25,8 @@ class Analysis:
     variances: np.ndarray
     deadline: float | None
     progress: object = None      # a progress.ProgressFrame when analysed from a status date
+    floor: np.ndarray | None = None     # start-no-earlier offsets (0 when none), plan order
+    ceiling: np.ndarray | None = None   # finish-no-later offsets (+inf when none), plan order
 
     # --- dates ---------------------------------------------------------
     @property
@@ -33,23 +35,51 @@ class Analysis:
 
     @property
     def finish_date(self) -> dt.date:
-        return self.calendar.finish_date(self.schedule.finish)
+        """The day the project ends: the evening of its last working day, or the morning a
+        start milestone opens when one is the last thing in the plan."""
+        s = self.schedule
+        last = s.ef >= s.finish - 1e-9
+        if not s.ef.size or bool(np.any(self.opens()[last])):
+            return self.calendar.start_date(s.finish)
+        return self.calendar.finish_date(s.finish)
+
+    def opens(self) -> np.ndarray:
+        """Per activity, true for a start milestone: a milestone held where it is by its own
+        floor (the project start or its start-no-earlier date) rather than by a predecessor's
+        finish — a gate, dated the morning it opens. Other milestones are finish milestones,
+        and so is a gate whose own finish-no-later date falls at the same instant (it is then
+        read by that date: "no later than Monday" stays Monday)."""
+        s = self.schedule
+        floor = np.zeros(s.es.size) if self.floor is None else self.floor
+        ceiling = np.full(s.es.size, np.inf) if self.ceiling is None else self.ceiling
+        return (s.durations == 0) & (s.es <= floor + 1e-9) & (ceiling > s.es + 1e-9)
 
     def date_of_duration(self, duration: float) -> dt.date:
         """The calendar day by whose end a project of this duration finishes."""
         return self.calendar.finish_date(duration)
 
     def dates(self) -> dict[str, np.ndarray]:
-        """Calendar dates per activity; a milestone's start and finish share one date."""
+        """Calendar dates per activity; a milestone's start and finish share one date, the
+        morning it opens for a start milestone, the evening it happens for a finish one."""
         s, cal = self.schedule, self.calendar
-        mile = s.durations == 0
-        ef, lf = cal.finish_dates(s.ef), cal.finish_dates(s.lf)
+        mile, opens = s.durations == 0, self.opens()
+        early = cal.milestone_dates(s.es, opens)
+        late = cal.milestone_dates(s.ls, opens & self._late_opens())
         return {
-            "early_start": np.where(mile, ef, cal.start_dates(s.es)),
-            "early_finish": ef,
-            "late_start": np.where(mile, lf, cal.start_dates(s.ls)),
-            "late_finish": lf,
+            "early_start": np.where(mile, early, cal.start_dates(s.es)),
+            "early_finish": np.where(mile, early, cal.finish_dates(s.ef)),
+            "late_start": np.where(mile, late, cal.start_dates(s.ls)),
+            "late_finish": np.where(mile, late, cal.finish_dates(s.lf)),
         }
+
+    def _late_opens(self) -> np.ndarray:
+        """Where a start milestone's late date is read as a morning too: with no float (one
+        date for both), or when a successor holds it (the morning that successor must start).
+        Held by its own limit (a deadline, a finish-no-later date) it reads as that evening."""
+        s = self.schedule
+        ceiling = np.full(s.es.size, np.inf) if self.ceiling is None else self.ceiling
+        limit = np.minimum(ceiling, np.inf if s.deadline is None else s.deadline)
+        return (np.abs(s.ls - s.es) <= 1e-9) | (s.lf < limit - 1e-9)
 
     # --- odds ----------------------------------------------------------
     def probability_by_deadline(self) -> float | None:
@@ -73,7 +103,8 @@ class Analysis:
         if variance is not None:
             columns.update(variance_columns(variance))
         names = list(columns)
-        acts = {act_id: dict(zip(names, row)) for act_id, row in zip(s.ids, zip(*columns.values()))}
+        acts = {act_id: {"name": a.name, **dict(zip(names, row))}
+                for act_id, a, row in zip(s.ids, self.plan.activities, zip(*columns.values()))}
         pert = {"mean": round_offset(p.mean), "variance": round_offset(p.variance),
                 "sd": round_offset(p.sd), "path": list(p.path)}
         if p.note:
@@ -144,7 +175,8 @@ def analyze(plan, deadline=None, status_date=None) -> Analysis:
         means, variances = frame.moments(means, variances)
     schedule = analyzer.run(means, deadline=dl)
     check_in_calendar(schedule, calendar, dl)
-    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl, frame)
+    return Analysis(plan, calendar, schedule, pert_odds(schedule, variances), means, variances, dl, frame,
+                    analyzer.floor, analyzer.fnlt)
 
 
 def check_in_calendar(schedule, calendar, deadline=None) -> None:

@@ -1,10 +1,13 @@
 """Map plan offsets (working days or weeks from the project start) to calendar dates.
 
 Offset 0 is the start of the first working day on or after the plan start. An activity
-with early start ES begins on working day ``floor(ES)``; one that finishes at EF > 0
-ends on working day ``ceil(EF) − 1`` (the end of that day). A milestone at offset x is
-dated like a finish: on day ``ceil(x) − 1`` (day 0 for x = 0). In weeks, one week is as
-many working days as the calendar has working weekdays.
+with early start ES begins on working day ``floor(ES)``; one that finishes at EF ends on
+working day ``ceil(EF) − 1`` (the end of that day): a finish at offset 0 — a deadline on
+the working day before the start — is dated on that earlier day. Milestones come in two
+kinds (see :meth:`WorkCalendar.milestone_dates`): a start milestone (a gate) is dated the
+morning it opens, day ``floor(x)``; a finish milestone (a hand-over) the evening it
+happens, day ``ceil(x) − 1``. In weeks, one week is as many working days as the calendar
+has working weekdays.
 """
 
 from __future__ import annotations
@@ -87,22 +90,21 @@ class WorkCalendar:
         days = np.floor(np.asarray(offsets, dtype=float) * self.per_unit + 1e-9)
         return self._day(days, strict)
 
-    def finish_dates(self, offsets, starts=None) -> np.ndarray:
+    def finish_dates(self, offsets) -> np.ndarray:
         """The working day at whose end something finishing at ``offsets`` ends.
 
-        A milestone (``starts`` equal to the finish) is dated the same way: on the working
-        day that ends at its offset, so a hand-over after Friday's work is dated Friday;
-        one at offset 0 on the first working day. ``starts`` is accepted for symmetry.
+        A finish at offset 0 ends on the working day before the start (a deadline on the
+        Friday before a Monday start is that Friday); earlier finishes keep their dates.
         """
         fin = np.asarray(offsets, dtype=float) * self.per_unit
-        days = np.ceil(fin - 1e-9) - 1
-        # Offset 0 (a milestone at the start) is dated on the first working day; a finish
-        # before the start (a deadline set too early) keeps its true, earlier date.
-        return self._day(np.where(np.abs(fin) <= 1e-9, 0, days))
+        return self._day(np.ceil(fin - 1e-9) - 1)
 
-    def milestone_dates(self, offsets) -> np.ndarray:
-        """The date shown for milestones at ``offsets`` (the day that ends there)."""
-        return self.finish_dates(offsets)
+    def milestone_dates(self, offsets, opens) -> np.ndarray:
+        """The dates of milestones at ``offsets``: where ``opens`` is true a start milestone
+        (dated the working day that begins at its offset), elsewhere a finish milestone
+        (the working day that ends there)."""
+        opens = np.asarray(opens, dtype=bool)
+        return np.where(opens, self.start_dates(offsets), self.finish_dates(offsets))
 
     def start_date(self, offset: float) -> dt.date:
         return self.start_dates([offset])[0].astype(dt.date)

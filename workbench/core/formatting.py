@@ -50,6 +50,15 @@ def format_timestamp(value: dt.datetime | float) -> str:
     return f"{format_date(value.date())} {value:%H:%M}"
 
 
+def format_stored_timestamp(text: str) -> str:
+    """A moment stored as ISO text ("2027-03-01T14:05:33") as people read it; text that
+    is no timestamp is shown as it is."""
+    try:
+        return format_timestamp(dt.datetime.fromisoformat(str(text)))
+    except ValueError:
+        return str(text)
+
+
 def parse_date(text: str) -> dt.date | None:
     """A date typed as ISO (``2027-09-02``) or as shown (``Thu 2 Sep 2027``, ``2 Sep 2027``,
     ``02 September 2027``); None when the text is neither."""

@@ -245,9 +245,12 @@ def simulate(plan, iterations: int = 10_000, seed=None, *, distribution=None, de
     return SimulationResult.build(mc, seed, finish, acc, block, kept)
 
 
+SEED_RANGE = 1_000_000
+
+
 def _check_seed(seed) -> int:
-    if seed is None:
-        return int(np.random.SeedSequence().entropy)
+    if seed is None:     # drawn, and short enough to read aloud and retype (up to six digits)
+        return int(np.random.SeedSequence().entropy % SEED_RANGE)
     if isinstance(seed, bool) or not isinstance(seed, (int, np.integer)) or seed < 0:
         raise PlanError(f"seed must be a non-negative whole number, not {seed!r}", "seed")
     return int(seed)

@@ -16,6 +16,8 @@ import numpy as np
 
 from workbench.core.normal import ndtr   # scalar Φ from the standard library: no scipy at start-up
 
+from workbench.core import formatting as fm
+
 MODES = ("by", "after", "between")
 PRESETS = (0.8, 0.9)
 MARKERS = ("P50", "P80", "P90")
@@ -258,12 +260,8 @@ def sim_shade(fig: SimFigure, question: Question, probability: float | None = No
 
 
 # --- text: readout and comparison --------------------------------------------
-def format_date(day: dt.date) -> str:
-    return day.strftime("%a %d %b %Y")
-
-
-def format_probability(p: float) -> str:
-    return f"{p:.4f} ({100 * p:.1f} %)"
+format_date = fm.format_date             # one date format everywhere (workbench.core.formatting)
+format_probability = fm.format_percent   # one way to write a chance: "85.5 %"
 
 
 def _normal_pdf(x, mean: float, sd: float):
@@ -292,8 +290,10 @@ def readout_lines(odds, question: Question, calendar, unit: str) -> list[str]:
         lines.append(f"z: {_z_text(odds.z(lo))} to {_z_text(odds.z(hi))}")
     else:
         lines.append(f"z: {_z_text(odds.z(q.d1))}")
-    lines.append(f"Mean finish: {odds.mean:.2f} {unit} ({format_date(date_of(calendar, odds.mean))})")
-    lines.append(f"σ: {odds.sd:.2f} {unit}" + ("  (no spread: the finish is certain)" if odds.variance <= 0 else ""))
+    lines.append(f"Mean finish: {format_date(date_of(calendar, odds.mean))} "
+                 f"({fm.format_duration(odds.mean, unit)} from the start)")
+    lines.append(f"σ: {fm.format_duration(odds.sd, unit)}"
+                 + ("  (no spread: the finish is certain)" if odds.variance <= 0 else ""))
     lines.append(f"Path: {'-'.join(odds.path)}")
     if odds.note:
         lines.append(f"Note: {odds.note}")
@@ -325,7 +325,7 @@ def _question_text(q: Question, calendar) -> str:
         lo, hi = q.bounds()
         return f"Finish after {format_date(date_of(calendar, lo))} and by {format_date(date_of(calendar, hi))}"
     word = "by" if q.mode == "by" else "after"
-    return f"Finish {word} {format_date(date_of(calendar, q.d1))} (offset {q.d1:g})"
+    return f"Finish {word} {format_date(date_of(calendar, q.d1))}"
 
 
 @dataclass(frozen=True)
@@ -357,25 +357,43 @@ def comparison_rows(odds, result, question: Question) -> list[ComparisonRow]:
 
 
 def comparison_cells(rows, calendar, unit: str) -> list[tuple[str, str, str]]:
-    """The comparison as text cells (label, PERT, simulation); offsets in brackets."""
+    """The comparison as text cells (label, PERT, simulation): dates and chances."""
     def cell(value: float, kind: str) -> str:
         if kind == "probability":
             return format_probability(value)
-        return f"{format_date(date_of(calendar, value))} ({value:.1f})"
+        return format_date(date_of(calendar, value))
     return [(r.label, cell(r.pert, r.kind), cell(r.sim, r.kind)) for r in rows]
 
 
+HALF_A_DAY = {"days": 0.5, "weeks": 0.1}   # in plan units (a five-day week)
+
+
+def merge_bias_gap(odds, result, unit: str) -> float | None:
+    """The simulated mean minus PERT's when the gap matters: at least half a working day
+    and more than twice the simulation's own noise (standard error of its mean); else None."""
+    finish = np.asarray(result.finish, dtype=float)
+    gap = float(np.mean(finish)) - float(odds.mean)
+    noise = 2.0 * float(np.std(finish)) / math.sqrt(max(1, finish.size))
+    if abs(gap) < max(HALF_A_DAY.get(unit, 0.5), noise):
+        return None
+    return gap
+
+
 def merge_bias_note(odds, result, unit: str) -> str:
-    """One line on why the simulated finish is later than single-path PERT."""
-    gap = float(np.mean(result.finish)) - float(odds.mean)
+    """Why the simulated finish differs from single-path PERT — said only when the gap
+    matters (see :func:`merge_bias_gap`) — and which risk events struck."""
     fired = [r for r in (getattr(result, "risk_report", None) or []) if r.get("fired")]
     risks = ""
     if fired:
         named = ", ".join(f"{r['id']} ({r['fired'] * 100:.0f} % of runs)" for r in fired[:4])
         more = f" and {len(fired) - 4} more" if len(fired) > 4 else ""
         risks = f" Risk events, which PERT leaves out, also add delay: {named}{more}."
-    if gap > 1e-6 * max(1.0, abs(odds.mean)):
-        return (f"The simulated mean is {gap:.2f} {unit} later than PERT: the finish waits for "
+    gap = merge_bias_gap(odds, result, unit)
+    if gap is None:
+        return risks.strip()
+    size = fm.format_duration(abs(gap), unit)
+    if gap > 0:
+        return (f"The simulated mean is {size} later than PERT: the finish waits for "
                 "the latest of the paths that merge, and PERT follows only one of them." + risks)
-    return (f"The simulated mean is within {abs(gap):.2f} {unit} of PERT: no parallel path "
-            "competes noticeably with the one PERT follows." + risks)
+    return (f"The simulated mean is {size} earlier than PERT: the duration distributions "
+            "chosen for the simulation have lower means than PERT's te." + risks)

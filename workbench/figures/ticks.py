@@ -130,3 +130,28 @@ def _with_context(level: str, ticks: list[tuple[float, dt.date]]) -> list[tuple[
         out.append((offset, text))
         previous = date
     return out
+
+
+def fitted_date_ticks(calendar, lo: float, hi: float, width: float, text_width, gap: float = 12.0,
+                      smallest: float = 18.0) -> list[tuple[float, str]]:
+    """The finest date ticks whose labels fit side by side on an axis ``width`` long (pixels
+    or points): days or weeks when there is room for them, not months by habit.
+
+    ``text_width(text)`` measures a label; neighbouring labels, centred on their ticks, keep
+    ``gap`` apart. Each try asks :func:`date_ticks` for fewer ticks than the last, so the
+    level coarsens step by step (at most a few tries)."""
+    if width <= 0 or hi <= lo:
+        return []
+    count, ticks = max(2, int(width / smallest)), []
+    while count >= 2:
+        ticks = date_ticks(calendar, lo, hi, count) or ticks
+        if len(ticks) < 2 or _labels_fit(ticks, lo, hi, width, text_width, gap):
+            return ticks
+        count = min(count - 1, len(ticks) - 1)
+    return ticks[:1]                      # an axis with room for one label only
+
+
+def _labels_fit(ticks, lo: float, hi: float, width: float, text_width, gap: float) -> bool:
+    xs = (np.array([o for o, _ in ticks]) - lo) / (hi - lo) * width
+    half = np.array([text_width(t) for _, t in ticks]) / 2.0
+    return bool(np.all(np.diff(xs) >= half[:-1] + half[1:] + gap))

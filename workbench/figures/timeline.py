@@ -328,14 +328,20 @@ def bar_span(geo: TimelineGeometry, row: int) -> tuple[float, float] | None:
     return None
 
 
-def dragged_estimate(activity, length: float, step: float = 0.1) -> dict:
+def dragged_estimate(activity, length: float, step: float = 0.1, resolution: float | None = None) -> dict:
     """Field changes giving ``activity`` the PERT mean ``length`` by moving its most likely
     value (snapped to ``step``); a fixed duration changes the duration itself.
+
+    With ``resolution`` (the plan's smallest unit of time: 1 working day, or a day's share
+    of a week) the dragged length is first snapped to it, and the most likely is solved to
+    hundredths, so a drag gives 32 days, not the noise of 32.3.
 
     The optimistic value stays; the most likely never drops below it; when it would pass
     the pessimistic value, the pessimistic widens to it.
     """
     length = max(0.0, float(length))
+    if resolution:
+        length, step = _snap(length, resolution), min(step, 0.01)
     if not activity.has_estimate:
         return {"duration": _snap(length, step)}
     a, b = activity.optimistic, activity.pessimistic

@@ -229,11 +229,28 @@ def build_plan(header: list[str], rows: list[Row], settings: Settings | None = N
     if not reader.activities and not reader.problems:
         reader.problems.append(f"no activity rows under the header (row {header_row})")
     if reader.problems:
-        raise TableImportError(sorted(reader.problems, key=_row_number), source)
+        numbers = {reader.cell(cells, "id"): number for number, cells in rows}
+        loop = _loop_among(_all_ids(rows, reader), links, numbers)
+        raise TableImportError(sorted(reader.problems, key=_row_number) + ([loop] if loop else []), source)
     settings = replace(settings) if settings is not None else Settings()
     plan = Plan(settings, reader.activities, links, resources=list(resources or ()))
     _check_loops(plan, reader.rows, source)
     return plan
+
+
+def _loop_among(ids: set[str], links, rows: dict[str, int]) -> str | None:
+    """A loop in the links of every row (those with bad cells too), reported beside the
+    other problems so one pass names them all; None when there is none."""
+    order = sorted(ids, key=lambda a: rows.get(a, 0))
+    kept = [link for link in links if link.pred in ids and link.succ in ids]
+    try:
+        compile_plan(Plan(Settings(), [Activity(a, duration=0.0) for a in order], kept))
+    except CycleError as exc:
+        where = ", ".join(str(rows[a]) for a in exc.loop[:-1] if a in rows)
+        return f"{exc} (rows {where}, column 'predecessors')"
+    except PlanError:
+        return None
+    return None
 
 
 def _check_loops(plan: Plan, rows: dict[str, int], source: str) -> None:

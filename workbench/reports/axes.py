@@ -7,7 +7,7 @@ from dataclasses import dataclass
 from reportlab.lib import colors
 from reportlab.pdfbase.pdfmetrics import stringWidth
 
-from workbench.figures.ticks import date_ticks
+from workbench.figures.ticks import date_ticks, fitted_date_ticks
 
 from . import styles
 from .text import clean
@@ -88,8 +88,11 @@ class Axes:
     def date_axis(self, calendar, max_ticks: int | None = None, grid: bool = True, at_top: bool = False):
         """Date ticks from the shared tick chooser, with light grid lines."""
         c = self.canvas
-        count = max_ticks or max(2, int(self.w // 62))
-        ticks = date_ticks(calendar, self.x_lo, self.x_hi, count)
+        if max_ticks:
+            ticks = date_ticks(calendar, self.x_lo, self.x_hi, max_ticks)
+        else:       # as fine as the labels allow: days or weeks when there is room
+            measure = lambda text: c.stringWidth(clean(text), styles.FONT, TICK_FONT)
+            ticks = fitted_date_ticks(calendar, self.x_lo, self.x_hi, self.w, measure, gap=10.0)
         c.saveState()
         c.setFont(styles.FONT, TICK_FONT)
         base = self.y + self.h if at_top else self.y

@@ -7,7 +7,7 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 from . import styles
 from .context import PackContext
 from .layout import Section
-from .text import elide, format_date, para
+from .text import elide, format_date, format_timestamp, para
 
 SIGN_OFF_ROWS_WHEN_EMPTY = 3
 TITLE_MOST = 200          # characters of the title, revision, names printed on the cover
@@ -39,7 +39,7 @@ def _facts(ctx: PackContext, width: float) -> Table:
             ("Prepared by", s.prepared_by or "-"),
             ("Plan file", ctx.footer.file_name),
             ("Plan hash", ctx.footer.plan_hash),
-            ("Generated", ctx.footer.generated_at.strftime("%Y-%m-%d %H:%M %Z").strip())]
+            ("Generated", f"{format_timestamp(ctx.footer.generated_at)} {ctx.footer.generated_at:%Z}".strip())]
     data = [[Paragraph(para(k), styles.BODY), Paragraph(para(elide(v, FACT_MOST)), styles.BODY)] for k, v in rows]
     table = Table(data, colWidths=[110, width - 110], hAlign="LEFT")
     table.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"),

@@ -19,6 +19,10 @@ LABEL_W = 150.0
 BAR_ROW = 17.0
 
 
+FOOTNOTE = ("Activities on the PERT critical path are drawn hatched with a heavy outline. A folded row "
+            "stands for the remaining activities and shows the largest of their values.")
+
+
 def drivers_pages(ctx, frame: tuple[float, float]) -> list:
     width, height = frame
     story = new_page(LANDSCAPE) + [Section("Drivers", "drivers"), Paragraph("Drivers: what moves the finish", styles.H1)]
@@ -39,8 +43,21 @@ def paint_drivers(c, w: float, h: float, crit, sens, critical: set[str]) -> None
     _panel(c, (half + 20, h, half), sens, True, "Sensitivity: correlation of duration with the finish", critical)
     c.setFont(styles.FONT, 8)
     c.setFillColor(styles.MUTED)
-    c.drawString(0, 4, fit("Activities on the PERT critical path are drawn hatched with a heavy outline. A folded row "
-                           "stands for the remaining activities and shows the largest of their values.", w, styles.FONT, 8))
+    lines = _wrap(c, FOOTNOTE, w, styles.FONT, 8)           # wrapped, never cut short
+    for k, line in enumerate(lines):
+        c.drawString(0, 4 + 10 * (len(lines) - 1 - k), line)
+
+
+def _wrap(c, text: str, width: float, font: str, size: float) -> list[str]:
+    """Words in lines no wider than ``width`` as ``c`` measures them (paper or screen)."""
+    lines: list[str] = []
+    for word in text.split():
+        trial = f"{lines[-1]} {word}" if lines else word
+        if lines and c.stringWidth(trial, font, size) <= width:
+            lines[-1] = trial
+        else:
+            lines.append(word)
+    return lines
 
 
 def _panel(c, box, bars, signed: bool, title: str, critical: set[str]) -> None:

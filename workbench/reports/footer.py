@@ -11,7 +11,7 @@ from dataclasses import dataclass
 from reportlab.pdfgen.canvas import Canvas
 
 from . import fonts, styles
-from .text import clean, fit
+from .text import clean, fit, format_timestamp
 
 TOTAL_FORM = "pack-page-total"
 PAGE_LABEL_W = 78.0
@@ -28,7 +28,7 @@ class FooterInfo:
 
     def line(self) -> str:
         seed = "no simulation" if self.seed is None else f"seed {self.seed}"
-        when = self.generated_at.strftime("%Y-%m-%d %H:%M %Z").strip()
+        when = f"{format_timestamp(self.generated_at)} {self.generated_at:%Z}".strip()
         status = "" if self.status_date is None else f"status date {self.status_date.isoformat()}  \u00b7  "
         return clean(f"{self.file_name}  \u00b7  {status}plan hash {self.plan_hash}  \u00b7  generated {when}"
                      f"  \u00b7  Slackline {self.version}  \u00b7  {seed}")
@@ -45,13 +45,13 @@ def footer_drawer(info: FooterInfo):
         canvas.setLineWidth(0.4)
         canvas.line(styles.MARGIN, y + 10, width - styles.MARGIN, y + 10)
         canvas.setFillColor(styles.MUTED)
-        room = width - 2 * styles.MARGIN - PAGE_LABEL_W - 8
+        x = width - styles.MARGIN - PAGE_LABEL_W
         line = info.line()
-        size = max(6.0, min(7.5, 7.4 * room / max(fonts.width(line, styles.FONT, 7.5), 1.0)))
+        room = x - styles.MARGIN - 8          # the trace line never runs into the page number
+        size = min(7.5, 7.4 * room / max(fonts.width(line, styles.FONT, 7.5), 1.0))   # a little under: never cut
         canvas.setFont(styles.FONT, size)          # smaller type before anything is cut off
         fonts.draw(canvas, styles.MARGIN, y, fit(line, room, styles.FONT, size))
         canvas.setFont(styles.BOLD, 8)
-        x = width - styles.MARGIN - PAGE_LABEL_W
         text = f"Page {canvas.getPageNumber()} of "
         canvas.drawString(x, y, text)
         canvas.translate(x + canvas.stringWidth(text, styles.BOLD, 8), y)

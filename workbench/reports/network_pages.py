@@ -12,49 +12,117 @@ from reportlab.platypus import Paragraph
 from workbench.figures.network_layout import layout_plan
 
 from . import limits, styles
+from .text import format_date, para
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
-from .text import para
 from .network_paint import DETAIL_SCALE, MIN_DETAIL_SCALE, NetworkPainter, View, link_bounds
 
 HEADING_SPACE = 30.0
 NOTE_SPACE = 30.0
 DETAIL_NOTE_SPACE = 16.0
-DETAIL_NOTE = ("Each box: id and PERT te; name; ES, EF, total float TF / LS, LF, free float FF (plan units "
-               "from the start). Critical: vermillion, heavy outline.")
+DETAIL_NOTE = ("Each box: id and PERT te; name; early start ES and finish EF; late start LS and finish LF; "
+               "total float TF and free float FF. Critical: vermillion, heavy outline.")
 MARGIN_UNITS = 12.0
 SUMMARISED = "Overview: ids only;"
+PAGE_MARGIN = 56.0    # layout units kept left and right of a detail page's boxes: room for link tags
 
 
-def cuts(starts, ends, lo: float, hi: float, size: float, pad: float = 6.0) -> list[tuple[float, float]]:
-    """Windows of at most ``size`` covering [lo, hi], each ending in a gap between boxes
-    (given as intervals starts..ends) where one exists, so no box is cut in two."""
-    out, a = [], lo
-    while a < hi - 1e-6:
-        b = a + size
-        while True:
-            straddle = [s for s, e in zip(starts, ends) if s < b < e and s > a + 0.3 * size]
-            if not straddle:
-                break
-            b = min(straddle) - pad
-        out.append((a, b))
-        a = b
+def gaps(starts, ends) -> list[float]:
+    """Points between boxes along one axis (boxes given as intervals starts..ends): the
+    middle of every gap in the union of the intervals."""
+    order = np.argsort(starts)
+    out, reach = [], None
+    for s, e in zip(np.asarray(starts, float)[order], np.asarray(ends, float)[order]):
+        if reach is not None and s > reach:
+            out.append((reach + s) / 2)
+        reach = e if reach is None else max(reach, e)
     return out
 
 
+def cuts(starts, ends, lo: float, hi: float, size: float, cost=None) -> list[tuple[float, float]]:
+    """Windows of at most ``size`` covering [lo, hi], each cut in a gap between boxes so no
+    box is cut in two. ``cost(a, b)`` gives a window's (pages, smallest share): the windows
+    chosen need the fewest pages and, among those, make the smallest share as large as
+    possible — by default one page a window, shared by length, so no sliver is left at
+    the end. Only where no gap lies within a window's reach is a window cut through."""
+    cost = cost or (lambda a, b: (1, b - a))
+    points = [lo]
+    for g in [g for g in gaps(starts, ends) if lo < g < hi] + [hi]:
+        while g - points[-1] > size + 1e-6:
+            points.append(points[-1] + size)       # no gap within reach: forced
+        points.append(g)
+    best = [(0, -math.inf, -1)]                    # per point: pages, -smallest share, previous
+    for j in range(1, len(points)):
+        options = []
+        for i in range(j - 1, -1, -1):
+            if points[j] - points[i] > size + 1e-6:
+                break
+            pages, share = cost(points[i], points[j])
+            options.append((best[i][0] + pages, max(best[i][1], -share), i))
+        best.append(min(options))
+    out, j = [], len(points) - 1
+    while j > 0:
+        out.append((points[best[j][2]], points[j]))
+        j = best[j][2]
+    return out[::-1]
+
+
 def tiles(layout, page_w: float, page_h: float, scale: float) -> list[View]:
-    """Page-sized windows of the layout at ``scale``: vertical strips of whole columns;
-    down a strip, pages overlap by one node height, so a node cut at the foot of one page
-    appears whole at the head of the next."""
-    b, win_h = layout.boxes, page_h / scale
-    xs = cuts(b[:, 0], b[:, 0] + b[:, 2], -MARGIN_UNITS, layout.width + MARGIN_UNITS, page_w / scale)
-    total = layout.height + 2 * MARGIN_UNITS
-    if total <= win_h:
-        top = (layout.height - win_h) / 2           # everything fits one page high: centred
-        return [View(x0, top, x1 - x0, win_h, scale) for x0, x1 in xs]
-    step = max(win_h - float(b[:, 3].max()) - 2 * MARGIN_UNITS, win_h * 0.5)
-    count = math.ceil((total - win_h) / step) + 1
-    return [View(x0, -MARGIN_UNITS + k * step, x1 - x0, win_h, scale) for k in range(count) for x0, x1 in xs]
+    """Page-sized windows of the layout at ``scale``: vertical strips cut in the gaps
+    between columns; down a strip, its boxes (top to bottom) are shared among as few pages
+    as hold them. Strips and pages are chosen together: the fewest pages, and the fullest
+    emptiest page. Each page draws its own boxes only, whole: no page cuts through a box."""
+    b = layout.boxes
+    if not len(b):
+        return []
+    centre, tall = b[:, 0] + b[:, 2] / 2, page_h / scale - 2 * MARGIN_UNITS
+
+    def members(x0, x1):
+        return np.flatnonzero((centre >= x0) & (centre < x1))
+
+    def cost(x0, x1):
+        groups = stack(b[members(x0, x1)], tall)
+        return (len(groups), min(len(g) for g in groups)) if groups else (0, math.inf)
+
+    views = []
+    span = (-PAGE_MARGIN, layout.width + PAGE_MARGIN, page_w / scale - 2 * PAGE_MARGIN)
+    for x0, x1 in cuts(b[:, 0], b[:, 0] + b[:, 2], *span, cost):
+        inside = members(x0, x1)
+        for rows in stack(b[inside], tall):
+            views.append(_window(b, inside[rows], scale))
+    return views
+
+
+def _window(b, own, scale: float) -> View:
+    """The page window around some boxes (plan rows ``own``), with a margin."""
+    left, top = b[own, 0].min() - PAGE_MARGIN, b[own, 1].min() - MARGIN_UNITS
+    right = (b[own, 0] + b[own, 2]).max() + PAGE_MARGIN
+    foot = (b[own, 1] + b[own, 3]).max() + MARGIN_UNITS
+    return View(float(left), float(top), float(right - left), float(foot - top), scale, frozenset(own.tolist()))
+
+
+def stack(boxes, height: float) -> list[np.ndarray]:
+    """The boxes (x, y, w, h) in groups, top to bottom, each group no taller than
+    ``height``: as few groups as possible, the smallest as large as possible."""
+    if not len(boxes):
+        return []
+    order = np.argsort(boxes[:, 1], kind="stable")
+    top, foot = boxes[order, 1], boxes[order, 1] + boxes[order, 3]
+    n = len(order)
+    best = [(0, -math.inf, -1)]                    # per prefix: groups, -smallest, previous
+    for j in range(1, n + 1):
+        options = []
+        for i in range(j - 1, -1, -1):
+            if foot[i:j].max() - top[i] > height + 1e-6 and i < j - 1:
+                break                              # taller than a page (one box always fits)
+            options.append((best[i][0] + 1, max(best[i][1], -(j - i)), i))
+        best.append(min(options))
+    groups, j = [], n
+    while j > 0:
+        i = best[j][2]
+        groups.append(order[i:j])
+        j = i
+    return groups[::-1]
 
 
 def _occupied(layout, view: View) -> bool:
@@ -101,7 +169,7 @@ def network_pages(ctx, frame: tuple[float, float]) -> list:
     boxes = link_bounds(layout)
     for k, view in enumerate(views):
         story += new_page(LANDSCAPE) + [
-            Paragraph(f"Network, detail {k + 1} of {len(views)}", styles.H1),
+            Paragraph(para(f"Network, detail {k + 1} of {len(views)}: {_span(ctx, view)}"), styles.H1),
             ChartFlowable(width, detail_h, NetworkPainter(ctx, layout, view, boxes).paint),
             Paragraph(DETAIL_NOTE, styles.SMALL)]
     return story
@@ -132,19 +200,27 @@ def _critical_views(layout, views: list[View], critical) -> list[View]:
 def _some_detail(pages: int, shown: int) -> str:
     return (f"{SUMMARISED} every box at a legible scale would take {pages:,} pages, so the {shown} "
             f"detail pages that follow show the critical path's boxes only (the Network view in the window shows all).")
+def _span(ctx, view) -> str:
+    """The dates a detail page covers (its boxes' early starts to late finishes): the
+    year its boxes' short dates belong to."""
+    rows = sorted(view.rows)
+    d = ctx.analysis.dates()
+    first, last = d["early_start"][rows].min(), d["late_finish"][rows].max()
+    return f"{format_date(min(first, last))} to {format_date(max(first, last))}"
 
 
 def detail_scale(layout, page_h: float) -> float:
     """DETAIL_SCALE, or a little less (not below MIN_DETAIL_SCALE) when that lets the whole
-    height of the diagram fit one page: fewer pages for wide, shallow networks."""
+    height of the diagram fit one page: fewer pages for wide, shallow networks. When even
+    the smallest scale would not fit it, DETAIL_SCALE: the pages are legible."""
     fits = page_h / (layout.height + 2 * MARGIN_UNITS)
-    return DETAIL_SCALE if fits >= DETAIL_SCALE else max(MIN_DETAIL_SCALE, fits)
+    return min(DETAIL_SCALE, fits) if fits >= MIN_DETAIL_SCALE else DETAIL_SCALE
 
 
 def _note(scale: float) -> str:
-    base = ("Boxes are activities (id and PERT te on top; early/late start and finish, total float TF "
-            "and free float FF below, in plan units from the start). Critical activities and the links "
-            "that drive them are vermillion with a heavy outline.")
+    base = ("Boxes are activities (id and PERT te on top; early and late start and finish dates, total "
+            "float TF and free float FF below). Critical activities and the links that drive them are "
+            "vermillion with a heavy outline.")
     if scale < MIN_DETAIL_SCALE:
         return "Overview: ids only; the detail pages that follow show every box's numbers. " + base
     return base

@@ -12,7 +12,7 @@ from reportlab.lib.colors import white as _WHITE
 
 from . import fonts, styles
 from .tables import fit
-from .text import clean, format_number
+from .text import clean, format_day_month, format_duration, format_number
 
 DETAIL_SCALE = 0.6     # points per layout unit preferred for the detail pages (8 pt names)
 MIN_DETAIL_SCALE = 0.45   # smallest scale at which a box still shows its numbers (type has floors)
@@ -27,6 +27,7 @@ class View:
     w: float
     h: float
     scale: float
+    rows: frozenset | None = None   # the boxes this page draws (plan rows); None: all in view
 
     def page(self, x: float, y: float, top: float) -> tuple[float, float]:
         return (x - self.x0) * self.scale, top - (y - self.y0) * self.scale
@@ -46,6 +47,7 @@ class NetworkPainter:
         self.ctx, self.layout, self.view = ctx, layout, view
         self.detail = view.scale >= MIN_DETAIL_SCALE * 0.999
         self.link_boxes = link_bounds(layout) if link_boxes is None else link_boxes
+        self.dates = ctx.analysis.dates() if self.detail else None
 
     def paint(self, c, w: float, h: float) -> None:
         c.saveState()
@@ -55,9 +57,11 @@ class NetworkPainter:
         v, b = self.view, self.link_boxes
         seen = (b[:, 2] >= v.x0) & (b[:, 0] <= v.x0 + v.w) & (b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)
         links = [self.layout.links[k] for k in np.flatnonzero(seen)]
+        shown = {node.id for node in self.layout.nodes if self._visible(node)}
+        if v.rows is not None:          # a detail page: only links touching its own boxes
+            links = [l for l in links if l.pred in shown or l.succ in shown]
         for link in sorted(links, key=lambda l: l.critical):
             self._link(c, link, h)
-        shown = {node.id for node in self.layout.nodes if self._visible(node)}
         for node in self.layout.nodes:
             if node.id in shown:
                 self._node(c, node, h)
@@ -75,8 +79,8 @@ class NetworkPainter:
         leaving = link.pred in shown
         points = link.points if leaving else link.points[::-1]
         edge = _exit_point(points, self.view)
-        if edge is None:
-            return
+        if edge is None:                 # the other box lies in this window, drawn elsewhere
+            edge = points[-1]
         x, y = self.view.page(*edge, top)
         text = clean(f"-> {link.succ}" if leaving else f"{link.pred} ->")   # the pack's fonts have no arrow glyph
         size = 7.5
@@ -99,6 +103,8 @@ class NetworkPainter:
 
     def _visible(self, node) -> bool:
         v = self.view
+        if v.rows is not None:
+            return node.row in v.rows
         return node.x + node.w >= v.x0 and node.x <= v.x0 + v.w and node.y + node.h >= v.y0 and node.y <= v.y0 + v.h
 
     # --- links -----------------------------------------------------------------
@@ -160,30 +166,38 @@ class NetworkPainter:
             c.drawRightString(x + w - 3, y_top - head / 2 - size * 0.3, f"te {format_number(te)}")
 
     def _body_text(self, c, node, x, y_top, w, h) -> None:
-        s, i = self.ctx.analysis.schedule, node.row
+        """The name, then early dates, late dates and floats in two columns: dates (the
+        year is in the page heading), never offsets."""
+        i = node.row
         name_size = max(7.0, min(9.0, 14 * self.view.scale))
         c.setFillColor(styles.TEXT)
         c.setFont(styles.FONT, name_size)
         fonts.draw(c, x + 3, y_top - name_size * 1.2, fit(self.ctx.plan.activities[i].name, w - 6, styles.FONT, name_size))
-        cells = (("ES", s.es[i]), ("EF", s.ef[i]), ("TF", s.total_float[i]),
-                 ("LS", s.ls[i]), ("LF", s.lf[i]), ("FF", s.free_float[i]))
         num = max(7.0, min(8.5, 13 * self.view.scale))
         grid_top = y_top - name_size * 1.9
-        row_h, col_w = (grid_top - (y_top - h)) / 2, w / 3
+        row_h, col_w = (grid_top - (y_top - h)) / 3, w / 2
         c.setStrokeColor(styles.GRID)
         c.setLineWidth(0.4)
-        c.line(x, grid_top, x + w, grid_top)
-        c.line(x, grid_top - row_h, x + w, grid_top - row_h)
-        for k, (label, value) in enumerate(cells):
-            cx, cy = x + (k % 3) * col_w, grid_top - (k // 3 + 1) * row_h
-            if k % 3:
-                c.line(cx, grid_top, cx, grid_top - 2 * row_h)
+        for k in range(3):
+            c.line(x, grid_top - k * row_h, x + w, grid_top - k * row_h)
+        c.line(x + col_w, grid_top, x + col_w, grid_top - 3 * row_h)
+        for k, (label, text, late) in enumerate(self._cells(i)):
+            cx, cy = x + (k % 2) * col_w, grid_top - (k // 2 + 1) * row_h
             c.setFont(styles.FONT, num * 0.8)
             c.setFillColor(styles.MUTED)
             c.drawString(cx + 2, cy + row_h * 0.3, label)
             c.setFont(styles.BOLD, num)
-            c.setFillColor(styles.DEADLINE if label == "TF" and value < -1e-9 else styles.TEXT)
-            c.drawRightString(cx + col_w - 2, cy + row_h * 0.3, format_number(value))
+            c.setFillColor(styles.DEADLINE if late else styles.TEXT)
+            room = col_w - 6 - c.stringWidth(label, styles.FONT, num * 0.8)
+            c.drawRightString(cx + col_w - 2, cy + row_h * 0.3, fit(text, room, styles.BOLD, num))
+
+    def _cells(self, i: int) -> list[tuple[str, str, bool]]:
+        s, d, unit = self.ctx.analysis.schedule, self.dates, self.ctx.unit
+        day = lambda key: format_day_month(d[key][i])
+        return [("ES", day("early_start"), False), ("EF", day("early_finish"), False),
+                ("LS", day("late_start"), False), ("LF", day("late_finish"), False),
+                ("TF", format_duration(s.total_float[i], unit), s.total_float[i] < -1e-9),
+                ("FF", format_duration(s.free_float[i], unit), False)]
 
 
 def _exit_point(points, view: View):

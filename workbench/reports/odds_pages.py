@@ -13,7 +13,7 @@ from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
 from .odds_paint import OddsPainter, SCurvePainter
 from .path_pages import short_path
-from .text import format_date, format_number, para
+from .text import format_date, format_duration, para
 
 SIDE_W = 250.0
 HEADING_SPACE = 36.0
@@ -63,7 +63,7 @@ def _cell_table(rows, widths, header: bool = True) -> Table:
 def _value(ctx, value: float, kind: str) -> str:
     if kind == "probability":
         return og.format_probability(value)
-    return f"{format_date(ctx.date_of(value))} ({format_number(value)})"
+    return format_date(ctx.date_of(value))
 
 
 def _comparison(ctx, q: og.Question) -> list:
@@ -77,14 +77,15 @@ def _comparison(ctx, q: og.Question) -> list:
     rows = [("", "PERT", "Simulation")]
     rows += [(r.label, _value(ctx, r.pert, r.kind), _value(ctx, r.sim, r.kind)) for r in og.comparison_rows(pert, sim, q)]
     note = og.merge_bias_note(pert, sim, ctx.unit)
+    told = [Paragraph(para(note), styles.SMALL), Spacer(1, 6)] if note else []
     return story + [_cell_table(rows, [66, (SIDE_W - 66) / 2, (SIDE_W - 66) / 2]), Spacer(1, 6),
-                    Paragraph(para(note), styles.SMALL), Spacer(1, 6), *_readout(ctx)]
+                    *told, *_readout(ctx)]
 
 
 def _readout(ctx) -> list:
     pert = ctx.analysis.pert
-    text = (f"PERT follows one path: {short_path(pert.path, SIDE_PATH_MOST)}; mean {format_number(pert.mean, 2)}, "
-            f"standard deviation {format_number(pert.sd, 2)} {ctx.unit}.")
+    text = (f"PERT follows one path: {short_path(pert.path, SIDE_PATH_MOST)}; mean finish {format_date(ctx.date_of(pert.mean))}, "
+            f"standard deviation {format_duration(pert.sd, ctx.unit)}.")
     story = [Paragraph(para(text), styles.SMALL)]
     if pert.note:
         story.append(Paragraph(para(pert.note), styles.SMALL))
@@ -92,7 +93,7 @@ def _readout(ctx) -> list:
 
 
 def percentile_rows(ctx) -> list[tuple[str, str, str]]:
-    """Percentile, simulated finish (date and offset), and the PERT finish for comparison."""
+    """Percentile, simulated finish date, and the PERT finish date for comparison."""
     sim, pert = ctx.simulation, ctx.analysis.pert
     rows = [("Confidence", "Simulation", "PERT")]
     for p in (5, 10, 20, 30, 40, 50, 60, 70, 80, 90, 95):
@@ -102,7 +103,7 @@ def percentile_rows(ctx) -> list[tuple[str, str, str]]:
 
 
 def _percentiles(ctx) -> list:
-    intro = (f"Finish dates reached with each confidence (offsets in {ctx.unit} in brackets). "
+    intro = ("Finish dates reached with each confidence. "
              "P80 means: in 80 % of the simulated runs the project finished by that date.")
     return [Paragraph("Percentiles", styles.H2), Paragraph(para(intro), styles.SMALL), Spacer(1, 4),
             _cell_table(percentile_rows(ctx), [58, (SIDE_W - 58) / 2, (SIDE_W - 58) / 2])]

@@ -13,7 +13,7 @@ from .drivers_data import top_drivers
 from .layout import Section
 from .path_pages import is_long, short_path
 
-from .text import elide, format_date, format_number, format_percent, para
+from .text import elide, format_date, format_duration, format_number, format_percent, format_signed, para
 
 CONFIDENCES = (0.5, 0.8, 0.9)
 PATH_NAMES_SHOWN = 20
@@ -28,16 +28,15 @@ def summary(ctx: PackContext, width: float) -> list:
 
 def reading(ctx: PackContext) -> list:
     """One line on why PERT and the simulation differ (the Odds view's wording)."""
-    if ctx.simulation is None:
-        return []
-    return [Paragraph(para(merge_bias_note(ctx.analysis.pert, ctx.simulation, ctx.unit)), styles.SMALL)]
+    note = merge_bias_note(ctx.analysis.pert, ctx.simulation, ctx.unit) if ctx.simulation else ""
+    return [Paragraph(para(note), styles.SMALL)] if note else []
 
 
 def deadline_text(ctx: PackContext) -> str:
     dl = ctx.deadline()
     if dl is None:
         return "not set"
-    return f"{format_date(ctx.date_of(dl))} (offset {format_number(dl)} {ctx.unit})"
+    return format_date(ctx.date_of(dl))
 
 
 def pert_probability(ctx: PackContext) -> str:
@@ -52,12 +51,12 @@ def simulated_probability(ctx: PackContext) -> str:
     if dl is None:
         return "no deadline set"
     p, err = sim.prob_by(dl)
-    return f"{format_probability(p)} \u00b1 {err * 100:.1f} pts"
+    return f"{format_probability(p)} (\u00b1 {format_number(err * 100)} points)"
 
 
 def _rows(ctx: PackContext) -> list[tuple[str, str, str]]:
     a, sim = ctx.analysis, ctx.simulation
-    dur = f"{format_number(a.schedule.finish)} {ctx.unit}"
+    dur = f"{format_duration(a.schedule.finish, ctx.unit)} from the start"
     rows = [("Start", format_date(a.start_date), ""),
             ("Finish on PERT means", f"{format_date(a.finish_date)} ({dur})", ""),
             ("Deadline", deadline_text(ctx), ""),
@@ -115,7 +114,7 @@ def drivers(ctx: PackContext, width: float) -> list:
     for d in shown:
         rows.append([Paragraph(para(d.id), styles.CELL_BOLD), Paragraph(para(ctx.name_of(d.id)), styles.CELL),
                      Paragraph(format_percent(d.criticality), styles.CELL),
-                     Paragraph(f"{d.sensitivity:+.2f}", styles.CELL)])
+                     Paragraph(format_signed(d.sensitivity, 2), styles.CELL)])
     table = Table(rows, colWidths=[70, width - 230, 80, 80], hAlign="LEFT")
     table.setStyle(TableStyle([("LINEBELOW", (0, 0), (-1, -1), 0.25, styles.GRID)]))
     note = ("Criticality: share of simulation runs in which the activity was on the critical path. "

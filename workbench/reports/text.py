@@ -4,9 +4,9 @@ the same function the Odds view shows them with."""
 
 from __future__ import annotations
 
-import datetime as dt
-import math
 import re
+
+from workbench.core import formatting as fm
 
 from . import fonts
 
@@ -51,27 +51,13 @@ def para(text) -> str:
     return fonts.markup(clean(text))
 
 
-def format_percent(p: float) -> str:
-    return f"{p * 100:.1f} %"
-
-
-def format_date(day) -> str:
-    """ISO date (YYYY-MM-DD) for a date or numpy datetime64."""
-    if day is None:
-        return "-"
-    if not isinstance(day, dt.date):
-        day = day.astype(dt.date)
-    return day.isoformat()
-
-
-def format_number(x: float, digits: int = 1) -> str:
-    """A duration or float in plan units: whole numbers without decimals."""
-    if x is None or not math.isfinite(x):
-        return "-"
-    x = round(float(x), 9)
-    if abs(x - round(x)) < 1e-9:
-        return f"{int(round(x))}"
-    return f"{x:.{digits}f}"
+format_percent = fm.format_percent   # one number and date style: workbench.core.formatting
+format_date = fm.format_date
+format_day_month = fm.format_day_month
+format_number = fm.format_number
+format_timestamp = fm.format_timestamp
+format_duration = fm.format_duration
+format_signed = fm.format_signed
 
 
 def plural_unit(unit: str, value: float) -> str:

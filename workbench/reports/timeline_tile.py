@@ -180,11 +180,12 @@ class TimelineTile:
         c.setFont(styles.BOLD, 7.5)
         for name, offset in self.geo.lines.items():
             if name != "start" and self.spec.x_lo <= offset <= self.spec.x_hi:
-                text, x = name.capitalize(), ax.px(offset) + 2
-                c.setFillColor(colors.white)     # a backing: the finish row's P10-P90 line runs here
-                c.rect(x - 1, ax.y + 0.5, c.stringWidth(text, styles.BOLD, 7.5) + 2, 8.5, stroke=0, fill=1)
+                # at the top of the plot, clear of the finish row's P10-P90 bar at the foot
+                text, x, y = name.capitalize(), ax.px(offset) + 2, ax.y + ax.h - 9
+                c.setFillColor(colors.white)
+                c.rect(x - 1, y - 1.5, c.stringWidth(text, styles.BOLD, 7.5) + 2, 8.5, stroke=0, fill=1)
                 c.setFillColor(self.LINES[name][0])
-                c.drawString(x, ax.y + 2, text)
+                c.drawString(x, y, text)
         c.restoreState()
 
     def _labels(self, ax: Axes) -> None:

@@ -1,11 +1,12 @@
 """A pyqtgraph axis that labels plan offsets with the plan's calendar dates (ticks from
-``figures.ticks``), for any view whose x axis is the plan's time."""
+``figures.ticks``, fitted to the room their labels take), for any view whose x axis is time."""
 
 from __future__ import annotations
 
 import pyqtgraph as pg
+from PySide6.QtGui import QFont, QFontMetricsF
 
-from workbench.figures.ticks import date_ticks
+from workbench.figures.ticks import fitted_date_ticks
 
 
 class DateAxis(pg.AxisItem):
@@ -24,7 +25,8 @@ class DateAxis(pg.AxisItem):
     def tickValues(self, minVal, maxVal, size):  # noqa: N802 (Qt override)
         if self.calendar is None:
             return super().tickValues(minVal, maxVal, size)
-        ticks = date_ticks(self.calendar, minVal, maxVal, max(2, int(size // 95)))
+        metrics = QFontMetricsF(self.style.get("tickFont") or QFont())
+        ticks = fitted_date_ticks(self.calendar, minVal, maxVal, size, metrics.horizontalAdvance, gap=16.0)
         self._labels = {round(o, 6): text for o, text in ticks}
         return [(1.0, [o for o, _ in ticks])]
 

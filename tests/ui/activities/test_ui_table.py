@@ -55,11 +55,11 @@ def test_edit_updates_computed_columns_and_summary(window):
     model = window.activities.model
     before_ef = text(model, "D", "early_finish")
     before_finish = window.summary.texts()["finish"]
-    assert text(model, "D", "te") == "5.33"
+    assert text(model, "D", "te") == "5.3"                 # rounded for people (5.333…)
     assert model.setData(cell(model, "D", "pessimistic"), "30")
     assert model.setData(cell(model, "D", "most_likely"), "20")
     assert window.session.plan.activity("D").most_likely == 20
-    assert text(model, "D", "te") == "18.83"  # (3 + 4*20 + 30) / 6
+    assert text(model, "D", "te") == "18.8"   # (3 + 4*20 + 30) / 6 = 18.83, rounded for people
     assert text(model, "D", "sd") == "4.5"    # (30 - 3) / 6
     assert text(model, "D", "early_finish") != before_ef
     assert window.summary.texts()["finish"] != before_finish
@@ -122,7 +122,7 @@ def test_first_estimate_value_fills_three_points_and_clears_fixed(window):
     act = plan.activity("W")
     assert (act.optimistic, act.most_likely, act.pessimistic, act.duration) == (5, 5, 5, None)
     assert model.setData(cell(model, "W", "pessimistic"), "9")
-    assert text(model, "W", "te") == "5.67"
+    assert text(model, "W", "te") == "5.7"                 # 5.67, rounded for people
 
 
 def test_insert_delete_move_rows(window):

@@ -15,6 +15,7 @@ from workbench.core.commands import EditActivity
 from workbench.figures import style
 from workbench.figures.odds import format_probability
 from workbench.ui.present.odds_slide import PresentOddsSlide
+from workbench.core.formatting import format_date
 from workbench.ui.present.summary_slide import summary_lines
 from workbench.ui.present.chart_slide import session_context
 from workbench.ui.present.window import open_present
@@ -84,7 +85,7 @@ def test_summary_slide_shows_screen_probability_and_follows_edits(window, qtbot)
     session.push(EditActivity("T2", most_likely=40.0, pessimistic=60.0))
     after = [v for _, v, _ in summary_lines(session_context(session))]
     assert session.analysis.finish_date > before
-    assert session.analysis.finish_date.isoformat() in after
+    assert format_date(session.analysis.finish_date) in after
 
 
 def _orange_pixels(widget) -> int:

@@ -161,7 +161,7 @@ def test_dragging_a_bar_end_is_one_undo_step_with_the_right_most_likely(view, qt
     steps_before = session.undo_stack.count()
     drag(view, start, end)
     x_end = view.item.deviceTransform_().inverted()[0].map(QPointF(end)).x()
-    expected = dragged_estimate(before, x_end - es)
+    expected = dragged_estimate(before, x_end - es, resolution=1.0)     # a plan in days
     after = session.plan.activity("C")
     assert session.undo_stack.count() == steps_before + 1
     assert after.most_likely == pytest.approx(expected["most_likely"])
@@ -175,7 +175,7 @@ def test_dragging_a_bar_end_is_one_undo_step_with_the_right_most_likely(view, qt
 def test_live_preview_does_not_change_the_plan(view):
     _, row, es, ef = bar(view, "C")
     start = to_px(view, ef, row)
-    vp = press_and_move(view, start, QPoint(25, 0), 4)
+    vp = press_and_move(view, start, QPoint(120, 0), 4)   # far enough for a whole day
     assert view.item._preview is not None and view.item._preview[2] > ef
     assert view.session.undo_stack.count() == 0
     QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start + QPoint(100, 0))
@@ -311,8 +311,8 @@ def test_clicking_a_group_row_collapses_it(qtbot):
 def test_hover_shows_the_activity_numbers(view):
     _, row, x0, x1 = bar(view, "C")
     view._hover(QPointF((x0 + x1) / 2, row), None)
-    assert view.plot.toolTip().startswith("C  Assemble")
-    assert "estimate 6 / 9 / 18" in view.plot.toolTip()
+    assert view.item.toolTip().startswith("C  Assemble")
+    assert "estimate 6 / 9 / 18" in view.item.toolTip()
 
 
 def test_long_labels_are_elided_to_the_column(qtbot):
@@ -395,14 +395,14 @@ def test_nonworking_stretches_found_between_working_days():
 def test_drag_released_where_it_started_leaves_no_undo_step(view):
     _, row, es, ef = bar(view, "C")
     start = to_px(view, ef, row)
-    drag(view, start, start + QPoint(40, 0), steps=3)
+    drag(view, start, start + QPoint(120, 0), steps=3)
     view.session.undo_stack.undo()
     count = view.session.undo_stack.count()
     _, row, es, ef = bar(view, "C")
     start = to_px(view, ef, row)
     vp = view.plot.viewport()
     QTest.mousePress(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
-    QTest.mouseMove(vp, start + QPoint(30, 0))
+    QTest.mouseMove(vp, start + QPoint(120, 0))
     QTest.mouseMove(vp, start)
     QTest.mouseRelease(vp, Qt.MouseButton.LeftButton, Qt.KeyboardModifier.NoModifier, start)
     assert view.session.undo_stack.index() == count - 1 and view.item._preview is None

@@ -138,7 +138,7 @@ def test_the_status_date_is_set_and_cleared_in_the_settings_and_drawn(window, ui
     qtbot.waitUntil(lambda: timeline.geometry is not None)
     assert "status" in timeline.geometry.lines and "status" in timeline.reference.lines
     build_pack(window.session.plan, tmp_path / "p.pdf", iterations=0)
-    assert "2026-03-20" in PdfReader(str(tmp_path / "p.pdf")).pages[0].extract_text()
+    assert "Fri 20 Mar 2026" in PdfReader(str(tmp_path / "p.pdf")).pages[0].extract_text()
     window.session.undo_stack.undo()
     assert window.session.plan.settings.status_date is None
     assert "status" not in timeline.geometry.lines

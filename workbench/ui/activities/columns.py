@@ -11,6 +11,7 @@ import datetime as dt
 import math
 from dataclasses import dataclass
 
+from workbench.core import formatting as fm
 from workbench.core.errors import PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity
 from workbench.ui.activities import progress_columns as PC
@@ -66,7 +67,6 @@ COLUMNS: tuple[Column, ...] = (
 KEYS = tuple(c.key for c in COLUMNS)
 INDEX = {c.key: i for i, c in enumerate(COLUMNS)}
 ESTIMATE = ("optimistic", "most_likely", "pessimistic")
-DATE_FORMAT = "%d %b %Y"
 CRITICAL_MARK = "● yes"
 
 
@@ -83,14 +83,13 @@ def format_constraint(value) -> str:
     if value is None:
         return ""
     if isinstance(value, dt.date):
-        return value.isoformat()
+        return fm.format_date(value)
     return format_number(value)
 
 
 def format_date(value) -> str:
-    """A numpy datetime64 or date as '03 Mar 2026'."""
-    day = value.astype(dt.date) if hasattr(value, "astype") else value
-    return day.strftime(DATE_FORMAT)
+    """A numpy datetime64 or date in Slackline's one date format ("Wed 3 Mar 2027")."""
+    return fm.format_date(value)
 
 
 def parse_number(text: str, act_id: str, title: str) -> float | None:
@@ -107,12 +106,8 @@ def parse_number(text: str, act_id: str, title: str) -> float | None:
 
 
 def parse_date(text: str) -> dt.date | None:
-    for fmt in ("%Y-%m-%d", DATE_FORMAT, "%d %B %Y"):
-        try:
-            return dt.datetime.strptime(text.strip(), fmt).date()
-        except ValueError:
-            continue
-    return None
+    """A typed date: ISO ("2027-03-12") or as the table shows it ("Fri 12 Mar 2027", "12 Mar 2027")."""
+    return fm.parse_date(text)
 
 
 def parse_constraint(text: str, act_id: str, title: str):

@@ -11,7 +11,6 @@ from PySide6.QtWidgets import (QAbstractItemView, QCheckBox, QComboBox, QHBoxLay
 from workbench.core.commands import AddActivity, MoveActivity, RemoveActivities, SetPredecessors
 from workbench.core.model import Activity
 from workbench.ui.activities import columns as C
-from workbench.ui import prompts
 from workbench.ui.activities import predecessor_dialog
 from workbench.ui.activities.filter_model import ActivityFilterModel
 from workbench.ui.activities.table_model import ID_ROLE, ActivityTableModel
@@ -25,6 +24,9 @@ WIDTH_CHARS = {"id": 5, "name": 32, "group": 13, "predecessors": 12, "notes": 20
                "late_start": 11, "late_finish": 11, "critical": 5, "state": 10, "actual_start": 10,
                "actual_finish": 10, "remaining": 9, "baseline_start": 11, "baseline_finish": 11}
 BASELINE_KEYS = ("baseline_start", "baseline_finish", "start_variance", "finish_variance")
+DATE_KEYS = {"start_no_earlier", "finish_no_later", "early_start", "early_finish", "late_start", "late_finish", "actual_start",
+             "actual_finish", "baseline_start", "baseline_finish"}
+DATE_SAMPLE = "Wed 30 Sep 2027"      # the widest date in Slackline's one format
 
 
 class ActivitiesPanel(QWidget):
@@ -80,7 +82,8 @@ class ActivitiesPanel(QWidget):
         heading = QFontMetrics(bold)
         for i, col in enumerate(C.COLUMNS):
             chars = WIDTH_CHARS.get(col.key, 6)
-            text = metrics.horizontalAdvance("0" * chars) + 14
+            sample = DATE_SAMPLE if col.key in DATE_KEYS else "0" * chars
+            text = metrics.horizontalAdvance(sample) + 14
             table.setColumnWidth(i, max(text, heading.horizontalAdvance(col.title) + 16))
 
     def _show_baseline_columns(self) -> None:

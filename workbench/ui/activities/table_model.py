@@ -14,6 +14,7 @@ from PySide6.QtCore import QAbstractTableModel, QModelIndex, QPersistentModelInd
 from PySide6.QtGui import QBrush, QColor, QFont
 
 from workbench.core.commands import EditActivity, SetPredecessors
+from workbench.core import formatting as fm
 from workbench.core.errors import PlanError
 from workbench.figures import style
 from workbench.ui.activities import columns as C
@@ -191,7 +192,7 @@ class ActivityTableModel(QAbstractTableModel):
             return value
         if key in self._dates or key in ("baseline_start", "baseline_finish"):
             return C.format_date(value)
-        return C.format_number(value)
+        return fm.format_number(value)       # computed figures, rounded for people
 
     def data(self, index: _Index, role: int = Qt.ItemDataRole.DisplayRole):
         role = int(role)

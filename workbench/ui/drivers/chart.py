@@ -50,6 +50,7 @@ class DriversChart(pg.PlotWidget):
         if signed:
             item.addItem(pg.InfiniteLine(0.0, angle=90, pen=pg.mkPen(style.TEXT, width=1.5)))
         self.texts: list[pg.TextItem] = []
+        item.vb.sigResized.connect(lambda *_: self._fit_value_room() if self.__dict__.get("rects") else None)
         self.scene().sigMouseClicked.connect(self._clicked)
         self.scene().sigMouseMoved.connect(self._hovered)
 
@@ -60,11 +61,29 @@ class DriversChart(pg.PlotWidget):
         self.rects = fdr.bar_rects(bars)
         self._draw_bars()
         self._draw_labels()
-        lo, hi = fdr.value_span(bars, self.signed)
         item = self.getPlotItem()
-        item.setXRange(lo, hi, padding=0.0)
         item.setYRange(-max(1, len(bars)) + 0.4, 0.6, padding=0.02)
         self._set_row_labels()
+        self._fit_value_room()          # after the row labels: they set the plot's width
+
+    def _fit_value_room(self) -> None:
+        """The x range, widened until the value printed beyond the longest bar fits inside
+        the plot at its present width (a narrow dock needs more than the usual margin)."""
+        item = self.getPlotItem()
+        if item is None:                   # torn down
+            return
+        lo, hi = fdr.value_span(self.bars, self.signed)
+        width = item.vb.width()
+        metrics = QFontMetrics(self._font)
+        for r, text in zip(self.rects, self.texts):
+            label = min(metrics.horizontalAdvance(text.textItem.toPlainText()) + 10.0, 0.6 * width)
+            if width <= 0:
+                break
+            if r.bar.value >= 0 and hi > 0:   # (hi - x1) of (hi - lo) must hold ``label`` pixels
+                hi = max(hi, (r.x1 * width - lo * label) / (width - label))
+            elif r.bar.value < 0 and lo < 0:
+                lo = min(lo, (r.x0 * width - hi * label) / (width - label))
+        item.setXRange(lo, hi, padding=0.0)
 
     def _set_row_labels(self) -> None:
         """Row labels elided to fit about 35 % of the chart's width, so the bars keep room."""
@@ -77,8 +96,9 @@ class DriversChart(pg.PlotWidget):
 
     def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
         super().resizeEvent(event)
-        if getattr(self, "_font", None) is not None and self.__dict__.get("rects"):
+        if getattr(self, "_font", None) is not None and self.__dict__.get("rects") and self.getPlotItem() is not None:
             self._set_row_labels()
+            self._fit_value_room()
 
     def _split(self, kind: str):
         """Rows of one kind: 'folded', 'critical' or 'other'."""

@@ -38,7 +38,9 @@ class NetworkView(QWidget):
         self.options = LayoutOptions()
         self._matches: list[str] = []
         self._match_at = -1
+        self._auto_fit = True      # fitted to the view until the user zooms or pans
         self._build()
+        self.viewbox.sigRangeChangedManually.connect(self._user_moved)
         refresh_when_shown(self, self.refresh, session.schedule_changed)   # hidden: catch up when shown
         session.selection_changed.connect(self._follow_selection)
         self.when_shown.call(self.refresh)
@@ -98,6 +100,8 @@ class NetworkView(QWidget):
             self._show_message(f"The network cannot be drawn: {exc}")
             return
         first = self.layout_result is None or not self.layout_result.nodes
+        if not first and not {n.id for n in self.layout_result.nodes} & set(plan.ids()):
+            self._auto_fit = True          # another plan altogether: fitted, not at the old scale
         self.layout_result = result
         self.item.painter.column_labels = column_dates(result, analysis) if self.options.time_scaled else []
         self.item.set_content(result, node_texts(plan, analysis))
@@ -107,7 +111,7 @@ class NetworkView(QWidget):
             self._show_message("No activities yet: the network appears here as soon as the plan has some.")
         else:
             self._show_message(f"Not scheduled: {note}" if note else "")
-        if first and result.nodes:
+        if (first or self._auto_fit) and result.nodes:
             self.fit()
 
     def _layout(self, plan, analysis):
@@ -140,6 +144,16 @@ class NetworkView(QWidget):
 
     def fit(self) -> None:
         self.viewbox.autoRange(padding=0.02)
+
+    def _user_moved(self, *_) -> None:
+        self._auto_fit = False
+
+    def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        """A first show (a dock opened at its size) or a resize before the user has zoomed
+        keeps the whole network in view, so a small plan is never drawn tiny."""
+        super().resizeEvent(event)
+        if self._auto_fit and self.layout_result is not None and self.layout_result.nodes:
+            self.fit()
 
     # --- selection, hover, find -------------------------------------------
     def _clicked(self, row: int, adding: bool = False) -> None:

@@ -110,7 +110,7 @@ class OddsPanel(QWidget):
 
     def set_table(self, cells, unit: str = "") -> None:
         """Fill the comparison; only texts change when the shape stays the same (drags)."""
-        header = f"(offsets in {unit})" if unit else ""
+        header = ""
         if self.table.horizontalHeaderItem(0) is None or self.table.horizontalHeaderItem(0).text() != header:
             self.table.setHorizontalHeaderLabels([header, "PERT", "Simulation"])
         if self.table.rowCount() != len(cells):

@@ -10,6 +10,7 @@ from __future__ import annotations
 from PySide6.QtCore import QCoreApplication, Qt
 from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QSplitter, QWidget
 
+from workbench.core import formatting as fm
 from workbench.figures import odds as fo
 from workbench.ui.odds.controls import OddsControls
 from workbench.ui.odds.panel import OddsPanel
@@ -248,7 +249,7 @@ class OddsView(QWidget):
         p, err = fo.sim_answer(self.result, q)
         stale = "  (stale: plan changed)" if self.stale else ""
         self.panel.sim_readout.setText(
-            f"Simulation probability: {fo.format_probability(p)} ± {err:.4f}{stale}")
+            f"Simulation probability: {fo.format_probability(p)} (± {fm.format_number(err * 100)} points){stale}")
         self.panel.sim_readout.setEnabled(not self.stale)
 
     def _headline(self, q: fo.Question) -> None:
@@ -307,9 +308,9 @@ class OddsView(QWidget):
                   f"Simulation {pct}: {fo.format_date(fo.date_of(a.calendar, sim_x))}" if live else "")
         self.plot.set_answers(p, pert_x, sim_x, labels, fo.curve_height(self.curve, pert_x))
         self._answer_dates = [self._dates_at(q) for q in dict.fromkeys((p, 0.9))]
-        lines = [f"<b>{pct}</b> — PERT: {labels[0].split(': ', 1)[1]} (offset {pert_x:.2f})"]
+        lines = [f"<b>{pct}</b> — PERT: {labels[0].split(': ', 1)[1]}"]
         if live:
-            lines.append(f"Simulation: {labels[1].split(': ', 1)[1]} (offset {sim_x:.2f})")
+            lines.append(f"Simulation: {labels[1].split(': ', 1)[1]}")
         self.panel.inverse.setText("<br>".join(lines))
 
     # --- simulation ---------------------------------------------------------

@@ -1,6 +1,8 @@
 """The Network slide of Present mode: the pack's activity-on-node diagram, shown in
 parts just large enough that every id reads from the back of a room (at least ID_PX
-pixels high); [ and ] step between the parts. A small network shows whole on one part."""
+pixels high). Parts are set one under another on a slide while they fit (a wide network
+wraps like text); [ and ] step between
+slides only when there is more than one. A small network shows whole."""
 
 from __future__ import annotations
 
@@ -62,6 +64,25 @@ def _occupied(layout, views: list[View]) -> list[View]:
                                  & (b[:, 1] + b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)).any()]
 
 
+ROW_GAP = 14.0        # points between two rows of a wrapped network on one slide
+
+
+def slide_groups(views: list[View], h: float) -> list[list[View]]:
+    """Parts grouped into slides: a wide, shallow network wraps like text, its parts set
+    one under another while they fit the slide's height, so it splits only when it must."""
+    groups: list[list[View]] = []
+    used = h + 1.0
+    for view in views:
+        tall = view.h * view.scale
+        if groups and used + ROW_GAP + tall <= h:
+            groups[-1].append(view)
+            used += ROW_GAP + tall
+        else:
+            groups.append([view])
+            used = tall
+    return groups
+
+
 class PresentNetworkSlide(PresentChartSlide):
     """The diagram part by part; ``part`` is the one shown."""
 
@@ -82,13 +103,17 @@ class PresentNetworkSlide(PresentChartSlide):
 
     def _paint_network(self, canvas, ctx, w, h) -> None:
         layout, views = self.parts(ctx, w, h - 16)      # a line at the top names the part
-        self.part_count = len(views)
-        self.part = min(self.part, len(views) - 1)
-        NetworkPainter(ctx, layout, views[self.part]).paint(canvas, w, h - 16)
-        if len(views) > 1:
+        groups = slide_groups(views, h - 16) if len(views) > 1 else [views]
+        self.part_count = len(groups)
+        self.part = min(self.part, len(groups) - 1)
+        top = h - 16 if len(groups) > 1 else h
+        for view in groups[self.part]:
+            NetworkPainter(ctx, layout, view).paint(canvas, w, top)
+            top -= view.h * view.scale + ROW_GAP
+        if len(groups) > 1:
             canvas.setFont(styles.BOLD, 10)
             canvas.setFillColor(styles.TEXT)
-            canvas.drawString(0, h - 10, f"Part {self.part + 1} of {len(views)}")
+            canvas.drawString(0, h - 10, f"Part {self.part + 1} of {len(groups)}")
 
     def step_part(self, step: int) -> None:
         self.part = max(0, min(self.part + step, self.part_count - 1))

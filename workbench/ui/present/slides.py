@@ -20,6 +20,8 @@ from workbench.ui.present.odds_slide import PresentOddsSlide
 from workbench.ui.present.summary_slide import PresentSummarySlide
 
 PRESENT_TOP = 8      # driver bars on a projector
+NO_SIMULATION_HOW = ("To get one: leave Present (Esc), press Run simulation in the Odds view, "
+                     "then come back (F5).")
 SLIDES = (("Summary", None), ("Timeline", "timeline"), ("Network", "network"), ("Odds", "odds"),
           ("Drivers", "drivers"),
           ("Checkup", "checkup"))
@@ -61,7 +63,7 @@ def paint_drivers_slide(canvas, ctx, w, h) -> None:
         canvas.setFont("Helvetica", 14)
         canvas.drawCentredString(w / 2, h / 2 + 10, "No simulation yet.")
         canvas.setFont("Helvetica", 10)
-        canvas.drawCentredString(w / 2, h / 2 - 10, "Run one in the Odds view to see what drives the finish.")
+        canvas.drawCentredString(w / 2, h / 2 - 10, NO_SIMULATION_HOW)
         return
     crit = fdr.criticality_bars(sim, ctx.plan, PRESENT_TOP)
     sens = fdr.sensitivity_bars(sim, ctx.plan, PRESENT_TOP)

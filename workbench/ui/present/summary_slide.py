@@ -13,6 +13,7 @@ from workbench.reports.text import format_date
 from workbench.ui.present.chart_slide import session_context
 
 PATH_JOIN = " \u2013 "
+PATH_NAMED = 6        # critical-path steps shown with their names on the slide
 
 
 def summary_lines(ctx) -> list[tuple[str, str, str]]:
@@ -22,12 +23,30 @@ def summary_lines(ctx) -> list[tuple[str, str, str]]:
     rows = [("Finish on expected durations", format_date(a.finish_date), "text"),
             ("Deadline", deadline_text(ctx), "deadline"),
             ("Chance of finishing by the deadline (PERT)", pert_probability(ctx), "probability"),
-            ("Chance by the deadline (simulation)", simulated_probability(ctx), "probability"),
+            ("Chance by the deadline (simulation)", _rounded(simulated_probability(ctx)), "probability"),
             (f"Date we reach with {target * 100:.0f} % confidence (PERT)", format_date(a.date_at(target)), "text")]
     if sim is not None:
         rows.append((f"Date at {target * 100:.0f} % (simulation)", format_date(ctx.date_of(sim.percentile(target * 100))), "text"))
-    rows.append(("Critical path", PATH_JOIN.join(a.pert.path), "critical"))
+    rows.append(("Critical path", critical_path_text(ctx), "critical"))
     return rows
+
+
+def _rounded(text: str) -> str:
+    """A room needs the figure, not the simulation's error margin ("43.7 %", not "43.7 % (± 0.5 points)")."""
+    return text.split(" (\u00b1", 1)[0]
+
+
+def critical_path_text(ctx, named: int = PATH_NAMED) -> str:
+    """The critical path as a room reads it: ids with names ("D2 Room layouts"), names
+    shortened; on a long path the first ``named`` with names, then the rest by id."""
+    path = list(ctx.analysis.pert.path)
+    shown = [f"{i} {_short(ctx.name_of(i))}".strip() for i in path[:named]]
+    rest = path[named:]
+    return PATH_JOIN.join(shown + rest)
+
+
+def _short(name: str, limit: int = 28) -> str:
+    return name if len(name) <= limit else name[: limit - 1].rstrip() + "\u2026"
 
 
 class PresentSummarySlide(QWidget):
@@ -52,7 +71,8 @@ class PresentSummarySlide(QWidget):
             y += 10 * unit
             y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 30 * unit), label, 20 * unit, False, style.MUTED_TEXT)
             colour = {"deadline": style.DEADLINE, "critical": style.CRITICAL}.get(role, style.TEXT)
-            y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 80 * unit), value, 30 * unit, True, colour)
+            size = 22 if role == "critical" else 30       # the path's names wrap: a size smaller
+            y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 80 * unit), value, size * unit, True, colour)
         p.end()
 
     def _text(self, p: QPainter, box: QRectF, text: str, px: float, bold: bool = False, colour: str = style.TEXT) -> float:

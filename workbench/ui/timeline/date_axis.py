@@ -11,7 +11,7 @@ import pyqtgraph as pg
 from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QFont, QFontMetricsF, QPen, QStaticText, QTransform
 
-from workbench.figures.ticks import date_ticks
+from workbench.figures.ticks import fitted_date_ticks
 from workbench.ui.timeline.axis_cache import RASTER, TimelineAxisCache
 from workbench.ui.timeline.batch import axis_and_ticks
 
@@ -25,7 +25,6 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         self._labels: dict[float, str] = {}
         self._laid_out: dict[str, tuple[float, QStaticText]] = {}
         self._laid_out_key = None
-        self._label_px_now = None     # _label_px() for the type of _laid_out_key
         self.setStyle(tickLength=5, autoExpandTextSpace=True, hideOverlappingLabels=False)
 
     def set_calendar(self, calendar) -> None:
@@ -39,13 +38,12 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
     def _font(self) -> QFont:
         return self.style.get("tickFont") or QFont()
 
-    def _label_px(self) -> float:
-        return QFontMetricsF(self._font()).horizontalAdvance("Wed 30 Sep") * 1.35
-
     def tickValues(self, minVal, maxVal, size):
         if self._calendar is None:
             return super().tickValues(minVal, maxVal, size)
-        ticks = date_ticks(self._calendar, minVal, maxVal, max(2, int(size / self._label_px())))
+        font = self._font()
+        laid_out, metrics = self._laid_out_for(font), QFontMetricsF(font)
+        ticks = fitted_date_ticks(self._calendar, minVal, maxVal, size, self._measure(laid_out, font, metrics))
         self._labels = {round(o, 6): text for o, text in ticks}
         return [(1.0, [o for o, _ in ticks])]
 
@@ -69,9 +67,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
             return None
         font = self._font()
         metrics, laid_out = QFontMetricsF(font), self._laid_out_for(font)
-        if self._label_px_now is None:
-            self._label_px_now = self._label_px()
-        ticks = date_ticks(self._calendar, lo, hi, max(2, int(bounds.width() / self._label_px_now)))
+        ticks = fitted_date_ticks(self._calendar, lo, hi, bounds.width(), self._measure(laid_out, font, metrics))
         offsets = np.array([o for o, _ in ticks], float)
         xs = bounds.left() + (offsets - lo) / (hi - lo) * bounds.width()
         need = int(np.ceil(metrics.height()))
@@ -90,8 +86,14 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         """Label text → (width, laid-out text) in ``font`` (one font key asked per paint)."""
         key = font.key()
         if self._laid_out_key != key or len(self._laid_out) >= LABEL_CACHE:
-            self._laid_out, self._laid_out_key, self._label_px_now = {}, key, None
+            self._laid_out, self._laid_out_key = {}, key
         return self._laid_out
+
+    def _measure(self, laid_out: dict, font: QFont, metrics: QFontMetricsF):
+        """A label's width, laid out once and kept (the tick chooser asks for many)."""
+        def width(text: str) -> float:
+            return (laid_out.get(text) or self._lay_out(laid_out, text, font, metrics))[0]
+        return width
 
     @staticmethod
     def _lay_out(laid_out: dict, text: str, font: QFont, metrics: QFontMetricsF) -> tuple:

@@ -1,19 +1,23 @@
 """The Timeline's reference lines: project start, deadline, status date and, after a
-simulation, the Finish P10 / P90 lines over an orange band, each labelled with its date."""
+simulation, the finish P10 / P90 lines over an orange band, each labelled with its date
+("P90 29 Sep"), all labels in a band above the first row where they cover no bar."""
 
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import Qt
+from PySide6.QtCore import QPointF, Qt
 from PySide6.QtGui import QColor
 
 from workbench.figures import style
 
 LINE_NAMES = {"start": "Start", "deadline": "Deadline", "status": "Status",
-              "p10": "Finish P10", "p90": "Finish P90"}
+              "p10": "P10", "p90": "P90"}      # finish P10 / P90: the orange band says "finish"
 LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style.STATUS,
                 "p10": style.PROBABILITY, "p90": style.PROBABILITY}
-LABEL_PLACES = {"deadline": (0.01, (1.0, 0.0)), "p10": (0.99, (1.0, 1.0)), "p90": (0.99, (1.0, 1.0))}
+# (line of the header band above row 0, anchor): start and status right of their lines and
+# the deadline left of its own on the first line; the finish P10 / P90 on the second line,
+# each left of its line (the finish is near the right edge): labels never cover bars.
+LABEL_PLACES = {"deadline": (0, (1.0, 0.0)), "p10": (1, (1.0, 0.0)), "p90": (1, (1.0, 0.0))}
 
 
 LINE_Z, LABEL_Z = 5, 8      # every label above every line (a line never crosses a label)
@@ -62,9 +66,9 @@ class TimelineLines:
                        style=Qt.PenStyle.DashLine if name == "status" else Qt.PenStyle.SolidLine)
         stroke = pg.InfiniteLine(angle=90, movable=False, pen=pen)
         stroke.setZValue(LINE_Z)
-        position, anchor = LABEL_PLACES.get(name, (0.01, (0.0, 0.0)))
+        band, anchor = LABEL_PLACES.get(name, (0, (0.0, 0.0)))
         line = pg.InfiniteLine(angle=90, movable=False, pen=pg.mkPen(None), label=LINE_NAMES[name],
-                               labelOpts={"position": position,
+                               labelOpts={"position": self._position(band, 1.6 * max(font.pixelSize(), 8)),
                                           "color": LINE_COLOURS[name], "fill": pg.mkBrush(255, 255, 255, 230),
                                           "anchors": [anchor, anchor]})
         line.label.setFont(font)
@@ -73,6 +77,37 @@ class TimelineLines:
             self.plot.addItem(item, ignoreBounds=True)
         self.lines[name], self.strokes[name] = line, stroke
         return line
+
+    def _position(self, band: int, label_h: float) -> float:
+        """Where on the visible line (0 top, 1 bottom) a label ``label_h`` high on header
+        line ``band`` sits."""
+        height = max(self.plot.getViewBox().height(), 1.0)
+        return min(0.5, (1.0 + band * (label_h + 1.0)) / height)
+
+    def place_labels(self, font) -> None:
+        """Set each label on a header line and a side of its line where it covers no label
+        placed before it (in the order start, status, deadline, P10, P90) and stays inside
+        the view: its own place first, then the other side, then the other header lines
+        (as many as the band above the first row holds, at least two)."""
+        vb = self.plot.getViewBox()
+        box = vb.sceneBoundingRect()
+        header = vb.mapViewToScene(QPointF(0, -0.5)).y() - box.top()
+        taken: list[tuple[int, float, float]] = []
+        for name in sorted(self.lines, key=list(LINE_NAMES).index):
+            line = self.lines[name]
+            x = vb.mapViewToScene(QPointF(line.value(), 0)).x()
+            rect = line.label.boundingRect()
+            bands = max(2, int(header // (rect.height() + 1.0)))
+            band, anchor = LABEL_PLACES.get(name, (0, (0.0, 0.0)))
+            order = [band] + [b for b in range(bands) if b != band]
+            tries = [(b, side) for b in order for side in (anchor[0], 1.0 - anchor[0])]
+            spans = [(b, x - side * rect.width(), x + (1 - side) * rect.width()) for b, side in tries]
+            free = [k for k, (b, lo, hi) in enumerate(spans) if hi <= box.right()
+                    and not any(b == b2 and lo < hi2 + 4 and lo2 - 4 < hi for b2, lo2, hi2 in taken)]
+            k = free[0] if free else 0
+            taken.append(spans[k])
+            line.label.anchors = [(tries[k][1], 0.0)] * 2
+            line.label.setPosition(self._position(tries[k][0], rect.height()))
 
     def _update_band(self, whisker) -> None:
         if whisker is None:

@@ -7,12 +7,12 @@ scaled to fit; the print preview, the printer, PDF, SVG and PNG all go through i
 from __future__ import annotations
 
 import datetime as dt
-from pathlib import Path
 
 from PySide6.QtCore import QBuffer, QIODevice, QRectF, QSize, Qt
 from PySide6.QtGui import QColor, QFont, QImage, QPainter, QPicture
 from PySide6.QtWidgets import QApplication, QFileDialog, QMessageBox
 
+from workbench.core.formatting import format_date
 from workbench.figures import style
 from workbench.io import atomic
 
@@ -78,8 +78,60 @@ def render_image(view, size=None) -> QImage:
     return image
 
 
+OUTPUT_WIDTH = 1800          # pixels: wide enough that the label column holds whole names
+MAX_IMAGE_PX = 30000         # an image's height limit (QImage stops near 32,767)
+AXIS_PX = 60.0               # the date axis under the rows
+
+
+class whole_rows:
+    """Context: the view laid out at ``size`` showing rows ``first`` .. ``first + count``
+    across the whole time span, the label column wide enough for whole labels; the view's
+    size, range and label column are put back afterwards."""
+
+    def __init__(self, view, first: int, count: int, size: tuple[int, int]):
+        self.view, self.first, self.count, self.size = view, first, count, size
+
+    def __enter__(self):
+        view = self.view
+        self.old_size, self.old_range = view.size(), view.view_box.viewRange()
+        view.resize(QSize(*self.size))
+        QApplication.processEvents()
+        view.row_axis.setWidth(view.row_axis.preferred_width(view._font(), 0.45 * self.size[0]))
+        lo, hi = view.geometry.x_range
+        pad = 0.03 * (hi - lo)
+        height = max(view.view_box.height(), 200.0)
+        header_px = 4.0 * view._font().pixelSize()
+        header = header_px * self.count / max(height - header_px, 1.0)
+        view.view_box.setRange(xRange=(lo - pad, hi + pad),
+                               yRange=(self.first - 0.5 - header, self.first + self.count - 0.4), padding=0)
+        QApplication.processEvents()
+        return view
+
+    def __exit__(self, *exc):
+        view = self.view
+        view.resize(self.old_size)
+        QApplication.processEvents()
+        view.view_box.setRange(xRange=self.old_range[0], yRange=self.old_range[1], padding=0)
+        view._fit_label_column()
+        return False
+
+
+def whole_plan_size(view) -> tuple[int, int]:
+    """An image size holding every row at a legible pitch (labels whole)."""
+    n = max(view.geometry.n_rows, 1) if view.geometry is not None else 1
+    pitch = view.legible_row_pitch() * 1.15
+    header = 4.0 * view._font().pixelSize()
+    return max(OUTPUT_WIDTH, view.width()), int(min(MAX_IMAGE_PX, header + AXIS_PX + n * pitch + 40))
+
+
 def export_png(view, path, size=None) -> None:
-    image = render_image(view, size)
+    """The whole plan as one image: every row, the whole time span, labels whole."""
+    if view.geometry is None:
+        image = render_image(view, size)
+    else:
+        size = size or whole_plan_size(view)
+        with whole_rows(view, 0, max(view.geometry.n_rows, 1), size):
+            image = render_image(view)
     buffer = QBuffer()
     buffer.open(QIODevice.OpenModeFlag.WriteOnly)
     if not image.save(buffer, "PNG"):
@@ -103,19 +155,42 @@ def export_svg(view, path) -> None:
     atomic.write_file(path, bytes(buffer.data()), accept_owner_change=True)
 
 
+PAGE_VIEW = (1600, 1000)     # the layout each printed page is drawn at, then scaled to the paper
+
+
+def page_rows(view) -> list[tuple[int, int]]:
+    """(first row, count) per printed page: every row, as many a page as stay legible,
+    shared evenly (no page with a last row or two)."""
+    n = max(view.geometry.n_rows, 1) if view.geometry is not None else 1
+    room = PAGE_VIEW[1] - 4.0 * view._font().pixelSize() - AXIS_PX - 60
+    per_page = max(5, int(room / (view.legible_row_pitch() * 1.1)))
+    pages = -(-n // per_page)
+    size = -(-n // pages)
+    return [(k, min(size, n - k)) for k in range(0, n, size)]
+
+
 def paint_page(view, printer) -> None:
-    """The printer/PDF/preview paint routine: the chart fitted to the printable page."""
+    """The printer/PDF/preview paint routine: the whole plan, tiled by rows over as many
+    pages as it needs, each page the whole time span with whole labels."""
     painter = QPainter(printer)
     page = QRectF(painter.viewport())
-    title = _page_title(view)
     font = QFont()
     font.setPixelSize(max(12, int(page.height() / 45)))
     font.setBold(True)
-    painter.setFont(font)
-    head = painter.fontMetrics().height() * 1.6
-    painter.drawText(QRectF(page.left(), page.top(), page.width(), head),
-                     int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter), title)
-    render_to(view, painter, page.adjusted(0, head, 0, 0))
+    tiles = page_rows(view) if view.geometry is not None else [None]
+    for k, tile in enumerate(tiles):
+        if k:
+            printer.newPage()
+        painter.setFont(font)
+        head = painter.fontMetrics().height() * 1.6
+        title = _page_title(view) + (f"   \u00b7   page {k + 1} of {len(tiles)}" if len(tiles) > 1 else "")
+        painter.drawText(QRectF(page.left(), page.top(), page.width(), head),
+                         int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter), title)
+        if tile is None:
+            render_to(view, painter, page.adjusted(0, head, 0, 0))
+            continue
+        with whole_rows(view, tile[0], tile[1], PAGE_VIEW):
+            render_to(view, painter, page.adjusted(0, head, 0, 0))
     painter.end()
 
 
@@ -124,7 +199,7 @@ def _page_title(view) -> str:
     parts = [f"Timeline \u2014 {settings.title}"]
     if settings.revision:
         parts.append(f"revision {settings.revision}")
-    parts.append(f"printed {dt.date.today():%d %b %Y}")
+    parts.append(f"printed {format_date(dt.date.today())}")
     return "   \u00b7   ".join(parts)
 
 

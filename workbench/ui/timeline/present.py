@@ -11,7 +11,6 @@ from __future__ import annotations
 from PySide6.QtCore import Qt
 
 PRESENT_HINT = "G: open or fold the groups  \u00b7  C: critical path only"
-LABEL_GAP_PX = 6.0
 
 
 def group_names(plan) -> set[str]:
@@ -39,12 +38,7 @@ def present_key(view, key) -> bool:
 
 
 def stack_finish_labels(view) -> None:
-    """Put the "Finish P10" label one label height above "Finish P90": the two lines are
-    often close together and their labels would otherwise cover each other."""
-    p10, p90 = view._lines.get("p10"), view._lines.get("p90")
-    if p10 is None or p90 is None:
-        return
-    height = max(view.view_box.height(), 1.0)
-    label = p90.label.boundingRect().height() + LABEL_GAP_PX
-    p90.label.setPosition(0.99)
-    p10.label.setPosition(max(0.5, 0.99 - label / height))
+    """Set the line labels in the header band above the first row, apart from each other
+    (see ``TimelineLines.place_labels``): the P10 / P90 lines often fall close together."""
+    if "p10" in view._lines and "p90" in view._lines:
+        view.reference.place_labels(view._font())

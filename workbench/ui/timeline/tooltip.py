@@ -4,32 +4,26 @@ from __future__ import annotations
 
 import math
 
-from workbench.core.calendar import round_offset
-
-
-def _num(value: float) -> str:
-    return f"{round_offset(value):g}"
-
-
-def _date(d) -> str:
-    return f"{d:%a} {d.day} {d:%b %Y}"
+from workbench.core.formatting import format_date as _date
+from workbench.core.formatting import format_number as _num
 
 
 def tooltip_text(analysis, simulation, act_id: str) -> str:
     """Plain-text lines for the activity ``act_id``."""
-    s, cal = analysis.schedule, analysis.calendar
+    s, dates = analysis.schedule, analysis.dates()
     i = s.index(act_id)
+    day = {k: v[i] for k, v in dates.items()}
     act = analysis.plan.activity(act_id)
     unit = analysis.plan.settings.unit
     title = f"{act.id}  {act.name}".strip()
     lines = [title]
     if s.ef[i] - s.es[i] <= 1e-9:
-        lines.append(f"Milestone: {_date(cal.start_date(s.es[i]))}")
+        lines.append(f"Milestone: {_date(day['early_start'])}")
     else:
-        lines.append(f"Early: {_date(cal.start_date(s.es[i]))} \u2192 {_date(cal.finish_date(s.ef[i]))}")
-        lines.append(f"Late:  {_date(cal.start_date(s.ls[i]))} \u2192 {_date(cal.finish_date(s.lf[i]))}")
+        lines.append(f"Early: {_date(day['early_start'])} \u2192 {_date(day['early_finish'])}")
+        lines.append(f"Late:  {_date(day['late_start'])} \u2192 {_date(day['late_finish'])}")
     sd = math.sqrt(max(0.0, float(analysis.variances[i])))
-    lines.append(f"te {_num(analysis.means[i])} {unit}, \u03c3 {_num(round(sd, 3))}")
+    lines.append(f"te {_num(analysis.means[i])} {unit}, \u03c3 {_num(sd)}")
     if act.has_estimate:
         lines.append(f"estimate {act.optimistic:g} / {act.most_likely:g} / {act.pessimistic:g}")
     lines.append(f"total float {_num(s.total_float[i])}, free float {_num(s.free_float[i])}")

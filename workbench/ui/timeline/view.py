@@ -24,7 +24,7 @@ from workbench.ui.timeline.present import PRESENT_HINT, fold_all, present_key, s
 from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
 
-HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
+HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
 GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
 
 
@@ -75,6 +75,7 @@ class TimelineView(QWidget):
         pi.addItem(self.item)
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
+        self.view_box.sigResized.connect(lambda *_: stack_finish_labels(self))   # labels apart again
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
@@ -213,7 +214,7 @@ class TimelineView(QWidget):
         row = None if geo is None or pos is None else geo.row_at(pos.y())
         if row is None or geo.kinds[row] == "group":
             self.item.setCursor(Qt.CursorShape.ArrowCursor)
-            self.plot.setToolTip("")
+            self.item.setToolTip("")
             QToolTip.hideText()
             return
         near_end = self._near_bar_end(row, pos.x())
@@ -221,7 +222,9 @@ class TimelineView(QWidget):
         text = tooltip_text(self.session.analysis, self.session.simulation, geo.keys[row])
         if screen_pos is not None:
             QToolTip.showText(screen_pos, text, self.plot)
-        self.plot.setToolTip(text)
+        # The scene answers Qt's tooltip event (sent once the pointer rests) from the item
+        # under the pointer: with the text on the item it keeps the tooltip, not hides it.
+        self.item.setToolTip(text)
 
     def _near_bar_end(self, row: int, x: float) -> bool:
         span = bar_span(self.geometry, row)
@@ -237,7 +240,8 @@ class TimelineView(QWidget):
             return False
         act_id, row, es = self._drag
         act = self.session.plan.activity(act_id)
-        changes = dragged_estimate(act, pos.x() - es)
+        per_unit = self.session.analysis.calendar.per_unit if self.session.analysis is not None else 1
+        changes = dragged_estimate(act, pos.x() - es, resolution=1.0 / per_unit)   # whole working days
         value = changes.get("most_likely", changes.get("duration"))
         if phase == "move":
             self.item.set_preview((row, es, es + act.with_(**changes).mean))
@@ -282,10 +286,11 @@ class TimelineView(QWidget):
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
         height = max(self.view_box.height(), 200.0)
-        header_px = max(HEADER_PX, 2.0 * self._font().pixelSize())    # room for the line labels
+        header_px = max(HEADER_PX, 4.0 * self._font().pixelSize())    # two lines of line labels
         n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
         header = header_px * n / max(height - header_px, 1.0)
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
+        stack_finish_labels(self)
 
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
         """How many rows (from the top) a fit shows in ``room_px`` pixels."""

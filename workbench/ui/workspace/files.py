@@ -10,6 +10,7 @@ from pathlib import Path
 from PySide6.QtCore import QObject, QSettings, QTimer, Signal
 
 from workbench.core.errors import PlanError
+from workbench.core.formatting import format_stored_timestamp
 from workbench.core.model import Plan
 from workbench.ui import prompts
 from workbench.ui.workspace.lock import PlanLock
@@ -246,7 +247,7 @@ class FileController(QObject):
         for found in self.store.orphans():
             source = found.source or "a new, never saved plan"
             answer = prompts.ask_recovery(self.widget, f"Slackline found unsaved work on “{found.title}”.",
-                                          f"From {source}, written {found.written}.")
+                                          f"From {source}, written {format_stored_timestamp(found.written)}.")
             if answer == "restore" and self._restore(found):
                 return True
             if answer == "open" and found.source and Path(found.source).exists():

@@ -3,6 +3,7 @@ confidence and the critical path — large enough to read across a meeting room.
 
 from __future__ import annotations
 
+from workbench.core.formatting import format_date
 from workbench.figures.odds import confidence_label
 
 from PySide6.QtCore import Qt
@@ -11,7 +12,7 @@ from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QPushBut
 
 from workbench.ui.session import Session
 
-DATE = "%a %d %b %Y"
+
 PATH_SHOWN = 12
 
 
@@ -110,15 +111,15 @@ class SummaryStrip(QFrame):
             return {"finish": "cannot schedule", "odds": "—", "target": "—", "path": problem}
         settings = a.plan.settings
         odds = a.probability_by_deadline()
-        deadline = "" if a.deadline is None else f" by {a.date_of_duration(a.deadline).strftime('%d %b %Y')}"
+        deadline = "" if a.deadline is None else f" by {format_date(a.date_of_duration(a.deadline))}"
         conf = settings.target_confidence
         path = list(a.pert.path)
         shown = " → ".join(path[:PATH_SHOWN]) + (f" → … ({len(path)} activities)" if len(path) > PATH_SHOWN else "")
         shown += _float_to_deadline(a)
         return {
-            "finish": a.finish_date.strftime(DATE),
+            "finish": format_date(a.finish_date),
             "odds": "no deadline set" if odds is None else f"{_percent(odds)}{deadline}",
-            "target": f"{a.date_at(conf).strftime(DATE)} ({confidence_label(conf)})",
+            "target": f"{format_date(a.date_at(conf))} ({confidence_label(conf)})",
             "path": shown or "—",
         }
 
