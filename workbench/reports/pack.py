@@ -7,7 +7,6 @@ import datetime as dt
 import io
 import os
 import secrets
-import tempfile
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -131,13 +130,24 @@ def _progress(progress):
     return lambda done: progress(min(100, int(done)), 100)
 
 
+def _new_part_file(target: Path) -> tuple[int, Path]:
+    """A new file beside ``target`` with the usual permissions (the umask applies, as for
+    plan and CSV files; a temporary file's 0600 would keep colleagues out of the pack)."""
+    flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
+    while True:
+        tmp = target.with_name(f".{target.name}.{secrets.token_hex(4)}.part")
+        try:
+            return os.open(tmp, flags, 0o666), tmp
+        except FileExistsError:
+            continue
+
+
 def _write(path, data: bytes) -> None:
     """Write atomically: a half-written pack never replaces a good one."""
     target = Path(path)
     tmp = None
     try:
-        fd, name = tempfile.mkstemp(prefix=f".{target.name}.", suffix=".part", dir=target.parent)
-        tmp = Path(name)
+        fd, tmp = _new_part_file(target)
         with os.fdopen(fd, "wb") as handle:
             handle.write(data)
         os.replace(tmp, target)
