@@ -75,7 +75,7 @@ def bench_frames() -> None:
     from PySide6.QtWidgets import QApplication
 
     from workbench.core.model import Plan, Settings
-    from workbench.ui.network_view import NetworkView
+    from workbench.ui.network.view import NetworkView
     from workbench.ui.session import Session
 
     app = QApplication.instance() or QApplication([])

@@ -101,7 +101,7 @@ def main() -> None:
     parser.add_argument("--iterations", type=int, default=10_000)
     args = parser.parse_args()
     app = QApplication.instance() or QApplication(sys.argv)
-    from workbench.ui.odds_view import OddsView
+    from workbench.ui.odds.view import OddsView
     from workbench.ui.session import Session
     plan, label = demo_plan()
     session = Session(plan)

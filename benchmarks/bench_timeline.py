@@ -87,7 +87,7 @@ def timeline_for(n: int, size):
     from random_networks import layered_network, to_plan
     from workbench.ui.session import Session
     from workbench.core import Plan, Settings
-    from workbench.ui.timeline_view import TimelineView
+    from workbench.ui.timeline.view import TimelineView
     plan = to_plan(layered_network(n, seed=7)) if n else Plan(Settings(start=dt.date(2027, 1, 4)))
     view = TimelineView(Session(plan))
     view.resize(*size)

@@ -26,7 +26,7 @@ START_SCRIPT = """
 import sys
 from PySide6.QtCore import QTimer
 from PySide6.QtWidgets import QApplication, QMainWindow
-from workbench.ui.app import application, run_app
+from workbench.ui.workspace.app import application, run_app
 FRONT = %r
 
 def drawn(window):
@@ -97,9 +97,9 @@ def edit_round_trip(n: int, edits: int, views: bool = True, front: tuple[str, ..
     from benchmarks.random_networks import layered_network, to_plan
     from workbench.core.analysis import analyze
     from workbench.core.commands import EditActivity
-    from workbench.ui.app import application
-    from workbench.ui import main_window
-    from workbench.ui.main_window import MainWindow
+    from workbench.ui.workspace.app import application
+    from workbench.ui.workspace import window as main_window
+    from workbench.ui.workspace.window import MainWindow
     from workbench.ui.session import Session
     app = application()
     real_make_view = main_window.make_view

@@ -18,54 +18,38 @@ import sys
 
 from . import __version__
 
-VERBS = ("analyze", "simulate", "report", "import", "export")
-DISTRIBUTION_CHOICES = ("beta-pert", "triangular", "uniform", "normal")
+# verb → (module under workbench.cmdline, one-line help). A verb's module is imported only
+# when that verb runs (or its --help is asked for): each verb pays only for what it needs.
+VERBS = {
+    "analyze": ("analyze", "critical path, floats and PERT odds"),
+    "simulate": ("simulate", "Monte Carlo finish distribution and risk drivers"),
+    "report": ("report", "write the approval pack (PDF)"),
+    "import": ("import_table", "read a CSV/XLSX activity list into a .slw plan"),
+    "export": ("export", "write the plan with its schedule to CSV/XLSX"),
+}
 
 
-def build_parser() -> argparse.ArgumentParser:
+def verb_module(verb: str):
+    import importlib
+
+    return importlib.import_module(f"workbench.cmdline.{VERBS[verb][0]}")
+
+
+def build_parser(verb: str | None = None) -> argparse.ArgumentParser:
+    """The parser; only ``verb``'s arguments are added (every verb's when ``verb`` is None)."""
     parser = argparse.ArgumentParser(prog="slackline", description="Slackline: schedules you can defend.")
     parser.add_argument("--version", action="version", version=f"slackline {__version__}")
     parser.add_argument("--self-test", action="store_true", help="run a small analysis, simulation and pack headless")
     sub = parser.add_subparsers(dest="verb", metavar="VERB")
-
-    p = sub.add_parser("analyze", help="critical path, floats and PERT odds")
-    p.add_argument("plan", metavar="PLAN", help=".slw, .csv or .xlsx")
-    p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
-    p.add_argument("--json", action="store_true", help="one JSON object on stdout")
-
-    p = sub.add_parser("simulate", help="Monte Carlo finish distribution and risk drivers")
-    p.add_argument("plan", metavar="PLAN")
-    p.add_argument("--iterations", type=int, default=10_000, metavar="N")
-    p.add_argument("--seed", type=int, default=None, metavar="S")
-    p.add_argument("--deadline", metavar="N|YYYY-MM-DD")
-    p.add_argument("--distribution", choices=DISTRIBUTION_CHOICES, default=None)
-    p.add_argument("--json", action="store_true")
-
-    p = sub.add_parser("report", help="write the approval pack (PDF)")
-    p.add_argument("plan", metavar="PLAN")
-    p.add_argument("-o", "--output", required=True, metavar="PACK.pdf")
-    p.add_argument("--paper", choices=("a4", "letter"), default="a4")
-    p.add_argument("--iterations", type=int, default=10_000, metavar="N")
-    p.add_argument("--seed", type=int, default=None, metavar="S")
-
-    p = sub.add_parser("import", help="read a CSV/XLSX activity list into a .slw plan")
-    p.add_argument("source", metavar="SRC")
-    p.add_argument("-o", "--output", required=True, metavar="PLAN.slw")
-    p.add_argument("--start", metavar="YYYY-MM-DD")
-    p.add_argument("--unit", choices=("days", "weeks"), default="days")
-
-    p = sub.add_parser("export", help="write the plan with its schedule to CSV/XLSX")
-    p.add_argument("plan", metavar="PLAN")
-    p.add_argument("-o", "--output", required=True, metavar="OUT")
+    for name, (_module, help_text) in VERBS.items():
+        p = sub.add_parser(name, help=help_text)
+        if verb is None or verb == name:
+            verb_module(name).add_arguments(p)
     return parser
 
 
 def _dispatch(args) -> int:
-    from .cmdline import verbs
-
-    handlers = {"analyze": verbs.cmd_analyze, "simulate": verbs.cmd_simulate, "report": verbs.cmd_report,
-                "import": verbs.cmd_import, "export": verbs.cmd_export}
-    return handlers[args.verb](args)
+    return verb_module(args.verb).run(args)
 
 
 def _not_a_plan(word: str) -> str | None:
@@ -87,7 +71,8 @@ def main(argv: list[str] | None = None) -> int:
     if not argv or (argv[0] not in VERBS and not argv[0].startswith("-")):
         problem = _not_a_plan(argv[0]) if argv else None
         return _fail(problem, 2) if problem else open_window(argv)
-    args = build_parser().parse_args(argv)  # exits 2 with usage on malformed arguments
+    verb = argv[0] if argv[0] in VERBS else None
+    args = build_parser(verb).parse_args(argv)  # exits 2 with usage on malformed arguments
     from .core.errors import PlanError  # after parsing: `--version` and `--help` stay instant
 
     try:
@@ -114,7 +99,7 @@ def main(argv: list[str] | None = None) -> int:
 
 def open_window(argv: list[str]) -> int:
     try:
-        from .ui.app import run_app
+        from .ui.workspace.app import run_app
     except ImportError as exc:
         return _fail(f"the window needs the GUI extras: pip install 'slackline[gui]' ({exc})", 2)
     return run_app(argv)

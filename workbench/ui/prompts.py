@@ -106,24 +106,3 @@ def show_guide(parent: QWidget, markdown: str) -> None:
     layout.addWidget(buttons)
     dialog.resize(760, 640)
     dialog.exec()
-
-
-def edit_settings(parent: QWidget, settings):
-    """The plan settings dialog; returns new Settings or None."""
-    from workbench.ui.settings_dialog import SettingsDialog
-    dialog = SettingsDialog(settings, parent)
-    return dialog.result_settings() if dialog.exec() else None
-
-
-def pick_predecessors(parent: QWidget, plan, act_id: str):
-    """The predecessor picker; returns the new list of links into ``act_id`` or None."""
-    from workbench.ui.predecessor_dialog import PredecessorDialog
-    dialog = PredecessorDialog(plan, act_id, parent)
-    return dialog.links() if dialog.exec() else None
-
-
-def preview_import(parent: QWidget, path: str, plan, problems: list[str]) -> bool:
-    """Show what an import would bring in (or why it cannot); True to apply it."""
-    from workbench.ui.import_dialog import ImportDialog
-    dialog = ImportDialog(path, plan, problems, parent)
-    return bool(dialog.exec()) and plan is not None

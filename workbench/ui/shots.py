@@ -44,8 +44,8 @@ def _simulate(session, seed: int = SEED, iterations: int = 10_000) -> None:
 
 def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
     from PySide6.QtCore import QSettings
-    from workbench.ui.app import _dispose, application, demo_plan
-    from workbench.ui.main_window import VIEWS, MainWindow, make_view
+    from workbench.ui.workspace.app import _dispose, application, demo_plan
+    from workbench.ui.workspace.window import VIEWS, MainWindow, make_view
     app = application()
     QSettings.setDefaultFormat(QSettings.Format.IniFormat)
     QSettings.setPath(QSettings.Format.IniFormat, QSettings.Scope.UserScope, tempfile.mkdtemp())

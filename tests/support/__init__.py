@@ -1,0 +1,1 @@
+"""Shared test helpers: invented plans (plans) and the window tests' set-up (ui)."""

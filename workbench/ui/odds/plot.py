@@ -1,0 +1,273 @@
+"""The Odds view's charts: finish density (top) and cumulative probability (bottom),
+on one date axis. Draws geometry from ``workbench.figures.odds``; no math here."""
+
+from __future__ import annotations
+
+import numpy as np
+import pyqtgraph as pg
+from PySide6.QtCore import Qt, Signal
+from PySide6.QtGui import QColor, QFont
+
+from workbench.figures import style
+from workbench.ui.odds.axis import OddsAxis
+
+STALE = "#9A9A9A"
+
+
+def _colour(hex_colour: str, alpha: int = 255) -> QColor:
+    c = QColor(hex_colour)
+    c.setAlpha(alpha)
+    return c
+
+
+def _pen(hex_colour: str, width: float = 2.0, dash: bool = False):
+    return pg.mkPen(_colour(hex_colour), width=width, style=Qt.DashLine if dash else Qt.SolidLine)
+
+
+class OddsPlot(pg.GraphicsLayoutWidget):
+    """Two stacked plots sharing x (plan offsets, labelled with dates)."""
+
+    marker_moved = Signal()       # while dragging
+    marker_released = Signal()    # once, when a drag ends
+
+    def __init__(self, parent=None):
+        super().__init__(parent)
+        self.setBackground(style.BACKGROUND)
+        self.density = self._make_plot(0, "Likelihood of finishing (density per unit)")
+        self.cumulative = self._make_plot(1, "P(finish by date)")
+        self.cumulative.setXLink(self.density)
+        self.cumulative.setYRange(0, 1.0, padding=0.02)
+        self.ci.layout.setRowStretchFactor(0, 3)
+        self.ci.layout.setRowStretchFactor(1, 2)
+        self._make_items()
+        self._make_markers()
+
+    def _make_plot(self, row: int, ylabel: str) -> pg.PlotItem:
+        axis = OddsAxis("bottom")
+        plot = self.addPlot(row=row, col=0, axisItems={"bottom": axis})
+        plot.setLabel("left", ylabel)
+        if row == 1:  # read dates and probabilities off the S-curve; the density needs no grid
+            plot.showGrid(x=True, y=True, alpha=0.25)
+        plot.setMouseEnabled(x=True, y=False)
+        plot.getViewBox().setDefaultPadding(0.0)
+        font = QFont()
+        font.setPointSizeF(style.SCREEN.font_size + 1)
+        for name in ("bottom", "left"):
+            axis = plot.getAxis(name)
+            axis.setTickFont(font)
+            axis.setTextPen(pg.mkPen(style.TEXT))
+            axis.enableAutoSIPrefix(False)
+        return plot
+
+    def _make_items(self) -> None:
+        d, c = self.density, self.cumulative  # density items here, cumulative ones below
+        self.legend = d.addLegend(offset=(-10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
+                                  brush=pg.mkBrush(255, 255, 255, 220))
+        self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 2.0), fillLevel=0.0,
+                                    brush=_colour(style.FLOAT, 45), name="Simulation")
+        # a solid fill with a heavy stepped outline: pattern brushes cost ~3x more to paint
+        self.sim_shade = pg.PlotDataItem(pen=_pen(style.CRITICAL, 2.5), fillLevel=0.0,
+                                         brush=_colour(style.CRITICAL, 90),
+                                         name="Simulation answer")
+        self.pert_shade = pg.PlotDataItem(pen=pg.mkPen(None), fillLevel=0.0,
+                                          brush=_colour(style.PROBABILITY), name="PERT answer")
+        self.pert_curve = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT curve")
+        for item in (self.pert_shade, self.hist, self.sim_shade, self.pert_curve):
+            d.addItem(item)
+        self.certain = pg.InfiniteLine(angle=90, pen=_pen(style.TEXT, 3.0), movable=False,
+                                       label="certain finish", labelOpts={"position": 0.9})
+        self.certain.setVisible(False)
+        d.addItem(self.certain)
+        self.answer_dot = pg.ScatterPlotItem(size=14, symbol="d", brush=_colour(style.BACKGROUND),
+                                             pen=_pen(style.TEXT, 2.5))
+        self.answer_text = pg.TextItem("", color=style.TEXT, anchor=(-0.15, 1.0), fill=(255, 255, 255, 220))
+        for item in (self.answer_dot, self.answer_text):
+            item.setZValue(15)
+            d.addItem(item)
+        self._make_cumulative_items(c)
+
+    def _make_cumulative_items(self, c: pg.PlotItem) -> None:
+        self.pert_cdf = pg.PlotDataItem(pen=_pen(style.TEXT, 2.5), name="PERT")
+        self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
+        # top left: an S-curve is still near zero there, and the answer labels sit low
+        self.cum_legend = c.addLegend(offset=(10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
+                                      brush=pg.mkBrush(255, 255, 255, 220))
+        c.addItem(self.pert_cdf)
+        c.addItem(self.ecdf)
+        self.level = pg.InfiniteLine(angle=0, pen=_pen(style.MUTED_TEXT, 1.5, dash=True), movable=False)
+        c.addItem(self.level)
+        self.p_points = pg.ScatterPlotItem(size=11, brush=_colour(style.WORK), pen=_pen(style.TEXT, 1.0))
+        c.addItem(self.p_points)
+        self.p_labels: list[pg.TextItem] = []
+
+    def _make_markers(self) -> None:
+        self.markers, self.mirrors, self.answers = [], [], []
+        for key in ("D1", "D2"):
+            line = pg.InfiniteLine(angle=90, movable=True, pen=_pen(style.DEADLINE, 3.0),
+                                   hoverPen=_pen(style.DEADLINE, 5.0), label="",
+                                   labelOpts={"position": 0.95, "color": style.TEXT, "fill": (255, 255, 255, 220)})
+            line.setZValue(20)
+            line.sigPositionChanged.connect(lambda *_: self.marker_moved.emit())
+            line.sigPositionChangeFinished.connect(lambda *_: self.marker_released.emit())
+            mirror = pg.InfiniteLine(angle=90, movable=False, pen=_pen(style.DEADLINE, 2.0, dash=True))
+            self.density.addItem(line)
+            self.cumulative.addItem(mirror)
+            self.markers.append(line)
+            self.mirrors.append(mirror)
+        for colour, where in ((style.TEXT, 0.1), (style.WORK, 0.24)):
+            line = pg.InfiniteLine(angle=90, movable=False, pen=_pen(colour, 2.0, dash=True), label="",
+                                   labelOpts={"position": where, "color": colour, "fill": (255, 255, 255, 230),
+                                              "anchors": [(1.02, 0.5), (1.02, 0.5)]})
+            self.cumulative.addItem(line)
+            self.answers.append(line)
+
+    # --- setters (all drawing comes in as figures geometry) ---------------------
+    def set_calendar(self, calendar) -> None:
+        for plot in (self.density, self.cumulative):
+            plot.getAxis("bottom").set_calendar(calendar)
+
+    def set_span(self, lo: float, hi: float) -> None:
+        self.density.setXRange(lo, hi, padding=0.0)
+
+    def show_pert(self, curve) -> None:
+        self.certain.setVisible(curve.step)
+        if curve.step:
+            self.certain.setValue(curve.mean)
+            self.pert_curve.setData([], [])
+        else:
+            self.pert_curve.setData(curve.x, curve.density)
+        self.pert_cdf.setData(curve.x, curve.cumulative)
+        top = float(np.max(curve.density)) if not curve.step else 1.0
+        self._pert_top = top
+
+    def show_shade(self, item: pg.PlotDataItem, shade) -> None:
+        if shade is None or shade.x.size == 0:
+            item.setData([], [])
+        else:
+            item.setData(shade.x, shade.y)
+
+    def show_sim(self, fig, stale: bool) -> None:
+        """Histogram, S-curve and P-markers of a simulation (grey when stale); None clears."""
+        for label in self.p_labels:
+            self.cumulative.removeItem(label)
+        self.p_labels = []
+        self._legend_for_sim(fig is not None)
+        if fig is None:
+            self.hist.setData([], [])
+            self.ecdf.setData([], [])
+            self.p_points.setData([], [])
+            return
+        colour = STALE if stale else style.WORK
+        self.hist.setPen(_pen(colour, 2.0))
+        self.hist.setBrush(_colour(STALE if stale else style.FLOAT, 45))
+        self.ecdf.setPen(_pen(colour, 2.5))
+        self.hist.setData(*fig.step_outline())
+        self.ecdf.setData(*_thin(fig.ecdf_x, fig.ecdf_y))
+        names = list(fig.markers)
+        xs = [fig.markers[n] for n in names]
+        ys = [int(n[1:]) / 100.0 for n in names]
+        self.p_points.setData(xs, ys, brush=_colour(colour))
+        font = QFont()
+        font.setPointSizeF(style.SCREEN.label_font_size + 1)
+        font.setBold(True)
+        for name, x, y in zip(names, xs, ys):
+            # below and right of its point: the S-curve rises to the right, so that corner
+            # is clear of it; a light backing keeps it legible over the grid and guides
+            text = pg.TextItem(name, color=colour, anchor=(-0.25, -0.05), fill=(255, 255, 255, 215))
+            text.setFont(font)
+            text.setPos(x, y)
+            self.cumulative.addItem(text)
+            self.p_labels.append(text)
+        self._y_top(float(np.max(fig.heights)))
+
+    def _legend_for_sim(self, shown: bool) -> None:
+        """List the simulation's items in the legends only when there is a simulation."""
+        for legend, item, name in ((self.legend, self.hist, "Simulation"),
+                                   (self.legend, self.sim_shade, "Simulation answer"),
+                                   (self.cum_legend, self.ecdf, "Simulation (S-curve)")):
+            listed = any(sample.item is item for sample, _ in legend.items)
+            if shown and not listed:
+                legend.addItem(item, name)
+            elif not shown and listed:
+                legend.removeItem(item)
+
+    def _y_top(self, sim_top: float) -> None:
+        self._sim_top = sim_top
+        top = max(getattr(self, "_pert_top", 0.0), sim_top)
+        self.density.setYRange(0, top * self._headroom() if top > 0 else 1.0, padding=0.0)
+
+    def _headroom(self) -> float:
+        """Room above the peak for the legend, so it never sits on the curve (small docks)."""
+        height = self.density.vb.height()
+        legend = self.legend.boundingRect().height() + 20.0
+        if height <= legend * 1.5:
+            return 2.0
+        return min(2.0, max(1.12, height / (height - legend)))
+
+    def resizeEvent(self, event):  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        if hasattr(self, "_sim_top"):
+            self._y_top(self._sim_top)
+        if hasattr(self, "answer_text"):
+            self._relayout_answer()
+
+    def fit_y(self, has_sim: bool) -> None:
+        if not has_sim:
+            self._y_top(0.0)
+
+    def set_markers(self, mode: str, values: tuple[float, float | None], labels: tuple[str, str]) -> None:
+        for i, (line, mirror) in enumerate(zip(self.markers, self.mirrors)):
+            show = i == 0 or mode == "between"
+            line.setVisible(show)
+            mirror.setVisible(show)
+            if show and values[i] is not None:
+                if abs(line.value() - values[i]) > 1e-12:
+                    line.blockSignals(True)
+                    line.setValue(values[i])
+                    line.blockSignals(False)
+                mirror.setValue(values[i])
+                line.label.setFormat(labels[i])
+
+    def set_answers(self, probability: float, pert_x, sim_x, labels: tuple[str, str],
+                    pert_y: float = 0.0) -> None:
+        """The inverse question: on the S-curve a level line and the two dates; on the
+        density curve a diamond at the PERT date."""
+        self.level.setValue(probability)
+        self.answer_dot.setData([pert_x], [pert_y])
+        self.answer_text.setText(labels[0])
+        self.answer_text.setPos(pert_x, pert_y)
+        self._keep_answer_inside(pert_x)
+        for line, x, text in zip(self.answers, (pert_x, sim_x), labels):
+            line.setVisible(x is not None)
+            if x is not None:
+                line.setValue(x)
+                line.label.setFormat(text)
+
+    def _keep_answer_inside(self, x: float) -> None:
+        """Put the PERT answer's text on the side of its diamond with room for it; in a
+        plot too narrow for either side, centre it over the diamond."""
+        (lo, hi), _ = self.density.vb.viewRange()
+        width_px = self.density.vb.width()
+        if hi <= lo or width_px <= 0:
+            return
+        at = (x - lo) / (hi - lo) * width_px            # the diamond, in pixels from the left
+        w = max(self.answer_text.textItem.boundingRect().width(), 1.0)
+        if width_px - at >= 1.15 * w + 4.0:
+            self.answer_text.setAnchor((-0.15, 1.0))    # right of the diamond
+        elif at >= 1.15 * w + 4.0:
+            self.answer_text.setAnchor((1.15, 1.0))     # left of it
+        else:                                           # above it, as far inside as it goes
+            left = min(max(at - w / 2, 0.0), max(width_px - w, 0.0))
+            self.answer_text.setAnchor(((at - left) / w, 1.4))
+
+    def _relayout_answer(self) -> None:
+        if self.answer_text.textItem.toPlainText():
+            self._keep_answer_inside(self.answer_text.pos().x())
+
+
+def _thin(x: np.ndarray, y: np.ndarray, most: int = 2000):
+    """At most ``most`` points of a step curve (an S-curve of 100k points looks the same)."""
+    if x.size <= most:
+        return x, y
+    idx = np.unique(np.linspace(0, x.size - 1, most).astype(int))
+    return x[idx], y[idx]

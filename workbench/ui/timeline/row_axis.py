@@ -1,0 +1,201 @@
+"""The Timeline's label column: activity ids and names, left-aligned and elided.
+
+Replaces the numeric left axis: one label per visible row (thinned out when the rows
+are shorter than the text), group rows marked with an open/closed triangle and their
+members indented.
+"""
+
+from __future__ import annotations
+
+import heapq
+import math
+
+import pyqtgraph as pg
+import numpy as np
+from PySide6.QtCore import QPointF, QRectF, Qt
+from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPen
+
+from workbench.ui.timeline.axis_cache import RASTER, TimelineAxisCache
+from workbench.ui.timeline.label_atlas import TimelineLabelAtlas
+from workbench.ui.timeline.batch import axis_and_ticks
+
+INDENT = 14.0
+PADDING = 6.0
+LABEL_CACHE = 4000     # cut labels kept (a few screens' worth)
+LINE_SHARE = 1.05      # a row shorter than this many text lines shares a label with its neighbours
+LEGIBLE_GAP_PX = 3.0   # air between labels at the legible row pitch
+
+
+def legible_pitch(font: QFont) -> float:
+    """Smallest row pitch (pixels) at which every row carries its own label."""
+    return math.ceil(QFontMetricsF(font).height() * LINE_SHARE + LEGIBLE_GAP_PX)
+
+
+class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
+    def __init__(self, width: float = 300.0, **kwargs):
+        super().__init__("left", **kwargs)
+        self._geo = None
+        self._cut: dict[tuple, str] = {}          # (text, width, bold) → text cut to the width
+        self._metrics_of: dict[bool, QFontMetricsF] = {}
+        self._atlas = TimelineLabelAtlas()
+        self._slot_of_row = np.zeros(0)            # per row: its label's atlas slot, -1 if unknown
+        self._slot_key = None
+        self.setWidth(int(width))
+        self.setStyle(tickLength=0, autoExpandTextSpace=False)
+
+    def set_geometry(self, geo) -> None:
+        self._geo = geo
+        self._slot_key = None
+        self.picture = None
+        self.update()
+
+    def set_font(self, font: QFont) -> None:
+        self.setStyle(tickFont=font)
+        self._cut.clear()
+        self._metrics_of.clear()
+        self.picture = None
+        self.update()
+
+    def label_text(self, row: int) -> str:
+        """The text shown for a row (before eliding)."""
+        geo = self._geo
+        if geo.kinds[row] == "group":
+            return ("\u25b8 " if geo.keys[row] in geo.collapsed else "\u25be ") + geo.labels[row]
+        return geo.labels[row]
+
+    def _rows_to_local(self, bounds: QRectF, rows: np.ndarray) -> np.ndarray:
+        r0, r1 = self.range          # reversed by pyqtgraph when the view's y is inverted
+        frac = (rows - r0) / (r1 - r0) if r1 != r0 else np.zeros(len(rows))
+        return bounds.bottom() - frac * bounds.height()
+
+    def visible_rows(self, bounds: QRectF, font_px: float) -> range:
+        lo, hi = sorted(self.range)
+        row_px = bounds.height() / max(hi - lo, 1e-9)
+        step = max(1, math.ceil(font_px * LINE_SHARE / max(row_px, 1e-9)))
+        first = max(0, math.ceil(lo - 0.5))
+        first = first + (-first) % step
+        return range(first, min(self._geo.n_rows, math.floor(hi + 0.5) + 1), step)
+
+    def generateDrawSpecs(self, p):
+        """Axis line, tick heights and the labels on screen (a :class:`RowLabels`)."""
+        if self._geo is None:
+            return super().generateDrawSpecs(p)
+        font = self.style.get("tickFont") or QFont()
+        h = QFontMetricsF(font).height()
+        bounds = self.mapRectFromParent(self.geometry())
+        axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
+        shown = self.visible_rows(bounds, h)
+        rows = np.arange(shown.start, shown.stop, shown.step)
+        ys = self._rows_to_local(bounds, rows)
+        keep = (ys >= bounds.top() - h / 2) & (ys <= bounds.bottom() + h / 2)
+        rows, ys = rows[keep], ys[keep]
+        return axis, (bounds.right(), ys), RowLabels(self, bounds, rows, ys, math.ceil(h))
+
+    def shown_labels(self) -> list[str]:
+        """The label texts as they are drawn now (cut to the column), top to bottom."""
+        return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2].specs()]
+
+    def _label(self, text: str, width: int, bold: bool) -> str:
+        """The label cut to ``width`` (kept across repaints and zooms)."""
+        key = (text, width, bold)
+        cut = self._cut.get(key)
+        if cut is None:
+            if len(self._cut) >= LABEL_CACHE:
+                self._cut.clear()
+            cut = self._cut[key] = self._metrics(bold).elidedText(text, Qt.TextElideMode.ElideRight, width)
+        return cut
+
+    def _metrics(self, bold: bool) -> QFontMetricsF:
+        """Metrics of the label type, plain or bold (made once per type)."""
+        found = self._metrics_of.get(bold)
+        if found is None:
+            font = QFont(self.style.get("tickFont") or QFont())
+            font.setBold(bold)
+            found = self._metrics_of[bold] = QFontMetricsF(font)
+        return found
+
+    def _stamp(self, p, font: QFont, labels: "RowLabels", colour: QColor, column: float) -> bool:
+        """Labels copied from the atlas in one call (each drawn there once); no Python per
+        row once the rows' slots are known."""
+        if not labels.rows.size:
+            return True
+        indent = INDENT * self._geo.depth[labels.rows]
+        slots = self._row_slots(font, labels, p.device().devicePixelRatioF(), colour, column)
+        x = np.round(labels.bounds.left() + PADDING + indent)
+        width = np.trunc(labels.bounds.width() - 2 * PADDING - indent)
+        return self._atlas.stamp(p, x, np.round(labels.ys - labels.line / 2), width, slots)
+
+    def _row_slots(self, font: QFont, labels: "RowLabels", ratio: float, colour: QColor, column: float) -> np.ndarray:
+        """Atlas slot of each row in ``labels``: kept per row until the geometry, the column,
+        the type or the atlas change; rows not seen yet are looked up (and drawn) once."""
+        want = self._atlas.key_for(font, colour, column, labels.line, ratio)
+        key = (id(self._geo), labels.bounds.width(), want, self._atlas.generation)
+        if key != self._slot_key or not self._atlas.holds(want):
+            self._slot_of_row = np.full(self._geo.n_rows, -1.0)
+        slots = self._slot_of_row[labels.rows]
+        if (slots < 0).any():
+            generation = self._atlas.generation
+            texts = [(t, w, b) for _, _, w, _, t, b in labels.specs()]
+            slots = self._atlas.slots_for(texts, font, colour, column, labels.line, ratio)
+            if self._atlas.generation != generation:     # started afresh: earlier slots are void
+                self._slot_of_row = np.full(self._geo.n_rows, -1.0)
+            self._slot_of_row[labels.rows] = slots
+            key = (id(self._geo), labels.bounds.width(), want, self._atlas.generation)
+        self._slot_key = key
+        return slots
+
+    def preferred_width(self, font: QFont, limit: float) -> int:
+        """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
+        if self._geo is None or not self._geo.labels:
+            return int(min(limit, 120))
+        bold = QFont(font)
+        bold.setBold(True)
+        plain, heavy = QFontMetricsF(font), QFontMetricsF(bold)     # group rows are bold
+        longest = heapq.nlargest(40, range(self._geo.n_rows), key=lambda r: len(self._geo.labels[r]))
+        need = max((heavy if self._geo.kinds[r] == "group" else plain).horizontalAdvance(self.label_text(r))
+                   + INDENT * int(self._geo.depth[r]) for r in longest)
+        return int(min(limit, need + 2 * PADDING + 2))
+
+    def cache_content(self):
+        return None if self._geo is None else id(self._geo)
+
+    def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
+        """Like the base class, with group rows in bold; on screen the labels are copied
+        from an atlas where each is drawn once."""
+        if self._geo is None:
+            return super().drawPicture(p, axisSpec, tickSpecs, textSpecs)
+        pen, p1, p2 = axisSpec
+        p.setPen(pen)
+        right, ys = tickSpecs
+        axis_and_ticks(p, p1, p2, right - 4, ys, right, ys)
+        text_pen, room = self.textPen(), self.boundingRect()
+        p.setPen(text_pen)
+        p.setClipRect(room.toAlignedRect())
+        font = QFont(self.style.get("tickFont") or QFont())
+        if isinstance(p.device(), RASTER) and self._stamp(p, font, textSpecs, text_pen.color(), room.width()):
+            return
+        bold = QFont(font)                  # paper, PDF and SVG: plain vector text
+        bold.setBold(True)
+        flags = int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignVCenter)
+        for x, top, width, h, text, is_bold in textSpecs.specs():
+            p.setFont(bold if is_bold else font)
+            p.drawText(QRectF(x, top, width, h), flags, text)
+
+
+class RowLabels:
+    """The labels of the rows on screen: ``rows`` and their centres ``ys`` (axis
+    coordinates); ``specs()`` lays each out as ``(x, top, width, height, text, bold)``."""
+
+    def __init__(self, axis: TimelineRowAxis, bounds: QRectF, rows: np.ndarray, ys: np.ndarray, line: int):
+        self.axis, self.bounds, self.rows, self.ys, self.line = axis, bounds, rows, ys, line
+
+    def specs(self) -> list[tuple]:
+        geo, texts = self.axis._geo, []
+        for row, y in zip(self.rows.tolist(), self.ys.tolist()):
+            indent = INDENT * int(geo.depth[row])
+            width = int(self.bounds.width() - 2 * PADDING - indent)
+            bold = geo.kinds[row] == "group"
+            text = self.axis._label(self.axis.label_text(row), width, bold)
+            texts.append((round(self.bounds.left() + PADDING + indent), round(y - self.line / 2),
+                          width, self.line, text, bold))
+        return texts

@@ -1,0 +1,388 @@
+"""The Timeline view: a Gantt chart that shows float at a glance.
+
+Bars from early start to early finish (critical in vermillion with a heavy dark edge,
+other work in blue), the slack line from early to late finish ending in an upright tick,
+milestones as diamonds, deadline / status / project-start lines, P10–P90 whiskers when a
+simulation has run. Geometry comes from ``workbench.figures.timeline``; this file only
+draws it and turns gestures into session calls and core commands.
+"""
+
+from __future__ import annotations
+
+import pyqtgraph as pg
+from PySide6.QtCore import QEvent, QObject, Qt, Signal
+from PySide6.QtGui import QAction, QFont
+from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
+
+from workbench.figures import style
+from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
+from workbench.ui.session import refresh_when_shown
+from workbench.ui.timeline.date_axis import TimelineDateAxis
+from workbench.ui.timeline.item import TimelineItem, nonworking_finder
+from workbench.ui.timeline.lines import TimelineLines
+from workbench.ui.timeline.present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
+from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
+from workbench.ui.timeline.tooltip import tooltip_text
+
+HEADER_PX = 30.0       # empty band above row 0 where the start/deadline/status labels sit
+GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
+
+
+class TimelineView(QWidget):
+    """``TimelineView(session)``: the Timeline of the session's plan."""
+
+    duration_dragging = Signal(str, float)   # activity id, most likely value (continuous)
+    duration_dragged = Signal(str, float)    # once, on release (after the edit is pushed)
+
+    def __init__(self, session, parent=None):
+        super().__init__(parent)
+        self.session = session
+        self.collapsed: set[str] = set()
+        self.critical_only = False
+        self.late_bars = False
+        self.connectors = False
+        self._weights = style.SCREEN
+        self._drag = None
+        self.present_hint = ""     # keys shown on the Present slide
+        self.geometry = None
+        self._auto_fit = True      # refit on resize until the user zooms or pans
+        self._build()
+        # while hidden (a dock behind a tab, a Present slide not reached) redraws wait
+        refresh_when_shown(self, self._catch_up, session.schedule_changed, session.simulation_changed)
+        session.selection_changed.connect(self._follow_selection)
+        self.when_shown.call(self._catch_up)
+
+    # --- construction ---------------------------------------------------------
+    def _build(self) -> None:
+        self.row_axis = TimelineRowAxis()
+        self.date_axis = TimelineDateAxis("bottom")
+        self.plot = pg.PlotWidget(background=style.BACKGROUND,
+                                  axisItems={"left": self.row_axis, "bottom": self.date_axis})
+        self.plot.setFocusPolicy(Qt.FocusPolicy.StrongFocus)
+        self.plot.installEventFilter(self)
+        self.setFocusProxy(self.plot)
+        pi = self.plot.getPlotItem()
+        pi.hideButtons()
+        pi.setMenuEnabled(False)
+        self.view_box = pi.getViewBox()
+        self.view_box.invertY(True)
+        self.view_box.sigRangeChangedManually.connect(self._stop_auto_fit)
+        for name in ("left", "bottom"):
+            pi.getAxis(name).setPen(pg.mkPen(style.TEXT))
+            pi.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
+        self.item = TimelineItem(self._weights)
+        self.item.on_click, self.item.on_drag, self.item.on_hover = self._click, self._drag_event, self._hover
+        pi.addItem(self.item)
+        self.reference = TimelineLines(self.plot)
+        self._lines = self.reference.lines      # name → labelled line (tests, Present)
+        self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
+        self._message.setVisible(False)
+        pi.addItem(self._message, ignoreBounds=True)
+        layout = QVBoxLayout(self)
+        layout.setContentsMargins(0, 0, 0, 0)
+        self.toolbar = self._toolbar()
+        layout.addWidget(self.toolbar)
+        layout.addWidget(self.plot)
+        self._apply_weights()
+
+    def _toolbar(self) -> QToolBar:
+        bar = QToolBar("Timeline", self)
+        self.actions_by_name = {}
+        for name, text, slot, checkable in (
+                ("fit", "Fit all", lambda: self.fit_all(), False),
+                ("fit_rows", "Every row", self.fit_every_row, False),
+                ("critical", "Critical path", self.show_critical_path, True),
+                ("late", "Late dates", self.set_late_bars, True),
+                ("links", "Links", self.set_connectors, True),
+                ("png", "Export PNG\u2026", lambda: self._export_dialog("png"), False),
+                ("svg", "Export SVG\u2026", lambda: self._export_dialog("svg"), False),
+                ("print", "Print\u2026", self.print_preview, False)):
+            action = QAction(text, self, checkable=checkable)
+            action.triggered.connect(slot)
+            bar.addAction(action)
+            self.actions_by_name[name] = action
+        return bar
+
+    # --- session → drawing -------------------------------------------------------
+    def _catch_up(self) -> None:
+        self.refresh()
+        if self._auto_fit:
+            self.fit_all(rows_to_fit=True)
+
+    def refresh(self) -> None:
+        """Rebuild the geometry from the session's latest analysis (and simulation)."""
+        analysis = self.session.analysis
+        if analysis is None:
+            self.geometry = None
+            self.item.set_geometry(None)
+            self.row_axis.set_geometry(None)
+            self._show_message("The plan cannot be scheduled:\n" + (self.session.analysis_error or "no schedule yet"))
+            return
+        only = critical_ids(analysis) if self.critical_only else None
+        self.geometry = timeline_geometry(analysis, self.session.simulation, collapsed=self.collapsed,
+                                          late_bars=self.late_bars, connectors=self.connectors, only=only)
+        self._message.setVisible(False)
+        if not self.geometry.n_rows:
+            self._show_message("No activities yet: add some in the Activities table." if only is None
+                               else "No critical activities to show.")
+        self.date_axis.set_calendar(analysis.calendar)
+        self.item.set_nonworking(nonworking_finder(analysis.calendar))
+        self.item.set_geometry(self.geometry)
+        self.row_axis.set_geometry(self.geometry)
+        self._set_limits()
+        self._fit_label_column()
+        self._update_lines()
+        self._follow_selection(self.session.selected())
+
+    def _set_limits(self) -> None:
+        """Keep zoom and pan near the plan: a little beyond its dates and rows."""
+        lo, hi = self.geometry.x_range
+        n = max(self.geometry.n_rows, 1)
+        span = hi - lo
+        self.view_box.setLimits(xMin=lo - span, xMax=hi + span, minXRange=0.5,
+                                yMin=-0.5 - max(3.0, 0.05 * n), yMax=n + 2.0, minYRange=2.0)
+
+    def _fit_label_column(self) -> None:
+        """Label column as wide as the longest labels need, at most a third of the view."""
+        limit = max(140.0, 0.32 * max(self.width(), 600))
+        self.row_axis.setWidth(self.row_axis.preferred_width(self._font(), limit))
+
+    def resizeEvent(self, event) -> None:
+        super().resizeEvent(event)
+        if self.geometry is not None:
+            self._fit_label_column()
+            if self._auto_fit:
+                self.fit_all(rows_to_fit=True)
+            stack_finish_labels(self)
+
+    def _stop_auto_fit(self, *args) -> None:
+        self._auto_fit = False
+
+    def _font(self, bold: bool = False) -> QFont:
+        """Type sized in pixels (points at 96 dpi), so that print, PDF and SVG scale it
+        together with the chart instead of re-resolving points on their own resolution."""
+        font = QFont()
+        font.setPixelSize(round(self._weights.label_font_size * 96.0 / 72.0))
+        font.setBold(bold)
+        return font
+
+    def _show_message(self, text: str) -> None:
+        self._message.setText(text)
+        self._message.setPos(0, 0)
+        self._message.setVisible(True)
+        self._update_lines()
+
+    def _update_lines(self) -> None:
+        analysis = self.session.analysis
+        geo = self.geometry if analysis is not None else None
+        self.reference.update(geo, None if analysis is None else analysis.calendar,
+                              self._weights.reference_line, self._font(bold=True))
+        stack_finish_labels(self)
+
+    # --- selection -----------------------------------------------------------------
+    def _follow_selection(self, ids) -> None:
+        geo = self.geometry
+        rows = [] if geo is None else [geo.row_of[i] for i in ids if i in geo.row_of]
+        self.item.set_selection(rows)
+
+    def _click(self, pos, modifiers) -> None:
+        geo = self.geometry
+        row = None if geo is None else geo.row_at(pos.y())
+        if row is None:
+            self.session.select([])
+            return
+        if geo.kinds[row] == "group":
+            self.toggle_group(geo.keys[row])
+            return
+        act_id = geo.keys[row]
+        if modifiers & Qt.KeyboardModifier.ControlModifier:
+            chosen = self.session.selected()
+            ids = [i for i in chosen if i != act_id] if act_id in chosen else chosen + [act_id]
+            self.session.select(ids)
+        else:
+            self.session.select([act_id])
+
+    def toggle_group(self, name: str) -> None:
+        self.collapsed ^= {name}
+        self.refresh()
+
+    # --- hover ---------------------------------------------------------------------
+    def _hover(self, pos, screen_pos) -> None:
+        geo = self.geometry
+        row = None if geo is None or pos is None else geo.row_at(pos.y())
+        if row is None or geo.kinds[row] == "group":
+            self.item.setCursor(Qt.CursorShape.ArrowCursor)
+            self.plot.setToolTip("")
+            QToolTip.hideText()
+            return
+        near_end = self._near_bar_end(row, pos.x())
+        self.item.setCursor(Qt.CursorShape.SizeHorCursor if near_end else Qt.CursorShape.ArrowCursor)
+        text = tooltip_text(self.session.analysis, self.session.simulation, geo.keys[row])
+        if screen_pos is not None:
+            QToolTip.showText(screen_pos, text, self.plot)
+        self.plot.setToolTip(text)
+
+    def _near_bar_end(self, row: int, x: float) -> bool:
+        span = bar_span(self.geometry, row)
+        per_px = self.item.pixelWidth() or 0.0
+        return span is not None and abs(x - span[1]) <= GRAB_PX * per_px
+
+    # --- duration drag ------------------------------------------------------------------
+    def _drag_event(self, phase: str, pos) -> bool:
+        """'start' (return True to take the drag), 'move', 'finish' with the pointer in data units."""
+        if phase == "start":
+            return self._drag_start(pos)
+        if self._drag is None:
+            return False
+        act_id, row, es = self._drag
+        act = self.session.plan.activity(act_id)
+        changes = dragged_estimate(act, pos.x() - es)
+        value = changes.get("most_likely", changes.get("duration"))
+        if phase == "move":
+            self.item.set_preview((row, es, es + act.with_(**changes).mean))
+            self.duration_dragging.emit(act_id, float(value))
+            return True
+        self._drag = None
+        self.item.set_preview(None)
+        if all(getattr(act, k) == v for k, v in changes.items()):
+            return True                        # released where it started: nothing to undo
+        from workbench.core.commands import EditActivity
+        if self.session.push(EditActivity(act_id, **changes)):
+            self.duration_dragged.emit(act_id, float(value))
+        return True
+
+    def cancel_drag(self) -> None:
+        """Forget a duration drag in progress (Escape): the plan stays as it was."""
+        self._drag = None
+        self.item.set_preview(None)
+
+    def _drag_start(self, pos) -> bool:
+        geo = self.geometry
+        row = None if geo is None else geo.row_at(pos.y())
+        if row is None or geo.index[row] < 0 or not self._near_bar_end(row, pos.x()):
+            return False
+        self._drag = (geo.keys[row], row, bar_span(geo, row)[0])
+        return True
+
+    # --- zoom, pan, filters -------------------------------------------------------------
+    def fit_all(self, rows_to_fit: bool = False, every_row: bool | None = None) -> None:
+        """Fit the plan's dates to the width, and as many rows as stay legible from the top.
+
+        Rows shrink to fit the height, but not below the pitch where each row keeps its
+        own label (``legible_pitch``); the rows below are reached by scrolling. With
+        ``rows_to_fit`` rows stay at full size; with ``every_row`` every row is squeezed
+        in (labels thinned), which is what Present mode does by default.
+        """
+        geo = self.geometry
+        if geo is None:
+            return
+        if every_row is None:
+            every_row = self._weights is style.PRESENT
+        lo, hi = geo.x_range
+        pad = 0.03 * (hi - lo)
+        height = max(self.view_box.height(), 200.0)
+        header_px = max(HEADER_PX, 2.0 * self._font().pixelSize())    # room for the line labels
+        n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
+        header = header_px * n / max(height - header_px, 1.0)
+        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
+
+    def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
+        """How many rows (from the top) a fit shows in ``room_px`` pixels."""
+        if rows_to_fit:
+            return min(n, max(5, int(room_px / self._weights.row_height)))
+        if every_row:
+            return n
+        return min(n, max(1, int(room_px / self.legible_row_pitch() - 0.1)))
+
+    def legible_row_pitch(self) -> float:
+        """Row pitch in pixels below which the label column starts thinning labels."""
+        return legible_pitch(self._font())
+
+    def fit_every_row(self) -> None:
+        """Squeeze every row into the view (labels thinned when rows are short)."""
+        self.fit_all(every_row=True)
+
+    def show_critical_path(self, on: bool = True) -> None:
+        """Show only the critical rows (or all rows again) and fit them."""
+        self.critical_only = bool(on)
+        self.actions_by_name["critical"].setChecked(self.critical_only)
+        self.refresh()
+        self.fit_all()
+
+    def set_late_bars(self, on: bool) -> None:
+        self.late_bars = bool(on)
+        self.refresh()
+
+    def set_connectors(self, on: bool) -> None:
+        self.connectors = bool(on)
+        self.refresh()
+
+    def zoom(self, factor: float) -> None:
+        self._auto_fit = False
+        self.view_box.scaleBy((1.0 / factor, 1.0))
+
+    def pan(self, dx_frac: float = 0.0, dy_rows: float = 0.0) -> None:
+        self._auto_fit = False
+        (x0, x1), _ = self.view_box.viewRange()
+        self.view_box.translateBy(x=dx_frac * (x1 - x0), y=dy_rows)
+
+    def eventFilter(self, obj: QObject, event: QEvent) -> bool:
+        if obj is self.plot and event.type() == QEvent.Type.KeyPress:
+            return self._key(event.key())
+        return super().eventFilter(obj, event)
+
+    def _key(self, key) -> bool:
+        K = Qt.Key
+        actions = {K.Key_Plus: lambda: self.zoom(1.25), K.Key_Equal: lambda: self.zoom(1.25),
+                   K.Key_Minus: lambda: self.zoom(0.8), K.Key_Left: lambda: self.pan(-0.1),
+                   K.Key_Right: lambda: self.pan(0.1), K.Key_Up: lambda: self.pan(dy_rows=-3),
+                   K.Key_Down: lambda: self.pan(dy_rows=3), K.Key_Home: self.fit_all,
+                   K.Key_0: self.fit_all, K.Key_Escape: self.cancel_drag}
+        if self.present_hint and present_key(self, key):
+            return True
+        if key in actions:
+            actions[key]()
+            return True
+        return False
+
+    # --- Present mode and output -------------------------------------------------------------
+    def set_present(self, on: bool) -> None:
+        """Bigger type and heavier lines for a projector; groups folded so every row fits
+        (keys G and C, see ``timeline_present``)."""
+        self._weights = style.PRESENT if on else style.SCREEN
+        self.present_hint = PRESENT_HINT if on else ""
+        self._apply_weights()
+        if on:
+            fold_all(self, True)
+
+    def _apply_weights(self) -> None:
+        font = self._font()
+        self.row_axis.set_font(font)
+        self._fit_label_column()
+        self.date_axis.setStyle(tickFont=font)
+        self.item.set_weights(self._weights)
+        if hasattr(self, "toolbar"):
+            self.toolbar.setVisible(self._weights is not style.PRESENT)
+        self.reference.clear()
+        self._update_lines()
+
+    def drop_paint_caches(self) -> None:
+        """Forget every cached drawing: the next paint starts from scratch (benchmark)."""
+        for part in (self.item, self.row_axis, self.date_axis):
+            part.drop_cache()
+
+    def export_png(self, path, size=None) -> None:
+        from workbench.ui.timeline.output import export_png
+        export_png(self, path, size)
+
+    def export_svg(self, path) -> None:
+        from workbench.ui.timeline.output import export_svg
+        export_svg(self, path)
+
+    def print_preview(self) -> None:
+        from workbench.ui.timeline.output import print_preview
+        print_preview(self)
+
+    def _export_dialog(self, kind: str) -> None:
+        from workbench.ui.timeline.output import ask_and_export
+        ask_and_export(self, kind)

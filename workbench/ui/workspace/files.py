@@ -1,0 +1,246 @@
+"""Files for one window: new, open, save, save as, recent files, the unsaved-changes
+question, plan locks, autosave to a recovery copy and recovery after a crash."""
+
+from __future__ import annotations
+
+import os
+from pathlib import Path
+
+from PySide6.QtCore import QObject, QSettings, QTimer, Signal
+
+from workbench.core.errors import PlanError
+from workbench.core.model import Plan
+from workbench.ui import prompts
+from workbench.ui.workspace.lock import PlanLock
+from workbench.ui.workspace.recovery import RecoveryStore, remove_copy
+from workbench.ui.session import Session
+
+RECENT_KEY = "files/recent"
+LAST_KEY = "files/last"
+RECENT_MAX = 8
+AUTOSAVE_MS = 3 * 60 * 1000
+TABLE_SUFFIXES = (".csv", ".xlsx")
+
+
+class FileController(QObject):
+    """Keeps the session, the file it came from and the recovery copy in step."""
+
+    path_changed = Signal()
+    recent_changed = Signal()
+    message = Signal(str)
+
+    def __init__(self, session: Session, parent_widget, store: RecoveryStore | None = None):
+        super().__init__(parent_widget)
+        self.session = session
+        self.widget = parent_widget
+        self.path: str | None = None
+        self.read_only = False
+        self._lock: PlanLock | None = None
+        self.store = store or RecoveryStore()
+        self.store.claim(None)
+        self._autosave_due = False
+        session.undo_stack.indexChanged.connect(self._mark_due)
+        self.timer = QTimer(self)
+        self.timer.setInterval(int(os.environ.get("SLACKLINE_AUTOSAVE_MS", AUTOSAVE_MS)))
+        self.timer.timeout.connect(self.autosave)
+        self.timer.start()
+
+    # --- state -----------------------------------------------------------
+    @property
+    def modified(self) -> bool:
+        return not self.session.undo_stack.isClean()
+
+    def display_name(self) -> str:
+        return Path(self.path).name if self.path else (self.session.plan.settings.title or "Untitled plan")
+
+    def _mark_due(self, *_):
+        self._autosave_due = True
+
+    def _set_path(self, path: str | None, read_only: bool = False) -> None:
+        if self._lock is not None:
+            self._lock.release()
+            self._lock = None
+        self.path, self.read_only = path, read_only
+        if path and not read_only:
+            self._lock = PlanLock(path)
+            self._lock.acquire()
+        if path:
+            self._remember(path)
+        self.store.claim(path)
+        self.path_changed.emit()
+
+    # --- new / open ----------------------------------------------------------
+    def new_plan(self, plan: Plan | None = None) -> bool:
+        if not self.maybe_save():
+            return False
+        self.session.load(plan or Plan())
+        self._set_path(None)
+        return True
+
+    def open_dialog(self) -> bool:
+        path = prompts.ask_open_path(self.widget, folder=self._folder())
+        return self.open_path(path) if path else False
+
+    def open_path(self, path: str, ask: bool = True) -> bool:
+        """Open a .slw plan, or import a .csv/.xlsx table into the open plan."""
+        if Path(path).suffix.lower() in TABLE_SUFFIXES:
+            from workbench.ui.workspace.table_transfer import import_table
+            return import_table(self.widget, self.session, path)
+        if ask and not self.maybe_save():
+            return False
+        may_edit = self._may_edit(path)
+        if may_edit is None:
+            return False
+        read_only = not may_edit
+        try:
+            from workbench.io.planfile import load_plan
+            plan = load_plan(path)
+        except (PlanError, OSError) as exc:
+            prompts.show_error(self.widget, "Cannot open plan", _describe(exc, path))
+            return False
+        self.session.load(plan)
+        self._set_path(str(Path(path).resolve()), read_only)
+        self.message.emit(f"Opened {Path(path).name}" + (" (read-only)" if read_only else ""))
+        return True
+
+    def _may_edit(self, path: str):
+        """False to open read-only, None to give up, True to edit."""
+        resolved = str(Path(path).resolve())
+        if resolved == self.path and self._lock is not None and self._lock.held:
+            return True
+        lock = PlanLock(resolved)
+        if lock.acquire():
+            lock.release()
+            return True
+        if prompts.ask_locked(self.widget, path, lock.holder()) == "readonly":
+            return False
+        return None
+
+    # --- save ------------------------------------------------------------------
+    def save(self) -> bool:
+        if not self.path or self.read_only:
+            if self.read_only:
+                self.message.emit("This plan is open read-only; choose a new name.")
+            return self.save_as()
+        written = self._write(self.path)
+        if written and written != self.path:
+            self._set_path(written)
+        return written is not None
+
+    def save_as(self) -> bool:
+        written = self._choose_and_write()
+        if written:
+            self._set_path(written)
+        return written is not None
+
+    def _choose_and_write(self) -> str | None:
+        suggested = self.path or str(Path(self._folder()) / f"{self.session.plan.settings.title or 'plan'}.slw")
+        path = prompts.ask_save_path(self.widget, suggested=suggested)
+        if not path:
+            return None
+        if not path.lower().endswith(".slw"):
+            path += ".slw"
+        return self._write(path)
+
+    def _write(self, path: str) -> str | None:
+        """Save to ``path``; on failure offer another name. Returns the path written."""
+        from workbench.io import planfile
+        try:
+            planfile.save_plan(self.session.plan, path)
+        except (PlanError, OSError) as exc:
+            if prompts.ask_save_as_instead(self.widget, _describe(exc, path)):
+                return self._choose_and_write()
+            return None
+        self.session.undo_stack.setClean()
+        self.store.discard()
+        self._autosave_due = False
+        self.message.emit(f"Saved {Path(path).name}")
+        return str(Path(path).resolve())
+
+    def maybe_save(self) -> bool:
+        """Ask about unsaved changes; True when it is fine to go on."""
+        if not self.modified:
+            return True
+        answer = prompts.ask_unsaved(self.widget, self.display_name())
+        if answer == "save":
+            return self.save()
+        return answer == "discard"
+
+    def close(self) -> None:
+        """After a clean close: no recovery copy, no lock."""
+        self.timer.stop()
+        self.store.release(remove=True)
+        if self._lock is not None:
+            self._lock.release()
+
+    # --- autosave and recovery ---------------------------------------------------
+    def autosave(self) -> bool:
+        if not (self.modified and self._autosave_due):
+            return False
+        try:
+            self.store.write(self.session.plan)
+        except (PlanError, OSError) as exc:
+            self.message.emit(f"Could not write the recovery copy: {exc}")
+            return False
+        self._autosave_due = False
+        self.message.emit("Recovery copy written")
+        return True
+
+    def offer_recovery(self) -> bool:
+        """Offer each copy left by a window that did not close; True if one was restored."""
+        for found in self.store.orphans():
+            source = found.source or "a new, never saved plan"
+            answer = prompts.ask_recovery(self.widget, f"Slackline found unsaved work on “{found.title}”.",
+                                          f"From {source}, written {found.written}.")
+            if answer == "restore" and self._restore(found):
+                return True
+            if answer == "open" and found.source and Path(found.source).exists():
+                remove_copy(self.store.folder, found.key)
+                return self.open_path(found.source, ask=False)
+            if answer == "discard":
+                remove_copy(self.store.folder, found.key)
+        return False
+
+    def _restore(self, found) -> bool:
+        from workbench.io.planfile import load_plan
+        try:
+            plan = load_plan(found.plan_path)
+        except (PlanError, OSError) as exc:
+            prompts.show_error(self.widget, "Cannot restore", _describe(exc, str(found.plan_path)))
+            return False
+        self.session.load(plan)
+        self._set_path(found.source if found.source and Path(found.source).exists() else None)
+        remove_copy(self.store.folder, found.key)
+        self.session.undo_stack.resetClean()  # restored work is unsaved until saved
+        self.store.write(self.session.plan)
+        self.message.emit("Recovered unsaved work; save it to keep it.")
+        self.path_changed.emit()
+        return True
+
+    # --- recent files ---------------------------------------------------------------
+    def recent_files(self) -> list[str]:
+        value = QSettings().value(RECENT_KEY, [])
+        items = [value] if isinstance(value, str) else list(value or [])
+        return [p for p in items if p]
+
+    def _remember(self, path: str) -> None:
+        items = [path] + [p for p in self.recent_files() if p != path]
+        settings = QSettings()
+        settings.setValue(RECENT_KEY, items[:RECENT_MAX])
+        settings.setValue(LAST_KEY, path)
+        self.recent_changed.emit()
+
+    def clear_recent(self) -> None:
+        QSettings().setValue(RECENT_KEY, [])
+        self.recent_changed.emit()
+
+    def _folder(self) -> str:
+        return str(Path(self.path).parent) if self.path else str(Path.home())
+
+
+def _describe(exc: Exception, path: str) -> str:
+    if isinstance(exc, PermissionError):
+        return f"{path}: this location is read-only or locked ({exc.strerror})."
+    if isinstance(exc, OSError):
+        return f"{path}: {exc.strerror or exc}"
+    return str(exc)
