@@ -57,7 +57,9 @@ class SlacklineApp(QApplication):
 
 def application(argv: list[str] | None = None) -> QApplication:
     """The QApplication, with the names QSettings and the data folder use."""
-    app = QApplication.instance() or SlacklineApp([sys.argv[0] if sys.argv else "slackline", *(argv or [])])
+    from workbench.ui.workspace.start_guard import started
+    app = QApplication.instance() or started(
+        lambda: SlacklineApp([sys.argv[0] if sys.argv else "slackline", *(argv or [])]))
     app.setOrganizationName(ORGANISATION)
     app.setApplicationName(APPLICATION)
     app.setApplicationDisplayName(APPLICATION)
