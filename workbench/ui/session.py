@@ -56,6 +56,7 @@ class Session(QObject):
         self.analysis: Analysis | None = None
         self.analysis_error: str | None = None
         self.simulation = None
+        self.plan_generation = 0
         self.recalc_ms = 0.0
         self.last_refusal: str | None = None
         self._selected: list[str] = []
@@ -85,12 +86,18 @@ class Session(QObject):
         return False
 
     def load(self, plan: Plan) -> None:
-        """Show another plan (open a file, new plan): not undoable, clears the history."""
+        """Show another plan (open a file, new plan): not undoable, clears the history.
+        Every result of the old plan goes: ``plan_generation`` counts the plans shown, and
+        views drop a simulation from an earlier one (see :func:`take_simulation`)."""
         self.plan.reset(plan)
+        self.plan_generation += 1
         self.undo_stack.clear()
         self.undo_stack.setClean()
         self.select([])
+        had_simulation = self.simulation is not None
         self.recalculate()
+        if not had_simulation:
+            self.simulation_changed.emit()   # views holding an out-of-date run let it go
 
     # --- schedule ------------------------------------------------------
     def _analyze(self):
@@ -214,12 +221,16 @@ class _Relay(QObject):
 
 def take_simulation(view) -> None:
     """Keep ``view.result``/``view.stale`` in step with the session: a new run replaces the
-    shown result; a cleared one (the plan changed) leaves it on screen, marked stale."""
-    sim = view.session.simulation
+    shown result; a cleared one (the plan changed) leaves it on screen, marked stale; a
+    run of a plan no longer open (New, Open, Import as a new plan) is dropped."""
+    sim, generation = view.session.simulation, view.session.plan_generation
     if sim is not None:
         view.result, view.stale = sim, False
+    elif getattr(view, "plan_generation", generation) != generation:
+        view.result, view.stale = None, False     # another plan was loaded: nothing of the old stays
     elif view.result is not None:
         view.stale = True
+    view.plan_generation = generation
 
 
 def refresh_when_shown(view, slot, *signals) -> WhenShown:

@@ -256,7 +256,7 @@ def test_import_preview_with_planted_errors_changes_nothing(window, ui_env, tmp_
                      "A,Dig,2,3,4,\nB,Pour,5,3,9,A\nC,Cure,1,x,3,B\nD,Paint,1,2,3,ZZ\n", encoding="utf-8")
     before = plan_state(window.session.plan)
     shown = {}
-    ui_env.replies["preview_import"] = lambda parent, path, plan, problems: shown.update(plan=plan, problems=problems) or True
+    ui_env.replies["preview_import"] = lambda parent, path, plan, problems, kept="": shown.update(plan=plan, problems=problems) or True
     assert not window.files.open_path(str(table))
     assert plan_state(window.session.plan) == before and window.session.undo_stack.count() == 0
     problems = " | ".join(shown["problems"])
@@ -270,7 +270,7 @@ def test_good_import_is_one_undo_step(window, ui_env, tmp_path):
     table = tmp_path / "good.csv"
     table.write_text("id,name,duration,predecessors\nA,Dig,2,\nB,Pour,3,A\n", encoding="utf-8")
     before = plan_state(window.session.plan)
-    ui_env.replies["preview_import"] = True
+    ui_env.replies["preview_import"] = "keep"
     assert window.files.open_path(str(table))
     assert window.session.plan.ids() == ["A", "B"]
     assert window.session.plan.settings.title == "Office refit"

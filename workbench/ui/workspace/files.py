@@ -85,7 +85,7 @@ class FileController(QObject):
         """Open a .slw plan, or import a .csv/.xlsx table into the open plan."""
         if Path(path).suffix.lower() in TABLE_SUFFIXES:
             from workbench.ui.workspace.table_transfer import import_table
-            return import_table(self.widget, self.session, path)
+            return import_table(self.widget, self.session, path, start_new=self.new_plan)
         if ask and not self.maybe_save():
             return False
         may_edit = self._may_edit(path)
