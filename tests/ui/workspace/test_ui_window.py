@@ -90,7 +90,8 @@ def test_settings_dialog_change_is_one_undo_step(window, ui_env):
     window.menu_actions["settings"].trigger()
     assert window.session.plan.settings.title == "Office refit, phase 2"
     assert window.session.undo_stack.count() == 1
-    assert "(P80)" in window.summary.texts()["target"] and window.summary.texts()["target"] != before_finish
+    assert window.summary.texts()["target_caption"].startswith("P80")
+    assert window.summary.texts()["target"] != before_finish
     window.session.undo_stack.undo()
     assert window.session.plan.settings == old
 
