@@ -56,7 +56,7 @@ class OddsView(QWidget):
         side = QScrollArea()
         side.setWidget(self.panel)
         side.setWidgetResizable(True)
-        side.setMinimumWidth(400)
+        side.setMinimumWidth(220)
         self.splitter = QSplitter(Qt.Horizontal)
         self.splitter.addWidget(self.plot)
         self.splitter.addWidget(side)
@@ -327,7 +327,9 @@ class OddsView(QWidget):
             self._user_split = False
         if not self._user_split:  # the panel takes ~30 % (400–600 px) until the user drags
             length = self.height() if stacked else self.width()
-            side = max(300 if stacked else 400, min(600, int((0.45 if stacked else 0.3) * length)))
+            narrow = self.width() < STACK_BELOW_PX   # a small dock: the panel scrolls, the curves keep half
+            least = 300 if stacked else (220 if narrow else 400)
+            side = max(least, min(600, int((0.45 if stacked or narrow else 0.3) * length)))
             self.splitter.setSizes([max(1, length - side), side])
 
     def _on_run_cancelled(self) -> None:
