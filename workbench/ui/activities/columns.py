@@ -11,6 +11,7 @@ import datetime as dt
 import math
 from dataclasses import dataclass
 
+from workbench.core.date_text import maybe_date
 from workbench.core.errors import PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity
 
@@ -93,12 +94,8 @@ def parse_number(text: str, act_id: str, title: str) -> float | None:
 
 
 def parse_date(text: str) -> dt.date | None:
-    for fmt in ("%Y-%m-%d", DATE_FORMAT, "%d %B %Y"):
-        try:
-            return dt.datetime.strptime(text.strip(), fmt).date()
-        except ValueError:
-            continue
-    return None
+    """A typed date (ISO or the display format, in any locale), or None."""
+    return maybe_date(text)
 
 
 def parse_constraint(text: str, act_id: str, title: str):
