@@ -95,9 +95,9 @@ def show_guide(parent: QWidget, markdown: str) -> None:
     """A scrollable guide written in Markdown."""
     from PySide6.QtWidgets import QDialog, QDialogButtonBox, QTextBrowser, QVBoxLayout
     dialog = QDialog(parent)
-    dialog.setWindowTitle("Window guide")
+    dialog.setWindowTitle("Slackline guide")
     text = QTextBrowser(dialog)
-    text.setAccessibleName("Window guide")
+    text.setAccessibleName("Slackline guide")
     text.setMarkdown(markdown)
     buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Close, dialog)
     buttons.rejected.connect(dialog.reject)
