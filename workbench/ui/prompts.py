@@ -27,11 +27,25 @@ def ask_save_path(parent: QWidget, title: str = "Save plan as", suggested: str =
     return path or None
 
 
-def _choose(parent, title: str, text: str, buttons: list[tuple[str, str, QMessageBox.ButtonRole]],
-            icon=QMessageBox.Icon.Question, detail: str = "") -> str:
+TITLE_ROOM = 160   # what a window frame takes beside its title: icon, buttons, margins
+
+
+def message_box(parent, title: str, text: str, icon=QMessageBox.Icon.Question, detail: str = "") -> QMessageBox:
+    """A message box wide enough that the window manager need not cut its title short."""
     box = QMessageBox(icon, title, text, QMessageBox.StandardButton.NoButton, parent)
     if detail:
         box.setInformativeText(detail)
+    from PySide6.QtWidgets import QSizePolicy, QSpacerItem
+    width = box.fontMetrics().horizontalAdvance(title) * 1.3 + TITLE_ROOM
+    grid = box.layout()
+    grid.addItem(QSpacerItem(int(width), 0, QSizePolicy.Policy.Minimum, QSizePolicy.Policy.Minimum),
+                 grid.rowCount(), 0, 1, grid.columnCount())
+    return box
+
+
+def _choose(parent, title: str, text: str, buttons: list[tuple[str, str, QMessageBox.ButtonRole]],
+            icon=QMessageBox.Icon.Question, detail: str = "") -> str:
+    box = message_box(parent, title, text, icon, detail)
     made = {box.addButton(label, role): key for key, label, role in buttons}
     box.setDefaultButton(next(iter(made)))
     box.exec()

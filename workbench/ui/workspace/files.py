@@ -26,6 +26,7 @@ class FileController(QObject):
     """Keeps the session, the file it came from and the recovery copy in step."""
 
     path_changed = Signal()
+    saved = Signal(str)          # the path just written
     recent_changed = Signal()
     message = Signal(str)
 
@@ -155,6 +156,7 @@ class FileController(QObject):
         self.store.discard()
         self._autosave_due = False
         self.message.emit(f"Saved {Path(path).name}")
+        self.saved.emit(str(Path(path).resolve()))
         return str(Path(path).resolve())
 
     def maybe_save(self) -> bool:

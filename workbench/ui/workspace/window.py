@@ -185,6 +185,7 @@ class MainWindow(QMainWindow):
         self.files.message.connect(lambda text: self.statusBar().showMessage(text, 5000))
         self.activities.message.connect(lambda text: self.statusBar().showMessage(text, 5000))
         self.session.edit_refused.connect(self.notice.show_problem)
+        self.files.saved.connect(self.notice.hide)    # a saved plan has nothing pending
         self.session.schedule_changed.connect(self._on_schedule_changed)
         self._on_schedule_changed()
 
