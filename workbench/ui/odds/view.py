@@ -18,6 +18,7 @@ from workbench.ui.odds.runner import OddsRunner
 from workbench.ui.session import WhenShown, take_simulation
 
 
+EMPTY_PLAN = "No activities yet: add some, or open or import a plan, to see the odds of finishing."
 STACK_BELOW_PX = 820        # narrower than this (and tall enough), the panel goes under the curves
 STACK_MIN_HEIGHT_PX = 700
 
@@ -111,10 +112,15 @@ class OddsView(QWidget):
     def refresh(self) -> None:
         """Redraw everything from the session's analysis."""
         a = self.analysis
-        self.panel.error.setVisible(a is None)
-        self.plot.setEnabled(a is not None)
-        if a is None:
-            self.panel.error.setText(f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
+        empty = a is not None and len(a.plan) == 0
+        self.panel.error.setVisible(a is None or empty)
+        self.plot.setEnabled(a is not None and not empty)
+        if a is None or empty:
+            self.panel.error.setText(EMPTY_PLAN if empty else
+                                     f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
+            for label in (self.panel.headline, self.panel.readout, self.panel.sim_readout):
+                label.setText("")   # nothing of an earlier plan, and no "Chance 100 %" for nothing
+            self.panel.set_table([])
             return
         self.plot.set_calendar(a.calendar)
         self._follow_target(a)
