@@ -89,7 +89,7 @@ class FileController(QObject):
             return import_table(self.widget, self.session, path, start_new=self.new_plan)
         if ask and not self.maybe_save():
             return False
-        may_edit = self._may_edit(path)
+        may_edit = True if _bundled(path) else self._may_edit(path)   # a copy is opened: no lock
         if may_edit is None:
             return False
         read_only = not may_edit
@@ -100,6 +100,10 @@ class FileController(QObject):
             prompts.show_error(self.widget, "Cannot open plan", _describe(exc, path))
             return False
         self.session.load(plan)
+        if _bundled(path):   # the demos shipped with Slackline stay as shipped: Save asks where
+            self._set_path(None)
+            self.message.emit(f"Opened {Path(path).name} as an untitled copy; Save asks where to keep it")
+            return True
         self._set_path(str(Path(path).resolve()), read_only)
         self.message.emit(f"Opened {Path(path).name}" + (" (read-only)" if read_only else ""))
         return True
@@ -238,6 +242,15 @@ class FileController(QObject):
 
     def _folder(self) -> str:
         return str(Path(self.path).parent) if self.path else str(Path.home())
+
+
+def _bundled(path: str) -> bool:
+    """True for a plan shipped in Slackline's resources (the demo)."""
+    from workbench.resources import resources_dir
+    try:
+        return Path(path).resolve().is_relative_to(resources_dir().resolve())
+    except OSError:
+        return False
 
 
 def _describe(exc: Exception, path: str) -> str:
