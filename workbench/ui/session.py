@@ -10,6 +10,7 @@ a duplicate id) is rolled back so the plan stays exactly as it was, and
 from __future__ import annotations
 
 import time
+from pathlib import Path
 
 from PySide6.QtCore import QEvent, QObject, QTimer, Signal
 from PySide6.QtGui import QUndoCommand, QUndoStack
@@ -57,6 +58,7 @@ class Session(QObject):
         self.analysis_error: str | None = None
         self.simulation = None
         self.plan_generation = 0
+        self.folder = str(Path.home())   # the open plan's folder: where export dialogs start
         self.recalc_ms = 0.0
         self.last_refusal: str | None = None
         self._selected: list[str] = []
@@ -128,6 +130,10 @@ class Session(QObject):
     def set_simulation(self, result) -> None:
         self.simulation = result
         self.simulation_changed.emit()
+
+    def in_folder(self, name: str) -> str:
+        """``name`` in the open plan's folder: what an export dialog suggests."""
+        return str(Path(self.folder) / name)
 
     # --- selection -----------------------------------------------------
     def select(self, ids: list[str]) -> None:

@@ -62,6 +62,8 @@ class FileController(QObject):
             self._lock.release()
             self._lock = None
         self.path, self.read_only = path, read_only
+        if path:
+            self.session.folder = str(Path(path).parent)
         if path and not read_only:
             self._lock = PlanLock(path)
             self._lock.acquire()

@@ -78,7 +78,7 @@ def export_table(widget, session: Session) -> bool:
         prompts.show_error(widget, "Export", f"The plan cannot be scheduled, so there is nothing to export: "
                                              f"{session.analysis_error}")
         return False
-    path = prompts.ask_save_path(widget, "Export activities", f"{session.plan.settings.title}.csv",
+    path = prompts.ask_save_path(widget, "Export activities", session.in_folder(f"{session.plan.settings.title}.csv"),
                                  prompts.EXPORT_FILTER)
     if not path:
         return False
