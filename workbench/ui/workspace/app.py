@@ -65,6 +65,8 @@ def application(argv: list[str] | None = None) -> QApplication:
     app.setApplicationDisplayName(APPLICATION)
     QGuiApplication.setDesktopFileName(DESKTOP_FILE)
     app.setWindowIcon(app_icon())
+    from workbench.ui.workspace.wheel_guard import install_wheel_guard
+    install_wheel_guard(app)
     return app
 
 
