@@ -39,3 +39,11 @@ def test_about_gives_the_version(window, ui_env):
     ui_env.replies["show_info"] = lambda parent, title, message: said.append(message)
     window.menu_actions["about"].trigger()
     assert f"Slackline {__version__}" in said[0]
+
+
+def test_the_frozen_app_carries_every_guide_page():
+    from pathlib import Path
+    from workbench.ui.workspace.help_text import PAGES
+    spec = (Path(__file__).resolve().parents[3] / "installer" / "slackline.spec").read_text(encoding="utf-8")
+    for name, _title in PAGES:
+        assert f'"{name}"' in spec

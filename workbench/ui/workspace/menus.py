@@ -156,6 +156,8 @@ def _view_menu(window, acts: dict) -> None:
     acts["present"] = _action(window, "&Present", partial(start_present, window), "F5")
     acts["present"].setToolTip("Show the charts full screen, one per slide, for a projector")
     menu.addAction(acts["present"])
+    from workbench.ui.workspace import chart_tools
+    acts.update(chart_tools.install(window, menu))
 
 
 def _tool_bar(window, acts: dict, panel: dict) -> None:

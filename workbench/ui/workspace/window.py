@@ -106,6 +106,7 @@ class MainWindow(QMainWindow):
         for title, *_ in VIEWS:
             holder = QWidget(self)
             holder.setAccessibleName(f"{title} view")
+            holder.setFocusPolicy(Qt.FocusPolicy.ClickFocus)   # a click in a chart puts its dock in focus (Ctrl+C)
             QVBoxLayout(holder).setContentsMargins(0, 0, 0, 0)
             self._slots[title] = holder
             self._add_dock(title, scroller(holder, self), Qt.DockWidgetArea.BottomDockWidgetArea)
