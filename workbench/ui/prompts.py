@@ -87,6 +87,14 @@ def ask_save_as_instead(parent: QWidget, message: str) -> bool:
                    icon=QMessageBox.Icon.Warning) == "save_as"
 
 
+def ask_printer(parent: QWidget, doc_name: str):
+    """The system's print dialog; the chosen QPrinter, or None when cancelled."""
+    from PySide6.QtPrintSupport import QPrintDialog, QPrinter
+    printer = QPrinter(QPrinter.PrinterMode.HighResolution)
+    printer.setDocName(doc_name)
+    return printer if QPrintDialog(printer, parent).exec() else None
+
+
 def show_error(parent: QWidget, title: str, message: str) -> None:
     QMessageBox.warning(parent, title, message)
 

@@ -40,12 +40,14 @@ def test_export_the_drivers_chart(window, ui_env, qtbot, tmp_path):
     assert not QImage(path).isNull()
 
 
-def test_a_chart_prints_onto_one_page(window, qtbot, tmp_path):
+def test_a_chart_prints_onto_one_page(window, ui_env, qtbot, tmp_path):
     from PySide6.QtPrintSupport import QPrinter
     shown(window, qtbot, "Odds")
+    window.last_chart = "Odds"
     printer = QPrinter(QPrinter.PrinterMode.HighResolution)
     printer.setOutputFormat(QPrinter.OutputFormat.PdfFormat)
     printer.setOutputFileName(str(tmp_path / "odds.pdf"))
-    chart_tools.paint_chart(chart_tools.chart_image(window, "Odds"), printer)
+    ui_env.replies["ask_printer"] = printer
+    window.menu_actions["print_chart"].trigger()
     data = (tmp_path / "odds.pdf").read_bytes()
     assert data.startswith(b"%PDF") and data.count(b"/Type /Page") - data.count(b"/Type /Pages") == 1

@@ -17,6 +17,7 @@ def test_every_menu_action_triggers(window, ui_env, tmp_path):
     ui_env.replies.update({
         "ask_open_path": None, "ask_save_path": None, "edit_settings": None, "pick_predecessors": None,
         "show_info": None, "show_error": None, "show_guide": None, "ask_unsaved": "cancel",
+        "ask_printer": None,
     })
     window.session.push(EditActivity("R", name="Survey"))
     window.session.select(["D"])

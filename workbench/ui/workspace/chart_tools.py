@@ -67,13 +67,12 @@ def paint_chart(image: QImage, printer) -> None:
     painter.end()
 
 
-def print_chart(window) -> None:
-    from PySide6.QtPrintSupport import QPrintDialog, QPrinter
+def print_chart(window) -> bool:
     title = current_chart(window)
-    printer = QPrinter(QPrinter.PrinterMode.HighResolution)
-    printer.setDocName(f"{window.session.plan.settings.title} — {title}")
-    if QPrintDialog(printer, window).exec():
+    printer = prompts.ask_printer(window, f"{window.session.plan.settings.title} — {title}")
+    if printer is not None:
         paint_chart(chart_image(window, title), printer)
+    return printer is not None
 
 
 class _FocusWatch(QObject):
