@@ -44,6 +44,8 @@ def test_the_preview_says_which_settings_are_kept_and_starts_new_by_default(wind
     qtbot.addWidget(dialog)
     assert dialog.choice == NEW and dialog.new_button.isChecked()
     assert "warehouse" in dialog.new_button.text()
-    assert kept in dialog.keep_button.text()
+    assert dialog.kept.text() == kept and "keep its settings" in dialog.keep_button.text()
+    dialog.show()
+    assert dialog.width() <= 1000     # fits a 1024-wide projector
     dialog.keep_button.setChecked(True)
     assert dialog.choice == KEEP

@@ -7,7 +7,7 @@ from __future__ import annotations
 
 from functools import partial
 
-from PySide6.QtCore import QMimeData, QSettings, Qt
+from PySide6.QtCore import QSettings, Qt
 from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import QMenu
 
@@ -37,9 +37,7 @@ def copy_rows(panel) -> int:
     rows = selected_rows(panel)
     if not rows:
         return 0
-    data = QMimeData()
-    data.setText(rows_as_text(panel, rows))
-    QGuiApplication.clipboard().setMimeData(data)
+    QGuiApplication.clipboard().setText(rows_as_text(panel, rows))
     panel.message.emit(f"Copied {len(rows)} row{'s' if len(rows) != 1 else ''}: paste them into a spreadsheet")
     return len(rows)
 

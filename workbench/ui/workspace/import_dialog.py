@@ -46,8 +46,11 @@ class ImportDialog(QDialog):
         """Start a new plan (the default) or keep the open plan's settings, said in full."""
         self.new_button = QRadioButton(f"Start a new plan “{stem}” from this table (no deadline; "
                                        "set the start and deadline in Plan Settings)", self)
-        self.keep_button = QRadioButton("Replace the activities of the open plan and keep its settings"
-                                        + (f": {kept}" if kept else "") + " (one undo step)", self)
+        self.keep_button = QRadioButton("Replace the activities of the open plan and keep its settings "
+                                        "(one undo step)" + (":" if kept else ""), self)
+        self.kept = QLabel(kept or "", self)     # wrapped under its choice: the dialog stays narrow
+        self.kept.setWordWrap(True)
+        self.kept.setContentsMargins(24, 0, 0, 0)
         self.new_button.setChecked(True)
         group = QButtonGroup(self)
         for button, key in ((self.new_button, NEW), (self.keep_button, KEEP)):
@@ -55,6 +58,7 @@ class ImportDialog(QDialog):
             group.addButton(button)
             button.toggled.connect(lambda on, k=key: on and setattr(self, "choice", k))
             layout.addWidget(button)
+        layout.addWidget(self.kept)
 
     def _preview(self, plan) -> QTableWidget:
         table = QTableWidget(min(len(plan), 2000), len(HEADINGS), self)
