@@ -11,7 +11,8 @@ from workbench.core.model import Activity, Link, Plan, Settings
 from workbench.ui import prompts
 
 PROMPTS = ("ask_open_path", "ask_save_path", "ask_unsaved", "ask_recovery", "ask_locked",
-           "ask_save_as_instead", "ask_owner_change", "show_error", "show_info", "show_guide", "open_externally")
+           "ask_save_as_instead", "ask_owner_change", "show_error", "show_info", "show_guide", "open_externally",
+           "ask_printer")
 # The dialogs that edit something live beside their dialog classes (not in prompts).
 DIALOGS = {"edit_settings": "workbench.ui.workspace.settings_dialog",
            "pick_predecessors": "workbench.ui.activities.predecessor_dialog",

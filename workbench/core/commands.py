@@ -49,6 +49,9 @@ class EditActivity(Command):
         old = plan.activity(self.act_id)
         plan.replace_activity(self.act_id, old.with_(**self.changes))
         self.old = old
+        changed = [k for k, v in self.changes.items() if getattr(old, k) != v]
+        if changed:   # the history names what changed, not every field the gesture touched
+            self.text = f"Edit {self.act_id}: {', '.join(k.replace('_', ' ') for k in changed)}"
 
     def undo(self, plan: Plan) -> None:
         new_id = self.changes.get("id", self.act_id)

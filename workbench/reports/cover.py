@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 
+from workbench.figures.headline import headline
+
 from . import styles
 from .context import PackContext
 from .layout import Section
@@ -22,7 +24,8 @@ def cover(ctx: PackContext, width: float) -> list:
     story = [Section("Cover", "cover"),
              Paragraph("SLACKLINE \u00b7 APPROVAL PACK", styles.SUBTITLE), Spacer(1, 40),
              Paragraph(para(elide(s.title, TITLE_MOST)), styles.TITLE), Spacer(1, 14),
-             _facts(ctx, width), Spacer(1, 30),
+             _facts(ctx, width), Spacer(1, 18),
+             *_headline(ctx, width), Spacer(1, 18),
              Paragraph("Contents", styles.H2),
              Paragraph(para(" \u00b7 ".join(CONTENTS)), styles.BODY), Spacer(1, 30),
              Paragraph("Sign-off", styles.H1),
@@ -46,6 +49,19 @@ def _facts(ctx: PackContext, width: float) -> Table:
                                ("TEXTCOLOR", (0, 0), (0, -1), styles.MUTED),
                                ("LINEBELOW", (0, 0), (-1, -1), 0.3, styles.GRID)]))
     return table
+
+
+def _headline(ctx: PackContext, width: float) -> list:
+    """The plan's headline figures, worded as in the window and Present mode: the
+    simulation's when the pack has one, PERT beside them as the single-path estimate."""
+    head = headline(ctx.analysis, ctx.simulation)
+    rows = [[Paragraph(para(f.caption), styles.BODY), Paragraph(f"<b>{para(f.value)}</b>", styles.BODY),
+             Paragraph(para(f.beside), styles.SMALL)] for f in head.figures()]
+    table = Table(rows, colWidths=[width * 0.42, width * 0.28, width * 0.30], hAlign="LEFT")
+    table.setStyle(TableStyle([("VALIGN", (0, 0), (-1, -1), "TOP"),
+                               ("TEXTCOLOR", (0, 0), (0, -1), styles.MUTED),
+                               ("LINEBELOW", (0, 0), (-1, -1), 0.3, styles.GRID)]))
+    return [table, Spacer(1, 4), Paragraph(para(f"{head.note} {head.caution}"), styles.SMALL)]
 
 
 def sign_off_table(people, width: float) -> Table:

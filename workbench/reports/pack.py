@@ -143,6 +143,18 @@ def _progress(progress):
     return lambda done: progress(min(100, int(done)), 100)
 
 
+def _new_part_file(target: Path) -> tuple[int, Path]:
+    """A new file beside ``target`` with the usual permissions (the umask applies, as for
+    plan and CSV files; a temporary file's 0600 would keep colleagues out of the pack)."""
+    flags = os.O_WRONLY | os.O_CREAT | os.O_EXCL | getattr(os, "O_BINARY", 0)
+    while True:
+        tmp = target.with_name(f".{target.name}.{secrets.token_hex(4)}.part")
+        try:
+            return os.open(tmp, flags, 0o666), tmp
+        except FileExistsError:
+            continue
+
+
 def _write(path, data: bytes) -> None:
     """Write atomically through an exclusive temporary file (:mod:`workbench.io.atomic`):
     a half-written pack never replaces a good one, and no planted link is followed."""

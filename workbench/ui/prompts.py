@@ -27,11 +27,25 @@ def ask_save_path(parent: QWidget, title: str = "Save plan as", suggested: str =
     return path or None
 
 
-def _choose(parent, title: str, text: str, buttons: list[tuple[str, str, QMessageBox.ButtonRole]],
-            icon=QMessageBox.Icon.Question, detail: str = "") -> str:
+TITLE_ROOM = 160   # what a window frame takes beside its title: icon, buttons, margins
+
+
+def message_box(parent, title: str, text: str, icon=QMessageBox.Icon.Question, detail: str = "") -> QMessageBox:
+    """A message box wide enough that the window manager need not cut its title short."""
     box = QMessageBox(icon, title, text, QMessageBox.StandardButton.NoButton, parent)
     if detail:
         box.setInformativeText(detail)
+    from PySide6.QtWidgets import QSizePolicy, QSpacerItem
+    width = box.fontMetrics().horizontalAdvance(title) * 1.3 + TITLE_ROOM
+    grid = box.layout()
+    grid.addItem(QSpacerItem(int(width), 0, QSizePolicy.Policy.Minimum, QSizePolicy.Policy.Minimum),
+                 grid.rowCount(), 0, 1, grid.columnCount())
+    return box
+
+
+def _choose(parent, title: str, text: str, buttons: list[tuple[str, str, QMessageBox.ButtonRole]],
+            icon=QMessageBox.Icon.Question, detail: str = "") -> str:
+    box = message_box(parent, title, text, icon, detail)
     made = {box.addButton(label, role): key for key, label, role in buttons}
     box.setDefaultButton(next(iter(made)))
     box.exec()
@@ -82,6 +96,14 @@ def ask_owner_change(parent: QWidget, message: str) -> str:
                    detail="Colleagues who share the file through its owner or group may no longer open it.")
 
 
+def ask_printer(parent: QWidget, doc_name: str):
+    """The system's print dialog; the chosen QPrinter, or None when cancelled."""
+    from PySide6.QtPrintSupport import QPrintDialog, QPrinter
+    printer = QPrinter(QPrinter.PrinterMode.HighResolution)
+    printer.setDocName(doc_name)
+    return printer if QPrintDialog(printer, parent).exec() else None
+
+
 def show_error(parent: QWidget, title: str, message: str) -> None:
     QMessageBox.warning(parent, title, message)
 
@@ -104,9 +126,9 @@ def show_guide(parent: QWidget, markdown: str) -> None:
     """A scrollable guide written in Markdown."""
     from PySide6.QtWidgets import QDialog, QDialogButtonBox, QTextBrowser, QVBoxLayout
     dialog = QDialog(parent)
-    dialog.setWindowTitle("Window guide")
+    dialog.setWindowTitle("Slackline guide")
     text = QTextBrowser(dialog)
-    text.setAccessibleName("Window guide")
+    text.setAccessibleName("Slackline guide")
     text.setMarkdown(markdown)
     buttons = QDialogButtonBox(QDialogButtonBox.StandardButton.Close, dialog)
     buttons.rejected.connect(dialog.reject)

@@ -10,6 +10,7 @@ a duplicate id) is rolled back so the plan stays exactly as it was, and
 from __future__ import annotations
 
 import time
+from pathlib import Path
 
 from PySide6.QtCore import QEvent, QObject, QTimer, Signal
 from PySide6.QtGui import QUndoCommand, QUndoStack
@@ -75,6 +76,8 @@ class Session(QObject):
         self.analysis: Analysis | None = None
         self.analysis_error: str | None = None
         self.simulation = None
+        self.plan_generation = 0
+        self.folder = str(Path.home())   # the open plan's folder: where export dialogs start
         self.recalc_ms = 0.0
         self.last_refusal: str | None = None
         self._selected: list[str] = []
@@ -106,12 +109,18 @@ class Session(QObject):
         return False
 
     def load(self, plan: Plan) -> None:
-        """Show another plan (open a file, new plan): not undoable, clears the history."""
+        """Show another plan (open a file, new plan): not undoable, clears the history.
+        Every result of the old plan goes: ``plan_generation`` counts the plans shown, and
+        views drop a simulation from an earlier one (see :func:`take_simulation`)."""
         self.plan.reset(plan)
+        self.plan_generation += 1
         self.undo_stack.clear()
         self.undo_stack.setClean()
         self.select([])
+        had_simulation = self.simulation is not None
         self.recalculate()
+        if not had_simulation:
+            self.simulation_changed.emit()   # views holding an out-of-date run let it go
 
     # --- schedule ------------------------------------------------------
     def _analyze(self):
@@ -173,6 +182,10 @@ class Session(QObject):
         command = RecordTrendPoint(point)
         command.do(self.plan)
         self.undo_stack.push(_PlanOnlyAdapter(self, command))
+
+    def in_folder(self, name: str) -> str:
+        """``name`` in the open plan's folder: what an export dialog suggests."""
+        return str(Path(self.folder) / name)
 
     # --- selection -----------------------------------------------------
     def select(self, ids: list[str]) -> None:
@@ -266,12 +279,16 @@ class _Relay(QObject):
 
 def take_simulation(view) -> None:
     """Keep ``view.result``/``view.stale`` in step with the session: a new run replaces the
-    shown result; a cleared one (the plan changed) leaves it on screen, marked stale."""
-    sim = view.session.simulation
+    shown result; a cleared one (the plan changed) leaves it on screen, marked stale; a
+    run of a plan no longer open (New, Open, Import as a new plan) is dropped."""
+    sim, generation = view.session.simulation, view.session.plan_generation
     if sim is not None:
         view.result, view.stale = sim, False
+    elif getattr(view, "plan_generation", generation) != generation:
+        view.result, view.stale = None, False     # another plan was loaded: nothing of the old stays
     elif view.result is not None:
         view.stale = True
+    view.plan_generation = generation
 
 
 def refresh_when_shown(view, slot, *signals) -> WhenShown:

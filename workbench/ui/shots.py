@@ -13,6 +13,7 @@ import tempfile
 from pathlib import Path
 
 SIZE = (1920, 1080)
+PROJECTOR = (1024, 768)
 SEED = 20270301
 VIEW_FILES = {"Timeline": "timeline.png", "Network": "network.png", "Odds": "odds.png", "Drivers": "drivers.png",
               "Checkup": "checkup.png", "Resources": "resources.png", "Trade-off": "tradeoff.png"}
@@ -23,9 +24,9 @@ def _settle(app, rounds: int = 5) -> None:
         app.processEvents()
 
 
-def _grab(widget, path: Path, app) -> None:
-    widget.resize(*SIZE)
+def _grab(widget, path: Path, app, size=SIZE) -> None:
     widget.show()
+    widget.resize(*size)   # after showing: the window otherwise fits itself to the (offscreen) screen
     _settle(app)
     finish = getattr(widget, "finish_work", None)
     if callable(finish):  # a view computing in a worker shows its result, not its progress bar
@@ -61,8 +62,10 @@ def render(outdir: Path, plan_path: str | None = None) -> list[Path]:
             raise SystemExit(f"cannot open {plan_path}")
     else:
         window.session.load(demo_plan())
-    written = [outdir / "main.png"]
+    written = [outdir / "main.png", outdir / "main-1024x768.png"]
     _grab(window, written[0], app)
+    _grab(window, written[1], app, PROJECTOR)   # a projector: every dock still on screen
+    window.resize(*SIZE)
     _simulate(window.session)
     for title, module, cls, _promise in VIEWS:
         view = make_view(module, cls, window.session)

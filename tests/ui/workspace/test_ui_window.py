@@ -18,6 +18,7 @@ def test_every_menu_action_triggers(window, ui_env, tmp_path):
         "ask_open_path": None, "ask_save_path": None, "edit_settings": None, "pick_predecessors": None,
         "show_info": None, "show_error": None, "show_guide": None, "ask_unsaved": "cancel",
         "move_status_date": None, "manage_baselines": None,
+        "ask_printer": None,
     })
     window.session.push(EditActivity("R", name="Survey"))
     window.session.select(["D"])
@@ -91,7 +92,8 @@ def test_settings_dialog_change_is_one_undo_step(window, ui_env):
     window.menu_actions["settings"].trigger()
     assert window.session.plan.settings.title == "Office refit, phase 2"
     assert window.session.undo_stack.count() == 1
-    assert "(P80)" in window.summary.texts()["target"] and window.summary.texts()["target"] != before_finish
+    assert window.summary.texts()["target_caption"].startswith("P80")
+    assert window.summary.texts()["target"] != before_finish
     window.session.undo_stack.undo()
     assert window.session.plan.settings == old
 
@@ -257,7 +259,7 @@ def test_import_preview_with_planted_errors_changes_nothing(window, ui_env, tmp_
                      "A,Dig,2,3,4,\nB,Pour,5,3,9,A\nC,Cure,1,x,3,B\nD,Paint,1,2,3,ZZ\n", encoding="utf-8")
     before = plan_state(window.session.plan)
     shown = {}
-    ui_env.replies["preview_import"] = lambda parent, path, plan, problems: shown.update(plan=plan, problems=problems) or True
+    ui_env.replies["preview_import"] = lambda parent, path, plan, problems, kept="": shown.update(plan=plan, problems=problems) or True
     assert not window.files.open_path(str(table))
     assert plan_state(window.session.plan) == before and window.session.undo_stack.count() == 0
     problems = " | ".join(shown["problems"])
@@ -271,7 +273,7 @@ def test_good_import_is_one_undo_step(window, ui_env, tmp_path):
     table = tmp_path / "good.csv"
     table.write_text("id,name,duration,predecessors\nA,Dig,2,\nB,Pour,3,A\n", encoding="utf-8")
     before = plan_state(window.session.plan)
-    ui_env.replies["preview_import"] = True
+    ui_env.replies["preview_import"] = "keep"
     assert window.files.open_path(str(table))
     assert window.session.plan.ids() == ["A", "B"]
     assert window.session.plan.settings.title == "Office refit"

@@ -12,6 +12,7 @@ import math
 from dataclasses import dataclass
 
 from workbench.core import formatting as fm
+from workbench.core.date_text import maybe_date
 from workbench.core.errors import PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity
 from workbench.ui.activities import progress_columns as PC
@@ -106,8 +107,9 @@ def parse_number(text: str, act_id: str, title: str) -> float | None:
 
 
 def parse_date(text: str) -> dt.date | None:
-    """A typed date: ISO ("2027-03-12") or as the table shows it ("Fri 12 Mar 2027", "12 Mar 2027")."""
-    return fm.parse_date(text)
+    """A typed date: ISO ("2027-03-12") or as the table shows it ("Fri 12 Mar 2027",
+    "12 Mar 2027"), or None."""
+    return maybe_date(text) or fm.parse_date(text)
 
 
 def parse_constraint(text: str, act_id: str, title: str):

@@ -12,6 +12,7 @@ from workbench.core.commands import AddActivity, MoveActivity, RemoveActivities,
 from workbench.core.model import Activity
 from workbench.ui.activities import columns as C
 from workbench.ui.activities import predecessor_dialog
+from workbench.ui.activities import row_tools
 from workbench.ui.activities.filter_model import ActivityFilterModel
 from workbench.ui.activities.table_model import ID_ROLE, ActivityTableModel
 from workbench.ui.icons import icon
@@ -47,6 +48,8 @@ class ActivitiesPanel(QWidget):
         layout.addLayout(self._make_filter_bar())
         layout.addWidget(self.table)
         self.actions = self._make_actions()
+        self.column_keys = [c.key for c in C.COLUMNS]
+        row_tools.install(self)
         session.selection_changed.connect(self._show_selection)
         session.schedule_changed.connect(self._refresh_groups)
         session.schedule_changed.connect(self._show_baseline_columns)
@@ -131,6 +134,8 @@ class ActivitiesPanel(QWidget):
             "move_down": self._action("Move Do&wn", lambda: self.move_selected(1), "Ctrl+Shift+Down", "move_down"),
             "paste": self._action("&Paste Rows", self.paste_rows, QKeySequence.StandardKey.Paste, "paste"),
             "predecessors": self._action("Pick P&redecessors…", self.pick_predecessors, "Ctrl+L", "links"),
+            "copy": self._action("&Copy Rows", lambda: row_tools.copy_rows(self), QKeySequence.StandardKey.Copy,
+                                 tip="Copy the selected rows as tab-separated text, for a spreadsheet"),
         }
 
     # --- selection ---------------------------------------------------------

@@ -234,7 +234,7 @@ class NetworkView(QWidget):
         save_picture(self.item.painter, path)
 
     def export_dialog(self) -> None:
-        path, _ = QFileDialog.getSaveFileName(self, "Export network", "network.png", "PNG image (*.png);;SVG drawing (*.svg)")
+        path, _ = QFileDialog.getSaveFileName(self, "Export network", self.session.in_folder("network.png"), "PNG image (*.png);;SVG drawing (*.svg)")
         if not path:
             return
         try:

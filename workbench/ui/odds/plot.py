@@ -49,6 +49,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         if row == 1:  # read dates and probabilities off the S-curve; the density needs no grid
             plot.showGrid(x=True, y=True, alpha=0.25)
         plot.setMouseEnabled(x=True, y=False)
+        plot.hideButtons()   # the chart library's own auto-range button: Fit does that here
         plot.getViewBox().setDefaultPadding(0.0)
         font = QFont()
         font.setPointSizeF(style.SCREEN.font_size + 1)

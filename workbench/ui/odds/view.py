@@ -21,6 +21,7 @@ from workbench.ui.odds.trend_plot import TrendPlot
 from workbench.ui.session import WhenShown, take_simulation
 
 
+EMPTY_PLAN = "No activities yet: add some, or open or import a plan, to see the odds of finishing."
 STACK_BELOW_PX = 820        # narrower than this (and tall enough), the panel goes under the curves
 STACK_MIN_HEIGHT_PX = 700
 
@@ -59,7 +60,7 @@ class OddsView(QWidget):
         side = QScrollArea()
         side.setWidget(self.panel)
         side.setWidgetResizable(True)
-        side.setMinimumWidth(400)
+        side.setMinimumWidth(220)
         self.trend = TrendPlot(self)
         self._trend_slot = lambda: show_trend(self)     # one slot, so a hidden view draws it once
         self.charts = QSplitter(Qt.Vertical)
@@ -122,10 +123,15 @@ class OddsView(QWidget):
     def refresh(self) -> None:
         """Redraw everything from the session's analysis."""
         a = self.analysis
-        self.panel.error.setVisible(a is None)
-        self.plot.setEnabled(a is not None)
-        if a is None:
-            self.panel.error.setText(f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
+        empty = a is not None and len(a.plan) == 0
+        self.panel.error.setVisible(a is None or empty)
+        self.plot.setEnabled(a is not None and not empty)
+        if a is None or empty:
+            self.panel.error.setText(EMPTY_PLAN if empty else
+                                     f"No odds while the plan cannot be scheduled: {self.session.analysis_error}")
+            for label in (self.panel.headline, self.panel.readout, self.panel.sim_readout):
+                label.setText("")   # nothing of an earlier plan, and no "Chance 100 %" for nothing
+            self.panel.set_table([])
             return
         self.plot.set_calendar(a.calendar)
         show_trend(self)
@@ -340,7 +346,9 @@ class OddsView(QWidget):
             self._user_split = False
         if not self._user_split:  # the panel takes ~30 % (400–600 px) until the user drags
             length = self.height() if stacked else self.width()
-            side = max(300 if stacked else 400, min(600, int((0.45 if stacked else 0.3) * length)))
+            narrow = self.width() < STACK_BELOW_PX   # a small dock: the panel scrolls, the curves keep half
+            least = 300 if stacked else (220 if narrow else 400)
+            side = max(least, min(600, int((0.45 if stacked or narrow else 0.3) * length)))
             self.splitter.setSizes([max(1, length - side), side])
 
     def _on_run_cancelled(self) -> None:

@@ -225,7 +225,8 @@ def export_pdf(view, path) -> None:
 
 def ask_and_export(view, kind: str) -> None:
     filters = {"png": "PNG image (*.png)", "svg": "SVG drawing (*.svg)"}
-    path, _ = QFileDialog.getSaveFileName(view, f"Export the Timeline as {kind.upper()}", f"timeline.{kind}", filters[kind])
+    path, _ = QFileDialog.getSaveFileName(view, f"Export the Timeline as {kind.upper()}",
+                                          view.session.in_folder(f"timeline.{kind}"), filters[kind])
     if not path:
         return
     try:

@@ -57,12 +57,16 @@ class SlacklineApp(QApplication):
 
 def application(argv: list[str] | None = None) -> QApplication:
     """The QApplication, with the names QSettings and the data folder use."""
-    app = QApplication.instance() or SlacklineApp([sys.argv[0] if sys.argv else "slackline", *(argv or [])])
+    from workbench.ui.workspace.start_guard import started
+    app = QApplication.instance() or started(
+        lambda: SlacklineApp([sys.argv[0] if sys.argv else "slackline", *(argv or [])]))
     app.setOrganizationName(ORGANISATION)
     app.setApplicationName(APPLICATION)
     app.setApplicationDisplayName(APPLICATION)
     QGuiApplication.setDesktopFileName(DESKTOP_FILE)
     app.setWindowIcon(app_icon())
+    from workbench.ui.workspace.wheel_guard import install_wheel_guard
+    install_wheel_guard(app)
     return app
 
 

@@ -28,6 +28,7 @@ class FileController(QObject):
     """Keeps the session, the file it came from and the recovery copy in step."""
 
     path_changed = Signal()
+    saved = Signal(str)          # the path just written
     recent_changed = Signal()
     message = Signal(str)
     _autosaved = Signal(str)  # from the autosave thread, delivered on the window's thread
@@ -67,6 +68,8 @@ class FileController(QObject):
             self._lock.release()
             self._lock = None
         self.path, self.read_only = path, read_only
+        if path:
+            self.session.folder = str(Path(path).parent)
         if path and not read_only:
             self._lock = PlanLock(path)
             self._lock.acquire()
@@ -91,10 +94,10 @@ class FileController(QObject):
         """Open a .slw plan, or import a .csv/.xlsx table into the open plan."""
         if Path(path).suffix.lower() in TABLE_SUFFIXES:
             from workbench.ui.workspace.table_transfer import import_table
-            return import_table(self.widget, self.session, path)
+            return import_table(self.widget, self.session, path, start_new=self.new_plan)
         if ask and not self.maybe_save():
             return False
-        may_edit = self._may_edit(path)
+        may_edit = True if _bundled(path) else self._may_edit(path)   # a copy is opened: no lock
         if may_edit is None:
             return False
         read_only = not may_edit
@@ -105,6 +108,10 @@ class FileController(QObject):
             prompts.show_error(self.widget, "Cannot open plan", _describe(exc, path))
             return False
         self.session.load(plan)
+        if _bundled(path):   # the demos shipped with Slackline stay as shipped: Save asks where
+            self._set_path(None)
+            self.message.emit(f"Opened {Path(path).name} as an untitled copy; Save asks where to keep it")
+            return True
         self._set_path(str(Path(path).resolve()), read_only)
         self.message.emit(f"Opened {Path(path).name}" + (" (read-only)" if read_only else ""))
         return True
@@ -167,6 +174,7 @@ class FileController(QObject):
         self.store.discard()
         self._autosave_due = False
         self.message.emit(f"Saved {Path(path).name}")
+        self.saved.emit(str(Path(path).resolve()))
         return str(Path(path).resolve())
 
     def _owner_change(self, path: str, exc: Exception) -> str | None:
@@ -292,6 +300,15 @@ class FileController(QObject):
 
     def _folder(self) -> str:
         return str(Path(self.path).parent) if self.path else str(Path.home())
+
+
+def _bundled(path: str) -> bool:
+    """True for a plan shipped in Slackline's resources (the demo)."""
+    from workbench.resources import resources_dir
+    try:
+        return Path(path).resolve().is_relative_to(resources_dir().resolve())
+    except OSError:
+        return False
 
 
 def _describe(exc: Exception, path: str) -> str:

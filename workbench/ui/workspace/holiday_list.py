@@ -4,13 +4,15 @@ from __future__ import annotations
 
 import datetime as dt
 
-from PySide6.QtCore import QDate
-from PySide6.QtWidgets import (QDateEdit, QGridLayout, QLabel, QLineEdit, QListWidget,
+from PySide6.QtWidgets import (QGridLayout, QHBoxLayout, QLabel, QLineEdit, QListWidget,
                                QListWidgetItem, QPushButton, QSpinBox, QWidget)
 
 from workbench.core.calendar import public_holidays
+from workbench.core.date_text import show_date
+from workbench.core.holiday_names import holiday_names
 from workbench.core.errors import PlanError
 from workbench.ui import prompts
+from workbench.ui.workspace.date_field import DateField
 
 
 class HolidayList(QWidget):
@@ -23,9 +25,7 @@ class HolidayList(QWidget):
         self.list = QListWidget(self)
         self.list.setAccessibleName("Holidays")
         self.list.setSelectionMode(QListWidget.SelectionMode.ExtendedSelection)
-        self.day = QDateEdit(QDate.currentDate(), self)
-        self.day.setDisplayFormat("yyyy-MM-dd")
-        self.day.setCalendarPopup(True)
+        self.day = DateField(dt.date.today(), self)
         self.day.setAccessibleName("Holiday date to add")
         add, remove = QPushButton("Add date", self), QPushButton("Remove selected", self)
         add.clicked.connect(lambda: self.add_dates([self._picked()]))
@@ -33,6 +33,7 @@ class HolidayList(QWidget):
         self.region_edit = QLineEdit(region, self)
         self.region_edit.setPlaceholderText("e.g. DE, FR, US-CA")
         self.region_edit.setAccessibleName("Public holiday region")
+        self.region_edit.editingFinished.connect(self._refill)   # names follow the region
         self.first, self.last = QSpinBox(self), QSpinBox(self)
         for box, value, name in ((self.first, year, "First year"), (self.last, year + 2, "Last year")):
             box.setRange(1950, 2150)
@@ -47,19 +48,25 @@ class HolidayList(QWidget):
         grid.addWidget(remove, 2, 3)
         grid.addWidget(QLabel("Region", self), 3, 2)
         grid.addWidget(self.region_edit, 3, 3)
-        grid.addWidget(self.first, 4, 2)
-        grid.addWidget(self.last, 4, 3)
+        years = QHBoxLayout()
+        for text, box in (("From year", self.first), ("to year", self.last)):
+            label = QLabel(text, self)
+            label.setBuddy(box)
+            years.addWidget(label)
+            years.addWidget(box)
+        grid.addLayout(years, 4, 2, 1, 2)
         grid.addWidget(fetch, 5, 2, 1, 2)
         self._refill()
 
     def _picked(self) -> dt.date:
-        q = self.day.date()
-        return dt.date(q.year(), q.month(), q.day())
+        return self.day.day()
 
     def _refill(self) -> None:
         self.list.clear()
+        names = holiday_names(self.region_edit.text().strip(), self._dates)
         for day in sorted(self._dates):
-            item = QListWidgetItem(day.strftime("%Y-%m-%d  %a"))
+            text = f"{day.strftime('%a')} {show_date(day)}" + (f" — {names[day]}" if day in names else "")
+            item = QListWidgetItem(text)
             item.setData(256, day.isoformat())
             self.list.addItem(item)
 

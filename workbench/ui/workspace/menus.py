@@ -22,7 +22,9 @@ StandardKey = QKeySequence.StandardKey
 
 def _action(window, text: str, slot, key=None, icon_name: str | None = None, tip: str = "") -> QAction:
     act = QAction(text, window)
-    if key is not None:
+    if isinstance(key, StandardKey):
+        act.setShortcuts(key)              # all of the system's keys for it, not just the first
+    elif key is not None:
         act.setShortcut(QKeySequence(key))
     if icon_name:
         act.setIcon(icon(icon_name))
@@ -54,17 +56,16 @@ def start_present(window) -> None:
 
 
 def show_guide(window) -> None:
-    from workbench.resources import docs_dir
+    from workbench.ui.workspace.help_text import guide_markdown
 
-    guide = docs_dir() / "window.md"
-    text = guide.read_text(encoding="utf-8") if guide.exists() else "The window guide is not installed."
-    prompts.show_guide(window, text)
+    prompts.show_guide(window, guide_markdown(getattr(window, "menu_actions", {})))
 
 
 def show_about(window) -> None:
+    from workbench import __version__
     prompts.show_info(window, "About Slackline",
-                      "Slackline — a workbench for project planners: critical path, PERT odds "
-                      "and schedule risk.")
+                      f"Slackline {__version__} — a workbench for project planners: critical path, "
+                      "PERT odds and schedule risk.")
 
 
 def _file_actions(window) -> dict[str, QAction]:
@@ -102,10 +103,10 @@ def fill_recent(window, menu: QMenu) -> None:
 def _undo_actions(window) -> dict[str, QAction]:
     stack = window.session.undo_stack
     undo = stack.createUndoAction(window, "&Undo")
-    undo.setShortcut(QKeySequence(StandardKey.Undo))
+    undo.setShortcuts(StandardKey.Undo)     # every key the system uses for it
     undo.setIcon(icon("undo"))
     redo = stack.createRedoAction(window, "&Redo")
-    redo.setShortcut(QKeySequence(StandardKey.Redo))
+    redo.setShortcuts(StandardKey.Redo)     # Ctrl+Shift+Z; Ctrl+Y too where that is the custom
     redo.setIcon(icon("redo"))
     find = _action(window, "&Find…", lambda: window.activities.search.setFocus(), StandardKey.Find)
     return {"undo": undo, "redo": redo, "find": find}
@@ -125,7 +126,7 @@ def build_menus(window) -> dict[str, QAction]:
     living_menu(window, acts)
     _view_menu(window, acts)
     help_menu = window.menuBar().addMenu("&Help")
-    acts["guide"] = _action(window, "Window &Guide", partial(show_guide, window), StandardKey.HelpContents)
+    acts["guide"] = _action(window, "Slackline &Guide", partial(show_guide, window), StandardKey.HelpContents)
     acts["about"] = _action(window, "&About Slackline", partial(show_about, window))
     help_menu.addActions([acts["guide"], acts["about"]])
     _tool_bar(window, acts, panel)
@@ -157,6 +158,8 @@ def _view_menu(window, acts: dict) -> None:
     acts["present"] = _action(window, "&Present", partial(start_present, window), "F5")
     acts["present"].setToolTip("Show the charts full screen, one per slide, for a projector")
     menu.addAction(acts["present"])
+    from workbench.ui.workspace import chart_tools
+    acts.update(chart_tools.install(window, menu))
 
 
 def _tool_bar(window, acts: dict, panel: dict) -> None:

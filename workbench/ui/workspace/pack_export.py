@@ -45,7 +45,8 @@ def export_pack(window) -> str | None:
                            f"The plan cannot be scheduled, so there is no pack to make: {session.analysis_error}")
         return None
     title = session.plan.settings.title or "plan"
-    path = prompts.ask_save_path(window, "Export approval pack", f"{title} approval pack.pdf", prompts.PDF_FILTER)
+    path = prompts.ask_save_path(window, "Export approval pack", session.in_folder(f"{title} approval pack.pdf"),
+                                 prompts.PDF_FILTER)
     if not path:
         return None
     if Path(path).suffix.lower() != ".pdf":

@@ -6,7 +6,7 @@ from __future__ import annotations
 import datetime as dt
 
 from PySide6.QtCore import QDate
-from PySide6.QtWidgets import (QCheckBox, QComboBox, QDateEdit, QDialog, QDialogButtonBox,
+from PySide6.QtWidgets import (QCheckBox, QComboBox, QDialog, QDialogButtonBox,
                                QFormLayout, QHBoxLayout, QLineEdit, QPushButton,
                                QSpinBox, QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout,
                                QWidget)
@@ -15,6 +15,7 @@ from workbench.core.calendar import WorkCalendar
 from workbench.core.errors import PlanError
 from workbench.core.model import DISTRIBUTIONS, Calendar, Settings, SignOff
 from workbench.ui import prompts
+from workbench.ui.workspace.date_field import DateField
 from workbench.ui.workspace.holiday_list import HolidayList
 
 WEEKDAYS = ("Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun")
@@ -28,10 +29,8 @@ def from_qdate(q: QDate) -> dt.date:
     return dt.date(q.year(), q.month(), q.day())
 
 
-def _date_edit(parent, name: str, day: dt.date) -> QDateEdit:
-    edit = QDateEdit(to_qdate(day), parent)
-    edit.setCalendarPopup(True)
-    edit.setDisplayFormat("yyyy-MM-dd")
+def _date_edit(parent, name: str, day: dt.date) -> DateField:
+    edit = DateField(day, parent)
     edit.setAccessibleName(name)
     return edit
 
@@ -178,6 +177,13 @@ class SettingsDialog(QDialog):
         return chosen
 
     def _accept(self) -> None:
+        for field, name in ((self.start, "Start"), (self.deadline, "Committed finish date"),
+                            (self.status, "Status date")):
+            field.day()   # reads what was typed
+            if field.isEnabled() and field.problem():
+                prompts.show_error(self, "Plan settings", f"{name}: {field.problem()}")
+                field.setFocus()
+                return
         try:
             self.result_settings().validated()
         except PlanError as exc:

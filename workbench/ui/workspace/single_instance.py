@@ -4,15 +4,19 @@ from __future__ import annotations
 
 import getpass
 import hashlib
+import os
 
-from PySide6.QtCore import QObject, Signal
+from PySide6.QtCore import QObject, QTimer, Signal
 from PySide6.QtNetwork import QLocalServer, QLocalSocket
 
 TIMEOUT_MS = 1500
 
 
-def server_name(suffix: str = "") -> str:
-    """A per-user name for the local socket (hashed: user names may hold any character)."""
+def server_name(suffix: str | None = None) -> str:
+    """A per-user name for the local socket (hashed: user names may hold any character).
+    ``SLACKLINE_INSTANCE`` in the environment sets the suffix: windows started with
+    different values stay apart (tests, or two set-ups side by side)."""
+    suffix = os.environ.get("SLACKLINE_INSTANCE", "") if suffix is None else suffix
     try:
         user = getpass.getuser()
     except Exception:  # no user name available (rare service contexts)
@@ -65,7 +69,10 @@ class SingleInstance(QObject):
         path = bytes(socket.readLine().data()).decode("utf-8", "replace").strip()
         socket.write(b"ok\n")
         socket.flush()
-        self.path_received.emit(path)
+        # Hand the path on from the event loop, not from inside the socket's signal: opening
+        # may ask about unsaved changes, and while that question waits the other launch
+        # disconnects and its socket is deleted under a signal still being delivered.
+        QTimer.singleShot(0, self, lambda: self.path_received.emit(path))
 
     def close(self) -> None:
         if self.server is not None:

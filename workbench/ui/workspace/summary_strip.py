@@ -3,25 +3,14 @@ confidence and the critical path — large enough to read across a meeting room.
 
 from __future__ import annotations
 
-from workbench.core.formatting import format_date
-from workbench.figures.odds import confidence_label
-
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
 from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QPushButton, QSizePolicy
 
-from workbench.ui.session import Session
-
+from workbench.figures.headline import headline
+from workbench.ui.session import Session, take_simulation
 
 PATH_SHOWN = 12
-
-
-def _percent(p: float) -> str:
-    if p >= 0.9995:
-        return "> 99.9 %"
-    if p <= 0.0005:
-        return "< 0.1 %"
-    return f"{p * 100:.1f} %" if p < 0.1 or p > 0.9 else f"{p * 100:.0f} %"
 
 
 def _float_to_deadline(a) -> str:
@@ -40,52 +29,67 @@ def _float_to_deadline(a) -> str:
 
 
 class SummaryStrip(QFrame):
-    """Four figures, each a caption over a large value; refreshed on ``schedule_changed``."""
+    """Three headline figures, each a caption over a large value with the other method
+    beside it, the critical path, and a note on where the figures come from. A current
+    simulation leads (``workbench.figures.headline``, worded as in Present and the pack)."""
 
-    FIELDS = (("finish", "Project finish (PERT mean)"), ("odds", "Chance of meeting the deadline (PERT)"),
-              ("target", "Finish at target confidence"), ("path", "Critical path:"))
+    FIELDS = ("finish", "odds", "target")
 
     def __init__(self, session: Session, parent=None):
         super().__init__(parent)
         self.session = session
+        self.result, self.stale = session.simulation, False
         self.setFrameShape(QFrame.Shape.StyledPanel)
         self.setAccessibleName("Schedule summary")
+        self.captions: dict[str, QLabel] = {}
         self.values: dict[str, QLabel] = {}
+        self.besides: dict[str, QLabel] = {}
         grid = QGridLayout(self)
         grid.setContentsMargins(10, 6, 10, 6)
         grid.setHorizontalSpacing(28)
-        big = QFont(self.font())
-        big.setPointSizeF(self.font().pointSizeF() * 1.5)
-        big.setBold(True)
-        path_font = QFont(self.font())
-        path_font.setPointSizeF(self.font().pointSizeF() * 1.25)
-        path_font.setBold(True)
-        for col, (key, caption) in enumerate(self.FIELDS):
-            cap = QLabel(caption, self)
-            cap.setAlignment(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignBottom)
-            value = QLabel("—", self)
-            value.setFont(big)
-            value.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
-            value.setAccessibleName(caption)
-            if key == "path":
-                value.setWordWrap(True)
-                value.setFont(path_font)
-                value.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Preferred)
-            if key == "path":
-                line = QHBoxLayout()
-                line.addWidget(cap)
-                line.addWidget(value, 1)
-                line.addWidget(self._checkup_button(path_font))
-                grid.addLayout(line, 2, 0, 1, 4)
-            else:
-                grid.addWidget(cap, 0, col)
-                grid.addWidget(value, 1, col, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop)
-            self.values[key] = value
-        grid.setColumnStretch(3, 1)
-        grid.setColumnMinimumWidth(3, 0)
         grid.setVerticalSpacing(2)
+        for col, key in enumerate(self.FIELDS):
+            self._figure(grid, col, key)
+        self._path_line(grid)
+        self.note = self._label(wrap=True, name="Where the figures come from")
+        grid.addWidget(self.note, 4, 0, 1, 4)
+        grid.setColumnStretch(3, 1)
         session.schedule_changed.connect(self.refresh)
+        session.simulation_changed.connect(self._on_simulation_changed)
         self.refresh()
+
+    def _label(self, scale: float = 1.0, bold: bool = False, wrap: bool = False, name: str = "") -> QLabel:
+        label = QLabel("—", self)
+        if scale != 1.0 or bold:
+            font = QFont(self.font())
+            font.setPointSizeF(self.font().pointSizeF() * scale)
+            font.setBold(bold)
+            label.setFont(font)
+        label.setWordWrap(wrap)
+        label.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
+        label.setSizePolicy(QSizePolicy.Policy.Ignored if wrap else QSizePolicy.Policy.Preferred,
+                            QSizePolicy.Policy.Preferred)
+        label.setAccessibleName(name)
+        return label
+
+    def _figure(self, grid: QGridLayout, col: int, key: str) -> None:
+        self.captions[key] = cap = self._label(wrap=True, name=f"{key} caption")
+        cap.setAlignment(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignBottom)
+        self.values[key] = self._label(1.5, True, name=key)
+        self.besides[key] = self._label(wrap=True, name=f"{key}, the other method")
+        grid.addWidget(cap, 0, col)
+        grid.addWidget(self.values[key], 1, col, Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop)
+        grid.addWidget(self.besides[key], 2, col)
+
+    def _path_line(self, grid: QGridLayout) -> None:
+        cap = QLabel("Critical path:", self)
+        self.values["path"] = value = self._label(1.25, True, wrap=True, name="Critical path:")
+        value.setSizePolicy(QSizePolicy.Policy.Ignored, QSizePolicy.Policy.Preferred)
+        line = QHBoxLayout()
+        line.addWidget(cap)
+        line.addWidget(value, 1)
+        line.addWidget(self._checkup_button(value.font()))
+        grid.addLayout(line, 3, 0, 1, 4)
 
     def _checkup_button(self, font) -> QPushButton:
         """"Checkup: 11 of 14 pass": a click shows the Checkup (the window connects it)."""
@@ -104,26 +108,40 @@ class SummaryStrip(QFrame):
     def _show_checkup(self, _checkup=None) -> None:
         self.checkup.setText(self.keeper.summary_text())
 
+    def _on_simulation_changed(self) -> None:
+        take_simulation(self)
+        self.refresh()
+
     def texts(self) -> dict[str, str]:
+        """What the strip shows: key -> text (captions as ``<key>_caption``, the other
+        method as ``<key>_beside``)."""
         a = self.session.analysis
         if a is None:
             problem = self.session.analysis_error or "no schedule"
-            return {"finish": "cannot schedule", "odds": "—", "target": "—", "path": problem}
-        settings = a.plan.settings
-        odds = a.probability_by_deadline()
-        deadline = "" if a.deadline is None else f" by {format_date(a.date_of_duration(a.deadline))}"
-        conf = settings.target_confidence
+            out = {"finish": "cannot schedule", "odds": "—", "target": "—", "path": problem, "note": ""}
+            out.update({f"{k}_caption": "" for k in self.FIELDS})
+            out.update({f"{k}_beside": "" for k in self.FIELDS})
+            return out
+        head = headline(a, self.result, self.stale)
+        out = {"path": self._path_text(a), "note": head.note, "source": head.source}
+        for key, figure in zip(self.FIELDS, head.figures()):
+            out[key], out[f"{key}_caption"], out[f"{key}_beside"] = figure.value, figure.caption, figure.beside
+        return out
+
+    @staticmethod
+    def _path_text(a) -> str:
         path = list(a.pert.path)
         shown = " → ".join(path[:PATH_SHOWN]) + (f" → … ({len(path)} activities)" if len(path) > PATH_SHOWN else "")
-        shown += _float_to_deadline(a)
-        return {
-            "finish": format_date(a.finish_date),
-            "odds": "no deadline set" if odds is None else f"{_percent(odds)}{deadline}",
-            "target": f"{format_date(a.date_at(conf))} ({confidence_label(conf)})",
-            "path": shown or "—",
-        }
+        return (shown + _float_to_deadline(a)) or "—"
 
     def refresh(self) -> None:
-        for key, text in self.texts().items():
-            self.values[key].setText(text)
+        texts = self.texts()
+        for key in self.FIELDS:
+            self.values[key].setText(texts[key])
+            self.captions[key].setText(texts[f"{key}_caption"])
+            self.besides[key].setText(texts[f"{key}_beside"])
+            self.besides[key].setVisible(bool(texts[f"{key}_beside"]))
+        self.values["path"].setText(texts["path"])
+        self.note.setText(texts["note"])
+        self.note.setStyleSheet("color: #8A3B00; font-weight: bold;" if self.stale and self.result is not None else "")
         self.values["path"].setToolTip(" → ".join(self.session.analysis.pert.path) if self.session.analysis else "")

@@ -19,6 +19,7 @@ from workbench.ui.icons import icon
 from workbench.ui.workspace.notice_bar import NoticeBar
 from workbench.ui.workspace.recovery import RecoveryStore
 from workbench.ui.session import Session, WhenShown
+from workbench.ui.workspace.screen_fit import first_size, keep_on_screen, scroller
 from workbench.ui.workspace.summary_strip import SummaryStrip
 from workbench.ui.workspace.menus import build_menus
 
@@ -120,9 +121,10 @@ class MainWindow(QMainWindow):
         for title, *_ in VIEWS:
             holder = QWidget(self)
             holder.setAccessibleName(f"{title} view")
+            holder.setFocusPolicy(Qt.FocusPolicy.ClickFocus)   # a click in a chart puts its dock in focus (Ctrl+C)
             QVBoxLayout(holder).setContentsMargins(0, 0, 0, 0)
             self._slots[title] = holder
-            self._add_dock(title, holder, Qt.DockWidgetArea.BottomDockWidgetArea)
+            self._add_dock(title, scroller(holder, self), Qt.DockWidgetArea.BottomDockWidgetArea)
         self.history = QUndoView(self.session.undo_stack, self)
         self.history.setEmptyLabel("Opened plan")
         self.history.setAccessibleName("Edit history")
@@ -148,8 +150,9 @@ class MainWindow(QMainWindow):
         self._default_sizes()
 
     def _default_sizes(self) -> None:
-        """Give the table most of the width and the Timeline the lower part of the window."""
-        self.resize(1440, 900)
+        """Give the table most of the width and the Timeline the lower part of the window
+        (at most the size of the screen)."""
+        first_size(self)
         self.resizeDocks([self.docks["Timeline"], self.docks["Odds"]],
                          [int(self.width() * 0.58), int(self.width() * 0.42)], Qt.Orientation.Horizontal)
         self.resizeDocks([self.docks["Timeline"]], [int(self.height() * 0.48)], Qt.Orientation.Vertical)
@@ -173,6 +176,7 @@ class MainWindow(QMainWindow):
         super().showEvent(event)
         if not self._watching:   # build the views on screen once the window is up
             self._watching = True
+            keep_on_screen(self)  # now that the frame is known, the whole of it on the screen
             QTimer.singleShot(0, self._watch_views)
 
     def built_views(self) -> dict[str, QWidget]:
@@ -200,6 +204,7 @@ class MainWindow(QMainWindow):
         self.files.message.connect(lambda text: self.statusBar().showMessage(text, 5000))
         self.activities.message.connect(lambda text: self.statusBar().showMessage(text, 5000))
         self.session.edit_refused.connect(self.notice.show_problem)
+        self.files.saved.connect(self.notice.hide)    # a saved plan has nothing pending
         self.session.schedule_changed.connect(self._on_schedule_changed)
         self._on_schedule_changed()
 
@@ -235,8 +240,9 @@ class MainWindow(QMainWindow):
         geometry, state = settings.value("window/geometry"), settings.value("window/state")
         if isinstance(geometry, QByteArray):
             self.restoreGeometry(geometry)
+            keep_on_screen(self)
         else:
-            self.resize(1440, 900)
+            first_size(self)
         return isinstance(state, QByteArray) and self.restoreState(state, STATE_VERSION)
 
     def reset_layout(self) -> None:

@@ -1,0 +1,115 @@
+"""What a planner reaches for on the table: Ctrl+C copies the selected rows as
+tab-separated text (pastes into a spreadsheet), a right-click menu on a row (edit, insert,
+delete, copy, select predecessors/successors, pick predecessors), and a right-click menu
+on the headings that shows or hides columns, remembered per user."""
+
+from __future__ import annotations
+
+from functools import partial
+
+from PySide6.QtCore import QSettings, Qt
+from PySide6.QtGui import QGuiApplication
+from PySide6.QtWidgets import QMenu
+
+HIDDEN_KEY = "table/hidden_columns"
+
+
+def selected_rows(panel) -> list[int]:
+    """The selected rows in the order they are shown (the current row when none is)."""
+    rows = {i.row() for i in panel.table.selectionModel().selectedIndexes()}
+    if not rows and panel.table.currentIndex().isValid():
+        rows = {panel.table.currentIndex().row()}
+    return sorted(rows)
+
+
+def rows_as_text(panel, rows: list[int]) -> str:
+    """The rows' shown columns as tab-separated lines under a heading line."""
+    proxy, table = panel.proxy, panel.table
+    columns = [c for c in range(proxy.columnCount()) if not table.isColumnHidden(c)]
+    clean = lambda v: "" if v is None else str(v).replace("\t", " ").replace("\n", " ")  # noqa: E731
+    lines = ["\t".join(clean(proxy.headerData(c, Qt.Orientation.Horizontal)) for c in columns)]
+    for r in rows:
+        lines.append("\t".join(clean(proxy.index(r, c).data()) for c in columns))
+    return "\n".join(lines) + "\n"
+
+
+def copy_rows(panel) -> int:
+    rows = selected_rows(panel)
+    if not rows:
+        return 0
+    QGuiApplication.clipboard().setText(rows_as_text(panel, rows))
+    panel.message.emit(f"Copied {len(rows)} row{'s' if len(rows) != 1 else ''}: paste them into a spreadsheet")
+    return len(rows)
+
+
+def select_neighbours(panel, successors: bool) -> None:
+    plan = panel.session.plan
+    picked = []
+    for act_id in panel.current_ids():
+        links = plan.successors(act_id) if successors else plan.predecessors(act_id)
+        picked += [link.succ if successors else link.pred for link in links]
+    panel.session.select(picked)
+
+
+def row_menu(panel, pos) -> QMenu:
+    """The menu a right-click on a row opens (built, not shown: see ``show_row_menu``)."""
+    menu = QMenu(panel.table)
+    index = panel.table.indexAt(pos)
+    if index.isValid() and not panel.table.selectionModel().isSelected(index):
+        panel.table.setCurrentIndex(index)
+    edit = menu.addAction("Edit Cell", lambda: panel.table.edit(panel.table.currentIndex()))
+    edit.setEnabled(index.isValid())
+    menu.addActions([panel.actions["insert"], panel.actions["delete"], panel.actions["copy"]])
+    menu.addSeparator()
+    menu.addAction("Select Predecessors", partial(select_neighbours, panel, False))
+    menu.addAction("Select Successors", partial(select_neighbours, panel, True))
+    menu.addAction(panel.actions["predecessors"])
+    return menu
+
+
+def show_row_menu(panel, pos) -> None:
+    row_menu(panel, pos).exec(panel.table.viewport().mapToGlobal(pos))
+
+
+# --- columns shown -------------------------------------------------------------
+def hidden_columns() -> set[str]:
+    value = QSettings().value(HIDDEN_KEY, [])
+    return {value} if isinstance(value, str) and value else set(value or [])
+
+
+def apply_hidden(panel, keys) -> None:
+    for i, key in enumerate(panel.column_keys):
+        panel.table.setColumnHidden(i, key in keys)
+
+
+def set_column_shown(panel, key: str, shown: bool) -> None:
+    keys = hidden_columns()
+    keys = keys - {key} if shown else keys | {key}
+    if len(keys) >= len(panel.column_keys):   # at least one column stays
+        return
+    QSettings().setValue(HIDDEN_KEY, sorted(keys))
+    apply_hidden(panel, keys)
+
+
+def column_menu(panel) -> QMenu:
+    menu = QMenu(panel.table)
+    hidden = hidden_columns()
+    for i, key in enumerate(panel.column_keys):
+        title = panel.proxy.headerData(i, Qt.Orientation.Horizontal)
+        act = menu.addAction(str(title))
+        act.setCheckable(True)
+        act.setChecked(key not in hidden)
+        act.toggled.connect(partial(set_column_shown, panel, key))
+    return menu
+
+
+def install(panel) -> None:
+    """Right-click menus on rows and headings; the columns the user hid stay hidden."""
+    table = panel.table
+    table.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
+    table.customContextMenuRequested.connect(partial(show_row_menu, panel))
+    header = table.horizontalHeader()
+    header.setContextMenuPolicy(Qt.ContextMenuPolicy.CustomContextMenu)
+    header.customContextMenuRequested.connect(
+        lambda pos: column_menu(panel).exec(header.mapToGlobal(pos)))
+    apply_hidden(panel, hidden_columns())
