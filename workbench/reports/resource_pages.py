@@ -20,7 +20,6 @@ from .tables import fit
 
 PER_PAGE = 4            # loading charts per page
 MOVED_ROWS = 18
-ODDS_ITERATIONS = 2000
 _GRID = TableStyle([("FONT", (0, 0), (-1, -1), styles.FONT, 8.5), ("FONT", (0, 0), (-1, 0), styles.BOLD, 8.5),
                     ("LINEBELOW", (0, 0), (-1, 0), 0.8, styles.TEXT),
                     ("ROWBACKGROUNDS", (0, 1), (-1, -1), [None, styles.LIGHT_ROW]), ("VALIGN", (0, 0), (-1, -1), "TOP")])
@@ -159,15 +158,18 @@ def _odds(ctx, width) -> list:
     sim = ctx.simulation
     if sim is None:
         return []
-    from workbench.core.resource_odds import compare
+    from workbench.core.montecarlo import simulate
+    from workbench.core.resource_odds import ResourceOdds
 
-    both = compare(ctx.plan, ODDS_ITERATIONS, sim.seed)
+    # the logic-only column is the pack's own run (the Odds pages' figures); the crews' run
+    # draws the same durations: same seed, same number of iterations
+    both = ResourceOdds(sim, simulate(ctx.plan, sim.iterations, sim.seed, resources=True))
     conf = float(ctx.settings.target_confidence)
     rows = [["", "Logic only", "With the crews"]] + [list(r) for r in both.rows(conf)]
     table = Table(rows, colWidths=[width * 0.3, width * 0.25, width * 0.25])
     table.setStyle(_GRID)
     return [Paragraph("The odds with and without the crews", styles.H2),
-            Paragraph(f"{ODDS_ITERATIONS:,} iterations each with seed {sim.seed} (the same sampled durations); "
+            Paragraph(f"{sim.iterations:,} iterations each with seed {sim.seed} (the same sampled durations); "
                       "with the crews, every iteration is scheduled in the levelled order.", styles.BODY),
             table, Spacer(1, 6), Paragraph(both.sentence(conf), styles.BODY),
             Paragraph("Caution: estimates are judgement; these odds assume the crews are worked in the levelled order "
