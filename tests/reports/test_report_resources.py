@@ -44,3 +44,9 @@ def test_the_logic_only_odds_beside_the_crews_are_the_packs_own_run(tmp_path):
     run = simulate(demo_plan(), 700, seed=5)
     assert "700 iterations each with seed 5" in page
     assert f"Chance of the deadline\n{format_percent(run.prob_by(run.deadline)[0])}\n" in page
+
+
+def test_the_crews_odds_caution_names_pert(tmp_path):
+    build_pack(demo_plan(), tmp_path / "p.pdf", iterations=300, seed=5, generated_at=WHEN)
+    page = next(t for t in pages_text(tmp_path / "p.pdf") if "The odds with and without the crews" in t)
+    assert "PERT assumes one path and independent durations" in " ".join(page.split())

@@ -172,6 +172,6 @@ def _odds(ctx, width) -> list:
             Paragraph(f"{sim.iterations:,} iterations each with seed {sim.seed} (the same sampled durations); "
                       "with the crews, every iteration is scheduled in the levelled order.", styles.BODY),
             table, Spacer(1, 6), Paragraph(both.sentence(conf), styles.BODY),
-            Paragraph("Caution: estimates are judgement; these odds assume the crews are worked in the levelled order "
-                      "and durations are independent. Decisions rest with your organisation's own approval rules.",
-                      styles.SMALL)]
+            Paragraph("Caution: estimates are judgement; PERT assumes one path and independent durations, and these "
+                      "odds assume the crews are worked in the levelled order. Decisions rest with your organisation's "
+                      "own approval rules.", styles.SMALL)]

@@ -61,3 +61,12 @@ def test_a_plan_without_resources_says_how_to_add_them(qtbot):
     v = ResourcesView(Session(small_plan()))
     qtbot.addWidget(v)
     assert v.message.text() == NO_RESOURCES and not v.plot.isVisible()
+
+
+def test_the_odds_caution_names_pert_and_claims_no_independence_the_run_lacks(view):
+    """The demo draws its fit-out durations together (correlation groups), so the
+    simulation does not assume independent durations; PERT does, and the caution says so."""
+    assert demo_plan().correlations
+    text = view.odds.caution.text()
+    assert "PERT assumes one path and independent durations" in text
+    assert "approval rules" in text and "and durations are independent" not in text

@@ -6,8 +6,9 @@ from PySide6.QtCore import QThread, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QPushButton, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget
 
 ITERATIONS, SEED = 2000, 1
-CAUTION = ("Caution: estimates are judgement; the odds assume the crews are worked in the levelled order and "
-           "durations are independent. Decisions rest with your organisation's own approval rules.")
+CAUTION = ("Caution: estimates are judgement; PERT assumes one path and independent durations, and these odds "
+           "assume the crews are worked in the levelled order. Decisions rest with your organisation's own "
+           "approval rules.")
 
 
 class _Worker(QThread):
