@@ -70,3 +70,17 @@ def test_the_odds_caution_names_pert_and_claims_no_independence_the_run_lacks(vi
     text = view.odds.caution.text()
     assert "PERT assumes one path and independent durations" in text
     assert "approval rules" in text and "and durations are independent" not in text
+
+
+def test_in_a_half_width_dock_the_resource_name_is_not_cut(qtbot):
+    """At 1024×768 the Resources dock is about 520 px wide: the crew's name in the chooser
+    reads whole ("Electricia" was all that showed) and the view asks for no more width."""
+    v = ResourcesView(Session(demo_plan()))
+    qtbot.addWidget(v)
+    v.resize(520, 430)
+    v.show()
+    qtbot.waitExposed(v)
+    box = v.resource_box
+    assert v.minimumSizeHint().width() <= 520
+    assert box.width() >= box.fontMetrics().horizontalAdvance(box.currentText()) + 20
+    v.odds.stop()
