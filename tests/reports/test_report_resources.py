@@ -50,3 +50,10 @@ def test_the_crews_odds_caution_names_pert(tmp_path):
     build_pack(demo_plan(), tmp_path / "p.pdf", iterations=300, seed=5, generated_at=WHEN)
     page = next(t for t in pages_text(tmp_path / "p.pdf") if "The odds with and without the crews" in t)
     assert "PERT assumes one path and independent durations" in " ".join(page.split())
+
+
+def test_what_held_an_activity_is_named_as_the_charts_name_it(tmp_path):
+    build_pack(demo_plan(), tmp_path / "p.pdf", iterations=0, generated_at=WHEN)
+    page = next(t for t in pages_text(tmp_path / "p.pdf") if "What levelling moves" in t)
+    assert "Mon 28 Jun 2027\nHoist and lifting crew\n" in page       # B7, held by the hoist
+    assert "\nhoist\n" not in page and "\nelec\n" not in page

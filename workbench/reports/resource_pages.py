@@ -146,12 +146,20 @@ def _moved_table(ctx, result, width) -> list:
     rows = [["Activity", "Logic-only start", "Levelled start", "Held by"]]
     for m in result.moves[:MOVED_ROWS]:
         rows.append([fit(f"{m.id}  {ctx.name_of(m.id)}", width * 0.45, styles.FONT, 8.5),
-                     format_date(cal.start_date(m.logic_start)), format_date(cal.start_date(m.start)), m.held_by])
+                     format_date(cal.start_date(m.logic_start)), format_date(cal.start_date(m.start)),
+                     _held_by(ctx.plan, m.held_by)])
     table = Table(rows, colWidths=[width * 0.46, width * 0.16, width * 0.16, width * 0.2], repeatRows=1)
     table.setStyle(_GRID)
     more = len(result.moves) - MOVED_ROWS
     tail = [Paragraph(f"… and {more} more.", styles.BODY)] if more > 0 else []
     return story + [table] + tail + [Spacer(1, 10)]
+
+
+def _held_by(plan, held_by: str) -> str:
+    """A resource by its name, as the charts above call it ("Electricians", not "elec");
+    "after X" as it is."""
+    names = {r.id: r.name for r in plan.resources if r.name}
+    return names.get(held_by, held_by)
 
 
 def _odds(ctx, width) -> list:
