@@ -84,3 +84,17 @@ def test_in_a_half_width_dock_the_resource_name_is_not_cut(qtbot):
     assert v.minimumSizeHint().width() <= 520
     assert box.width() >= box.fontMetrics().horizontalAdvance(box.currentText()) + 20
     v.odds.stop()
+
+
+def test_the_logic_only_odds_are_the_odds_views_run_when_there_is_one(view, qtbot):
+    """Two chances of the deadline without crews on one screen (the Odds view's run and a
+    second one here) would leave a planner asking which is right."""
+    from workbench.core.montecarlo import simulate
+
+    run = simulate(view.session.plan, 300, seed=7)
+    view.session.set_simulation(run)
+    view.odds.run()
+    qtbot.waitUntil(lambda: view.odds.result is not None, timeout=120_000)
+    both = view.odds.result
+    assert both.logic is run and (both.aware.iterations, both.aware.seed) == (300, 7) and both.aware.resource_aware
+    assert "300 iterations each, seed 7" in view.odds.status.text() and "Odds view" in view.odds.status.text()
