@@ -21,6 +21,13 @@ def test_needs_cell_reads_and_writes_back():
     assert format_needs((("crew", 2.0), ("crane", 0.5))) == "crew 2; crane 0.5"
 
 
+def test_needs_are_separated_as_predecessors_are():
+    """Issue 19: items "separated as predecessors are" — a predecessor cell takes ";" or ","."""
+    assert parse_needs("crew 2, crane 1", "A") == (("crew", 2.0), ("crane", 1.0))
+    assert parse_needs("crew 2,crane 1;hoist", "A") == (("crew", 2.0), ("crane", 1.0), ("hoist", 1.0))
+    assert parse_needs("crew 1,5", "A") == (("crew", 1.5),)             # a decimal comma stays one number
+
+
 def test_xlsx_export_carries_the_resources_sheet_and_reads_back(tmp_path):
     plan = demo_plan()
     path = export_table(analyze(plan), tmp_path / "demo.xlsx")

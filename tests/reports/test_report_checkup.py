@@ -50,3 +50,10 @@ def test_failing_checks_name_their_first_offenders(pack):
     assert "O1 Deep clean" in text                      # the lead B6 -> O1
     assert "E2 Manufacture and deliver the X-ray unit" in text     # a long duration
     assert "PERT assumes one path" in text               # the odds caution stays
+
+
+def test_the_intro_does_not_call_the_demos_resources_check_not_applicable_yet(pack):
+    """The demo has crews now: its Resources metric is measured (25 activities without
+    resources) and informational, not something the plan lacks; three checks need progress."""
+    text = " ".join(pack[2][2].split())
+    assert "3 do not apply to this plan yet; Resources is informational only." in text

@@ -5,9 +5,9 @@ policy is the usual approach for stochastic resource-constrained scheduling (com
 practice: the order is chosen once, before the durations are known).
 
 An activity counts as critical in an iteration when it lies on the driving chain back
-from the activity that finishes last: each activity's driver is the predecessor whose
-link set its start or, when a resource held it, the activity that finished at that moment
-and freed the resource.
+from an activity that finishes last (every one that ties for last, such as a finish
+milestone): each activity's driver is the predecessor whose link set its start or, when
+a resource held it, the activity that finished at that moment and freed the resource.
 """
 
 from __future__ import annotations
@@ -42,12 +42,20 @@ class ResourcePasses:
             d = durations[:, it].tolist()
             starts, why = problem.schedule(self.key, d, offsets[:, it].tolist(), explain=True)
             ends = [s + x for s, x in zip(starts, d)]
-            last = max(range(n), key=ends.__getitem__) if n else 0
-            finish[it] = ends[last] if n else 0.0
+            finish[it] = max(ends) if n else 0.0
             if it < valid and n:
-                for j in self._chain(last, starts, ends, why, offsets[:, it]):
+                for j in self._critical(finish[it], starts, ends, why, offsets[:, it]):
                     critical[j] += 1
         return finish, critical
+
+    def _critical(self, finish: float, starts, ends, why, offsets) -> set[int]:
+        """Every activity on a driving chain back from an activity that finishes last (a
+        finish milestone ties with the work before it: both are critical)."""
+        found: set[int] = set()
+        for last in range(len(ends)):
+            if ends[last] >= finish - EPS and last not in found:
+                found.update(self._chain(last, starts, ends, why, offsets))
+        return found
 
     def _chain(self, last: int, starts, ends, why, offsets) -> list[int]:
         problem, chain, j, seen = self.leveller.problem, [], last, set()

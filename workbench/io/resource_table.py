@@ -15,6 +15,7 @@ from .errors import TableImportError
 from .predecessors import format_number
 
 SHEET = "resources"
+_ITEMS = re.compile(r";|,(?!\d)|(?<!\d),")   # as predecessors: ; or , but not the comma of "1,5"
 _NUMBER = re.compile(r"^[+-]?(\d+([.,]\d*)?|[.,]\d+)([eE][+-]?\d+)?$")
 COLUMNS = {"id": ("id", "resource", "resource id", "code"), "name": ("name", "description", "resource name"),
            "units": ("units", "available", "availability", "capacity", "quantity"),
@@ -22,9 +23,11 @@ COLUMNS = {"id": ("id", "resource", "resource id", "code"), "name": ("name", "de
 
 
 def parse_needs(text: str, act_id: str) -> tuple[tuple[str, float], ...]:
-    """``crew 2; crane 1`` → (("crew", 2.0), ("crane", 1.0)); a bare id needs one unit."""
+    """``crew 2; crane 1`` → (("crew", 2.0), ("crane", 1.0)); a bare id needs one unit. Items
+    are separated as predecessors are, by ``;`` or ``,`` (a comma between two digits is a
+    decimal mark: ``crew 1,5``)."""
     needs = []
-    for item in (t.strip() for t in str(text).split(";")):
+    for item in (t.strip() for t in _ITEMS.split(str(text))):
         if not item:
             continue
         parts = item.split()

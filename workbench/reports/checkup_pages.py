@@ -26,8 +26,7 @@ ODDS_CAUTION = ("The odds checks compare estimates, which are judgement: PERT as
 def checkup_pages(ctx: PackContext, width: float) -> list:
     checkup = run_checkup(ctx.plan, ctx.analysis, ctx.simulation)
     intro = (f"Graded against the {STANDARD_NAME} ({STANDARD_SOURCE}) and Slackline's own checks "
-             f"on the estimates and the odds (common practice). {checkup.summary_text()}; "
-             f"{checkup.count('n/a')} do not apply to this plan yet.")
+             f"on the estimates and the odds (common practice). {checkup.summary_text()}; {_not_graded(checkup)}.")
     story = [Section("Checkup", "checkup"), Paragraph("Checkup", styles.H1),
              Paragraph(para(intro), styles.BODY), checks_table(checkup, width)]
     if any(c.changed for c in checkup):
@@ -35,6 +34,17 @@ def checkup_pages(ctx: PackContext, width: float) -> list:
     story += failing(ctx, checkup, width)
     story += [Spacer(1, 6), Paragraph(para(ODDS_CAUTION), styles.SMALL)]
     return story
+
+
+def _not_graded(checkup) -> str:
+    """The checks without a verdict: informational ones (the standard sets no threshold: they
+    apply, they are just not graded) apart from those this plan cannot be measured on yet."""
+    info = [c.name for c in checkup if c.status == "n/a" and c.threshold == "informational" and c.value is not None]
+    missing = checkup.count("n/a") - len(info)
+    text = f"{missing} do not apply to this plan yet" if missing else ""
+    if info:
+        text += ("; " if text else "") + f"{' and '.join(info)} {'is' if len(info) == 1 else 'are'} informational only"
+    return text or "every check applies"
 
 
 def _mark(status: str) -> Paragraph:

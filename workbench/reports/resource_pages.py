@@ -20,7 +20,6 @@ from .tables import fit
 
 PER_PAGE = 4            # loading charts per page
 MOVED_ROWS = 18
-ODDS_ITERATIONS = 2000
 _GRID = TableStyle([("FONT", (0, 0), (-1, -1), styles.FONT, 8.5), ("FONT", (0, 0), (-1, 0), styles.BOLD, 8.5),
                     ("LINEBELOW", (0, 0), (-1, 0), 0.8, styles.TEXT),
                     ("ROWBACKGROUNDS", (0, 1), (-1, -1), [None, styles.LIGHT_ROW]), ("VALIGN", (0, 0), (-1, -1), "TOP")])
@@ -147,12 +146,20 @@ def _moved_table(ctx, result, width) -> list:
     rows = [["Activity", "Logic-only start", "Levelled start", "Held by"]]
     for m in result.moves[:MOVED_ROWS]:
         rows.append([fit(f"{m.id}  {ctx.name_of(m.id)}", width * 0.45, styles.FONT, 8.5),
-                     format_date(cal.start_date(m.logic_start)), format_date(cal.start_date(m.start)), m.held_by])
+                     format_date(cal.start_date(m.logic_start)), format_date(cal.start_date(m.start)),
+                     _held_by(ctx.plan, m.held_by)])
     table = Table(rows, colWidths=[width * 0.46, width * 0.16, width * 0.16, width * 0.2], repeatRows=1)
     table.setStyle(_GRID)
     more = len(result.moves) - MOVED_ROWS
     tail = [Paragraph(f"… and {more} more.", styles.BODY)] if more > 0 else []
     return story + [table] + tail + [Spacer(1, 10)]
+
+
+def _held_by(plan, held_by: str) -> str:
+    """A resource by its name, as the charts above call it ("Electricians", not "elec");
+    "after X" as it is."""
+    names = {r.id: r.name for r in plan.resources if r.name}
+    return names.get(held_by, held_by)
 
 
 def _odds(ctx, width) -> list:
@@ -163,17 +170,20 @@ def _odds(ctx, width) -> list:
         return [Paragraph("The odds with and without the crews", styles.H2),
                 Paragraph("Not shown for a plan with progress: a simulation with the crews does not yet start "
                           "from the status date.", styles.BODY)]
-    from workbench.core.resource_odds import compare
+    from workbench.core.montecarlo import simulate
+    from workbench.core.resource_odds import ResourceOdds
 
-    both = compare(ctx.plan, ODDS_ITERATIONS, sim.seed)
+    # the logic-only column is the pack's own run (the Odds pages' figures); the crews' run
+    # draws the same durations: same seed, same number of iterations
+    both = ResourceOdds(sim, simulate(ctx.plan, sim.iterations, sim.seed, resources=True))
     conf = float(ctx.settings.target_confidence)
     rows = [["", "Logic only", "With the crews"]] + [list(r) for r in both.rows(conf)]
     table = Table(rows, colWidths=[width * 0.3, width * 0.25, width * 0.25])
     table.setStyle(_GRID)
     return [Paragraph("The odds with and without the crews", styles.H2),
-            Paragraph(f"{ODDS_ITERATIONS:,} iterations each with seed {sim.seed} (the same sampled durations); "
+            Paragraph(f"{sim.iterations:,} iterations each with seed {sim.seed} (the same sampled durations); "
                       "with the crews, every iteration is scheduled in the levelled order.", styles.BODY),
             table, Spacer(1, 6), Paragraph(both.sentence(conf), styles.BODY),
-            Paragraph("Caution: estimates are judgement; these odds assume the crews are worked in the levelled order "
-                      "and durations are independent. Decisions rest with your organisation's own approval rules.",
-                      styles.SMALL)]
+            Paragraph("Caution: estimates are judgement; PERT assumes one path and independent durations, and these "
+                      "odds assume the crews are worked in the levelled order. Decisions rest with your organisation's "
+                      "own approval rules.", styles.SMALL)]

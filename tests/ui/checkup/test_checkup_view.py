@@ -125,3 +125,21 @@ def test_while_a_new_run_is_checked_the_odds_checks_say_so(qtbot):
     session.set_simulation(simulate(session.plan, 500, seed=2))
     assert keeper.checkup.get("merge_hot_spots").note == WORKING
     assert keeper.checkup.get("odds_disagreement").note == WORKING
+
+
+def test_a_wide_window_shows_every_threshold_whole_and_a_dock_keeps_the_figures(qtbot):
+    """At full HD the Threshold column showed "informati…" and "<= 10 po…" beside a
+    1,200-pixel Figure column."""
+    from workbench.core.demo import demo_plan
+
+    session = Session(demo_plan())
+    checkup_keeper(session, threaded=False)
+    v = CheckupView(session)
+    qtbot.addWidget(v)
+    v.resize(1900, 900)
+    v.show()
+    qtbot.waitExposed(v)
+    assert v.table.columnWidth(3) >= v.table.sizeHintForColumn(3)
+    v.resize(470, 600)
+    qtbot.wait(20)
+    assert v.table.columnWidth(2) >= v.table.columnWidth(3)        # the figures keep their room

@@ -22,3 +22,31 @@ def test_the_checkup_slide_comes_last_and_reads_in_grayscale(qtbot):
     column = [QColor(image.pixel(42, y)) for y in range(image.height())]
     dark = sum(1 for c in column if c.lightness() < 40)
     assert dark > 150, dark                            # five failing rows on the left, ~44 px each
+
+
+def test_at_1024_by_768_no_check_name_is_cut_short(qtbot, monkeypatch):
+    """From the back of the room "Critical path len…" or "Baseline executi…" reads as
+    nothing: every row's text fits whole (a long name a little smaller, CPLI and BEI by
+    their published abbreviations)."""
+    from PySide6.QtGui import QFont, QFontMetricsF
+
+    drawn = []
+    real = PresentCheckupSlide._line
+
+    def record(p, box, text, px, bold, colour, *rest):
+        font = QFont()
+        font.setPixelSize(max(8, int(px)))
+        font.setBold(bold)
+        drawn.append((text, QFontMetricsF(font).horizontalAdvance(text) <= box.width(), px))
+        real(p, box, text, px, bold, colour, *rest)
+
+    monkeypatch.setattr(PresentCheckupSlide, "_line", staticmethod(record))
+    session = Session(demo_plan())
+    checkup_keeper(session, threaded=False)
+    win = present_at(qtbot, session, 5)
+    win.stack.currentWidget().grab()
+    assert len(drawn) >= 3 * 18
+    assert [text for text, fits, _ in drawn if not fits] == []
+    shown = {text for text, _, _ in drawn}
+    assert {"CPLI", "BEI", "Relationship types", "Odds disagreement"} <= shown
+    assert min(px for _, _, px in drawn) >= 0.8 * max(px for _, _, px in drawn)

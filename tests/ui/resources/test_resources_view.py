@@ -61,3 +61,40 @@ def test_a_plan_without_resources_says_how_to_add_them(qtbot):
     v = ResourcesView(Session(small_plan()))
     qtbot.addWidget(v)
     assert v.message.text() == NO_RESOURCES and not v.plot.isVisible()
+
+
+def test_the_odds_caution_names_pert_and_claims_no_independence_the_run_lacks(view):
+    """The demo draws its fit-out durations together (correlation groups), so the
+    simulation does not assume independent durations; PERT does, and the caution says so."""
+    assert demo_plan().correlations
+    text = view.odds.caution.text()
+    assert "PERT assumes one path and independent durations" in text
+    assert "approval rules" in text and "and durations are independent" not in text
+
+
+def test_in_a_half_width_dock_the_resource_name_is_not_cut(qtbot):
+    """At 1024×768 the Resources dock is about 520 px wide: the crew's name in the chooser
+    reads whole ("Electricia" was all that showed) and the view asks for no more width."""
+    v = ResourcesView(Session(demo_plan()))
+    qtbot.addWidget(v)
+    v.resize(520, 430)
+    v.show()
+    qtbot.waitExposed(v)
+    box = v.resource_box
+    assert v.minimumSizeHint().width() <= 520
+    assert box.width() >= box.fontMetrics().horizontalAdvance(box.currentText()) + 20
+    v.odds.stop()
+
+
+def test_the_logic_only_odds_are_the_odds_views_run_when_there_is_one(view, qtbot):
+    """Two chances of the deadline without crews on one screen (the Odds view's run and a
+    second one here) would leave a planner asking which is right."""
+    from workbench.core.montecarlo import simulate
+
+    run = simulate(view.session.plan, 300, seed=7)
+    view.session.set_simulation(run)
+    view.odds.run()
+    qtbot.waitUntil(lambda: view.odds.result is not None, timeout=120_000)
+    both = view.odds.result
+    assert both.logic is run and (both.aware.iterations, both.aware.seed) == (300, 7) and both.aware.resource_aware
+    assert "300 iterations each, seed 7" in view.odds.status.text() and "Odds view" in view.odds.status.text()

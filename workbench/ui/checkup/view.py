@@ -81,9 +81,21 @@ class CheckupView(QWidget):
         table.activated.connect(lambda index: self.pick(index.row()))
         return table
 
+    def resizeEvent(self, event):  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        self._fit_threshold()
+
+    def _fit_threshold(self) -> None:
+        """The threshold column as wide as its longest entry, up to a fifth of the view: a
+        wide window never cuts "informational"; a narrow dock keeps room for the figures."""
+        header = self.table.horizontalHeader()
+        want = max(self.table.sizeHintForColumn(3), header.sectionSizeHint(3))
+        header.resizeSection(3, max(header.minimumSectionSize(), min(want, self.width() // 5)))
+
     def show_checkup(self, checkup) -> None:
         current = self.table.currentIndex().row()
         self.model.set_checkup(checkup)
+        self._fit_threshold()
         if checkup is None:
             self.headline.setText("Checkup: the plan cannot be scheduled yet")
             self.detail.setText(self.session.analysis_error or "")

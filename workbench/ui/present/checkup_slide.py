@@ -5,7 +5,7 @@ caution that odds rest on judgement."""
 from __future__ import annotations
 
 from PySide6.QtCore import QRectF, Qt
-from PySide6.QtGui import QColor, QFont, QPainter, QPen
+from PySide6.QtGui import QColor, QFont, QFontMetricsF, QPainter, QPen
 from PySide6.QtWidgets import QWidget
 
 from workbench.figures import style
@@ -72,7 +72,22 @@ class PresentCheckupSlide(QWidget):
         right = QRectF(cell.right() - 120 * unit, cell.top(), 112 * unit, cell.height())
         self._line(p, right, check.figure, px, failed, colour, Qt.AlignmentFlag.AlignRight)
         text = QRectF(mark.right() + 4 * unit, cell.top(), right.left() - mark.right() - 8 * unit, cell.height())
-        self._line(p, text, check.name.split(" (")[0], px, failed, colour)
+        name, size = self.fitted_name(check.name, text.width(), px, failed)
+        self._line(p, text, name, size, failed, colour)
+
+    @staticmethod
+    def fitted_name(name: str, width: float, px: float, bold: bool) -> tuple[str, float]:
+        """The check's name as the slide shows it: whole, else a little smaller (down to 80 %),
+        else its published abbreviation ("CPLI"), else elided by the painter."""
+        whole, _, short = name.partition(" (")
+        short = short.rstrip(")")
+        for text, size in ((whole, px), (whole, px * 0.9), (whole, px * 0.8), (short, px)):
+            font = QFont()
+            font.setPixelSize(max(8, int(size)))
+            font.setBold(bold)
+            if text and QFontMetricsF(font).horizontalAdvance(text) <= width:
+                return text, size
+        return whole, px
 
     @staticmethod
     def _line(p: QPainter, box: QRectF, text: str, px: float, bold: bool, colour: str,

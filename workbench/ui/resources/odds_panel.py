@@ -6,24 +6,36 @@ from PySide6.QtCore import QThread, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QPushButton, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget
 
 ITERATIONS, SEED = 2000, 1
-CAUTION = ("Caution: estimates are judgement; the odds assume the crews are worked in the levelled order and "
-           "durations are independent. Decisions rest with your organisation's own approval rules.")
+CAUTION = ("Caution: estimates are judgement; PERT assumes one path and independent durations, and these odds "
+           "assume the crews are worked in the levelled order. Decisions rest with your organisation's own "
+           "approval rules.")
 
 
 class _Worker(QThread):
     done = Signal(object)
     failed = Signal(str)
 
-    def __init__(self, plan, parent=None):
+    def __init__(self, plan, logic=None, parent=None):
         super().__init__(parent)
-        self.plan, self.cancelled = plan, False
+        self.plan, self.logic, self.cancelled = plan, logic, False
+
+    def _compare(self):
+        """The Odds view's current run beside the crews' run at its seed and iterations (the
+        same sampled durations); without one, both runs here."""
+        from workbench.core.montecarlo import simulate
+        from workbench.core.resource_odds import ResourceOdds, compare
+
+        stop = lambda: self.cancelled  # noqa: E731
+        if self.logic is None:
+            return compare(self.plan, ITERATIONS, SEED, cancel=stop)
+        aware = simulate(self.plan, self.logic.iterations, self.logic.seed, resources=True, cancel=stop)
+        return ResourceOdds(self.logic, aware)
 
     def run(self) -> None:
         from workbench.core.errors import PlanError
-        from workbench.core.resource_odds import compare
 
         try:
-            result = compare(self.plan, ITERATIONS, SEED, cancel=lambda: self.cancelled)
+            result = self._compare()
         except PlanError as exc:
             self.failed.emit(str(exc))
             return
@@ -42,7 +54,8 @@ class ResourceOddsPanel(QWidget):
         super().__init__(parent)
         self.session, self.worker, self.result = session, None, None
         self.run_button = QPushButton("Compare the &odds with and without the crews", clicked=self.run)
-        self.status = QLabel(f"{ITERATIONS:,} iterations each, seed {SEED}, the same sampled durations.", wordWrap=True)
+        self.status = QLabel(f"The Odds view's run, or {ITERATIONS:,} iterations at seed {SEED}; the crews' run draws "
+                             "the same durations.", wordWrap=True)
         self.table = QTableWidget(0, 3)
         self.table.setHorizontalHeaderLabels(["", "Logic only", "With the crews"])
         self.table.verticalHeader().setVisible(False)
@@ -68,7 +81,9 @@ class ResourceOddsPanel(QWidget):
             return
         self.run_button.setEnabled(False)
         self.status.setText("Simulating both ways…")
-        self.worker = _Worker(self.session.plan.copy(), self)
+        sim = self.session.simulation          # current: the session drops it on every edit
+        logic = sim if sim is not None and not getattr(sim, "resource_aware", False) else None
+        self.worker = _Worker(self.session.plan.copy(), logic, self)
         self.worker.done.connect(self._show)
         self.worker.failed.connect(self._failed)
         self.worker.finished.connect(lambda: self.run_button.setEnabled(True))
@@ -90,7 +105,8 @@ class ResourceOddsPanel(QWidget):
         self.table.resizeColumnsToContents()
         self.table.show()
         self.sentence.setText(result.sentence(conf))
-        self.status.setText(f"{ITERATIONS:,} iterations each, seed {SEED}, the same sampled durations.")
+        self.status.setText(f"{result.logic.iterations:,} iterations each, seed {result.logic.seed}, the same "
+                            "sampled durations" + (" (logic only: the Odds view's run)." if self.worker.logic else "."))
 
     def _failed(self, message: str) -> None:
         self.status.setText(f"Could not simulate: {message}")

@@ -8,7 +8,7 @@ import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QColor
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QPushButton, QTableWidget, QTableWidgetItem,
+from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QPushButton, QSizePolicy, QTableWidget, QTableWidgetItem,
                                QVBoxLayout, QWidget)
 
 from workbench.core.formatting import format_date, format_duration
@@ -40,6 +40,8 @@ class ResourcesView(QWidget):
     # --- layout -------------------------------------------------------------
     def _build(self) -> None:
         self.resource_box = QComboBox(accessibleName="Resource shown")
+        self.resource_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToContents)
+        self.resource_box.setSizePolicy(QSizePolicy.Policy.Minimum, QSizePolicy.Policy.Fixed)  # never cut a name
         self.resource_box.currentIndexChanged.connect(self._draw)
         self.dates_box = QComboBox(accessibleName="Dates shown")
         self.dates_box.addItems(["Logic-only dates", "Levelled dates"])
@@ -48,7 +50,7 @@ class ResourcesView(QWidget):
         self.keep_button = QPushButton("&Keep levelled dates", clicked=self.keep, enabled=False)
         self.keep_button.setToolTip("Start-no-earlier constraints on the activities a resource held: one undo step")
         bar = QHBoxLayout()
-        for w in (QLabel("Resource"), self.resource_box, self.dates_box, self.level_button, self.keep_button):
+        for w in (QLabel("Resource"), self.resource_box, self.dates_box):
             bar.addWidget(w)
         bar.addStretch(1)
         self.axis = DateAxis()
@@ -70,7 +72,11 @@ class ResourcesView(QWidget):
         layout = QVBoxLayout(self)
         layout.addLayout(bar)
         layout.addWidget(self.plot, 3)
-        layout.addWidget(self.message)
+        status = QHBoxLayout()          # what is over-allocated, beside what to do about it
+        status.addWidget(self.message, 1)
+        status.addWidget(self.level_button)
+        status.addWidget(self.keep_button)
+        layout.addLayout(status)
         layout.addWidget(self.moves, 2)
         layout.addWidget(self.odds)
 
