@@ -74,9 +74,9 @@ def _pick_sheet(workbook, source: str):
     return sheets[0]
 
 
-def read_xlsx(content, source: str) -> tuple[str, list[tuple[int, list[str]]]]:
-    """The chosen sheet's name and its rows, numbered as the spreadsheet shows them.
-    ``content``: the workbook's bytes (already read from a regular file) or a path."""
+def _open_workbook(content, source: str):
+    """The workbook (read-only, values) from its bytes, a file object or a path; checked
+    as a zip container first. Refused with TableImportError when it cannot be read."""
     if isinstance(content, (bytes, bytearray)):
         content = io.BytesIO(content)
     elif not hasattr(content, "read"):
@@ -86,9 +86,15 @@ def read_xlsx(content, source: str) -> tuple[str, list[tuple[int, list[str]]]]:
 
     content.seek(0)
     try:
-        workbook = openpyxl.load_workbook(content, read_only=True, data_only=True)
+        return openpyxl.load_workbook(content, read_only=True, data_only=True)
     except Exception as exc:  # openpyxl raises many kinds for a broken workbook
         raise TableImportError([f"cannot read the workbook: {type(exc).__name__}: {exc}"], source) from exc
+
+
+def read_xlsx(content, source: str) -> tuple[str, list[tuple[int, list[str]]]]:
+    """The chosen sheet's name and its rows, numbered as the spreadsheet shows them.
+    ``content``: the workbook's bytes (already read from a regular file) or a path."""
+    workbook = _open_workbook(content, source)
     try:
         sheet = _pick_sheet(workbook, source)
         return sheet.title, _numbered_rows(sheet, source)
@@ -140,18 +146,7 @@ def _numbered_rows(sheet, source: str) -> list[tuple[int, list[str]]]:
 def read_xlsx_sheet(content, source: str, name: str) -> list[tuple[int, list[str]]] | None:
     """The rows of the worksheet called ``name`` (any case), or None when the workbook has
     none. ``content``: the workbook's bytes or a path."""
-    if isinstance(content, (bytes, bytearray)):
-        content = io.BytesIO(content)
-    elif not hasattr(content, "read"):
-        content = io.BytesIO(Path(content).read_bytes())
-    check_zip(content, source)
-    import openpyxl
-
-    content.seek(0)
-    try:
-        workbook = openpyxl.load_workbook(content, read_only=True, data_only=True)
-    except Exception as exc:  # openpyxl raises many kinds for a broken workbook
-        raise TableImportError([f"cannot read the workbook: {type(exc).__name__}: {exc}"], source) from exc
+    workbook = _open_workbook(content, source)
     try:
         found = next((ws for ws in workbook.worksheets
                       if hasattr(ws, "iter_rows") and ws.title.strip().lower() == name.lower()), None)
