@@ -32,8 +32,11 @@ _WEEKDAY = re.compile(r"^[^\W\d_]+\.?,?\s+(?=\d)")
 
 
 def show_date(day: dt.date) -> str:
-    """A date the way the window shows it (and ``read_date`` reads it back)."""
-    return f"{day.day:02d} {_ENGLISH[day.month - 1][:3].title()} {day.year}"
+    """A date the way the window shows it: the one format of ``core.formatting``
+    ("Thu 2 Sep 2027"), which ``read_date`` reads back."""
+    from .formatting import format_date
+
+    return format_date(day)
 
 
 def _month_names() -> dict[str, int]:

@@ -38,7 +38,7 @@ def test_the_preview_says_which_settings_are_kept_and_starts_new_by_default(wind
     table = tmp_path / "warehouse.csv"
     table.write_text(TABLE, encoding="utf-8")
     kept = kept_settings(window.session.plan)
-    assert kept.startswith("title “Office refit”; start 02 Mar 2026; deadline 30 Apr 2026")
+    assert kept.startswith("title “Office refit”; start Mon 2 Mar 2026; deadline Thu 30 Apr 2026")
     assert "Mon, Tue, Wed, Thu, Fri" in kept
     dialog = ImportDialog(str(table), read_table(str(table)), [], None, kept)
     qtbot.addWidget(dialog)

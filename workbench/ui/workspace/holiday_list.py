@@ -65,7 +65,7 @@ class HolidayList(QWidget):
         self.list.clear()
         names = holiday_names(self.region_edit.text().strip(), self._dates)
         for day in sorted(self._dates):
-            text = f"{day.strftime('%a')} {show_date(day)}" + (f" — {names[day]}" if day in names else "")
+            text = show_date(day) + (f" — {names[day]}" if day in names else "")
             item = QListWidgetItem(text)
             item.setData(256, day.isoformat())
             self.list.addItem(item)
