@@ -1,9 +1,7 @@
 """Workbooks of awkward shapes are refused early, naming the sheet and the limit
 (issue 20, item 12): no sheets, only a chart sheet, a sheet of huge dimensions."""
 
-import io
 import re
-import zipfile
 
 import openpyxl
 import pytest
@@ -11,22 +9,8 @@ import pytest
 from workbench.io import xlsx_safe
 from workbench.io.tabular import TableImportError, read_table
 
-
-def workbook_bytes(book) -> bytes:
-    out = io.BytesIO()
-    book.save(out)
-    return out.getvalue()
-
-
-def rewrite(data: bytes, change) -> bytes:
-    """A copy of the zip with ``change(name, bytes) -> bytes | None`` applied (None drops it)."""
-    src, out = zipfile.ZipFile(io.BytesIO(data)), io.BytesIO()
-    with zipfile.ZipFile(out, "w", zipfile.ZIP_DEFLATED) as dst:
-        for info in src.infolist():
-            content = change(info.filename, src.read(info.filename))
-            if content is not None:
-                dst.writestr(info.filename, content)
-    return out.getvalue()
+from support.hostile import rewrite_zip as rewrite
+from support.hostile import xlsx_bytes as workbook_bytes
 
 
 def simple_book() -> openpyxl.Workbook:

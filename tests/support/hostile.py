@@ -96,6 +96,7 @@ def xlsx_bytes(book) -> bytes:
 
 
 def rewrite_zip(data: bytes, change) -> bytes:
+    """A copy of the zip with ``change(name, bytes) -> bytes | None`` applied (None drops it)."""
     src, out = zipfile.ZipFile(io.BytesIO(data)), io.BytesIO()
     with zipfile.ZipFile(out, "w", zipfile.ZIP_DEFLATED) as dst:
         for info in src.infolist():
