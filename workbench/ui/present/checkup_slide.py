@@ -10,6 +10,7 @@ from PySide6.QtWidgets import QWidget
 
 from workbench.figures import style
 from workbench.ui.checkup.keeper import checkup_keeper
+from workbench.ui.present.summary_slide import draw_wrapped
 
 FAIL_TINT = "#FBE3D6"
 CAUTION = ("Estimates are judgement; PERT assumes one path and independent durations. "
@@ -100,14 +101,4 @@ class PresentCheckupSlide(QWidget):
         shown = p.fontMetrics().elidedText(text, Qt.TextElideMode.ElideRight, int(box.width()))
         p.drawText(box, align | Qt.AlignmentFlag.AlignVCenter, shown)
 
-    @staticmethod
-    def _text(p: QPainter, box: QRectF, text: str, px: float, bold: bool = False, colour: str = style.TEXT) -> float:
-        font = QFont()
-        font.setPixelSize(int(px))
-        font.setBold(bold)
-        p.setFont(font)
-        p.setPen(QPen(QColor(colour)))
-        flags = Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop | Qt.TextFlag.TextWordWrap
-        used = p.boundingRect(box.adjusted(0, 0, 0, 400), flags, text)
-        p.drawText(used, flags, text)
-        return used.height()
+    _text = staticmethod(draw_wrapped)

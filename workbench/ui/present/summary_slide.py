@@ -49,6 +49,20 @@ def _short(name: str, limit: int = 28) -> str:
     return name if len(name) <= limit else name[: limit - 1].rstrip() + "\u2026"
 
 
+def draw_wrapped(p: QPainter, box: QRectF, text: str, px: float, bold: bool = False, colour: str = style.TEXT) -> float:
+    """Draw wrapped text at the top of box at ``px`` pixels; return the height used (the
+    slides' one way of setting text)."""
+    font = QFont()
+    font.setPixelSize(int(px))
+    font.setBold(bold)
+    p.setFont(font)
+    p.setPen(QPen(QColor(colour)))
+    flags = Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop | Qt.TextFlag.TextWordWrap
+    used = p.boundingRect(box.adjusted(0, 0, 0, 400), flags, text)
+    p.drawText(used, flags, text)
+    return used.height()
+
+
 class PresentSummarySlide(QWidget):
     def __init__(self, session, parent=None):
         super().__init__(parent)
@@ -75,14 +89,4 @@ class PresentSummarySlide(QWidget):
             y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 80 * unit), value, size * unit, True, colour)
         p.end()
 
-    def _text(self, p: QPainter, box: QRectF, text: str, px: float, bold: bool = False, colour: str = style.TEXT) -> float:
-        """Draw wrapped text at the top of box; return the height used."""
-        font = QFont()
-        font.setPixelSize(int(px))
-        font.setBold(bold)
-        p.setFont(font)
-        p.setPen(QPen(QColor(colour)))
-        flags = Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop | Qt.TextFlag.TextWordWrap
-        used = p.boundingRect(box.adjusted(0, 0, 0, 400), flags, text)
-        p.drawText(used, flags, text)
-        return used.height()
+    _text = staticmethod(draw_wrapped)
