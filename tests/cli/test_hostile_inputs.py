@@ -262,8 +262,8 @@ def far_simulate(d: Path):
 
 
 def pdf_text(path: Path) -> str:
-    import subprocess
-    return subprocess.run(["pdftotext", str(path), "-"], capture_output=True, text=True).stdout
+    from pypdf import PdfReader
+    return "\n".join(page.extract_text() or "" for page in PdfReader(str(path)).pages)
 
 
 SCRIPTS = ["\u05d1\u05d3\u05d9\u05e7\u05d4", "\u0641\u062d\u0635", "\u0388\u03bb\u03b5\u03b3\u03c7\u03bf\u03c2",

@@ -44,13 +44,17 @@ def doctored_plugin(tmp_path) -> Path:
 
 def test_a_missing_library_is_named_with_its_package(tmp_path):
     folder = doctored_plugin(tmp_path)
-    assert syslibs.missing_libraries(folder / "libqxcb.so") == ["libxcb-iccqm.so.4"]
+    # a machine may lack some of the real plugin's libraries too: those are named as well
+    already = syslibs.missing_libraries(syslibs.plugin_file("xcb"))
+    missing = syslibs.missing_libraries(folder / "libqxcb.so")
+    assert "libxcb-iccqm.so.4" in missing and sorted(set(missing) - {"libxcb-iccqm.so.4"}) == sorted(already)
     done = launch(tmp_path, QT_QPA_PLATFORM_PLUGIN_PATH=str(folder), DISPLAY=":0")
     assert done.returncode == 2, done.stderr
     assert "Could not load the Qt platform plugin" in done.stderr      # Qt's own words stay
-    assert "Missing system libraries: libxcb-iccqm.so.4." in done.stderr
+    named = done.stderr.split("Missing system libraries: ", 1)[1].split("\n", 1)[0]
+    assert "libxcb-iccqm.so.4" in named
     if syslibs.system_family() == "debian":
-        assert "apt-get install -y --no-install-recommends libxcb-iccqm4" in done.stderr
+        assert "apt-get install -y --no-install-recommends" in done.stderr and "libxcb-iccqm4" in done.stderr
     assert "Traceback" not in done.stderr
 
 
