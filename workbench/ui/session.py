@@ -263,7 +263,10 @@ class WhenShown(QObject):
             self.catch_up()
 
     def eventFilter(self, watched, event) -> bool:  # noqa: N802 (Qt override)
-        if watched is self.view and self._pending and event.type() in (QEvent.Type.Show, QEvent.Type.Resize):
+        # getattr: while a closed view is torn down its helper may already have lost its
+        # Python attributes (the collector clears a cycle before Qt deletes the widgets)
+        if (event.type() in (QEvent.Type.Show, QEvent.Type.Resize) and getattr(self, "_pending", None)
+                and watched is getattr(self, "view", None)):
             self._check.start()   # once the layout has settled: is it really on screen?
         return False
 

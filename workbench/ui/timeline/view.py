@@ -333,7 +333,7 @@ class TimelineView(QWidget):
         self.view_box.translateBy(x=dx_frac * (x1 - x0), y=dy_rows)
 
     def eventFilter(self, obj: QObject, event: QEvent) -> bool:
-        if obj is self.plot and event.type() == QEvent.Type.KeyPress:
+        if event.type() == QEvent.Type.KeyPress and obj is getattr(self, "plot", None):
             return self._key(event.key())
         return super().eventFilter(obj, event)
 

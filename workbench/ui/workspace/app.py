@@ -67,6 +67,8 @@ def application(argv: list[str] | None = None) -> QApplication:
     app.setWindowIcon(app_icon())
     from workbench.ui.workspace.wheel_guard import install_wheel_guard
     install_wheel_guard(app)
+    from workbench.ui.collector import collect_on_window_thread
+    collect_on_window_thread(app)      # reference cycles freed on this thread, never a worker's
     return app
 
 
