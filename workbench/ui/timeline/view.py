@@ -15,8 +15,9 @@ from PySide6.QtGui import QAction, QFont
 from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
 from workbench.figures import style
-from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
+from workbench.figures.timeline import bar_span, critical_ids, timeline_geometry
 from workbench.ui.session import refresh_when_shown
+from workbench.ui.timeline.bar_drag import BarDrag
 from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
@@ -42,7 +43,6 @@ class TimelineView(QWidget):
         self.late_bars = False
         self.connectors = False
         self._weights = style.SCREEN
-        self._drag = None
         self.present_hint = ""     # keys shown on the Present slide
         self.geometry = None
         self._auto_fit = True      # refit on resize until the user zooms or pans
@@ -79,6 +79,7 @@ class TimelineView(QWidget):
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
+        self.bar_drag = BarDrag(self)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
         self.toolbar = self._toolbar()
@@ -231,42 +232,32 @@ class TimelineView(QWidget):
         per_px = self.item.pixelWidth() or 0.0
         return span is not None and abs(x - span[1]) <= GRAB_PX * per_px
 
-    # --- duration drag ------------------------------------------------------------------
+    # --- duration drag (see bar_drag.py) ---------------------------------------------
     def _drag_event(self, phase: str, pos) -> bool:
         """'start' (return True to take the drag), 'move', 'finish' with the pointer in data units."""
         if phase == "start":
             return self._drag_start(pos)
-        if self._drag is None:
+        drag = self.bar_drag
+        if drag.active is None:
             return False
-        act_id, row, es = self._drag
-        act = self.session.plan.activity(act_id)
-        per_unit = self.session.analysis.calendar.per_unit if self.session.analysis is not None else 1
-        changes = dragged_estimate(act, pos.x() - es, resolution=1.0 / per_unit)   # whole working days
-        value = changes.get("most_likely", changes.get("duration"))
         if phase == "move":
-            self.item.set_preview((row, es, es + act.with_(**changes).mean))
-            self.duration_dragging.emit(act_id, float(value))
+            self.duration_dragging.emit(drag.active[0], drag.move(pos.x()))
             return True
-        self._drag = None
-        self.item.set_preview(None)
-        if all(getattr(act, k) == v for k, v in changes.items()):
-            return True                        # released where it started: nothing to undo
-        from workbench.core.commands import EditActivity
-        if self.session.push(EditActivity(act_id, **changes)):
-            self.duration_dragged.emit(act_id, float(value))
+        done = drag.finish(pos.x())
+        if done is not None:
+            self.duration_dragged.emit(*done)
         return True
 
     def cancel_drag(self) -> None:
         """Forget a duration drag in progress (Escape): the plan stays as it was."""
-        self._drag = None
-        self.item.set_preview(None)
+        self.bar_drag.cancel()
 
     def _drag_start(self, pos) -> bool:
         geo = self.geometry
         row = None if geo is None else geo.row_at(pos.y())
         if row is None or geo.index[row] < 0 or not self._near_bar_end(row, pos.x()):
             return False
-        self._drag = (geo.keys[row], row, bar_span(geo, row)[0])
+        self.bar_drag.start(geo.keys[row], row)
         return True
 
     # --- zoom, pan, filters -------------------------------------------------------------
@@ -367,6 +358,7 @@ class TimelineView(QWidget):
         self._fit_label_column()
         self.date_axis.setStyle(tickFont=font)
         self.item.set_weights(self._weights)
+        self.bar_drag.readout.set_font_px(1.15 * self._font().pixelSize())
         if hasattr(self, "toolbar"):
             self.toolbar.setVisible(self._weights is not style.PRESENT)
         self.reference.clear()
