@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import QPointF, QRectF, Qt, QTimer, Signal
+from PySide6.QtCore import QPoint, QPointF, QRectF, Qt, QTimer, Signal
 from PySide6.QtGui import QPainter, QPixmap
 
 from workbench.ui.network.paint import TINY_PX, NetworkPainter
@@ -19,6 +19,7 @@ class NetworkItem(pg.GraphicsObject):
 
     node_clicked = Signal(int, bool)      # row (−1: empty space), add to the selection
     hovered = Signal(int)
+    node_menu = Signal(int, QPoint)       # right-click: row (−1: empty space), screen position
 
     def __init__(self):
         super().__init__()
@@ -115,6 +116,10 @@ class NetworkItem(pg.GraphicsObject):
             self.update()
 
     def mouseClickEvent(self, ev) -> None:
+        if ev.button() == Qt.RightButton:
+            ev.accept()
+            self.node_menu.emit(self._row_at(ev.pos()), ev.screenPos().toPoint())
+            return
         if ev.button() != Qt.LeftButton:
             return
         ev.accept()

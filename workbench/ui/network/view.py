@@ -11,7 +11,7 @@ from dataclasses import replace
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import QRectF, Qt
+from PySide6.QtCore import QPoint, QRectF, Qt, Signal
 from PySide6.QtGui import QKeySequence, QShortcut
 from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit,
                                QMessageBox, QPushButton, QVBoxLayout, QWidget)
@@ -30,6 +30,8 @@ READABLE_SCALE = 0.9     # zoom used when jumping to a found node from far out
 
 
 class NetworkView(QWidget):
+    menu_requested = Signal(list, QPoint)    # right-click on a box: the activities, where (screen)
+
     def __init__(self, session, parent=None):
         super().__init__(parent)
         self.session = session
@@ -86,6 +88,7 @@ class NetworkView(QWidget):
         self.viewbox.addItem(self.item)
         self.item.node_clicked.connect(self._clicked)
         self.item.hovered.connect(self._hovered)
+        self.item.node_menu.connect(self._node_menu)
         for key, direction in ((Qt.Key_Left, "left"), (Qt.Key_Right, "right"), (Qt.Key_Up, "up"), (Qt.Key_Down, "down")):
             shortcut = QShortcut(QKeySequence(key), self.graphics, context=Qt.WidgetWithChildrenShortcut)
             shortcut.activated.connect(lambda d=direction: self.move_selection(d))
@@ -169,6 +172,16 @@ class NetworkView(QWidget):
             return
         chosen = self.session.selected()
         self.session.select([i for i in chosen if i != act_id] if act_id in chosen else chosen + [act_id])
+
+    def _node_menu(self, row: int, screen_pos: QPoint) -> None:
+        """Right-click on a box: it joins (or becomes) the selection and the window offers
+        its menu (``menu_requested``)."""
+        if self.layout_result is None or row < 0:
+            return
+        act_id = self.layout_result.nodes[row].id
+        if act_id not in self.session.selected():
+            self.session.select([act_id])
+        self.menu_requested.emit(self.session.selected(), screen_pos)
 
     def _hovered(self, row: int) -> None:
         plan = self.session.plan

@@ -14,6 +14,8 @@ from workbench.figures.timeline import bar_span, dragged_estimate
 from workbench.figures.timeline_drag import drag_readout
 from workbench.ui.timeline.drag_readout import DragReadout
 
+GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
+
 
 class BarDrag:
     """The drag in progress of one ``TimelineView`` (``view.bar_drag``)."""
@@ -22,6 +24,12 @@ class BarDrag:
         self.view = view
         self.readout = DragReadout(view.plot.getPlotItem())
         self.active: tuple[str, int, float] | None = None    # activity id, row, early start
+
+    def near_end(self, row: int, x: float) -> bool:
+        """Is ``x`` (data units) within the grab zone of the row's bar end?"""
+        span = bar_span(self.view.geometry, row)
+        per_px = self.view.item.pixelWidth() or 0.0
+        return span is not None and abs(x - span[1]) <= GRAB_PX * per_px
 
     def start(self, act_id: str, row: int) -> None:
         self.active = (act_id, row, bar_span(self.view.geometry, row)[0])

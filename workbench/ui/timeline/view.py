@@ -10,12 +10,12 @@ draws it and turns gestures into session calls and core commands.
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import QEvent, QObject, Qt, Signal
+from PySide6.QtCore import QEvent, QObject, QPoint, Qt, Signal
 from PySide6.QtGui import QAction, QFont
 from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
 from workbench.figures import style
-from workbench.figures.timeline import bar_span, critical_ids, timeline_geometry
+from workbench.figures.timeline import critical_ids, timeline_geometry
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.timeline.bar_drag import BarDrag
 from workbench.ui.timeline.date_axis import TimelineDateAxis
@@ -26,7 +26,6 @@ from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
 
 HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
-GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
 
 
 class TimelineView(QWidget):
@@ -34,6 +33,7 @@ class TimelineView(QWidget):
 
     duration_dragging = Signal(str, float)   # activity id, most likely value (continuous)
     duration_dragged = Signal(str, float)    # once, on release (after the edit is pushed)
+    menu_requested = Signal(list, QPoint)    # right-click on a bar: the activities, where (screen)
 
     def __init__(self, session, parent=None):
         super().__init__(parent)
@@ -72,6 +72,7 @@ class TimelineView(QWidget):
             pi.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
         self.item = TimelineItem(self._weights)
         self.item.on_click, self.item.on_drag, self.item.on_hover = self._click, self._drag_event, self._hover
+        self.item.on_menu = self._menu
         pi.addItem(self.item)
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
@@ -205,11 +206,28 @@ class TimelineView(QWidget):
         else:
             self.session.select([act_id])
 
+    def _menu(self, pos, screen_pos) -> None:
+        """Right-click on an activity's row: it joins (or becomes) the selection and the
+        window offers its menu (``menu_requested``)."""
+        geo = self.geometry
+        row = None if geo is None else geo.row_at(pos.y())
+        if row is None or geo.kinds[row] == "group":
+            return
+        act_id = geo.keys[row]
+        if act_id not in self.session.selected():
+            self.session.select([act_id])
+        self.menu_requested.emit(self.session.selected(), screen_pos)
+
+    def show_activity(self, act_id: str) -> None:
+        """Scroll (same zoom) so the activity's row is on screen, opening its group."""
+        from workbench.ui.timeline.reveal import show_activity
+        show_activity(self, act_id)
+
     def toggle_group(self, name: str) -> None:
         self.collapsed ^= {name}
         self.refresh()
 
-    # --- hover ---------------------------------------------------------------------
+    # --- hover (see bar_drag.py for the grab zone) ------------------------------------
     def _hover(self, pos, screen_pos) -> None:
         geo = self.geometry
         row = None if geo is None or pos is None else geo.row_at(pos.y())
@@ -218,7 +236,7 @@ class TimelineView(QWidget):
             self.item.setToolTip("")
             QToolTip.hideText()
             return
-        near_end = self._near_bar_end(row, pos.x())
+        near_end = self.bar_drag.near_end(row, pos.x())
         self.item.setCursor(Qt.CursorShape.SizeHorCursor if near_end else Qt.CursorShape.ArrowCursor)
         text = tooltip_text(self.session.analysis, self.session.simulation, geo.keys[row])
         if screen_pos is not None:
@@ -226,11 +244,6 @@ class TimelineView(QWidget):
         # The scene answers Qt's tooltip event (sent once the pointer rests) from the item
         # under the pointer: with the text on the item it keeps the tooltip, not hides it.
         self.item.setToolTip(text)
-
-    def _near_bar_end(self, row: int, x: float) -> bool:
-        span = bar_span(self.geometry, row)
-        per_px = self.item.pixelWidth() or 0.0
-        return span is not None and abs(x - span[1]) <= GRAB_PX * per_px
 
     # --- duration drag (see bar_drag.py) ---------------------------------------------
     def _drag_event(self, phase: str, pos) -> bool:
@@ -255,7 +268,7 @@ class TimelineView(QWidget):
     def _drag_start(self, pos) -> bool:
         geo = self.geometry
         row = None if geo is None else geo.row_at(pos.y())
-        if row is None or geo.index[row] < 0 or not self._near_bar_end(row, pos.x()):
+        if row is None or geo.index[row] < 0 or not self.bar_drag.near_end(row, pos.x()):
             return False
         self.bar_drag.start(geo.keys[row], row)
         return True
