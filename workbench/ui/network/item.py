@@ -33,9 +33,9 @@ class NetworkItem(pg.GraphicsObject):
         self._settle_timer.timeout.connect(self._settle)
 
     # --- content ---------------------------------------------------------
-    def set_content(self, layout, texts) -> None:
+    def set_content(self, layout, texts, analysis=None) -> None:
         self.prepareGeometryChange()
-        self.painter.set_content(layout, texts)
+        self.painter.set_content(layout, texts, analysis)
         left = min([b.x for b in layout.bands], default=0.0)
         top = MARGIN + (60.0 if self.painter.column_labels else 0.0)
         self._bounds = QRectF(left - MARGIN, -top, layout.width - 2 * left + 2 * MARGIN,

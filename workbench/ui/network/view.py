@@ -107,7 +107,7 @@ class NetworkView(QWidget):
             self._auto_fit = True          # another plan altogether: fitted, not at the old scale
         self.layout_result = result
         self.item.painter.column_labels = column_dates(result, analysis) if self.options.time_scaled else []
-        self.item.set_content(result, node_texts(plan, analysis))
+        self.item.set_content(result, node_texts(plan, analysis), analysis)
         self._mark_selection(self.session.selected())
         note = getattr(self.session, "analysis_error", None) if analysis is None else None
         if not result.nodes:
