@@ -169,3 +169,17 @@ def test_right_click_on_empty_space_opens_no_menu(shown, qtbot):
     right_click(view.graphics.viewport(), QPoint(3, 3))
     qtbot.wait(20)
     assert getattr(shown, "activity_menu", None) is None
+
+
+@pytest.mark.parametrize("title", ["Timeline", "Network"])
+def test_the_menu_key_opens_the_selection_s_menu(shown, qtbot, title):
+    view = timeline(shown, qtbot) if title == "Timeline" else network(shown, qtbot)
+    shown.session.select(["W"])
+    shown.activateWindow()
+    target = view.plot if title == "Timeline" else view.graphics
+    target.setFocus()
+    qtbot.waitUntil(target.hasFocus)
+    QTest.keyClick(target, Qt.Key.Key_F10, Qt.KeyboardModifier.ShiftModifier)
+    qtbot.waitUntil(lambda: getattr(shown, "activity_menu", None) is not None)
+    assert action(shown, "Delete W").isEnabled()
+    close_menu(shown)

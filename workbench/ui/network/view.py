@@ -11,7 +11,7 @@ from dataclasses import replace
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import QPoint, QRectF, Qt, Signal
+from PySide6.QtCore import QPoint, QPointF, QRectF, Qt, Signal
 from PySide6.QtGui import QKeySequence, QShortcut
 from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit,
                                QMessageBox, QPushButton, QVBoxLayout, QWidget)
@@ -92,6 +92,9 @@ class NetworkView(QWidget):
         for key, direction in ((Qt.Key_Left, "left"), (Qt.Key_Right, "right"), (Qt.Key_Up, "up"), (Qt.Key_Down, "down")):
             shortcut = QShortcut(QKeySequence(key), self.graphics, context=Qt.WidgetWithChildrenShortcut)
             shortcut.activated.connect(lambda d=direction: self.move_selection(d))
+        for keys in (Qt.Key_Menu, "Shift+F10"):        # the activity menu from the keyboard
+            shortcut = QShortcut(QKeySequence(keys), self.graphics, context=Qt.WidgetWithChildrenShortcut)
+            shortcut.activated.connect(self.menu_for_selection)
 
     # --- content ---------------------------------------------------------
     def refresh(self) -> None:
@@ -182,6 +185,19 @@ class NetworkView(QWidget):
         if act_id not in self.session.selected():
             self.session.select([act_id])
         self.menu_requested.emit(self.session.selected(), screen_pos)
+
+    def menu_for_selection(self) -> None:
+        """The activity menu of the selection, at its first box (or the view's corner)."""
+        ids = self.session.selected()
+        if not ids or self.layout_result is None:
+            return
+        row = self.layout_result.index_of(ids[0])
+        point = QPoint(8, 8)
+        if row >= 0:
+            x, y, w, h = map(float, self.layout_result.boxes[row])
+            at = self.graphics.mapFromScene(self.viewbox.mapViewToScene(QPointF(x + w / 2, y + h / 2)))
+            point = at if self.graphics.rect().contains(at) else point
+        self.menu_requested.emit(ids, self.graphics.mapToGlobal(point))
 
     def _hovered(self, row: int) -> None:
         plan = self.session.plan

@@ -18,6 +18,7 @@ from workbench.figures import style
 from workbench.figures.timeline import critical_ids, timeline_geometry
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.timeline.bar_drag import BarDrag
+from workbench.ui.timeline.reveal import menu_keys
 from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
@@ -81,6 +82,7 @@ class TimelineView(QWidget):
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
         self.bar_drag = BarDrag(self)
+        menu_keys(self)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
         self.toolbar = self._toolbar()
