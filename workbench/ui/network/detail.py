@@ -25,6 +25,7 @@ from workbench.ui.network.shapes import colour, font
 
 NAME_MIN_PX = 8.0        # the smallest type a name is written in on screen
 DATE_MIN_PX = 9.0        # the smallest type dates are written in
+ID_MIN_PX = 7.0          # the smallest type a coloured box's id is written in
 LINE = 1.2               # line pitch as a multiple of the type size
 WIDEST_DATE = "Wed 30 Sep 2027"
 DATED_COLUMNS = (0.03, 0.135, 0.465, 0.795, 0.97)   # edges: label | start | finish | float
@@ -38,6 +39,13 @@ class Compact:
     header: float
     name_size: float
     lines: int
+
+
+def tiny_id_size(box: QRectF, ids: list[str], scale: float) -> float:
+    """Type size (units) for ids inside coloured boxes: as large as the box's height allows
+    (up to 70 % of it) while the widest id on screen still fits its width."""
+    widest = max(QFontMetricsF(font(100.0, bold=True)).horizontalAdvance(i) for i in ids) / 100.0
+    return min(0.7 * box.height(), (box.width() - 3.0 / scale) / max(widest, 1e-9))
 
 
 def names_fit(box_w: float, box_h: float, scale: float, weights) -> bool:

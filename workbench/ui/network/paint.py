@@ -306,9 +306,8 @@ class NetworkPainter:
             p.drawRects([self._rects[r] for r in rows[self._crit[rows] == flag]])
         if not len(rows) or len(rows) > TINY_IDS:
             return
-        box = self._rects[int(rows[0])]
-        size = min(0.5 * box.height(), 0.28 * box.width())
-        if size * scale < 7:
+        size = detail.tiny_id_size(self._rects[int(rows[0])], [self.texts[r].id for r in rows.tolist()], scale)
+        if size * scale < detail.ID_MIN_PX:
             return
         p.setPen(colour(ns.HEADER_TEXT))
         p.setFont(font(size, bold=True))
