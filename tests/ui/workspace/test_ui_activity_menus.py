@@ -183,3 +183,17 @@ def test_the_menu_key_opens_the_selection_s_menu(shown, qtbot, title):
     qtbot.waitUntil(lambda: getattr(shown, "activity_menu", None) is not None)
     assert action(shown, "Delete W").isEnabled()
     close_menu(shown)
+
+
+def test_box_menu_copies_the_activity_as_a_table_row(shown, qtbot):
+    from PySide6.QtGui import QGuiApplication
+    view = network(shown, qtbot)
+    shown.activities.search.setText("Survey")                       # the table hides W
+    right_click(view.graphics.viewport(), box_point(view, "W"))
+    qtbot.waitUntil(lambda: getattr(shown, "activity_menu", None) is not None)
+    action(shown, "Copy as Table Rows").trigger()
+    close_menu(shown)
+    lines = QGuiApplication.clipboard().text().splitlines()
+    assert lines[0].split("\t")[:2] == ["ID", "Name"]
+    assert lines[1].split("\t")[:2] == ["W", "Wiring"] and len(lines) == 2
+    assert shown.activities.search.text() == "Survey"               # the filter is left alone

@@ -25,9 +25,10 @@ def selected_rows(panel) -> list[int]:
     return sorted(rows)
 
 
-def rows_as_text(panel, rows: list[int]) -> str:
-    """The rows' shown columns as tab-separated lines under a heading line."""
-    proxy, table = panel.proxy, panel.table
+def rows_as_text(panel, rows: list[int], model=None) -> str:
+    """The rows' shown columns as tab-separated lines under a heading line (rows of the
+    table as shown, or of ``model``: the unfiltered activity model)."""
+    proxy, table = model or panel.proxy, panel.table
     columns = [c for c in range(proxy.columnCount()) if not table.isColumnHidden(c)]
     clean = lambda v: "" if v is None else str(v).replace("\t", " ").replace("\n", " ")  # noqa: E731
     lines = ["\t".join(clean(proxy.headerData(c, Qt.Orientation.Horizontal)) for c in columns)]
@@ -41,6 +42,17 @@ def copy_rows(panel) -> int:
     if not rows:
         return 0
     QGuiApplication.clipboard().setText(rows_as_text(panel, rows))
+    panel.message.emit(f"Copied {len(rows)} row{'s' if len(rows) != 1 else ''}: paste them into a spreadsheet")
+    return len(rows)
+
+
+def copy_ids(panel, ids) -> int:
+    """Copy the activities ``ids`` as the table's rows (shown columns, even when a filter
+    hides a row), tab-separated for a spreadsheet."""
+    rows = [panel.model.row_of(i) for i in ids]
+    if not rows:
+        return 0
+    QGuiApplication.clipboard().setText(rows_as_text(panel, rows, panel.model))
     panel.message.emit(f"Copied {len(rows)} row{'s' if len(rows) != 1 else ''}: paste them into a spreadsheet")
     return len(rows)
 

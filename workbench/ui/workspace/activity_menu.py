@@ -4,7 +4,7 @@ The same gestures as the table's row menu, through the same code (the Activities
 actions and ``activities.activity_ops``), on the activities the click selected: edit the
 name in the table, add a successor or predecessor, pick predecessors, select the
 activities before or after, show the activity in the other chart, hold its start or clear
-its date constraints, delete. Views only say where and on what the click fell
+its date constraints, copy the rows for a spreadsheet, delete. Views only say where and on what the click fell
 (``menu_requested(ids, screen_pos)``); the window connects them here.
 """
 
@@ -16,6 +16,7 @@ from PySide6.QtWidgets import QMenu
 
 from workbench.core.formatting import format_date
 from workbench.ui.activities import activity_ops as ops
+from workbench.ui.activities import row_tools
 
 OTHER_VIEW = {"Timeline": "Network", "Network": "Timeline"}
 
@@ -56,6 +57,7 @@ def build_menu(window, title: str, ids: list) -> QMenu:
     menu.addSeparator()
     _constraint_actions(window, menu, ids)
     menu.addSeparator()
+    add("Copy as Table Rows", partial(row_tools.copy_ids, panel, list(ids)))
     add(f"Delete {one}" if single else f"Delete {len(ids)} Activities", partial(panel.delete_ids, list(ids)))
     return menu
 
