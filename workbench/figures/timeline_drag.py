@@ -13,12 +13,15 @@ from workbench.core.formatting import format_date, format_duration, format_numbe
 def drag_readout(calendar, unit: str, before, after, early_start: float) -> list[str]:
     """Lines for a bar dragged from activity ``before`` to ``after`` (same activity, new
     fields), starting at offset ``early_start``: the length (te for an estimate), the most
-    likely value when that is what moves, and the date the activity would then finish."""
+    likely value when that is what moves (and the pessimistic one when it widens), and the
+    date the activity would then finish."""
     was, now = before.mean, after.mean
     label = "te " if after.has_estimate else ""
     lines = [f"{label}{format_duration(now, unit)} (was {format_number(was)})"]
     if after.has_estimate and after.most_likely != before.most_likely:
         lines.append(f"most likely {format_number(after.most_likely, 2)} (was {format_number(before.most_likely, 2)})")
+    if after.has_estimate and after.pessimistic != before.pessimistic:     # widened to the most likely
+        lines.append(f"pessimistic {format_number(after.pessimistic, 2)} (was {format_number(before.pessimistic, 2)})")
     lines.append(f"finishes {format_date(finish_day(calendar, early_start, now))}")
     return lines
 
