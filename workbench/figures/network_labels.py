@@ -6,6 +6,8 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from workbench.core.formatting import format_date
+
 
 @dataclass(frozen=True)
 class NodeText:
@@ -46,6 +48,15 @@ def node_texts(plan, analysis=None) -> list[NodeText]:
     late = (s.total_float < -1e-9).tolist()
     return [NodeText(a.id, a.name, te, es, ef, ls, lf, tf, neg)
             for a, te, es, ef, ls, lf, tf, neg in zip(acts, *columns, late)]
+
+
+DATE_KEYS = ("early_start", "early_finish", "late_start", "late_finish")
+
+
+def date_cells(dates: dict, row: int) -> tuple[str, str, str, str]:
+    """Early start, early finish, late start, late finish of one node as people read
+    dates (``Thu 2 Sep 2027``, as in the table); ``dates`` is ``analysis.dates()``."""
+    return tuple(format_date(dates[key][row]) for key in DATE_KEYS)
 
 
 def find_nodes(plan, text: str) -> list[str]:

@@ -59,3 +59,15 @@ def test_hidden_columns_are_remembered(window, ui_env):
     select_rows(again, [0])
     assert "Notes" not in row_tools.rows_as_text(again, [0]).splitlines()[0].split("\t")
     again.deleteLater()
+
+
+def test_row_menu_adds_a_linked_predecessor(window):
+    from workbench.core.model import Link
+    panel = window.activities
+    select_rows(panel, [2])                      # D (Draw layout)
+    menu = row_tools.row_menu(panel, panel.table.visualRect(panel.proxy.index(2, 1)).center())
+    next(a for a in menu.actions() if a.text() == "Add Predecessor").trigger()
+    plan = window.session.plan
+    new = window.session.selected()[0]
+    assert new not in ("R", "D") and Link(new, "D") in plan.links
+    assert plan.ids().index(new) == plan.ids().index("D") - 1      # placed just before D

@@ -194,7 +194,10 @@ class ActivitiesPanel(QWidget):
             self.table.setCurrentIndex(index)
 
     def delete_selected(self) -> None:
-        ids = self.current_ids()
+        self.delete_ids(self.current_ids())
+
+    def delete_ids(self, ids: list[str]) -> None:
+        """Delete these activities and their links (one undo step)."""
         if ids:
             self.session.push(RemoveActivities(ids))
 
@@ -223,6 +226,15 @@ class ActivitiesPanel(QWidget):
         if len(ids) != 1:
             self.message.emit("Select one activity to pick its predecessors.")
             return
-        links = predecessor_dialog.pick_predecessors(self, self.session.plan, ids[0])
+        self.pick_predecessors_of(ids[0])
+
+    def pick_predecessors_of(self, act_id: str) -> None:
+        links = predecessor_dialog.pick_predecessors(self, self.session.plan, act_id)
         if links is not None:
-            self.session.push(SetPredecessors(ids[0], links))
+            self.session.push(SetPredecessors(act_id, links))
+
+    def clear_filters(self) -> None:
+        """Show every row again (find text, group and critical-only cleared)."""
+        self.search.clear()
+        self.group_box.setCurrentText(ALL_GROUPS)
+        self.critical_box.setChecked(False)

@@ -1,6 +1,7 @@
 """What a planner reaches for on the table: Ctrl+C copies the selected rows as
 tab-separated text (pastes into a spreadsheet), a right-click menu on a row (edit, insert,
-delete, copy, select predecessors/successors, pick predecessors), and a right-click menu
+delete, copy, add a successor or predecessor, select predecessors/successors, pick
+predecessors), and a right-click menu
 on the headings that shows or hides columns, remembered per user."""
 
 from __future__ import annotations
@@ -10,6 +11,8 @@ from functools import partial
 from PySide6.QtCore import QSettings, Qt
 from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import QMenu
+
+from workbench.ui.activities import activity_ops
 
 HIDDEN_KEY = "table/hidden_columns"
 
@@ -22,9 +25,10 @@ def selected_rows(panel) -> list[int]:
     return sorted(rows)
 
 
-def rows_as_text(panel, rows: list[int]) -> str:
-    """The rows' shown columns as tab-separated lines under a heading line."""
-    proxy, table = panel.proxy, panel.table
+def rows_as_text(panel, rows: list[int], model=None) -> str:
+    """The rows' shown columns as tab-separated lines under a heading line (rows of the
+    table as shown, or of ``model``: the unfiltered activity model)."""
+    proxy, table = model or panel.proxy, panel.table
     columns = [c for c in range(proxy.columnCount()) if not table.isColumnHidden(c)]
     clean = lambda v: "" if v is None else str(v).replace("\t", " ").replace("\n", " ")  # noqa: E731
     lines = ["\t".join(clean(proxy.headerData(c, Qt.Orientation.Horizontal)) for c in columns)]
@@ -42,13 +46,27 @@ def copy_rows(panel) -> int:
     return len(rows)
 
 
+def copy_ids(panel, ids) -> int:
+    """Copy the activities ``ids`` as the table's rows (shown columns, even when a filter
+    hides a row), tab-separated for a spreadsheet."""
+    rows = [panel.model.row_of(i) for i in ids]
+    if not rows:
+        return 0
+    QGuiApplication.clipboard().setText(rows_as_text(panel, rows, panel.model))
+    panel.message.emit(f"Copied {len(rows)} row{'s' if len(rows) != 1 else ''}: paste them into a spreadsheet")
+    return len(rows)
+
+
 def select_neighbours(panel, successors: bool) -> None:
-    plan = panel.session.plan
-    picked = []
-    for act_id in panel.current_ids():
-        links = plan.successors(act_id) if successors else plan.predecessors(act_id)
-        picked += [link.succ if successors else link.pred for link in links]
-    panel.session.select(picked)
+    activity_ops.select_neighbours(panel, panel.current_ids(), successors)
+
+
+def add_linked(panel, successor: bool) -> None:
+    ids = panel.current_ids()
+    if len(ids) != 1:
+        panel.message.emit(f"Select one activity to add a {'successor' if successor else 'predecessor'} to.")
+        return
+    activity_ops.add_linked(panel, ids[0], successor)
 
 
 def row_menu(panel, pos) -> QMenu:
@@ -60,6 +78,8 @@ def row_menu(panel, pos) -> QMenu:
     edit = menu.addAction("Edit Cell", lambda: panel.table.edit(panel.table.currentIndex()))
     edit.setEnabled(index.isValid())
     menu.addActions([panel.actions["insert"], panel.actions["delete"], panel.actions["copy"]])
+    menu.addAction("Add Successor", partial(add_linked, panel, True)).setEnabled(index.isValid())
+    menu.addAction("Add Predecessor", partial(add_linked, panel, False)).setEnabled(index.isValid())
     menu.addSeparator()
     menu.addAction("Select Predecessors", partial(select_neighbours, panel, False))
     menu.addAction("Select Successors", partial(select_neighbours, panel, True))

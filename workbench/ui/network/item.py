@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import QPointF, QRectF, Qt, QTimer, Signal
+from PySide6.QtCore import QPoint, QPointF, QRectF, Qt, QTimer, Signal
 from PySide6.QtGui import QPainter, QPixmap
 
 from workbench.ui.network.paint import TINY_PX, NetworkPainter
@@ -19,6 +19,7 @@ class NetworkItem(pg.GraphicsObject):
 
     node_clicked = Signal(int, bool)      # row (−1: empty space), add to the selection
     hovered = Signal(int)
+    node_menu = Signal(int, QPoint)       # right-click: row (−1: empty space), screen position
 
     def __init__(self):
         super().__init__()
@@ -32,9 +33,9 @@ class NetworkItem(pg.GraphicsObject):
         self._settle_timer.timeout.connect(self._settle)
 
     # --- content ---------------------------------------------------------
-    def set_content(self, layout, texts) -> None:
+    def set_content(self, layout, texts, analysis=None) -> None:
         self.prepareGeometryChange()
-        self.painter.set_content(layout, texts)
+        self.painter.set_content(layout, texts, analysis)
         left = min([b.x for b in layout.bands], default=0.0)
         top = MARGIN + (60.0 if self.painter.column_labels else 0.0)
         self._bounds = QRectF(left - MARGIN, -top, layout.width - 2 * left + 2 * MARGIN,
@@ -115,6 +116,10 @@ class NetworkItem(pg.GraphicsObject):
             self.update()
 
     def mouseClickEvent(self, ev) -> None:
+        if ev.button() == Qt.RightButton:
+            ev.accept()
+            self.node_menu.emit(self._row_at(ev.pos()), ev.screenPos().toPoint())
+            return
         if ev.button() != Qt.LeftButton:
             return
         ev.accept()

@@ -13,10 +13,12 @@ from PySide6.QtGui import QFontMetricsF, QPainter, QPen, QPolygonF
 
 from workbench.figures import network_style as ns
 
-from workbench.ui.network.shapes import clip, colour, font, inside, pen, two_lines
+from workbench.figures.network_labels import date_cells
+from workbench.ui.network import detail
+from workbench.ui.network.shapes import clip, colour, font, inside, pen
 
-TINY_PX = 40       # node narrower than this on screen: coloured box only
-COMPACT_PX = 140   # narrower than this: header colour and big id only
+TINY_PX = 40       # far-out picture cache below this node width (see item.py)
+COMPACT_PX = 140   # narrower than this: id and name only (see detail.py for the levels)
 LABEL_SCALE = 0.2  # link labels from this zoom on
 TINY_IDS = 600     # far out, ids are written in at most this many visible boxes
 AA_SEGMENTS = 250  # smooth (antialiased) ordinary links only when this few are visible
@@ -40,17 +42,22 @@ class NetworkPainter:
         self._polys: list[QPolygonF] = []
         self._heads: list[QPolygonF] = []
         self._names: list[tuple[str, str]] = []
+        self.analysis = None      # for dates in the boxes when zoomed in
+        self._dates = None
+        self._date_text: dict[int, tuple[str, str, str, str]] = {}
         self._wrapped: dict[tuple[str, float, float], tuple[str, str]] = {}
         self._key = None
         self._seg_link = np.zeros(0, dtype=np.int64)
         self.version = 0          # bumped whenever the base picture would change
 
     # --- content ---------------------------------------------------------
-    def set_content(self, layout, texts) -> None:
+    def set_content(self, layout, texts, analysis=None) -> None:
         """Take a new layout; Qt shapes are rebuilt only when the geometry changed (a
         duration edit keeps it), flags and texts always."""
         key = (id(layout.geometry), tuple((l.pred, l.succ) for l in layout.links))
         self.layout, self.texts = layout, texts
+        if analysis is not self.analysis or analysis is None:
+            self.analysis, self._dates, self._date_text = analysis, None, {}
         self.version += 1
         if key != self._key:
             self._key = key
@@ -62,7 +69,6 @@ class NetworkPainter:
                            for flag in (False, True)}
         width = float(layout.boxes[0, 2]) if len(layout.boxes) else 0.0
         self._names = [self._wrap(t.name, width, self.weights.name_font) for t in texts]
-        self._short = [self._wrap(t.name, width, self.weights.compact_name_font) for t in texts]
         self.related = {r for r in self.related if r < len(self._rects)}
         self.selected = {r for r in self.selected if r < len(self._rects)}
 
@@ -74,8 +80,6 @@ class NetworkPainter:
         self._ends = np.array([l.points[-1] for l in layout.links]).reshape(-1, 2)
         self._label_at = np.array([l.label_at for l in layout.links]).reshape(-1, 2)
         self._heads_full = [QRectF(*ns.part(b, ns.HEADER)) for b in boxes]
-        self._heads_compact = [QRectF(*ns.part(b, ns.COMPACT_HEADER)) for b in boxes]
-        self._short_rects = [two_lines(ns.part(b, ns.COMPACT_NAME)) for b in boxes]
         rows = [(a[0], a[1], b[0], b[1], k) for k, l in enumerate(layout.links)
                 for a, b in zip(l.points, l.points[1:])]
         arr = np.array(rows, dtype=float).reshape(-1, 5)
@@ -90,7 +94,7 @@ class NetworkPainter:
         self.version += 1
         self._wrapped.clear()
         if self.layout is not None:
-            self.set_content(self.layout, self.texts)
+            self.set_content(self.layout, self.texts, self.analysis)
 
     def set_hover(self, row: int) -> None:
         self.hover = row
@@ -111,9 +115,19 @@ class NetworkPainter:
         return QPolygonF([QPointF(x1, y1), QPointF(base[0] - uy * s * 0.45, base[1] + ux * s * 0.45),
                           QPointF(base[0] + uy * s * 0.45, base[1] - ux * s * 0.45)])
 
+    def date_texts(self, r: int) -> tuple[str, str, str, str]:
+        """Early/late start and finish of row ``r`` as dates (formatted once per analysis)."""
+        if r not in self._date_text:
+            if self._dates is None:
+                self._dates = self.analysis.dates()
+            self._date_text[r] = date_cells(self._dates, r)
+        return self._date_text[r]
+
     def _wrap(self, name: str, width: float, size: float) -> tuple[str, str]:
         """The name on at most two lines, the second elided when it does not fit (cached)."""
         key = (name, width, size)
+        if len(self._wrapped) > 50_000:     # zooming through many sizes: start afresh
+            self._wrapped.clear()
         if key not in self._wrapped:
             self._wrapped[key] = self._wrap_now(name, width, size)
         return self._wrapped[key]
@@ -134,8 +148,9 @@ class NetworkPainter:
         (for a cached picture that ``paint_overlay`` completes)."""
         if self.layout is None:
             return
-        node_px = self.node_px(scale)
-        p.setRenderHint(QPainter.Antialiasing, node_px >= TINY_PX)
+        level = self.level(scale, 96.0 / max(p.device().logicalDpiX(), 1))
+        small = level == "tiny"
+        p.setRenderHint(QPainter.Antialiasing, not small)
         p.setRenderHint(QPainter.TextAntialiasing, True)
         if self.bands_visible:
             self._paint_bands(p, visible, scale)
@@ -145,14 +160,26 @@ class NetworkPainter:
         rows = self._visible_nodes(visible)
         if not base_only:
             self._paint_hover_links(p, scale)
-            if node_px >= TINY_PX:
+            if not small:
                 self._paint_halos(p, rows, scale, fill=True)
-        if node_px < TINY_PX:
+        if small:
             self._paint_tiny(p, rows, scale)
         else:
-            self._paint_nodes(p, rows, scale, node_px >= COMPACT_PX)
-        if not base_only and node_px < TINY_PX:
+            self._paint_nodes(p, rows, scale, level)
+        if not base_only and small:
             self._paint_halos(p, rows, scale, fill=False)
+
+    def level(self, scale: float, dpi_scale: float = 1.0) -> str:
+        """What the boxes say at this scale: "tiny", "compact", "full" or "dated" (detail.py).
+        Dates need type readable at the device's resolution (``dpi_scale``: 96 dpi over the
+        device's): on paper the grid keeps its larger figures."""
+        if self.layout is None or not len(self._rects):
+            return "tiny"
+        w, h = float(self.layout.boxes[0, 2]), float(self.layout.boxes[0, 3])
+        if w * scale >= COMPACT_PX:
+            dated = self.analysis is not None and detail.dates_fit(w, scale * dpi_scale, self.weights)
+            return "dated" if dated else "full"
+        return "compact" if detail.names_fit(w, h, scale, self.weights) else "tiny"
 
     def paint_overlay(self, p: QPainter, visible: QRectF, scale: float) -> None:
         """Hover and selection marks over a cached base picture (far-out zoom only)."""
@@ -279,42 +306,31 @@ class NetworkPainter:
             p.drawRects([self._rects[r] for r in rows[self._crit[rows] == flag]])
         if not len(rows) or len(rows) > TINY_IDS:
             return
-        box = self._rects[int(rows[0])]
-        size = min(0.5 * box.height(), 0.28 * box.width())
-        if size * scale < 7:
+        size = detail.tiny_id_size(self._rects[int(rows[0])], [self.texts[r].id for r in rows.tolist()], scale)
+        if size * scale < detail.ID_MIN_PX:
             return
         p.setPen(colour(ns.HEADER_TEXT))
         p.setFont(font(size, bold=True))
         for r in rows.tolist():
             p.drawText(self._rects[r], Qt.AlignCenter, self.texts[r].id)
 
-    def _paint_nodes(self, p: QPainter, rows: np.ndarray, scale: float, full: bool) -> None:
+    def _paint_nodes(self, p: QPainter, rows: np.ndarray, scale: float, level: str) -> None:
         """Bodies, headers and borders in a few batched calls; texts node by node."""
         w, crit = self.weights, self._crit[rows]
-        heads = self._heads_full if full else self._heads_compact
+        full = level in ("full", "dated")
+        small = None if full else detail.compact(float(self.layout.boxes[0, 3]), scale, w)
+        heads = ([self._heads_full[r] for r in rows] if full else
+                 [QRectF(b.x(), b.y(), b.width(), small.header) for b in (self._rects[r] for r in rows)])
         p.setPen(Qt.NoPen)
         p.setBrush(colour(ns.NODE_FILL))
         p.drawRects([self._rects[r] for r in rows])
         for flag, hexc in ((False, ns.WORK), (True, ns.CRITICAL)):
             p.setBrush(colour(hexc))
-            p.drawRects([heads[r] for r in rows[crit == flag]])
-        white, black = colour(ns.HEADER_TEXT), colour(ns.TEXT)
-        id_font = font(w.id_font if full else w.compact_id_font, bold=True)
-        name_font, te_font = font(w.compact_name_font), font(w.cell_font)
-        for r in rows.tolist():
-            text, head = self.texts[r], heads[r].adjusted(8, 0, -8, 0)
-            p.setPen(white)
-            p.setFont(id_font)
-            p.drawText(head, Qt.AlignLeft | Qt.AlignVCenter, text.id)
-            if full:
-                p.setFont(te_font)
-                p.drawText(head, Qt.AlignRight | Qt.AlignVCenter, f"te {text.te}")
-                self._paint_body(p, r, (self._rects[r].x(), self._rects[r].y(), self._rects[r].width(), self._rects[r].height()))
-            else:
-                p.setPen(black)
-                p.setFont(name_font)
-                for rect, line in zip(self._short_rects[r], self._short[r]):
-                    p.drawText(rect, Qt.AlignLeft | Qt.AlignVCenter, line)
+            p.drawRects([heads[k] for k in np.flatnonzero(crit == flag)])
+        if full:
+            self._paint_full_texts(p, rows, heads, level == "dated")
+        else:
+            detail.paint_compact_texts(self, p, rows, heads, small)
         p.setBrush(Qt.NoBrush)
         edge = pen(ns.CRITICAL_EDGE, w.critical_edge, scale)
         edge.setWidthF(max(self.min_critical_px, edge.widthF()))
@@ -322,7 +338,20 @@ class NetworkPainter:
             p.setPen(line)
             p.drawRects([self._rects[r] for r in rows[crit == flag]])
 
-    def _paint_body(self, p: QPainter, r: int, box) -> None:
+    def _paint_full_texts(self, p: QPainter, rows: np.ndarray, heads, dated: bool) -> None:
+        w, white = self.weights, colour(ns.HEADER_TEXT)
+        id_font, te_font = font(w.id_font, bold=True), font(w.cell_font)
+        for r, head in zip(rows.tolist(), heads):
+            text, head = self.texts[r], head.adjusted(8, 0, -8, 0)
+            p.setPen(white)
+            p.setFont(id_font)
+            p.drawText(head, Qt.AlignLeft | Qt.AlignVCenter, text.id)
+            p.setFont(te_font)
+            p.drawText(head, Qt.AlignRight | Qt.AlignVCenter, f"te {text.te}")
+            b = self._rects[r]
+            self._paint_body(p, r, (b.x(), b.y(), b.width(), b.height()), dated)
+
+    def _paint_body(self, p: QPainter, r: int, box, dated: bool = False) -> None:
         text, w = self.texts[r], self.weights
         first, second = self._names[r]
         name = QRectF(*ns.part(box, ns.NAME))
@@ -331,6 +360,9 @@ class NetworkPainter:
         half = name.height() / 2
         p.drawText(QRectF(name.x(), name.y(), name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, first)
         p.drawText(QRectF(name.x(), name.y() + half, name.width(), half), Qt.AlignLeft | Qt.AlignVCenter, second)
+        if dated:
+            detail.paint_dated_grid(p, box, self.date_texts(r), text, w)
+            return
         x, y, bw, bh = box
         p.setPen(QPen(colour(ns.GRID_LINE), 0))
         top = y + ns.GRID_TOP * bh

@@ -11,7 +11,7 @@ from dataclasses import replace
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import QRectF, Qt
+from PySide6.QtCore import QPoint, QPointF, QRectF, Qt, Signal
 from PySide6.QtGui import QKeySequence, QShortcut
 from PySide6.QtWidgets import (QCheckBox, QFileDialog, QHBoxLayout, QLabel, QLineEdit,
                                QMessageBox, QPushButton, QVBoxLayout, QWidget)
@@ -30,6 +30,8 @@ READABLE_SCALE = 0.9     # zoom used when jumping to a found node from far out
 
 
 class NetworkView(QWidget):
+    menu_requested = Signal(list, QPoint)    # right-click on a box: the activities, where (screen)
+
     def __init__(self, session, parent=None):
         super().__init__(parent)
         self.session = session
@@ -86,9 +88,13 @@ class NetworkView(QWidget):
         self.viewbox.addItem(self.item)
         self.item.node_clicked.connect(self._clicked)
         self.item.hovered.connect(self._hovered)
+        self.item.node_menu.connect(self._node_menu)
         for key, direction in ((Qt.Key_Left, "left"), (Qt.Key_Right, "right"), (Qt.Key_Up, "up"), (Qt.Key_Down, "down")):
             shortcut = QShortcut(QKeySequence(key), self.graphics, context=Qt.WidgetWithChildrenShortcut)
             shortcut.activated.connect(lambda d=direction: self.move_selection(d))
+        for keys in (Qt.Key_Menu, "Shift+F10"):        # the activity menu from the keyboard
+            shortcut = QShortcut(QKeySequence(keys), self.graphics, context=Qt.WidgetWithChildrenShortcut)
+            shortcut.activated.connect(self.menu_for_selection)
 
     # --- content ---------------------------------------------------------
     def refresh(self) -> None:
@@ -104,7 +110,7 @@ class NetworkView(QWidget):
             self._auto_fit = True          # another plan altogether: fitted, not at the old scale
         self.layout_result = result
         self.item.painter.column_labels = column_dates(result, analysis) if self.options.time_scaled else []
-        self.item.set_content(result, node_texts(plan, analysis))
+        self.item.set_content(result, node_texts(plan, analysis), analysis)
         self._mark_selection(self.session.selected())
         note = getattr(self.session, "analysis_error", None) if analysis is None else None
         if not result.nodes:
@@ -169,6 +175,29 @@ class NetworkView(QWidget):
             return
         chosen = self.session.selected()
         self.session.select([i for i in chosen if i != act_id] if act_id in chosen else chosen + [act_id])
+
+    def _node_menu(self, row: int, screen_pos: QPoint) -> None:
+        """Right-click on a box: it joins (or becomes) the selection and the window offers
+        its menu (``menu_requested``)."""
+        if self.layout_result is None or row < 0:
+            return
+        act_id = self.layout_result.nodes[row].id
+        if act_id not in self.session.selected():
+            self.session.select([act_id])
+        self.menu_requested.emit(self.session.selected(), screen_pos)
+
+    def menu_for_selection(self) -> None:
+        """The activity menu of the selection, at its first box (or the view's corner)."""
+        ids = self.session.selected()
+        if not ids or self.layout_result is None:
+            return
+        row = self.layout_result.index_of(ids[0])
+        point = QPoint(8, 8)
+        if row >= 0:
+            x, y, w, h = map(float, self.layout_result.boxes[row])
+            at = self.graphics.mapFromScene(self.viewbox.mapViewToScene(QPointF(x + w / 2, y + h / 2)))
+            point = at if self.graphics.rect().contains(at) else point
+        self.menu_requested.emit(ids, self.graphics.mapToGlobal(point))
 
     def _hovered(self, row: int) -> None:
         plan = self.session.plan

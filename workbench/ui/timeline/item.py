@@ -67,13 +67,16 @@ class TimelineItem(pg.GraphicsObject):
         self._cache_at = QPointF()
         self.painted_rows = 0       # rows drawn in the last drawing (for tests and benchmarks)
         self.paint_ms = 0.0         # time of the last paint (for benchmarks)
-        self.on_click = self.on_drag = self.on_hover = None   # set by the view
+        self.on_click = self.on_drag = self.on_hover = self.on_menu = None   # set by the view
 
     # --- gestures (passed to the view, which knows the session) -----------------
     def mouseClickEvent(self, ev) -> None:
         if ev.button() == Qt.MouseButton.LeftButton and self.on_click is not None:
             ev.accept()
             self.on_click(ev.pos(), ev.modifiers())
+        elif ev.button() == Qt.MouseButton.RightButton and self.on_menu is not None:
+            ev.accept()
+            self.on_menu(ev.pos(), ev.screenPos().toPoint())
 
     def mouseDragEvent(self, ev) -> None:
         if ev.button() != Qt.MouseButton.LeftButton or self.on_drag is None:

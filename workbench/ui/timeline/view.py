@@ -10,13 +10,15 @@ draws it and turns gestures into session calls and core commands.
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import QEvent, QObject, Qt, Signal
+from PySide6.QtCore import QEvent, QObject, QPoint, Qt, Signal
 from PySide6.QtGui import QAction, QFont
 from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
 from workbench.figures import style
-from workbench.figures.timeline import bar_span, critical_ids, dragged_estimate, timeline_geometry
+from workbench.figures.timeline import critical_ids, timeline_geometry
 from workbench.ui.session import refresh_when_shown
+from workbench.ui.timeline.bar_drag import BarDrag
+from workbench.ui.timeline.reveal import menu_keys
 from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
@@ -25,7 +27,6 @@ from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
 
 HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
-GRAB_PX = 6.0          # how close to a bar's right end a press starts a duration drag
 
 
 class TimelineView(QWidget):
@@ -33,6 +34,7 @@ class TimelineView(QWidget):
 
     duration_dragging = Signal(str, float)   # activity id, most likely value (continuous)
     duration_dragged = Signal(str, float)    # once, on release (after the edit is pushed)
+    menu_requested = Signal(list, QPoint)    # right-click on a bar: the activities, where (screen)
 
     def __init__(self, session, parent=None):
         super().__init__(parent)
@@ -42,7 +44,6 @@ class TimelineView(QWidget):
         self.late_bars = False
         self.connectors = False
         self._weights = style.SCREEN
-        self._drag = None
         self.present_hint = ""     # keys shown on the Present slide
         self.geometry = None
         self._auto_fit = True      # refit on resize until the user zooms or pans
@@ -72,6 +73,7 @@ class TimelineView(QWidget):
             pi.getAxis(name).setTextPen(pg.mkPen(style.TEXT))
         self.item = TimelineItem(self._weights)
         self.item.on_click, self.item.on_drag, self.item.on_hover = self._click, self._drag_event, self._hover
+        self.item.on_menu = self._menu
         pi.addItem(self.item)
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
@@ -79,6 +81,8 @@ class TimelineView(QWidget):
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
+        self.bar_drag = BarDrag(self)
+        menu_keys(self)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
         self.toolbar = self._toolbar()
@@ -204,11 +208,28 @@ class TimelineView(QWidget):
         else:
             self.session.select([act_id])
 
+    def _menu(self, pos, screen_pos) -> None:
+        """Right-click on an activity's row: it joins (or becomes) the selection and the
+        window offers its menu (``menu_requested``)."""
+        geo = self.geometry
+        row = None if geo is None else geo.row_at(pos.y())
+        if row is None or geo.kinds[row] == "group":
+            return
+        act_id = geo.keys[row]
+        if act_id not in self.session.selected():
+            self.session.select([act_id])
+        self.menu_requested.emit(self.session.selected(), screen_pos)
+
+    def show_activity(self, act_id: str) -> None:
+        """Scroll (same zoom) so the activity's row is on screen, opening its group."""
+        from workbench.ui.timeline.reveal import show_activity
+        show_activity(self, act_id)
+
     def toggle_group(self, name: str) -> None:
         self.collapsed ^= {name}
         self.refresh()
 
-    # --- hover ---------------------------------------------------------------------
+    # --- hover (see bar_drag.py for the grab zone) ------------------------------------
     def _hover(self, pos, screen_pos) -> None:
         geo = self.geometry
         row = None if geo is None or pos is None else geo.row_at(pos.y())
@@ -217,7 +238,7 @@ class TimelineView(QWidget):
             self.item.setToolTip("")
             QToolTip.hideText()
             return
-        near_end = self._near_bar_end(row, pos.x())
+        near_end = self.bar_drag.near_end(row, pos.x())
         self.item.setCursor(Qt.CursorShape.SizeHorCursor if near_end else Qt.CursorShape.ArrowCursor)
         text = tooltip_text(self.session.analysis, self.session.simulation, geo.keys[row])
         if screen_pos is not None:
@@ -226,47 +247,32 @@ class TimelineView(QWidget):
         # under the pointer: with the text on the item it keeps the tooltip, not hides it.
         self.item.setToolTip(text)
 
-    def _near_bar_end(self, row: int, x: float) -> bool:
-        span = bar_span(self.geometry, row)
-        per_px = self.item.pixelWidth() or 0.0
-        return span is not None and abs(x - span[1]) <= GRAB_PX * per_px
-
-    # --- duration drag ------------------------------------------------------------------
+    # --- duration drag (see bar_drag.py) ---------------------------------------------
     def _drag_event(self, phase: str, pos) -> bool:
         """'start' (return True to take the drag), 'move', 'finish' with the pointer in data units."""
         if phase == "start":
             return self._drag_start(pos)
-        if self._drag is None:
+        drag = self.bar_drag
+        if drag.active is None:
             return False
-        act_id, row, es = self._drag
-        act = self.session.plan.activity(act_id)
-        per_unit = self.session.analysis.calendar.per_unit if self.session.analysis is not None else 1
-        changes = dragged_estimate(act, pos.x() - es, resolution=1.0 / per_unit)   # whole working days
-        value = changes.get("most_likely", changes.get("duration"))
         if phase == "move":
-            self.item.set_preview((row, es, es + act.with_(**changes).mean))
-            self.duration_dragging.emit(act_id, float(value))
+            self.duration_dragging.emit(drag.active[0], drag.move(pos.x()))
             return True
-        self._drag = None
-        self.item.set_preview(None)
-        if all(getattr(act, k) == v for k, v in changes.items()):
-            return True                        # released where it started: nothing to undo
-        from workbench.core.commands import EditActivity
-        if self.session.push(EditActivity(act_id, **changes)):
-            self.duration_dragged.emit(act_id, float(value))
+        done = drag.finish(pos.x())
+        if done is not None:
+            self.duration_dragged.emit(*done)
         return True
 
     def cancel_drag(self) -> None:
         """Forget a duration drag in progress (Escape): the plan stays as it was."""
-        self._drag = None
-        self.item.set_preview(None)
+        self.bar_drag.cancel()
 
     def _drag_start(self, pos) -> bool:
         geo = self.geometry
         row = None if geo is None else geo.row_at(pos.y())
-        if row is None or geo.index[row] < 0 or not self._near_bar_end(row, pos.x()):
+        if row is None or geo.index[row] < 0 or not self.bar_drag.near_end(row, pos.x()):
             return False
-        self._drag = (geo.keys[row], row, bar_span(geo, row)[0])
+        self.bar_drag.start(geo.keys[row], row)
         return True
 
     # --- zoom, pan, filters -------------------------------------------------------------
@@ -367,6 +373,7 @@ class TimelineView(QWidget):
         self._fit_label_column()
         self.date_axis.setStyle(tickFont=font)
         self.item.set_weights(self._weights)
+        self.bar_drag.readout.set_font_px(1.15 * self._font().pixelSize())
         if hasattr(self, "toolbar"):
             self.toolbar.setVisible(self._weights is not style.PRESENT)
         self.reference.clear()

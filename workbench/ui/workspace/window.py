@@ -22,6 +22,7 @@ from workbench.ui.session import Session, WhenShown
 from workbench.ui.workspace.screen_fit import first_size, keep_on_screen, scroller
 from workbench.ui.workspace.summary_strip import SummaryStrip
 from workbench.ui.workspace.menus import build_menus
+from workbench.ui.workspace import activity_menu
 
 # (dock title, module, class, what the placeholder promises)
 VIEWS = (
@@ -165,6 +166,7 @@ class MainWindow(QMainWindow):
             widget = make_view(module, cls, self.session, holder) or placeholder(promise, holder)
             self._built[title] = widget
             holder.layout().addWidget(widget)
+            activity_menu.attach(self, title, widget)     # right-click on bars and boxes
         return self._built[title]
 
     def _watch_views(self) -> None:
