@@ -162,10 +162,12 @@ def _take_over(fd: int, keep: Keep, strict: bool) -> None:
 
 
 def write_file(target, fill: Callable[[int], None] | bytes, *, like=None, accept_owner_change: bool = False,
-               sync: bool = True) -> Path:
+               sync: bool = True, check: Callable[[Path], None] | None = None) -> Path:
     """Write ``target`` atomically. ``fill`` is the content (bytes) or a function that
     writes it to the open descriptor it is given. ``like`` is the file whose permissions,
     owner and group the result takes (default: ``target`` itself when it exists).
+    ``check``, when given, is called with the written temporary file before it takes the
+    target's name, and raises (``OSError``) to leave the target unchanged.
 
     Raises :class:`OwnershipChange` before writing when the owner or group cannot be kept
     (unless ``accept_owner_change``); ``OSError`` on failure, the target then unchanged."""
@@ -184,6 +186,8 @@ def write_file(target, fill: Callable[[int], None] | bytes, *, like=None, accept
             _take_over(fd, keep, strict=not accept_owner_change)
         finally:
             os.close(fd)
+        if check is not None:
+            check(tmp)
         os.replace(tmp, target)
     except BaseException:
         _unlink_quietly(tmp)
@@ -201,6 +205,28 @@ def write_with(target, writer: Callable[[object], None], *, accept_owner_change:
         with handle:
             writer(handle)
     return write_file(target, fill, accept_owner_change=accept_owner_change)
+
+
+def parts_filler(parts, digest) -> Callable[[int], None]:
+    """A ``fill`` for :func:`write_file` that writes ``parts`` (bytes, in order) and feeds
+    each to ``digest`` (a hashlib object), to be compared with :func:`file_digest`."""
+    def fill(fd: int) -> None:
+        for part in parts:
+            digest.update(part)
+            _write_fd(fd, part)
+    return fill
+
+
+def file_digest(path, digest) -> str:
+    """``digest`` (a fresh hashlib object) of the file at ``path``, read back from the
+    disk in chunks (hashing a large chunk lets other threads run)."""
+    fd = os.open(path, os.O_RDONLY | getattr(os, "O_BINARY", 0))
+    try:
+        while chunk := os.read(fd, CHUNK):
+            digest.update(chunk)
+    finally:
+        os.close(fd)
+    return digest.hexdigest()
 
 
 def fsync_folder(folder: Path) -> None:
