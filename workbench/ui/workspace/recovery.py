@@ -172,6 +172,20 @@ def write_copy(folder: Path, key: str, source: str | None, plan: Plan) -> Path:
     return path
 
 
+def autosave_copy(folder: Path, key: str, source: str | None, snapshot: Plan, discard) -> Path | None:
+    """The autosave worker's job (plain data only: see :mod:`workbench.ui.workers`): write
+    the copy, unless the window saved or closed meanwhile (``discard``, a
+    ``threading.Event``, is set); a copy that lands after that is removed again, so no
+    copy of outdated work outlives its window. None when nothing was kept."""
+    if discard.is_set():
+        return None
+    path = write_copy(folder, key, source, snapshot)
+    if discard.is_set():
+        remove_copy(folder, key)
+        return None
+    return path
+
+
 def remove_copy(folder: Path, key: str) -> None:
     for suffix in (".slw", ".json", ".slw.bak"):
         try:
