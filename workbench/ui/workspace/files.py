@@ -115,6 +115,8 @@ class FileController(QObject):
             return True
         self._set_path(str(Path(path).resolve()), read_only)
         self.message.emit(f"Opened {Path(path).name}" + (" (read-only)" if read_only else ""))
+        from workbench.ui.workspace.table_transfer import tell_long_texts
+        tell_long_texts(self.widget, plan, Path(path).name)
         return True
 
     def _may_edit(self, path: str):
