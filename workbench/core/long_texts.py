@@ -54,13 +54,16 @@ def long_texts(plan: Plan) -> list[LongText]:
 
 
 def describe(found: list[LongText], shown: int = 5) -> str:
-    """One paragraph for the planner ('' when nothing runs over)."""
+    """What the planner is told, one text per line ('' when nothing runs over)."""
     if not found:
         return ""
-    listed = "; ".join(map(str, found[:shown])) + (f"; and {len(found) - shown:,} more" if len(found) > shown else "")
+    lines = [f"- {item}" for item in found[:shown]]
+    if len(found) > shown:
+        lines.append(f"- and {len(found) - shown:,} more")
     count = "1 text is" if len(found) == 1 else f"{len(found):,} texts are"
-    return (f"{count} longer than Slackline lets you type: {listed}. Every character is kept, and saving keeps "
-            "them; an edit to one of these texts asks you to shorten it to its limit.")
+    return "\n".join([f"{count} longer than Slackline lets you type:", *lines,
+                      "Every character is kept, and saving keeps them. An edit to one of these texts "
+                      "asks you to shorten it to its limit."])
 
 
 def check_entered(activity: Activity, before: Activity | None = None) -> None:

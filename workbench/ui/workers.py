@@ -20,6 +20,7 @@ import functools
 import inspect
 import itertools
 import threading
+import time
 import weakref
 from dataclasses import dataclass, field
 from typing import Any, Callable
@@ -48,6 +49,7 @@ class _Hub(QObject):
 _hub: _Hub | None = None
 _receivers: dict[int, "_Receivers"] = {}
 _tokens = itertools.count(1)
+_threads: set[threading.Thread] = set()     # started and not yet ended
 
 
 def _the_hub() -> _Hub:
@@ -101,6 +103,8 @@ def _run(token: int, work: Callable, args: tuple, kwargs: dict) -> None:
         _post(token, "failed", exc)
     else:
         _post(token, "done", result)
+    finally:
+        _threads.discard(threading.current_thread())
 
 
 class Job:
@@ -170,6 +174,7 @@ def start(work: Callable, *args, on_done: Callable | None = None, on_failed: Cal
     _receivers[token] = _Receivers({"done": _weak(on_done), "failed": _weak(on_failed),
                                     "progress": _weak(on_progress)}, stop)
     thread = threading.Thread(target=_run, args=(token, work, args, kwargs), name=name, daemon=True)
+    _threads.add(thread)
     thread.start()
     return Job(token, thread, stop)
 
@@ -195,3 +200,15 @@ def abandon_within(root: QObject) -> int:
 def pending() -> int:
     """How many started jobs have not reported their end (for tests)."""
     return len(_receivers)
+
+
+def settle(timeout: float) -> list[str]:
+    """Abandon every job and wait, at most ``timeout`` seconds in all, for their threads
+    to end (the test suite does this after each test); the names of those still running."""
+    for entry in _receivers.values():
+        entry.stop.set()
+    _receivers.clear()
+    deadline = time.monotonic() + timeout
+    for thread in list(_threads):
+        thread.join(max(0.0, deadline - time.monotonic()))
+    return sorted(t.name for t in _threads if t.is_alive())
