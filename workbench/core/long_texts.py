@@ -53,17 +53,18 @@ def long_texts(plan: Plan) -> list[LongText]:
     return found
 
 
-def describe(found: list[LongText], shown: int = 5) -> str:
-    """What the planner is told, one text per line ('' when nothing runs over)."""
+def describe(found: list[LongText], shown: int = 5, gap: str = "") -> str:
+    """What the planner is told, one text per line ('' when nothing runs over); ``gap``
+    goes between the heading, the list and the closing sentence (a blank line in a dialog)."""
     if not found:
         return ""
     lines = [f"- {item}" for item in found[:shown]]
     if len(found) > shown:
         lines.append(f"- and {len(found) - shown:,} more")
     count = "1 text is" if len(found) == 1 else f"{len(found):,} texts are"
-    return "\n".join([f"{count} longer than Slackline lets you type:", *lines,
-                      "Every character is kept, and saving keeps them. An edit to one of these texts "
-                      "asks you to shorten it to its limit."])
+    return (f"{count} longer than Slackline lets you type:\n{gap}" + "\n".join(lines)
+            + f"\n{gap}Every character is kept, and saving keeps them. An edit to one of these texts "
+            "asks you to shorten it to its limit.")
 
 
 def check_entered(activity: Activity, before: Activity | None = None) -> None:

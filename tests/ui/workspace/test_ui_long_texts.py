@@ -25,7 +25,7 @@ def test_opening_says_which_texts_run_long_and_keeps_them(window, ui_env, tmp_pa
     assert window.files.open_path(str(path))
     [(_, (parent, title, message))] = [a for a in ui_env.asked if a[0] == "show_info"]
     assert title == "Long texts kept"
-    assert message.startswith("chilled.slw: 1 text is longer than Slackline lets you type:\n- activity D: name")
+    assert message.startswith("chilled.slw: 1 text is longer than Slackline lets you type:\n\n- activity D: name")
     assert window.session.plan.activity("D").name == NAME
 
 

@@ -51,7 +51,7 @@ def import_table(widget, session: Session, path: str, start_new=None) -> bool:
 def tell_long_texts(widget, plan: Plan, name: str) -> None:
     """Say which texts run over the entry limits (kept whole, never refused)."""
     from workbench.core.long_texts import describe, long_texts
-    note = describe(long_texts(plan))
+    note = describe(long_texts(plan), gap="\n")
     if note:
         prompts.show_info(widget, "Long texts kept", f"{name}: {note}")
 
