@@ -111,3 +111,16 @@ def test_closing_a_window_abandons_the_jobs_of_what_it_holds(qtbot):
     assert job.wait(10)
     qtbot.wait(20)
     assert inner.got == []
+
+
+def test_a_live_plan_is_refused_but_its_snapshot_is_plain(qtbot):
+    from support.ui import sample_plan
+    from workbench.ui.session import Session
+    session, receiver = Session(sample_plan()), Receiver()
+    session.plan.subscribe(receiver.step)           # as the Activities table does
+    with pytest.raises(TypeError, match="with listeners"):
+        workers.start(len, session.plan.activities, session.plan)
+    job = workers.start(len, session.plan.snapshot().activities, on_done=receiver.take)
+    assert job.wait(10)
+    qtbot.waitUntil(lambda: bool(receiver.got), timeout=10_000)
+    assert receiver.got == [(len(session.plan.activities), True)]

@@ -155,6 +155,10 @@ def check_plain(work: Callable, args: tuple, kwargs: dict) -> None:
     culprit = next((v for v in values if _is_qt(v)), None)
     if culprit is not None:
         raise TypeError(f"a worker takes plain data only, not {type(culprit).__name__} (see workbench/ui/workers.py)")
+    live = next((v for v in values if getattr(v, "_listeners", None)), None)
+    if live is not None:     # a session's own plan: its listeners are the session's methods
+        raise TypeError(f"a worker takes plain data only, not a {type(live).__name__} with listeners "
+                        "(hand it .copy() or .snapshot())")
 
 
 def start(work: Callable, *args, on_done: Callable | None = None, on_failed: Callable | None = None,
