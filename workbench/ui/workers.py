@@ -168,6 +168,8 @@ def start(work: Callable, *args, on_done: Callable | None = None, on_failed: Cal
     gets ``cancel=`` (a function true once :meth:`Job.stop` is called); with
     ``on_progress`` it gets ``progress=`` (call it with numbers). ``on_done(result)`` /
     ``on_failed(exception)`` / ``on_progress(*numbers)`` run on the window's thread."""
+    if threading.current_thread() is not threading.main_thread():
+        raise RuntimeError("workers.start is called on the window's thread (the hub lives there)")
     check_plain(work, args, kwargs)
     _the_hub()
     token, stop = next(_tokens), threading.Event()
