@@ -85,3 +85,10 @@ def test_hash_changes_when_an_estimate_changes(plan, bump):
     changed = plan.copy()
     changed.replace_activity(first.id, new)
     assert plan_hash(changed) != plan_hash(plan)
+
+
+@settings(max_examples=80, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(plans())
+def test_the_pieces_an_autosave_writes_are_the_plan_file_bytes(plan):
+    from workbench.io.planfile import encode_parts, encode_plan
+    assert b"".join(encode_parts(plan)) == encode_plan(plan)

@@ -66,13 +66,15 @@ def test_long_cover_texts_are_shortened_with_an_ellipsis(tmp_path):
     assert "Planning office" in cover
 
 
-def test_text_past_the_entry_limits_is_refused_naming_the_field():
+def test_text_past_the_entry_limits_is_refused_at_entry_naming_the_field():
+    from workbench.core.commands import AddActivity, SetSettings, settings_with
+    plan = _chain(3)
     with pytest.raises(PlanError, match="prepared by"):
-        Settings(prepared_by="x" * (TEXT_LIMITS["prepared by"] + 1)).validated()
+        SetSettings(settings_with(plan.settings, prepared_by="x" * (TEXT_LIMITS["prepared by"] + 1))).do(plan)
     with pytest.raises(PlanError, match="revision"):
-        Settings(revision="x" * (TEXT_LIMITS["revision"] + 1)).validated()
+        SetSettings(settings_with(plan.settings, revision="x" * (TEXT_LIMITS["revision"] + 1))).do(plan)
     with pytest.raises(PlanError) as err:
-        Activity("K1", "n" * (TEXT_LIMITS["name"] + 1), duration=1).validated()
+        AddActivity(Activity("K1", "n" * (TEXT_LIMITS["name"] + 1), duration=1)).do(plan)
     assert err.value.culprit == "K1" and "name" in str(err.value)
 
 

@@ -10,7 +10,7 @@ import sys
 from pathlib import Path
 
 from ..core.errors import PlanError
-from ..core.model import MAX_UNITS, check_date
+from ..core.model import MAX_UNITS, check_date, check_length
 
 PLAN_SUFFIXES = (".slw", ".csv", ".xlsx")
 MAX_ITERATIONS = 10_000_000
@@ -64,7 +64,7 @@ def load_plan_with_settings(args):
             raise PlanError(f"--start: {args.start!r} is not a date YYYY-MM-DD", "--start") from None
     title = getattr(args, "title", None)
     if title is not None and title.strip():
-        changes["title"] = title.strip()
+        changes["title"] = check_length(title.strip(), "--title", "title", "--title")
     elif Path(args.plan).suffix.lower() != ".slw":
         changes["title"] = Path(args.plan).stem
     if changes:
@@ -88,8 +88,17 @@ def load_plan_file(path: str):
         from ..io.tabular import load_any
 
     plan = load_any(p)
+    _note_long_texts(plan, p.name)
     gc.freeze()     # a verb keeps its plan to the end: later collections need not scan it
     return plan
+
+
+def _note_long_texts(plan, name: str) -> None:
+    """Texts over the entry limits are kept whole; say which, on stderr."""
+    from ..core.long_texts import describe, long_texts
+    note = describe(long_texts(plan))
+    if note:
+        print(f"note: {name}: {note}", file=sys.stderr)
 
 
 def write_json(obj) -> None:

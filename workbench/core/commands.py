@@ -15,6 +15,7 @@ from dataclasses import fields, replace
 from typing import Iterable, Sequence
 
 from .errors import PlanError
+from .long_texts import check_entered, check_entered_settings
 from .model import Activity, Link, Plan, Settings
 
 ACTIVITY_FIELDS = tuple(f.name for f in fields(Activity))
@@ -47,7 +48,9 @@ class EditActivity(Command):
 
     def do(self, plan: Plan) -> None:
         old = plan.activity(self.act_id)
-        plan.replace_activity(self.act_id, old.with_(**self.changes))
+        new = old.with_(**self.changes)
+        check_entered(new, old)                     # a text typed now keeps to its limit
+        plan.replace_activity(self.act_id, new)
         self.old = old
         changed = [k for k, v in self.changes.items() if getattr(old, k) != v]
         if changed:   # the history names what changed, not every field the gesture touched
@@ -69,6 +72,7 @@ class AddActivity(Command):
         self._old_links: list[Link] | None = None
 
     def do(self, plan: Plan) -> None:
+        check_entered(self.activity)
         row = len(plan) if self.row is None else self.row
         plan.insert_activity(row, self.activity)
         if self.links:
@@ -97,6 +101,8 @@ class AddActivities(Command):
         self._done = 0
 
     def do(self, plan: Plan) -> None:
+        for act in self.activities:                 # a paste is entry: its texts keep to the limits
+            check_entered(act)
         row = len(plan) if self.row is None else self.row
         self._done = 0
         try:
@@ -206,6 +212,7 @@ class SetSettings(Command):
         self._old: Settings | None = None
 
     def do(self, plan: Plan) -> None:
+        check_entered_settings(self.settings, plan.settings)
         self._old = plan.set_settings(self.settings)
 
     def undo(self, plan: Plan) -> None:

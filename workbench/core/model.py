@@ -32,6 +32,7 @@ MAX_UNITS = 1_000_000.0
 EARLIEST_DATE = dt.date(1900, 1, 1)
 # Longest text each field takes at entry: room for any real name or note, while a pasted
 # essay is refused by name (the approval pack also shortens, with an ellipsis, what it prints).
+# Entry only: a plan loaded with longer text keeps it whole (core/long_texts.py says which).
 TEXT_LIMITS = {"name": 500, "group": 200, "notes": 20_000, "title": 300, "revision": 100,
                "prepared by": 200, "sign-off name": 200, "sign-off role": 200}
 LATEST_DATE = dt.date(2200, 12, 31)
@@ -73,11 +74,19 @@ def check_demands(act: "Activity") -> None:
             raise PlanError(f"activity {act.id}: units of resource {res} must not be negative ({units:g})", act.id)
 
 
-def check_length(value, owner: str, field_name: str, culprit: str | None = None) -> str:
-    """Text of at most ``TEXT_LIMITS[field_name]`` characters, else PlanError naming it
-    (``check_text`` from ``.text`` checks that the file can hold it)."""
+def check_kind(value, owner: str, field_name: str, culprit: str | None = None) -> str:
+    """Text, else PlanError naming it. A plan holds text of any length: a file written
+    before the limits, or by another tool, opens whole (see ``core/long_texts.py``)."""
     if not isinstance(value, str):
         raise PlanError(f"{owner}: {field_name} must be text, not {type(value).__name__}", culprit or owner)
+    return value
+
+
+def check_length(value, owner: str, field_name: str, culprit: str | None = None) -> str:
+    """Text of at most ``TEXT_LIMITS[field_name]`` characters, else PlanError naming it:
+    the limit on text *entered* (an edit, a paste); see ``core/long_texts.py``
+    (``check_text`` from ``.text`` checks that the file can hold it)."""
+    check_kind(value, owner, field_name, culprit)
     limit = TEXT_LIMITS[field_name]
     if len(value) > limit:
         raise PlanError(f"{owner}: {field_name} is {len(value):,} characters long; use at most {limit:,} "
@@ -154,8 +163,8 @@ class Activity:
         if self._plainly_valid():
             return self
         check_id(self.id)
-        for name in ("name", "group", "notes"):
-            check_length(getattr(self, name), f"activity {self.id}", name, self.id)
+        for name in ("name", "group", "notes"):    # the length is checked at entry (see check_length)
+            check_kind(getattr(self, name), f"activity {self.id}", name, self.id)
         a = _check_number(self.optimistic, self.id, "optimistic")
         m = _check_number(self.most_likely, self.id, "most likely")
         b = _check_number(self.pessimistic, self.id, "pessimistic")
@@ -316,10 +325,10 @@ class Settings:
 
     def _check_texts(self) -> None:
         for name, value in (("title", self.title), ("revision", self.revision), ("prepared by", self.prepared_by)):
-            check_length(value, "settings", name, name)
+            check_kind(value, "settings", name, name)
         for k, person in enumerate(self.sign_off, 1):
-            check_length(person.name, f"settings: sign-off row {k}", "sign-off name", "sign_off")
-            check_length(person.role, f"settings: sign-off row {k}", "sign-off role", "sign_off")
+            check_kind(person.name, f"settings: sign-off row {k}", "sign-off name", "sign_off")
+            check_kind(person.role, f"settings: sign-off row {k}", "sign-off role", "sign_off")
 
 
 @dataclass(frozen=True)

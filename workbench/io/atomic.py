@@ -8,7 +8,11 @@ operating system allows, the owner and group — of the file it replaces, then r
 the target. The target's name therefore always holds the old or the new content.
 
 A process killed while writing leaves its temporary file behind; the next write to the
-same target removes the ones whose process is gone (:func:`sweep_leftovers`).
+same target removes the ones whose process is gone (:func:`sweep_leftovers`; on Windows,
+the ones over an hour old).
+
+Owner and group are kept on POSIX systems only; on Windows the replaced file takes its
+access from its folder, as any new file there does (:func:`ownership_problem`).
 
 All system calls go through this module's ``os`` name, one at a time, so a test can stop
 the write between any two of them.
@@ -24,6 +28,7 @@ import secrets
 import socket
 import stat
 import threading
+import time
 from dataclasses import dataclass
 from pathlib import Path
 from typing import Callable
@@ -33,6 +38,7 @@ from workbench.core.errors import PlanError
 CHUNK = 1 << 20
 _TEMP = re.compile(r"^\.(?P<name>.+)\.(?P<host>[0-9a-f]{4})-(?P<pid>\d+)-[0-9a-f]{12}\.tmp$")
 _UMASK_LOCK = threading.Lock()
+LEFTOVER_AGE_S = 3600   # Windows: a temporary file this old was left by a write that ended
 
 
 class OwnershipChange(PlanError):
@@ -89,9 +95,11 @@ def ownership_problem(like: Path, keep: Keep | None = None) -> str | None:
     """What a save by this user would change about ``like``'s owner or group, or None.
 
     A user may keep a file's group when they belong to it; only an administrator may give
-    a file to another owner."""
+    a file to another owner. POSIX only: on Windows a file's owner and access are its
+    access control list, which a replaced file takes from its folder; Slackline neither
+    copies nor checks it there (None), and keeps only the read-only flag of the mode."""
     keep = keep or keep_of(like)
-    if keep.uid is None or not hasattr(os, "geteuid"):
+    if keep.uid is None or os.name == "nt" or not hasattr(os, "geteuid"):
         return None
     euid = os.geteuid()
     if euid == 0:
@@ -143,8 +151,9 @@ def _write_fd(fd: int, data) -> None:
 
 
 def _take_over(fd: int, keep: Keep, strict: bool) -> None:
-    """Give the temporary file the owner, group and mode it must end with."""
-    if keep.uid is not None and hasattr(os, "fchown"):
+    """Give the temporary file the owner, group and mode it must end with (the owner and
+    group on POSIX only: see :func:`ownership_problem`)."""
+    if keep.uid is not None and os.name != "nt" and hasattr(os, "fchown"):
         try:
             os.fchown(fd, keep.uid, keep.gid)
         except PermissionError:
@@ -157,15 +166,17 @@ def _take_over(fd: int, keep: Keep, strict: bool) -> None:
             if strict and os.fstat(fd).st_uid != keep.uid:
                 raise OwnershipChange("the operating system does not let this user keep the file's owner; "
                                       "nothing was saved", "owner")
-    if hasattr(os, "fchmod"):
+    if hasattr(os, "fchmod"):   # POSIX; Windows from Python 3.13 (the read-only flag only)
         os.fchmod(fd, keep.mode)
 
 
 def write_file(target, fill: Callable[[int], None] | bytes, *, like=None, accept_owner_change: bool = False,
-               sync: bool = True) -> Path:
+               sync: bool = True, check: Callable[[Path], None] | None = None) -> Path:
     """Write ``target`` atomically. ``fill`` is the content (bytes) or a function that
     writes it to the open descriptor it is given. ``like`` is the file whose permissions,
     owner and group the result takes (default: ``target`` itself when it exists).
+    ``check``, when given, is called with the written temporary file before it takes the
+    target's name, and raises (``OSError``) to leave the target unchanged.
 
     Raises :class:`OwnershipChange` before writing when the owner or group cannot be kept
     (unless ``accept_owner_change``); ``OSError`` on failure, the target then unchanged."""
@@ -184,6 +195,8 @@ def write_file(target, fill: Callable[[int], None] | bytes, *, like=None, accept
             _take_over(fd, keep, strict=not accept_owner_change)
         finally:
             os.close(fd)
+        if check is not None:
+            check(tmp)
         os.replace(tmp, target)
     except BaseException:
         _unlink_quietly(tmp)
@@ -203,6 +216,28 @@ def write_with(target, writer: Callable[[object], None], *, accept_owner_change:
     return write_file(target, fill, accept_owner_change=accept_owner_change)
 
 
+def parts_filler(parts, digest) -> Callable[[int], None]:
+    """A ``fill`` for :func:`write_file` that writes ``parts`` (bytes, in order) and feeds
+    each to ``digest`` (a hashlib object), to be compared with :func:`file_digest`."""
+    def fill(fd: int) -> None:
+        for part in parts:
+            digest.update(part)
+            _write_fd(fd, part)
+    return fill
+
+
+def file_digest(path, digest) -> str:
+    """``digest`` (a fresh hashlib object) of the file at ``path``, read back from the
+    disk in chunks (hashing a large chunk lets other threads run)."""
+    fd = os.open(path, os.O_RDONLY | getattr(os, "O_BINARY", 0))
+    try:
+        while chunk := os.read(fd, CHUNK):
+            digest.update(chunk)
+    finally:
+        os.close(fd)
+    return digest.hexdigest()
+
+
 def fsync_folder(folder: Path) -> None:
     """Make a rename durable; not every OS lets a folder be opened (then skip)."""
     if os.name == "nt":
@@ -220,7 +255,8 @@ def fsync_folder(folder: Path) -> None:
 
 
 def _pid_gone(pid: int) -> bool:
-    if pid == os.getpid() or os.name == "nt":  # Windows: os.kill would end the process
+    """POSIX: True when no process ``pid`` runs (signal 0 only asks)."""
+    if pid == os.getpid():
         return False
     try:
         os.kill(pid, 0)
@@ -231,9 +267,29 @@ def _pid_gone(pid: int) -> bool:
     return False
 
 
+def _left_behind(path: Path, pid: int) -> bool:
+    """Was the temporary file ``path`` (written by process ``pid``) left by a write that
+    can no longer finish?
+
+    POSIX: its process is gone. Windows has no harmless way to ask that (``os.kill``
+    there *ends* the process whatever the signal), so there a leftover counts as left
+    behind only when it is older than :data:`LEFTOVER_AGE_S` — no save takes that long —
+    and Windows itself refuses to delete a file a running save still holds open. (The
+    Windows rule is tested by simulating ``os.name``; it has not been run on Windows.)"""
+    if pid == os.getpid():
+        return False
+    if os.name != "nt":
+        return _pid_gone(pid)
+    try:
+        return time.time() - os.stat(path).st_mtime > LEFTOVER_AGE_S
+    except OSError:
+        return False
+
+
 def sweep_leftovers(target) -> list[Path]:
     """Remove temporary files a killed write to ``target`` left behind: only ours (this
-    host, a process that no longer runs), never another user's or a running save's."""
+    host, a write that can no longer finish: :func:`_left_behind`), never another user's
+    or a running save's."""
     target = Path(target)
     removed = []
     try:
@@ -243,7 +299,8 @@ def sweep_leftovers(target) -> list[Path]:
     host = _host_tag()
     for name in names:
         m = _TEMP.match(name)
-        if m and m["name"] == target.name and m["host"] == host and _pid_gone(int(m["pid"])):
+        if m and m["name"] == target.name and m["host"] == host \
+                and _left_behind(target.parent / name, int(m["pid"])):
             if _unlink_quietly(target.parent / name):
                 removed.append(target.parent / name)
     return removed

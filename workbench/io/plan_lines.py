@@ -48,7 +48,8 @@ def _covered(layout) -> bool:
     """Does the line pattern still write exactly what the plain writer writes? (Checked
     once, on a sample plan: a field added to the layout makes this False.)"""
     plan = _sample_plan()
-    return _fast(plan, layout) == layout(plan_to_dict(plan)) + "\n"
+    parts = _fast(plan, layout)
+    return parts is not None and "".join(parts) == layout(plan_to_dict(plan)) + "\n"
 
 
 def _texts(values) -> list[str] | None:
@@ -99,28 +100,58 @@ def link_lines(links: list[Link]) -> list[str] | None:
     return [LINK_LINE % row for row in zip(*cols)]
 
 
-def _block(lines: list[str]) -> str:
-    """A list at depth 1 as the plain writer lays it out: one entry per line."""
-    return "[\n  " + ",\n  ".join(lines) + "\n ]" if lines else "[]"
+SLICE = 2000   # lines joined at a time: no single step holds Python's lock for long
+
+
+def _block(lines: list[str]) -> list[str]:
+    """A list at depth 1 as the plain writer lays it out (one entry per line), in pieces of
+    :data:`SLICE` lines."""
+    if not lines:
+        return ["[]"]
+    parts = ["[\n  "]
+    for start in range(0, len(lines), SLICE):
+        parts += [",\n  "] if start else []
+        parts.append(",\n  ".join(lines[start:start + SLICE]))
+    return parts + ["\n ]"]
+
+
+def _sliced(make, items) -> list[str] | None:
+    """``make(items)`` a slice at a time (each step over the columns stays short)."""
+    lines: list[str] = []
+    for start in range(0, len(items), SLICE):
+        part = make(items[start:start + SLICE])
+        if part is None:
+            return None
+        lines += part
+    return lines
 
 
 def fast_dumps(plan, layout) -> str | None:
     """The plan file text, the same as ``layout(plan_to_dict(plan)) + "\\n"``; None when
     this writer cannot vouch for that (the caller then uses the plain writer)."""
+    parts = fast_parts(plan, layout)
+    return None if parts is None else "".join(parts)
+
+
+def fast_parts(plan, layout) -> list[str] | None:
+    """:func:`fast_dumps` as a list of pieces (none larger than :data:`SLICE` lines), for
+    a writer that must not hold Python's lock long (the autosave's worker thread)."""
     if layout not in _COVERED:
         _COVERED[layout] = _covered(layout)
     return _fast(plan, layout) if _COVERED[layout] else None
 
 
-def _fast(plan, layout) -> str | None:
-    acts, links = activity_lines(plan.activities), link_lines(plan.links)
+def _fast(plan, layout) -> list[str] | None:
+    acts, links = _sliced(activity_lines, plan.activities), _sliced(link_lines, plan.links)
     if acts is None or links is None:
         return None
     data = plan_to_dict(plan, rows=False)
     blocks = {"activities": _block(acts), "links": _block(links)}
-    body = ",\n".join(f" {json.dumps(k, ensure_ascii=False)}: {blocks[k] if k in blocks else layout(v, 1)}"
-                      for k, v in data.items())
-    return "{\n" + body + "\n}\n"
+    parts = ["{\n"]
+    for n, (key, value) in enumerate(data.items()):
+        parts.append((",\n" if n else "") + f" {json.dumps(key, ensure_ascii=False)}: ")
+        parts += blocks[key] if key in blocks else [layout(value, 1)]
+    return parts + ["\n}\n"]
 
 
 _COVERED: dict = {}

@@ -22,7 +22,7 @@ from .safe_read import NotReadable, read_regular_file
 from .paused_gc import paused_gc
 from .plan_bulk import bulk_plan_data
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
-from .plan_lines import fast_dumps
+from .plan_lines import fast_dumps, fast_parts
 from .plan_migrate import upgrade
 
 __all__ = ["FORMAT", "VERSION", "OwnershipChange", "PlanFileError", "load_plan", "save_plan", "plan_to_dict",
@@ -144,12 +144,34 @@ def encode_plan(plan: Plan) -> bytes:
         data = text.encode("utf-8")
     except UnicodeEncodeError:
         raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
-    if len(data) > MAX_BYTES:
-        raise PlanFileError(f"not saved: the plan file would be {len(data) / 2**20:,.0f} MB, more than the "
-                            f"{MAX_BYTES / 2**20:,.0f} MB a plan file may hold; split the plan into smaller plans",
-                            "size")
+    _refuse_oversize(len(data))
     loads(data, "not saved")  # never write a file we could not read back
     return data
+
+
+def encode_parts(plan: Plan) -> list[bytes]:
+    """The bytes :func:`encode_plan` gives, in pieces, each made in short steps so that a
+    worker thread writing them (the autosave) never holds Python's lock for long; without
+    the read-back parse (the caller checks what it wrote against these bytes instead).
+    Refused, naming the field, as :func:`encode_plan` refuses."""
+    with paused_gc():
+        texts = fast_parts(plan, _layout)
+        if texts is None:
+            whole = _layout(plan_to_dict(plan)) + "\n"
+            texts = [whole[i:i + atomic.CHUNK] for i in range(0, len(whole), atomic.CHUNK)]
+        try:
+            parts = [text.encode("utf-8") for text in texts]
+        except UnicodeEncodeError:
+            raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
+    _refuse_oversize(sum(map(len, parts)))
+    return parts
+
+
+def _refuse_oversize(size: int) -> None:
+    if size > MAX_BYTES:
+        raise PlanFileError(f"not saved: the plan file would be {size / 2**20:,.0f} MB, more than the "
+                            f"{MAX_BYTES / 2**20:,.0f} MB a plan file may hold; split the plan into smaller plans",
+                            "size")
 
 
 def storable_copy(plan: Plan) -> Plan:

@@ -117,14 +117,20 @@ def test_the_table_model_passes_the_model_tester(view, qtmodeltester):
     qtmodeltester.check(view.model)
 
 
-def test_while_a_new_run_is_checked_the_odds_checks_say_so(qtbot):
+def test_while_a_new_run_is_checked_the_odds_checks_say_so(qtbot, monkeypatch):
+    import threading
+
+    from workbench.ui.checkup import keeper as keeper_module
     from workbench.ui.checkup.keeper import WORKING, CheckupKeeper
+    release, replay = threading.Event(), keeper_module.replay_checks
+    monkeypatch.setattr(keeper_module, "replay_checks", lambda *a: (release.wait(30), replay(*a))[1])
     session = Session(sample_plan())
     keeper = CheckupKeeper(session, threaded=True)
-    keeper._run_odds = lambda *args: None          # the worker never reports: we see the waiting state
     session.set_simulation(simulate(session.plan, 500, seed=2))
-    assert keeper.checkup.get("merge_hot_spots").note == WORKING
+    assert keeper.checkup.get("merge_hot_spots").note == WORKING     # the worker has not reported yet
     assert keeper.checkup.get("odds_disagreement").note == WORKING
+    release.set()
+    qtbot.waitUntil(lambda: keeper.checkup.get("merge_hot_spots").note != WORKING, timeout=10_000)
 
 
 def test_a_wide_window_shows_every_threshold_whole_and_a_dock_keeps_the_figures(qtbot):

@@ -177,17 +177,17 @@ def test_opening_a_pipe_is_refused_not_waited_on(window, ui_env, tmp_path):
 def test_autosave_writes_a_snapshot_in_a_worker_thread(window, ui_env, tmp_path, monkeypatch):
     window.session.push(EditActivity("R", name="Before the autosave"))
     started, release = threading.Event(), threading.Event()
-    store = window.files.store
-    real_write = store.write
+    from workbench.ui.workspace import recovery
+    real_write = recovery.write_copy
     writers = []
 
-    def slow_write(plan):
+    def slow_write(*args):
         writers.append(threading.current_thread())
         started.set()
         release.wait(10)
-        return real_write(plan)
+        return real_write(*args)
 
-    monkeypatch.setattr(store, "write", slow_write)
+    monkeypatch.setattr(recovery, "write_copy", slow_write)
     assert window.files.autosave()  # returns while the copy is still being written
     assert started.wait(10) and writers[0] is not threading.main_thread()
     assert window.files.autosave_running

@@ -4,17 +4,17 @@ Edits arrive fast while a planner types: the checks run once the edits pause
 (:data:`PAUSE_MS`), on the main thread, where they take a few milliseconds (under 50 ms at
 10,000 activities, see benchmarks/bench_checkup.py). The simulation-based checks need a
 replay of the run, so they run in a worker thread when a new simulation arrives, on a copy
-of the plan; after an edit they are kept from the last run and say that it is stale.
+of the plan (plain data, by the rule in :mod:`workbench.ui.workers`); after an edit they are kept from the last run and say that it is stale.
 """
 
 from __future__ import annotations
 
-import threading
 from dataclasses import replace
 
 from PySide6.QtCore import QObject, QTimer, Signal
 
 from workbench.core.checkup import frame_for, odds_checks, run_checkup
+from workbench.ui import workers
 
 PAUSE_MS = 150
 WORKING = "Checking the last simulation run\u2026"
@@ -24,7 +24,6 @@ class CheckupKeeper(QObject):
     """``updated`` fires with each new :class:`~workbench.core.checkup_result.Checkup`."""
 
     updated = Signal(object)
-    _odds_ready = Signal(int, object)
 
     def __init__(self, session, threaded: bool = True):
         super().__init__(session)
@@ -39,7 +38,6 @@ class CheckupKeeper(QObject):
         self._timer.setSingleShot(True)
         self._timer.setInterval(PAUSE_MS)
         self._timer.timeout.connect(self.recompute)
-        self._odds_ready.connect(self._take_odds)
         session.schedule_changed.connect(self._on_schedule)
         session.simulation_changed.connect(self._on_simulation)
         self.recompute()
@@ -60,23 +58,14 @@ class CheckupKeeper(QObject):
         self._odds_stale = False
         self._pending, self._odds = True, None
         plan, generation = self.session.plan.copy(), self._generation
-        if self.threaded:
-            threading.Thread(target=self._run_odds, args=(plan, sim, generation), daemon=True).start()
+        if self.threaded:            # plain data in, the result back through the workers' hub
+            workers.start(replay_checks, plan, sim, generation, on_done=self._take_odds, name="slackline-checkup")
             self.recompute()             # "checking the last run" meanwhile
         else:
-            self._run_odds(plan, sim, generation)
+            self._take_odds(replay_checks(plan, sim, generation))
 
-    def _run_odds(self, plan, sim, generation: int) -> None:
-        try:
-            checks = odds_checks(frame_for(plan), sim)
-        except Exception:            # a failed replay leaves the odds checks not applicable
-            checks = None
-        try:
-            self._odds_ready.emit(generation, checks)
-        except RuntimeError:         # the plan was closed meanwhile
-            pass
-
-    def _take_odds(self, generation: int, checks) -> None:
+    def _take_odds(self, result) -> None:
+        generation, checks = result
         if generation == self._generation:
             self._odds, self._pending = checks, False
             self.recompute()
@@ -98,6 +87,15 @@ class CheckupKeeper(QObject):
 
     def summary_text(self) -> str:
         return "Checkup: cannot run" if self.checkup is None else self.checkup.summary_text()
+
+
+def replay_checks(plan, sim, generation: int):
+    """The worker's job: the simulation-based checks of ``sim`` on a copy of the plan
+    (None when the replay fails: those checks are then not applicable)."""
+    try:
+        return generation, odds_checks(frame_for(plan), sim)
+    except Exception:  # noqa: BLE001
+        return generation, None
 
 
 def checkup_keeper(session, threaded: bool = True) -> CheckupKeeper:

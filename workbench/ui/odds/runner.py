@@ -1,47 +1,22 @@
 """Run a Monte Carlo simulation off the GUI thread, with progress and cancel.
 
-The worker simulates a *copy* of the plan, so edits made while it runs cannot reach it;
-each run carries a ticket, and the view decides whether the plan changed meanwhile.
-A cancelled or failed run delivers no result at all.
+The worker simulates a *copy* of the plan (plain data, by the rule in
+:mod:`workbench.ui.workers`), so edits made while it runs cannot reach it; the view
+decides whether the plan changed meanwhile. A cancelled or failed run delivers no result
+at all, and neither does a run the view abandoned by closing.
 """
 
 from __future__ import annotations
 
-import threading
+from PySide6.QtCore import QObject, Signal
 
-from PySide6.QtCore import QObject, QRunnable, QThreadPool, Signal
-
-
-class _Signals(QObject):
-    progress = Signal(int, int, int)        # ticket, done, total
-    finished = Signal(int, object)          # ticket, SimulationResult
-    cancelled = Signal(int)
-    failed = Signal(int, str)
+from workbench.ui import workers
 
 
-class _Job(QRunnable):
-    def __init__(self, ticket: int, plan, kwargs: dict, signals: _Signals, stop: threading.Event):
-        super().__init__()
-        self.setAutoDelete(True)
-        self.ticket, self.plan, self.kwargs = ticket, plan, kwargs
-        self.signals, self.stop = signals, stop
-
-    def run(self) -> None:  # noqa: D401 (Qt override)
-        from workbench.core.errors import PlanError
-        from workbench.core.montecarlo import SimulationCancelled, simulate
-        try:
-            result = simulate(self.plan, progress=self._progress, cancel=self.stop.is_set, **self.kwargs)
-        except SimulationCancelled:
-            self.signals.cancelled.emit(self.ticket)
-        except (PlanError, ValueError) as exc:
-            self.signals.failed.emit(self.ticket, str(exc))
-        except Exception as exc:  # an engine bug must not take the window down
-            self.signals.failed.emit(self.ticket, f"simulation failed: {type(exc).__name__}: {exc}")
-        else:
-            self.signals.finished.emit(self.ticket, result)
-
-    def _progress(self, done: int, total: int) -> None:
-        self.signals.progress.emit(self.ticket, int(done), int(total))
+def simulate_copy(plan, iterations: int, seed, progress, cancel):
+    """The worker's whole job (plain data in, a SimulationResult out)."""
+    from workbench.core.montecarlo import simulate
+    return simulate(plan, iterations=iterations, seed=seed, progress=progress, cancel=cancel)
 
 
 class OddsRunner(QObject):
@@ -55,65 +30,63 @@ class OddsRunner(QObject):
 
     def __init__(self, parent: QObject | None = None):
         super().__init__(parent)
-        self.pool = QThreadPool(self)
-        self.pool.setMaxThreadCount(1)
-        # No parent: a job still running when the runner goes away keeps its own reference,
-        # and Qt drops the queued connections to the deleted runner.
-        self._signals = _Signals()
-        self._signals.progress.connect(self._on_progress)
-        self._signals.finished.connect(self._on_finished)
-        self._signals.cancelled.connect(self._on_cancelled)
-        self._signals.failed.connect(self._on_failed)
-        self._ticket = 0
-        self._stop: threading.Event | None = None
+        self._job: workers.Job | None = None     # the run whose reports come through
+        self._last: workers.Job | None = None    # the run started last (for wait)
 
     @property
     def running(self) -> bool:
-        return self._stop is not None
+        return self._job is not None
 
     def start(self, plan, iterations: int, seed: int | None) -> None:
-        """Simulate a copy of ``plan``; stops any run still going."""
-        self.stop()
-        self._ticket += 1
-        self._stop = threading.Event()
-        kwargs = {"iterations": int(iterations), "seed": seed}
-        self.pool.start(_Job(self._ticket, plan.copy(), kwargs, self._signals, self._stop))
+        """Simulate a copy of ``plan``; a run still going is abandoned (it stops, and
+        nothing it reports comes through)."""
+        if self._job is not None:
+            self._job.abandon()
+        self._job = workers.start(simulate_copy, plan.copy(), int(iterations), seed, cancellable=True,
+                                  on_done=self._on_finished, on_failed=self._on_failed,
+                                  on_progress=self._on_progress, name="slackline-odds")
+        self._last = self._job
         self.running_changed.emit(True)
 
     def stop(self) -> None:
         """Ask the current run to stop; it reports ``cancelled`` and leaves no result."""
-        if self._stop is not None:
-            self._stop.set()
+        if self._job is not None:
+            self._job.stop()
 
-    def wait(self, msecs: int = -1) -> bool:
-        return self.pool.waitForDone(msecs)
+    def abandon(self) -> None:
+        """Stop the current run and drop whatever it still reports (the view is closing)."""
+        if self._job is not None:
+            self._job.abandon()
+            self._job = None
+            self.running_changed.emit(False)
 
-    def _current(self, ticket: int) -> bool:
-        return ticket == self._ticket and self._stop is not None
+    def wait(self, msecs: int = 30_000) -> bool:
+        """Wait at most ``msecs`` for the current run to end; True when none runs."""
+        return self._last is None or self._last.wait(msecs / 1000)
 
-    def _end(self) -> None:
-        self._stop = None
+    def _end(self) -> bool:
+        """The current run has ended; True when it was asked to stop."""
+        stopping, self._job = self._job.stopping, None
         self.running_changed.emit(False)
+        return stopping
 
-    def _on_progress(self, ticket: int, done: int, total: int) -> None:
-        if self._current(ticket) and not self._stop.is_set():
-            self.progress.emit(done, total)
+    def _on_progress(self, done: int, total: int) -> None:
+        if self._job is not None and not self._job.stopping:
+            self.progress.emit(int(done), int(total))
 
-    def _on_finished(self, ticket: int, result) -> None:
-        if self._current(ticket):
-            cancelled = self._stop.is_set()
-            self._end()
-            if cancelled:  # stop was pressed as the last block finished: honour it
-                self.cancelled.emit()
-            else:
-                self.finished.emit(result)
-
-    def _on_cancelled(self, ticket: int) -> None:
-        if self._current(ticket):
-            self._end()
+    def _on_finished(self, result) -> None:
+        if self._end():      # stop was pressed as the last block finished: honour it
             self.cancelled.emit()
+        else:
+            self.finished.emit(result)
 
-    def _on_failed(self, ticket: int, message: str) -> None:
-        if self._current(ticket):
-            self._end()
-            self.failed.emit(message)
+    def _on_failed(self, exc: Exception) -> None:
+        from workbench.core.errors import PlanError
+        from workbench.core.montecarlo import SimulationCancelled
+        self._end()
+        if isinstance(exc, SimulationCancelled):
+            self.cancelled.emit()
+        elif isinstance(exc, (PlanError, ValueError)):
+            self.failed.emit(str(exc))
+        else:                # an engine bug must not take the window down
+            self.failed.emit(f"simulation failed: {type(exc).__name__}: {exc}")

@@ -16,6 +16,7 @@ from workbench.ui.odds.controls import OddsControls
 from workbench.ui.odds.panel import OddsPanel
 from workbench.ui.odds.plot import OddsPlot
 from workbench.ui.odds.living import record_run, show_trend, status_note
+from workbench.ui import workers
 from workbench.ui.odds.runner import OddsRunner
 from workbench.ui.odds.trend_plot import TrendPlot
 from workbench.ui.session import WhenShown, take_simulation
@@ -360,6 +361,6 @@ class OddsView(QWidget):
         self.controls.set_status(f"Simulation failed: {message}", True)
 
     def closeEvent(self, event) -> None:  # noqa: N802 (Qt override)
-        self.runner.stop()
-        self.runner.wait(5000)
+        self.runner.abandon()                       # its result, if any, is dropped
+        self.runner.wait(int(workers.CLOSE_WAIT_S * 1000))   # bounded: the run stops at its next block
         super().closeEvent(event)

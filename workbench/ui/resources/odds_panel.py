@@ -2,8 +2,9 @@
 
 from __future__ import annotations
 
-from PySide6.QtCore import QThread, Signal
 from PySide6.QtWidgets import QHBoxLayout, QLabel, QPushButton, QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget
+
+from workbench.ui import workers
 
 ITERATIONS, SEED = 2000, 1
 CAUTION = ("Caution: estimates are judgement; PERT assumes one path and independent durations, and these odds "
@@ -11,39 +12,17 @@ CAUTION = ("Caution: estimates are judgement; PERT assumes one path and independ
            "approval rules.")
 
 
-class _Worker(QThread):
-    done = Signal(object)
-    failed = Signal(str)
+def compare_odds(plan, logic, cancel):
+    """The worker's job (plain data in, by the rule in :mod:`workbench.ui.workers`): the Odds
+    view's current run beside the crews' run at its seed and iterations (the same sampled
+    durations); without one, both runs here."""
+    from workbench.core.montecarlo import simulate
+    from workbench.core.resource_odds import ResourceOdds, compare
 
-    def __init__(self, plan, logic=None, parent=None):
-        super().__init__(parent)
-        self.plan, self.logic, self.cancelled = plan, logic, False
-
-    def _compare(self):
-        """The Odds view's current run beside the crews' run at its seed and iterations (the
-        same sampled durations); without one, both runs here."""
-        from workbench.core.montecarlo import simulate
-        from workbench.core.resource_odds import ResourceOdds, compare
-
-        stop = lambda: self.cancelled  # noqa: E731
-        if self.logic is None:
-            return compare(self.plan, ITERATIONS, SEED, cancel=stop)
-        aware = simulate(self.plan, self.logic.iterations, self.logic.seed, resources=True, cancel=stop)
-        return ResourceOdds(self.logic, aware)
-
-    def run(self) -> None:
-        from workbench.core.errors import PlanError
-
-        try:
-            result = self._compare()
-        except PlanError as exc:
-            self.failed.emit(str(exc))
-            return
-        except Exception as exc:  # noqa: BLE001 - the cancel path raises the engine's own exception
-            if not self.cancelled:
-                self.failed.emit(f"{type(exc).__name__}: {exc}")
-            return
-        self.done.emit(result)
+    if logic is None:
+        return compare(plan, ITERATIONS, SEED, cancel=cancel)
+    aware = simulate(plan, logic.iterations, logic.seed, resources=True, cancel=cancel)
+    return ResourceOdds(logic, aware)
 
 
 class ResourceOddsPanel(QWidget):
@@ -77,24 +56,24 @@ class ResourceOddsPanel(QWidget):
         session.schedule_changed.connect(self._stale)
 
     def run(self) -> None:
-        if self.worker is not None and self.worker.isRunning():
+        if self.worker is not None and self.worker.running:
             return
         self.run_button.setEnabled(False)
         self.status.setText("Simulating both ways…")
         sim = self.session.simulation          # current: the session drops it on every edit
         logic = sim if sim is not None and not getattr(sim, "resource_aware", False) else None
-        self.worker = _Worker(self.session.plan.copy(), logic, self)
-        self.worker.done.connect(self._show)
-        self.worker.failed.connect(self._failed)
-        self.worker.finished.connect(lambda: self.run_button.setEnabled(True))
-        self.worker.start()
+        self._logic_shown = logic is not None
+        self.worker = workers.start(compare_odds, self.session.plan.copy(), logic, cancellable=True,
+                                    on_done=self._show, on_failed=self._failed, name="slackline-crews-odds")
 
     def stop(self) -> None:
+        """Abandon a run still going (its result is dropped); the wait is bounded."""
         if self.worker is not None:
-            self.worker.cancelled = True
-            self.worker.wait(10_000)
+            self.worker.abandon()
+            self.worker.wait(workers.CLOSE_WAIT_S)
 
     def _show(self, result) -> None:
+        self.run_button.setEnabled(True)
         self.result = result
         conf = float(self.session.plan.settings.target_confidence)
         rows = result.rows(conf)
@@ -106,9 +85,12 @@ class ResourceOddsPanel(QWidget):
         self.table.show()
         self.sentence.setText(result.sentence(conf))
         self.status.setText(f"{result.logic.iterations:,} iterations each, seed {result.logic.seed}, the same "
-                            "sampled durations" + (" (logic only: the Odds view's run)." if self.worker.logic else "."))
+                            "sampled durations" + (" (logic only: the Odds view's run)." if self._logic_shown else "."))
 
-    def _failed(self, message: str) -> None:
+    def _failed(self, exc: Exception) -> None:
+        from workbench.core.errors import PlanError
+        self.run_button.setEnabled(True)
+        message = str(exc) if isinstance(exc, PlanError) else f"{type(exc).__name__}: {exc}"
         self.status.setText(f"Could not simulate: {message}")
 
     def _stale(self) -> None:

@@ -1,47 +1,17 @@
-"""Run the trade-off off the GUI thread (on a copy of the plan), with progress and cancel."""
+"""Run the trade-off off the GUI thread (on a copy of the plan: plain data, by the rule in
+:mod:`workbench.ui.workers`), with progress and cancel."""
 
 from __future__ import annotations
 
-import threading
+from PySide6.QtCore import QObject, Signal
 
-from PySide6.QtCore import QObject, QRunnable, QThreadPool, Signal
-
-
-class _Signals(QObject):
-    progress = Signal(int, int, int)
-    finished = Signal(int, object)
-    failed = Signal(int, str)
+from workbench.ui import workers
 
 
-class _Job(QRunnable):
-    def __init__(self, ticket, plan, kwargs, signals, stop):
-        super().__init__()
-        self.ticket, self.plan, self.kwargs, self.signals, self.stop = ticket, plan, kwargs, signals, stop
-
-    def run(self) -> None:  # noqa: D401 (Qt override)
-        from workbench.core.errors import PlanError
-        from workbench.core.montecarlo import SimulationCancelled
-        from workbench.core.tradeoff import tradeoff
-        try:
-            result = tradeoff(self.plan, progress=self._progress, cancel=self.stop.is_set, **self.kwargs)
-        except SimulationCancelled:
-            self._emit("failed", self.ticket, "")
-        except (PlanError, ValueError) as exc:
-            self._emit("failed", self.ticket, str(exc))
-        except Exception as exc:  # an engine bug must not take the window down
-            self._emit("failed", self.ticket, f"trade-off failed: {type(exc).__name__}: {exc}")
-        else:
-            self._emit("finished", self.ticket, result)
-
-    def _emit(self, name: str, *args) -> None:
-        """Report back, unless the window went away meanwhile (then nobody is listening)."""
-        try:
-            getattr(self.signals, name).emit(*args)
-        except RuntimeError:
-            self.stop.set()
-
-    def _progress(self, done, total) -> None:
-        self._emit("progress", self.ticket, int(done), int(total))
+def tradeoff_copy(plan, progress, cancel, **kwargs):
+    """The worker's whole job (plain data in, a trade-off result out)."""
+    from workbench.core.tradeoff import tradeoff
+    return tradeoff(plan, progress=progress, cancel=cancel, **kwargs)
 
 
 class TradeoffRunner(QObject):
@@ -54,38 +24,49 @@ class TradeoffRunner(QObject):
 
     def __init__(self, parent=None):
         super().__init__(parent)
-        self.pool = QThreadPool(self)
-        self.pool.setMaxThreadCount(1)
-        self._signals = _Signals()
-        self._signals.progress.connect(lambda t, d, n: t == self._ticket and self.progress.emit(d, n))
-        self._signals.finished.connect(self._done)
-        self._signals.failed.connect(self._fail)
-        self._ticket = 0
-        self._stop: threading.Event | None = None
+        self._job: workers.Job | None = None     # the run whose reports come through
+        self._last: workers.Job | None = None    # the run started last (for wait)
 
     @property
     def running(self) -> bool:
-        return self._stop is not None
+        return self._job is not None
 
     def start(self, plan, **kwargs) -> None:
-        self.stop()
-        self._ticket += 1
-        self._stop = threading.Event()
-        self.pool.start(_Job(self._ticket, plan.copy(), kwargs, self._signals, self._stop))
+        """Trade off a copy of ``plan``; a run still going is abandoned."""
+        self.abandon()
+        self._job = workers.start(tradeoff_copy, plan.copy(), cancellable=True, on_done=self._done,
+                                  on_failed=self._fail, on_progress=self._progress, name="slackline-tradeoff",
+                                  **kwargs)
+        self._last = self._job
 
     def stop(self) -> None:
-        if self._stop is not None:
-            self._stop.set()
+        if self._job is not None:
+            self._job.stop()
 
-    def wait(self, msecs: int = -1) -> bool:
-        return self.pool.waitForDone(msecs)
+    def abandon(self) -> None:
+        """Stop the current run and drop whatever it still reports (the view is closing)."""
+        if self._job is not None:
+            self._job.abandon()
+            self._job = None
 
-    def _done(self, ticket, result) -> None:
-        if ticket == self._ticket:
-            self._stop = None
-            self.finished.emit(result)
+    def wait(self, msecs: int = 30_000) -> bool:
+        """Wait at most ``msecs`` for the current run to end; True when none runs."""
+        return self._last is None or self._last.wait(msecs / 1000)
 
-    def _fail(self, ticket, message) -> None:
-        if ticket == self._ticket:
-            self._stop = None
-            self.failed.emit(message)
+    def _progress(self, done, total) -> None:
+        self.progress.emit(int(done), int(total))
+
+    def _done(self, result) -> None:
+        self._job = None
+        self.finished.emit(result)
+
+    def _fail(self, exc: Exception) -> None:
+        from workbench.core.errors import PlanError
+        from workbench.core.montecarlo import SimulationCancelled
+        self._job = None
+        if isinstance(exc, SimulationCancelled):
+            self.failed.emit("")
+        elif isinstance(exc, (PlanError, ValueError)):
+            self.failed.emit(str(exc))
+        else:    # an engine bug must not take the window down
+            self.failed.emit(f"trade-off failed: {type(exc).__name__}: {exc}")

@@ -14,10 +14,12 @@ from workbench.core.crash_problem import has_cost_data
 from workbench.figures import tradeoff as ftr
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.tradeoff.cost_settings import CostSettings
+from workbench.ui import workers
 from workbench.ui.tradeoff.runner import TradeoffRunner
 
 CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
            "simulation, not a promise; the decision rests with your organisation's own approval rules.")
+FINISH_WAIT_MS = 120_000   # finish_work (screenshots, scripts) waits this long at most
 NO_COSTS = "No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can be shortened."
 
 
@@ -200,8 +202,13 @@ class TradeoffView(QWidget):
         """Wait for the worker and take its result (for screenshots and scripts)."""
         from PySide6.QtCore import QCoreApplication
 
-        self.runner.wait()
+        self.runner.wait(FINISH_WAIT_MS)
         QCoreApplication.processEvents()
+
+    def closeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        self.runner.abandon()                       # its result, if any, is dropped
+        self.runner.wait(int(workers.CLOSE_WAIT_S * 1000))   # bounded: the run stops at its next step
+        super().closeEvent(event)
 
     # --- drawing -------------------------------------------------------------
     def _draw(self) -> None:

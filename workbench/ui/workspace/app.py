@@ -117,6 +117,8 @@ def run_app(argv: list[str]) -> int:
         app.deliver_opens(window.open_path)
     code = app.exec()
     instance.close()
+    from workbench.ui import workers
+    workers.settle(workers.CLOSE_WAIT_S)   # no worker reports to a window being torn down
     _dispose(window)
     return code
 

@@ -12,7 +12,8 @@ from PySide6.QtCore import QObject, QSettings, QTimer, Signal
 from workbench.core.errors import PlanError
 from workbench.core.formatting import format_stored_timestamp
 from workbench.core.model import Plan
-from workbench.ui import prompts
+from workbench.ui import prompts, workers
+from workbench.ui.workspace import recovery
 from workbench.ui.workspace.lock import PlanLock
 from workbench.ui.workspace.recovery import RecoveryStore
 from workbench.ui.session import Session
@@ -21,6 +22,7 @@ RECENT_KEY = "files/recent"
 LAST_KEY = "files/last"
 RECENT_MAX = 8
 AUTOSAVE_MS = 3 * 60 * 1000
+AUTOSAVE_WAIT_S = 60.0   # the longest a failed save waits for a recovery copy being written
 TABLE_SUFFIXES = (".csv", ".xlsx")
 
 
@@ -31,7 +33,6 @@ class FileController(QObject):
     saved = Signal(str)          # the path just written
     recent_changed = Signal()
     message = Signal(str)
-    _autosaved = Signal(str)  # from the autosave thread, delivered on the window's thread
 
     def __init__(self, session: Session, parent_widget, store: RecoveryStore | None = None):
         super().__init__(parent_widget)
@@ -43,8 +44,8 @@ class FileController(QObject):
         self.store = store or RecoveryStore()
         self.store.claim(None)
         self._autosave_due = False
-        self._autosaving: threading.Thread | None = None
-        self._autosaved.connect(self._autosave_finished)
+        self._autosaving: workers.Job | None = None
+        self._discard = threading.Event()
         session.undo_stack.indexChanged.connect(self._mark_due)
         self.timer = QTimer(self)
         self.timer.setInterval(int(os.environ.get("SLACKLINE_AUTOSAVE_MS", AUTOSAVE_MS)))
@@ -63,7 +64,7 @@ class FileController(QObject):
         self._autosave_due = True
 
     def _set_path(self, path: str | None, read_only: bool = False) -> None:
-        self.finish_autosave()
+        self._drop_autosave()
         if self._lock is not None:
             self._lock.release()
             self._lock = None
@@ -114,6 +115,8 @@ class FileController(QObject):
             return True
         self._set_path(str(Path(path).resolve()), read_only)
         self.message.emit(f"Opened {Path(path).name}" + (" (read-only)" if read_only else ""))
+        from workbench.ui.workspace.table_transfer import tell_long_texts
+        tell_long_texts(self.widget, plan, Path(path).name)
         return True
 
     def _may_edit(self, path: str):
@@ -170,7 +173,7 @@ class FileController(QObject):
                 return self._choose_and_write()
             return None
         self.session.undo_stack.setClean()
-        self.finish_autosave()
+        self._drop_autosave()
         self.store.discard()
         self._autosave_due = False
         self.message.emit(f"Saved {Path(path).name}")
@@ -208,7 +211,7 @@ class FileController(QObject):
     def close(self) -> None:
         """After a clean close: no recovery copy, no lock."""
         self.timer.stop()
-        self.finish_autosave()
+        self._drop_autosave()
         self.store.release(remove=True)
         if self._lock is not None:
             self._lock.release()
@@ -216,39 +219,48 @@ class FileController(QObject):
     # --- autosave and recovery ---------------------------------------------------
     def autosave(self) -> bool:
         """Start writing the recovery copy: the plan is snapshotted here (cheap) and
-        serialised and written in a worker thread, so typing never waits for it.
+        serialised and written in a worker thread that gets plain data only (the snapshot,
+        the folder and the copy's key), so typing never waits for it.
         True when a write was started."""
         if not (self.modified and self._autosave_due) or self.autosave_running:
             return False
+        if self.store.key is None:
+            self.store.claim(None)
+        if not self.store.owns:
+            self.message.emit(f"Could not write the recovery copy: the slot {self.store.key} is held by another window")
+            return False
         snapshot = self.session.plan.snapshot()
         self._autosave_due = False
-        self._autosaving = threading.Thread(target=self._autosave_in_worker, args=(snapshot,),
-                                            name="slackline-autosave", daemon=True)
-        self._autosaving.start()
+        self._discard = threading.Event()
+        self._autosaving = workers.start(recovery.autosave_copy, self.store.folder, self.store.key, self.store.source,
+                                         snapshot, self._discard, on_done=self._autosave_finished,
+                                         on_failed=self._autosave_failed, name="slackline-autosave")
         return True
 
     @property
     def autosave_running(self) -> bool:
-        return self._autosaving is not None and self._autosaving.is_alive()
+        return self._autosaving is not None and self._autosaving.running
 
-    def _autosave_in_worker(self, snapshot: Plan) -> None:
-        try:
-            self.store.write(snapshot)
-        except Exception as exc:  # noqa: BLE001 - reported on the window's thread
-            self._autosaved.emit(f"Could not write the recovery copy: {exc}")
-        else:
-            self._autosaved.emit("Recovery copy written")
+    def _autosave_finished(self, path) -> None:
+        if path is not None:
+            self.message.emit("Recovery copy written")
 
-    def _autosave_finished(self, text: str) -> None:
-        if text.startswith("Could not"):
-            self._autosave_due = True  # try again at the next tick
-        self.message.emit(text)
+    def _autosave_failed(self, exc: Exception) -> None:
+        self._autosave_due = True  # try again at the next tick
+        self.message.emit(f"Could not write the recovery copy: {exc}")
 
-    def finish_autosave(self) -> None:
-        """Wait for a recovery copy being written (before saving, a new slot, closing)."""
-        if self._autosaving is not None:
-            self._autosaving.join()
-            self._autosaving = None
+    def finish_autosave(self, timeout: float = AUTOSAVE_WAIT_S) -> bool:
+        """Wait, at most ``timeout`` seconds, for a recovery copy being written (before
+        writing one at once after a failed save; tests). True when none is being written."""
+        return self._autosaving is None or self._autosaving.wait(timeout)
+
+    def _drop_autosave(self) -> None:
+        """The work was saved, or the window closes or moves to another slot: a copy being
+        written is not waited for; it is removed as soon as it lands."""
+        if self._autosaving is not None:   # kept: no new autosave starts until this one has ended
+            self._discard.set()
+            self._autosaving.abandon()
+            self._autosaving.wait(workers.CLOSE_WAIT_S)
 
     def offer_recovery(self) -> bool:
         """Offer each copy left by a window that did not close; True if one was restored."""

@@ -83,24 +83,12 @@ class RecoveryStore:
         return self.key is not None and self._lock is not None
 
     def write(self, plan: Plan) -> Path:
-        """Write (atomically) this window's recovery copy of ``plan``. Safe to call from a
-        worker thread with a snapshot of the plan (it reads nothing else of the window)."""
-        from workbench.io import atomic
-        from workbench.io.planfile import PlanFileError, save_plan, storable_copy
+        """Write (atomically) this window's recovery copy of ``plan``."""
         if self.key is None:
             self.claim(None)
         if not self.owns:
             raise OSError(f"the recovery slot {self.key} is held by another window")
-        path = self.folder / f"{self.key}.slw"
-        try:
-            save_plan(plan, path, backup=False, accept_owner_change=True)
-        except PlanFileError:  # text the file cannot hold: keep the work, cleaned
-            save_plan(storable_copy(plan), path, backup=False, accept_owner_change=True)
-        meta = {"source": self.source, "title": plan.settings.title, "pid": os.getpid(),
-                "host": socket.gethostname(), "written": dt.datetime.now().isoformat(timespec="seconds")}
-        atomic.write_file(self.folder / f"{self.key}.json", json.dumps(meta).encode("utf-8"),
-                          accept_owner_change=True)
-        return path
+        return write_copy(self.folder, self.key, self.source, plan)
 
     def discard(self) -> None:
         """Remove this window's own copy (after a save or a clean close); never another's."""
@@ -151,6 +139,51 @@ class RecoveryStore:
         finally:
             lock.unlock()
         return True
+
+
+def write_copy(folder: Path, key: str, source: str | None, plan: Plan) -> Path:
+    """Write the recovery copy ``key`` of ``plan`` into ``folder``, atomically. Takes plain
+    data only, so the autosave's worker thread runs it on a snapshot of the plan.
+
+    The copy is not parsed back (a parse of a large plan would hold Python's lock and stall
+    the window): it is the serialiser's output, and the written temporary file is read back
+    from the disk and must hold exactly those bytes (same SHA-256) before it takes the
+    copy's name; otherwise the previous copy stays. A text the file cannot hold (a lone
+    surrogate) is kept cleaned rather than losing the work."""
+    from workbench.io import atomic
+    from workbench.io.planfile import PlanFileError, encode_parts, storable_copy
+    try:
+        parts = encode_parts(plan)
+    except PlanFileError as exc:
+        if exc.culprit != "text":
+            raise
+        parts = encode_parts(storable_copy(plan))
+    digest = hashlib.sha256()
+
+    def same_bytes(tmp: Path) -> None:
+        if atomic.file_digest(tmp, hashlib.sha256()) != digest.hexdigest():
+            raise OSError(f"the recovery copy read back from {tmp.parent} differs from what was written")
+
+    path = atomic.write_file(folder / f"{key}.slw", atomic.parts_filler(parts, digest),
+                             accept_owner_change=True, check=same_bytes)
+    meta = {"source": source, "title": plan.settings.title, "pid": os.getpid(),
+            "host": socket.gethostname(), "written": dt.datetime.now().isoformat(timespec="seconds")}
+    atomic.write_file(folder / f"{key}.json", json.dumps(meta).encode("utf-8"), accept_owner_change=True)
+    return path
+
+
+def autosave_copy(folder: Path, key: str, source: str | None, snapshot: Plan, discard) -> Path | None:
+    """The autosave worker's job (plain data only: see :mod:`workbench.ui.workers`): write
+    the copy, unless the window saved or closed meanwhile (``discard``, a
+    ``threading.Event``, is set); a copy that lands after that is removed again, so no
+    copy of outdated work outlives its window. None when nothing was kept."""
+    if discard.is_set():
+        return None
+    path = write_copy(folder, key, source, snapshot)
+    if discard.is_set():
+        remove_copy(folder, key)
+        return None
+    return path
 
 
 def remove_copy(folder: Path, key: str) -> None:

@@ -13,6 +13,7 @@ from PySide6.QtWidgets import (QCheckBox, QComboBox, QDialog, QDialogButtonBox,
 
 from workbench.core.calendar import WorkCalendar
 from workbench.core.errors import PlanError
+from workbench.core.long_texts import check_entered_settings
 from workbench.core.model import DISTRIBUTIONS, Calendar, Settings, SignOff
 from workbench.ui import prompts
 from workbench.ui.workspace.date_field import DateField
@@ -185,7 +186,7 @@ class SettingsDialog(QDialog):
                 field.setFocus()
                 return
         try:
-            self.result_settings().validated()
+            check_entered_settings(self.result_settings().validated(), self.original)
         except PlanError as exc:
             prompts.show_error(self, "Plan settings", str(exc))
             return

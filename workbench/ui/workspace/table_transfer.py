@@ -40,8 +40,20 @@ def import_table(widget, session: Session, path: str, start_new=None) -> bool:
     if not choice or plan is None:
         return False
     if choice == import_dialog.NEW and start_new is not None:
-        return start_new(Plan(Settings(title=Path(path).stem), plan.activities, plan.links))
-    return session.push(ReplacePlan(_keep_extras(session.plan, plan), text=f"Import {Path(path).name}"))
+        done = start_new(Plan(Settings(title=Path(path).stem), plan.activities, plan.links))
+    else:
+        done = session.push(ReplacePlan(_keep_extras(session.plan, plan), text=f"Import {Path(path).name}"))
+    if done:
+        tell_long_texts(widget, plan, Path(path).name)
+    return done
+
+
+def tell_long_texts(widget, plan: Plan, name: str) -> None:
+    """Say which texts run over the entry limits (kept whole, never refused)."""
+    from workbench.core.long_texts import describe, long_texts
+    note = describe(long_texts(plan), gap="\n")
+    if note:
+        prompts.show_info(widget, "Long texts kept", f"{name}: {note}")
 
 
 def kept_settings(plan: Plan) -> str:

@@ -14,7 +14,7 @@ from PySide6.QtWidgets import QDockWidget, QLabel, QMainWindow, QUndoView, QVBox
 from workbench.core.model import Plan
 from workbench.ui.activities.panel import ActivitiesPanel
 from workbench.ui.workspace.files import TABLE_SUFFIXES, FileController
-from workbench.ui import prompts
+from workbench.ui import prompts, workers
 from workbench.ui.icons import icon
 from workbench.ui.workspace.notice_bar import NoticeBar
 from workbench.ui.workspace.recovery import RecoveryStore
@@ -287,4 +287,5 @@ class MainWindow(QMainWindow):
             return
         self.save_layout()
         self.files.close()
+        workers.abandon_within(self)      # the views' runs stop; what they still report is dropped
         event.accept()
