@@ -159,7 +159,7 @@ class Leveller:
 
     def result(self, starts, rule: str) -> LevelResult:
         key = list(starts)
-        starts, why = self.forward(key, explain=True)     # the same schedule, with reasons
+        starts, why = self.problem.schedule(key, self.durations, self.offsets, True)   # the same one, with reasons
         d = np.asarray(self.durations)
         st = np.asarray(starts, dtype=float)
         return LevelResult(self.problem.ids, st, st + d, float(self.makespan(starts)),
@@ -179,8 +179,11 @@ class Leveller:
 
 
 def level(plan, rule: str = "lft", budget: int = 0, seed: int = 0, analysis=None) -> LevelResult:
-    """Level the plan's resources. ``rule``: the priority rule; ``budget``: how many more
-    schedules the genetic algorithm may try after the rule and the improvement (0: none).
+    """Level the plan's resources. ``rule``: the priority rule; ``budget``: the most
+    schedules levelling builds in all — the rule's, the improvement's and the genetic
+    algorithm's, which gets what the first two leave (0: no genetic algorithm). The rule
+    and the improvement always run, so a budget smaller than they need is exceeded by
+    them alone (``schedules_tried`` says how many were built).
     Raises PlanError naming the culprit (an unknown rule, an activity that never fits)."""
     if rule not in RULES:
         raise PlanError(f"unknown levelling rule {rule!r} (use {', '.join(RULES)})", "rule")
@@ -188,10 +191,11 @@ def level(plan, rule: str = "lft", budget: int = 0, seed: int = 0, analysis=None
         raise PlanError(f"the schedule budget must be a whole number ≥ 0, not {budget!r}", "budget")
     lev = Leveller(plan, analysis)
     best = lev.improve(lev.forward(lev.priority(rule)))
-    if budget > 0 and lev.problem.n > 1:
+    left = budget - lev.schedules
+    if budget > 0 and left > 0 and lev.problem.n > 1:
         from .level_ga import evolve
 
-        best = evolve(lev, best, budget, seed)
+        best = evolve(lev, best, left, seed)
     return lev.result(best, rule)
 
 

@@ -50,8 +50,11 @@ def resource_pages(ctx, frame: tuple[float, float]) -> list:
 
 def _summary(ctx, result) -> str:
     cal = ctx.analysis.calendar
-    if result.delay <= 1e-9:
+    if result.delay <= 1e-9 and not result.moves:
         head = "Every resource has enough units for the logic-only schedule: levelling moves nothing."
+    elif result.delay <= 1e-9:
+        head = (f"Levelling moves {len(result.moves)} activit{'y' if len(result.moves) == 1 else 'ies'} within "
+                f"their float; the finish stays {format_date(cal.finish_date(result.finish))}.")
     else:
         head = (f"On the logic-only dates some resources are asked for more units than exist. Levelled "
                 f"(latest finish first, then justified), the plan finishes {format_date(cal.finish_date(result.finish))}, "
