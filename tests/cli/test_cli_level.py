@@ -134,3 +134,13 @@ def test_when_the_crews_cost_nothing_the_words_say_so(tmp_path, capsys):
 def test_level_budget_is_the_total_number_of_schedules(capsys):
     code, out, _ = run(capsys, "level", DEMO, "--budget", "120", "--json")
     assert code == 0 and 114 < json.loads(out)["schedules_tried"] <= 120
+
+
+def test_import_names_the_resource_columns_it_does_not_read(tmp_path, capsys):
+    """A misspelt heading ('unitz') is not lost silently: the import names it."""
+    (tmp_path / "acts.csv").write_text(ACTIVITIES)
+    (tmp_path / "res.csv").write_text("id,name,units,unitz,shift\ncrew,Painters,1,2,day\n")
+    code, out, err = run(capsys, "import", tmp_path / "acts.csv", "-o", tmp_path / "p.slw", "--start", "2027-01-04",
+                         "--resources", tmp_path / "res.csv")
+    assert code == 0 and "1 resources" in out
+    assert "res.csv: columns not read: 'unitz', 'shift'" in err
