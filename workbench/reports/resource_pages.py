@@ -169,10 +169,6 @@ def _odds(ctx, width) -> list:
     sim = ctx.simulation
     if sim is None:
         return []
-    if ctx.analysis.progress is not None:          # see docs/progress.md, "Known limits"
-        return [Paragraph("The odds with and without the crews", styles.H2),
-                Paragraph("Not shown for a plan with progress: a simulation with the crews does not yet start "
-                          "from the status date.", styles.BODY)]
     from workbench.core.montecarlo import simulate
     from workbench.core.resource_odds import ResourceOdds
 
