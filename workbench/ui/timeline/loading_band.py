@@ -8,6 +8,7 @@ from __future__ import annotations
 
 import pyqtgraph as pg
 from PySide6.QtCore import QSettings, Qt
+from PySide6.QtGui import QFontMetrics
 from PySide6.QtWidgets import QLabel, QSizePolicy, QVBoxLayout, QWidget
 
 from workbench.core.loading import plan_loading
@@ -33,7 +34,7 @@ class LoadingBand(QWidget):
 
     def __init__(self, x_view, parent=None):
         super().__init__(parent)
-        self.loads, self.figures, self.items = [], [], []
+        self.loads, self.figures, self.items, self._ticks = [], [], [], []
         self.legend = QLabel(LEGEND)
         self.legend.setStyleSheet(f"color: {style.TEXT}; padding: 2px 4px;")
         self.legend.setSizePolicy(QSizePolicy.Policy.Preferred, QSizePolicy.Policy.Fixed)
@@ -46,6 +47,7 @@ class LoadingBand(QWidget):
         self.axis = pi.getAxis("left")
         self.axis.setPen(pg.mkPen(style.TEXT))
         self.axis.setTextPen(pg.mkPen(style.TEXT))
+        self.axis.setStyle(textFillLimits=[(0, 100.0)])   # every lane keeps its name, however short
         self.view_box = pi.getViewBox()
         self.view_box.setMouseEnabled(x=True, y=False)
         self.view_box.setXLink(x_view)
@@ -59,11 +61,23 @@ class LoadingBand(QWidget):
     def set_font(self, font) -> None:
         self.axis.setStyle(tickFont=font)
         self.legend.setFont(font)
+        self._apply_ticks()
         self._fit_height()
 
     def set_label_width(self, width: float) -> None:
         """As wide as the Timeline's label column, so both charts start at the same x."""
         self.axis.setWidth(int(width))
+        self._label_width = int(width)
+        self._apply_ticks()
+
+    def _apply_ticks(self) -> None:
+        """Lane names, shortened with '…' to the label column (a name wider than the axis
+        would not be drawn at all)."""
+        font = self.axis.style.get("tickFont") or self.font()
+        metrics = QFontMetrics(font)
+        room = max(getattr(self, "_label_width", 120) - 16, 30)
+        ticks = [(y, metrics.elidedText(text, Qt.TextElideMode.ElideMiddle, room)) for y, text in self._ticks]
+        self.axis.setTicks([ticks, []])
 
     def update_for(self, analysis, wanted: bool) -> bool:
         """Draw and show the band when the plan has resources and the user wants it;
@@ -90,7 +104,8 @@ class LoadingBand(QWidget):
             base = n - 1 - k + 0.5 * (1 - LANE_FILL)
             self.items.append(add_loading(self.plot, fig, base, LANE_FILL, line=1.2))
             ticks.append((n - 1 - k + 0.5, self._lane_label(fig)))
-        self.axis.setTicks([ticks, []])
+        self._ticks = ticks
+        self._apply_ticks()
         self.view_box.setYRange(-0.1, n, padding=0)
         self._fit_height()
         return True
@@ -98,10 +113,19 @@ class LoadingBand(QWidget):
     @staticmethod
     def _lane_label(fig) -> str:
         top = float(fig.available.max()) if fig.available.size else 0.0
-        mark = " \u2014 over" if fig.over else ""
-        return f"{fig.name} ({top:g}){mark}"
+        mark = "over! " if fig.over else ""
+        return f"{mark}{fig.name} ({top:g})"
+
+    def fit_to(self, view_height: int) -> None:
+        """The band takes at most about a third of the Timeline's height (the bars come first)."""
+        self._room = int(0.34 * view_height)
+        self._fit_height()
 
     def _fit_height(self) -> None:
         n = max(len(self.figures), 1)
-        pitch = max(36, int(2.6 * self.legend.fontMetrics().height()))
+        line = self.legend.fontMetrics().height()
+        pitch = max(36, int(2.6 * line))
+        room = getattr(self, "_room", None)
+        if room is not None:            # lanes shrink to fit, never below one line of label
+            pitch = max(int(1.25 * line), min(pitch, (room - self.legend.sizeHint().height() - 12) // n))
         self.plot.setFixedHeight(n * pitch + 12)

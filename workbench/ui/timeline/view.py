@@ -172,6 +172,7 @@ class TimelineView(QWidget):
 
     def resizeEvent(self, event) -> None:
         super().resizeEvent(event)
+        self.band.fit_to(self.height())
         if self.geometry is not None:
             self._fit_label_column()
             if self._auto_fit:
