@@ -84,8 +84,7 @@ def _paint_one(c, w, h, early, lev, finish, calendar) -> None:
     py = lambda u: bottom + u / top * ph
     c.setFont(styles.BOLD, 10)
     c.setFillColor(styles.TEXT)
-    c.drawString(0, h - 10, fit(f"{fig.name} — peak {fig.peak:g}, levelled {lfig.peak:g}, of "
-                                f"{fig.available.max():g} units", w, styles.BOLD, 10))
+    c.drawString(0, h - 10, fit(f"{fig.title}; levelled, at most {lfig.peak:g} in use", w, styles.BOLD, 10))
     c.setFillColor(styles.colour(style.WORK))
     c.setStrokeColor(styles.colour(style.WORK_EDGE))
     for a, b, u in zip(fig.edges[:-1], fig.edges[1:], fig.use):
