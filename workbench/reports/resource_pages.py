@@ -79,12 +79,14 @@ def _paint_one(c, w, h, early, lev, finish, calendar) -> None:
     fig, lfig = loading_figure(early, until=finish), loading_figure(lev, until=finish)
     top = max(fig.top, lfig.top)
     x0, x1 = float(fig.edges[0]), max(float(fig.edges[-1]), float(lfig.edges[-1]))
-    left, bottom, pw, ph = 34, 16, w - 40, h - 34
+    left, bottom, pw, ph = 34, 16, w - 40, h - 44
     px = lambda v: left + (v - x0) / max(x1 - x0, 1e-9) * pw
     py = lambda u: bottom + u / top * ph
     c.setFont(styles.BOLD, 10)
     c.setFillColor(styles.TEXT)
-    c.drawString(0, h - 10, fit(f"{fig.title}; levelled, at most {lfig.peak:g} in use", w, styles.BOLD, 10))
+    c.drawString(0, h - 10, fit(fig.title, w, styles.BOLD, 10))
+    c.setFont(styles.FONT, 8.5)
+    c.drawString(0, h - 21, fit(f"On the levelled dates: at most {lfig.peak:g} in use", w, styles.FONT, 8.5))
     c.setFillColor(styles.colour(style.WORK))
     c.setStrokeColor(styles.colour(style.WORK_EDGE))
     for a, b, u in zip(fig.edges[:-1], fig.edges[1:], fig.use):

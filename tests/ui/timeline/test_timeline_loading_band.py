@@ -78,3 +78,11 @@ def test_hidden_without_resources_and_the_choice_is_remembered(ui_env, qtbot):
     assert not again.band.isVisible() and not again.actions_by_name["loading"].isChecked()
     again.set_loading_band(True)
     assert again.band.isVisible()
+
+
+def test_present_mode_leaves_the_band_out_and_brings_it_back(ui_env, qtbot):
+    v = _shown(qtbot, demo_plan())
+    v.set_present(True)
+    assert not v.band.isVisible()
+    v.set_present(False)
+    assert v.band.isVisible()
