@@ -32,7 +32,7 @@ def remember_band(on: bool) -> None:
 class LoadingBand(QWidget):
     """``LoadingBand(timeline_view_box)``: lanes of loading, x linked to the given view box."""
 
-    def __init__(self, x_view, parent=None):
+    def __init__(self, x_view, on_user_zoom=None, parent=None):
         super().__init__(parent)
         self.loads, self.figures, self.items, self._ticks = [], [], [], []
         self.legend = QLabel(LEGEND)
@@ -51,6 +51,9 @@ class LoadingBand(QWidget):
         self.view_box = pi.getViewBox()
         self.view_box.setMouseEnabled(x=True, y=False)
         self.view_box.setXLink(x_view)
+        if on_user_zoom is not None:           # the Timeline stops refitting, as after its own zoom
+            self.view_box.sigRangeChangedManually.connect(on_user_zoom)
+        self.hide()
         self.plot.setFocusPolicy(Qt.FocusPolicy.NoFocus)
         layout = QVBoxLayout(self)
         layout.setContentsMargins(0, 0, 0, 0)
@@ -79,13 +82,18 @@ class LoadingBand(QWidget):
         ticks = [(y, metrics.elidedText(text, Qt.TextElideMode.ElideMiddle, room)) for y, text in self._ticks]
         self.axis.setTicks([ticks, []])
 
-    def update_for(self, analysis, wanted: bool) -> bool:
-        """Draw and show the band when the plan has resources and the user wants it;
-        returns whether the plan has resources (the toggle is offered only then)."""
+    def update_for(self, analysis, allowed: bool = True, toggle=None) -> bool:
+        """Draw and show the band when the plan has resources, the user wants it and the
+        mode ``allowed`` it (not in Present); ``toggle`` (the toolbar's action) is offered
+        only for a plan with resources. Returns whether the plan has resources."""
         has = bool(analysis is not None and analysis.plan.resources)
-        if has and wanted:
+        wanted = band_wanted()
+        if has and wanted and allowed:
             self.set_analysis(analysis)
-        self.setVisible(has and wanted)
+        self.setVisible(has and wanted and allowed)
+        if toggle is not None:
+            toggle.setVisible(has)
+            toggle.setChecked(wanted)
         return has
 
     def set_analysis(self, analysis) -> bool:

@@ -20,7 +20,7 @@ from workbench.ui.session import refresh_when_shown
 from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
-from workbench.ui.timeline.loading_band import LoadingBand, band_wanted, remember_band
+from workbench.ui.timeline.loading_band import LoadingBand, remember_band
 from workbench.ui.timeline.present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
 from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
@@ -85,9 +85,7 @@ class TimelineView(QWidget):
         self.toolbar = self._toolbar()
         layout.addWidget(self.toolbar)
         layout.addWidget(self.plot, 1)
-        self.band = LoadingBand(self.view_box)       # crews' loading on the same date axis
-        self.band.view_box.sigRangeChangedManually.connect(self._stop_auto_fit)
-        self.band.hide()
+        self.band = LoadingBand(self.view_box, self._stop_auto_fit)   # crews' loading, same date axis
         layout.addWidget(self.band)
         self._apply_weights()
 
@@ -139,21 +137,16 @@ class TimelineView(QWidget):
         self.item.set_geometry(self.geometry)
         self.row_axis.set_geometry(self.geometry)
         self._set_limits()
-        self._update_band()
+        self.set_loading_band()
         self._fit_label_column()
         self._update_lines()
         self._follow_selection(self.session.selected())
 
-    def _update_band(self) -> None:
-        wanted = band_wanted() and self._weights is not style.PRESENT
-        has = self.band.update_for(self.session.analysis, wanted)
-        self.actions_by_name["loading"].setVisible(has)
-        self.actions_by_name["loading"].setChecked(band_wanted())
-
-    def set_loading_band(self, on: bool) -> None:
-        """Show or hide the resource loading band (remembered for the next session)."""
-        remember_band(bool(on))
-        self._update_band()
+    def set_loading_band(self, on: bool | None = None) -> None:
+        """Show or hide the resource loading band (remembered); None: as last chosen."""
+        if on is not None:
+            remember_band(bool(on))
+        self.band.update_for(self.session.analysis, self._weights is not style.PRESENT, self.actions_by_name["loading"])
 
     def _set_limits(self) -> None:
         """Keep zoom and pan near the plan: a little beyond its dates and rows."""
@@ -166,9 +159,8 @@ class TimelineView(QWidget):
     def _fit_label_column(self) -> None:
         """Label column as wide as the longest labels need, at most a third of the view."""
         limit = max(140.0, 0.32 * max(self.width(), 600))
-        width = self.row_axis.preferred_width(self._font(), limit)
-        self.row_axis.setWidth(width)
-        self.band.set_label_width(width)
+        self.row_axis.setWidth(self.row_axis.preferred_width(self._font(), limit))
+        self.band.set_label_width(self.row_axis.preferred_width(self._font(), limit))
 
     def resizeEvent(self, event) -> None:
         super().resizeEvent(event)
@@ -391,7 +383,7 @@ class TimelineView(QWidget):
         self.item.set_weights(self._weights)
         self.band.set_font(font)
         if self.geometry is not None:
-            self._update_band()
+            self.set_loading_band()
         if hasattr(self, "toolbar"):
             self.toolbar.setVisible(self._weights is not style.PRESENT)
         self.reference.clear()
