@@ -116,3 +116,31 @@ def test_bad_resources_file_is_named(tmp_path, capsys):
     (tmp_path / "res.csv").write_text("id,name,units\ncrew,Painters,lots\n")
     code, _, err = run(capsys, "import", tmp_path / "acts.csv", "-o", tmp_path / "p.slw", "--resources", tmp_path / "res.csv")
     assert code == 2 and "res.csv" in err and "row 2, column 'units': 'lots' is not a number" in err
+
+
+def test_when_the_crews_cost_nothing_the_words_say_so(tmp_path, capsys):
+    """Two painters for two one-painter jobs: nothing waits, so no 'later by 0'."""
+    (tmp_path / "acts.csv").write_text(ACTIVITIES)
+    (tmp_path / "res.csv").write_text("id,name,units\ncrew,Painters,2\n")
+    plan = tmp_path / "p.slw"
+    assert run(capsys, "import", tmp_path / "acts.csv", "-o", plan, "--start", "2027-01-04",
+               "--resources", tmp_path / "res.csv")[0] == 0
+    code, out, _ = run(capsys, "level", plan)
+    assert code == 0 and "Delay          none: levelling keeps the logic-only finish" in out
+    code, out, _ = run(capsys, "simulate", plan, "--resources", "--iterations", "500", "--seed", "4")
+    assert code == 0 and "the same as PERT's" in out and "later by" not in out
+
+
+def test_level_budget_is_the_total_number_of_schedules(capsys):
+    code, out, _ = run(capsys, "level", DEMO, "--budget", "120", "--json")
+    assert code == 0 and 114 < json.loads(out)["schedules_tried"] <= 120
+
+
+def test_import_names_the_resource_columns_it_does_not_read(tmp_path, capsys):
+    """A misspelt heading ('unitz') is not lost silently: the import names it."""
+    (tmp_path / "acts.csv").write_text(ACTIVITIES)
+    (tmp_path / "res.csv").write_text("id,name,units,unitz,shift\ncrew,Painters,1,2,day\n")
+    code, out, err = run(capsys, "import", tmp_path / "acts.csv", "-o", tmp_path / "p.slw", "--start", "2027-01-04",
+                         "--resources", tmp_path / "res.csv")
+    assert code == 0 and "1 resources" in out
+    assert "res.csv: columns not read: 'unitz', 'shift'" in err

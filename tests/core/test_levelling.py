@@ -187,3 +187,14 @@ def test_odds_with_and_without_the_crews_read_the_same_percentiles_as_each_run()
     assert rows["P80"] == (format_date(both.logic.date_of(both.logic.percentiles["P80"])),
                            format_date(both.aware.date_of(both.aware.percentiles["P80"])))
     assert both.aware.mean > both.logic.mean > analyze(demo_plan()).schedule.finish   # crews, then merge bias
+
+
+@pytest.mark.parametrize("budget", [7, 40, 301])
+def test_the_budget_counts_every_schedule_built(budget):
+    """The budget is the total: the rule's, the improvement's and the genetic algorithm's."""
+    plan = random_instance(11, n=30)
+    alone = level(plan).schedules_tried            # the rule and the improvement
+    got = level(plan, budget=budget, seed=3)
+    assert alone < got.schedules_tried <= budget
+    assert got.schedules_tried > budget - 6        # the search uses what it was given
+    assert got.finish <= level(plan).finish + 1e-9

@@ -61,3 +61,23 @@ def test_resources_table_needs_id_and_units_columns(tmp_path):
     (tmp_path / "res.csv").write_text("name,size\nPainters,2\n")
     with pytest.raises(TableImportError, match="needs columns 'id' and 'units'"):
         read_resource_file(tmp_path / "res.csv")
+
+
+def test_resource_columns_not_read_are_named_in_the_import_report(tmp_path):
+    """An XLSX Resources sheet with a misspelt heading: the report names it (as it names the
+    activity sheet's ignored columns); the CSV reader hands them back to its caller."""
+    from workbench.io.tabular import read_table_report
+
+    plan = demo_plan()
+    path = export_table(analyze(plan), tmp_path / "demo.xlsx")
+    book = openpyxl.load_workbook(path)
+    book["Resources"].cell(row=1, column=5, value="shift pattern")
+    book.save(path)
+    back, report = read_table_report(path, plan.settings)
+    assert len(back.resources) == len(plan.resources)
+    assert "shift pattern (sheet Resources)" in report.ignored_columns
+    assert "shift pattern (sheet Resources)" in report.summary()
+    (tmp_path / "res.csv").write_text("id,units,Units,colour\ncrew,2,3,red\n")
+    unread = []
+    assert [r.units for r in read_resource_file(tmp_path / "res.csv", unread)] == [2.0]
+    assert unread == ["Units", "colour"]                 # a repeated heading is not read either

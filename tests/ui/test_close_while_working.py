@@ -96,16 +96,17 @@ def test_tradeoff_view(qtbot, gate, monkeypatch):
     assert died == [True, True] and calls == []
 
 
-def test_resources_odds_panel(qtbot, gate, monkeypatch):
-    from workbench.ui.resources import odds_panel
+def test_crews_odds_in_the_resources_view(qtbot, gate, monkeypatch):
+    from workbench.ui import crew_odds
     from workbench.ui.resources.view import ResourcesView
-    monkeypatch.setattr(odds_panel, "compare_odds", gate)
-    calls = spy(monkeypatch, odds_panel.ResourceOddsPanel, "_show")
+    monkeypatch.setattr(crew_odds, "compare_odds", gate)
+    calls = spy(monkeypatch, crew_odds.CrewOddsRun, "_done")
     view = ResourcesView(Session(demo_plan()))
     died = track(view, view.odds)
     view.odds.run()
     assert gate.entered.wait(10)
     view.odds.stop()                                # bounded, though the work ignores it
+    assert not view.odds.shared.running
     close_and_delete(qtbot, view, died, 2)
     gate.finish()
     qtbot.wait(20)

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import datetime as dt
+import sys
 from pathlib import Path
 
 from ..core.analysis import analyze
@@ -23,7 +24,7 @@ def add_arguments(p) -> None:
 
 
 def run(args) -> int:
-    from ..io.tabular import read_table
+    from ..io.tabular import read_table_report
     from ..core.model import Settings
     from ..core.text import clean_text
 
@@ -48,9 +49,16 @@ def run(args) -> int:
         res = Path(args.resources)
         if not res.is_file():
             raise PlanError(f"--resources {args.resources}: no such file", "--resources")
-        resources = read_resource_file(res)
+        unread: list[str] = []
+        resources = read_resource_file(res, unread)
+        if unread:
+            print(f"warning: {res.name}: columns not read: {', '.join(repr(c) for c in unread)} "
+                  "(a resources table reads id, name, units and cost)", file=sys.stderr)
     refuse_if_locked(args.output, args.force)  # before the work of reading
-    plan = read_table(src, settings=settings, resources=resources)
+    plan, report = read_table_report(src, settings=settings, resources=resources)
+    if report.ignored_columns:
+        print(f"warning: {src.name}: columns not read: {', '.join(repr(c) for c in report.ignored_columns)}",
+              file=sys.stderr)
     from .living import apply_status_date
     apply_status_date(plan, args)
     analyze(plan)  # refuse a plan that cannot be scheduled before writing anything

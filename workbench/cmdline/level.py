@@ -16,7 +16,8 @@ def add_arguments(p) -> None:
     p.add_argument("--rule", choices=("lft", "float", "successors"), default="lft",
                    help="priority: latest finish first (default), least total float, most successors")
     p.add_argument("--budget", type=int, default=0, metavar="N",
-                   help="schedules the genetic algorithm may try after the rule (default 0: none)")
+                   help="the most schedules to build in all: the rule's and the improvement's, then the genetic "
+                        "algorithm's with what they leave (default 0: no genetic algorithm)")
     p.add_argument("--seed", type=int, default=0, metavar="S")
     p.add_argument("--json", action="store_true")
     p.add_argument("--force", action="store_true",
@@ -59,10 +60,11 @@ def _as_json(result, cal) -> dict:
 
 def _as_text(plan, result, cal, output) -> str:
     unit = plan.settings.unit
-    lines = [f"{plan.settings.title}: levelled by rule '{result.rule}' ({result.schedules_tried} schedules tried)",
+    lines = [f"{plan.settings.title}: levelled by rule '{result.rule}' ({result.schedules_tried} schedules built in all)",
              f"Finish         {cal.finish_date(result.finish).isoformat()}  ({num(result.finish)} {unit}); "
              f"logic alone {cal.finish_date(result.logic_finish).isoformat()} ({num(result.logic_finish)} {unit})",
-             f"Delay          {num(result.delay)} {unit}", ""]
+             (f"Delay          {num(result.delay)} {unit}" if result.delay > 1e-9
+              else "Delay          none: levelling keeps the logic-only finish"), ""]
     if result.moves:
         rows = [[m.id, elide(plan.activity(m.id).name, 32), cal.start_date(m.logic_start).isoformat(),
                  cal.start_date(m.start).isoformat(), m.held_by] for m in result.moves]

@@ -76,6 +76,13 @@ def record_trend(plan, args, result, deadline) -> None:
           file=sys.stderr)
 
 
+def _crews_shift(shift: float, unit: str) -> str:
+    """How far the resource-aware mean sits from PERT's, in words that fit when it is none."""
+    if abs(shift) < 0.0005:
+        return "the same as PERT's"
+    return f"{num(abs(shift), 3)} {unit} {'later' if shift > 0 else 'earlier'} (merging paths and crews)"
+
+
 def render_simulation(plan, data: dict) -> str:
     unit = plan.settings.unit
     mode = ", resource-aware (crews hold work back in every iteration)" if data.get("resource_aware") else ""
@@ -84,7 +91,7 @@ def render_simulation(plan, data: dict) -> str:
         out[1:1] = [f"From the status date {data['status_date']}: actual dates fixed, only remaining work uncertain"]
     out.append(f"Mean finish    {num(data['mean'])} {unit} (sd {num(data['sd'], 3)}); "
                f"PERT mean {num(data.get('pert_mean', float('nan')))}; "
-               + (f"later by {num(data['merge_bias'], 3)} {unit} (merging paths and crews)" if data.get("resource_aware")
+               + (_crews_shift(data["merge_bias"], unit) if data.get("resource_aware")
                   else f"merge bias {num(data['merge_bias'], 3)} {unit}"))
     dates = data.get("percentile_dates", {})
     for key in ("P10", "P50", "P80", "P90"):

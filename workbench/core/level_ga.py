@@ -21,6 +21,7 @@ import numpy as np
 
 POPULATION = 40
 MUTATION = 0.05
+COST = 3                   # schedules per individual: the serial scheme, then back and forth
 
 
 def _list_of(starts) -> list[int]:
@@ -75,9 +76,9 @@ def _first_generation(lev, start, evaluate, rng) -> list[tuple[float, list[int]]
     lft = np.asarray(lev.priority("lft"))
     spread = float(np.ptp(lft)) or 1.0
     for rule in ("float", "successors"):
-        if evaluate.left > 0:
+        if evaluate.left >= COST:
             people.append(evaluate(_list_of(lev.priority(rule))))
-    while len(people) < POPULATION and evaluate.left > 0:
+    while len(people) < POPULATION and evaluate.left >= COST:
         noisy = lft + rng.random(lft.size) * spread * rng.uniform(0.05, 3.0)   # up to nearly random
         people.append(evaluate(_list_of(noisy)))
     return people
@@ -96,18 +97,21 @@ def _survivors(people):
 
 def evolve(lev, start, budget: int, seed: int = 0) -> list[float]:
     """The best schedule found within ``budget`` schedules, starting from ``start``
-    (never worse than it), then improved once more by forward–backward justification."""
+    (never worse than it), then improved once more by forward–backward justification
+    when the budget has room left for it: never more than ``budget`` schedules."""
+    if budget < COST:
+        return start
     rng = np.random.default_rng(seed)
     evaluate = _Evaluator(lev, budget)
     evaluate.best, evaluate.best_span = start, lev.makespan(start)
     linked = set(zip(lev.problem.src, lev.problem.dst))
     people = _first_generation(lev, start, evaluate, rng)
     n = lev.problem.n
-    while evaluate.left > 5 and len(people) > 1:
+    while evaluate.left >= 2 * COST and len(people) > 1:
         perm = rng.permutation(len(people))
         children = []
         for a, b in zip(perm[::2], perm[1::2]):
-            if evaluate.left < 6:
+            if evaluate.left < 2 * COST:
                 break
             q1, q2 = sorted(int(x) for x in rng.integers(1, n, size=2))
             mother, father = people[a][1], people[b][1]
@@ -116,4 +120,4 @@ def evolve(lev, start, budget: int, seed: int = 0) -> list[float]:
         if not children:
             break
         people = _survivors(people + children)
-    return lev.improve(evaluate.best)
+    return lev.improve(evaluate.best, rounds=max(evaluate.left, 0) // COST)

@@ -19,12 +19,14 @@ offsets, the finish delay levelling causes, and for each moved activity what hel
 
 from __future__ import annotations
 
+import dataclasses
 from dataclasses import dataclass, field
 
 import numpy as np
 
 from .analysis import analyze
 from .errors import PlanError
+from .progress import engine_inputs
 from .sgs import EPS, Profile, ResourceProblem
 
 RULES = ("lft", "float", "successors")
@@ -88,6 +90,21 @@ def profile_for(plan, calendar) -> Profile:
     return Profile(times, free)
 
 
+def engine_bounds(plan, analysis):
+    """The start floors, finish floors (or None) and done mask ``analysis`` was scheduled
+    with: the constraints' floors, or from a status date those of progress (see
+    :mod:`.progress`: done work sits on its actuals, remaining work starts after the
+    status date)."""
+    base = plan._analyzer
+    n = len(plan.activities)
+    if analysis.progress is None:
+        return np.asarray(base.floor, dtype=float), None, np.zeros(n, dtype=bool)
+    frame = dataclasses.replace(analysis.progress, warnings=[])      # its warnings were given once
+    inputs = engine_inputs(frame, base.net, base.floor)
+    ff = None if inputs.finish_floor is None else np.asarray(inputs.finish_floor, dtype=float)
+    return np.asarray(inputs.floor, dtype=float), ff, np.asarray(inputs.done, dtype=bool)
+
+
 class Leveller:
     """A plan compiled for levelling: the logic-only analysis, the serial-scheme problem,
     the mean durations and link offsets."""
@@ -96,15 +113,26 @@ class Leveller:
         self.plan = plan
         self.analysis = analysis if analysis is not None else analyze(plan)
         a = self.analysis
-        net = a.schedule.network
+        net = a.schedule.network            # from a status date: with the links progress cut
         index = {r.id: k for k, r in enumerate(plan.resources)}
-        needs = [[(index[r], float(u)) for r, u in act.resources if u > 0] for act in plan.activities]
-        analyzer = plan._analyzer
-        self.problem = ResourceProblem(net.ids, net.src, net.dst, analyzer.floor, needs,
-                                       profile_for(plan, a.calendar), [r.id for r in plan.resources])
+        self.floor, self.finish_floor, self.done = engine_bounds(plan, a)
+        needs = [[] if done else [(index[r], float(u)) for r, u in act.resources if u > 0]
+                 for act, done in zip(plan.activities, self.done)]     # done work holds no one now
         self.durations = [float(x) for x in a.schedule.durations]
+        self.problem = ResourceProblem(net.ids, net.src, net.dst, self.floors(a.schedule.durations), needs,
+                                       profile_for(plan, a.calendar), [r.id for r in plan.resources])
         self.offsets = [float(x) for x in net.link_offsets(np.asarray(self.durations))]
         self.schedules = 0
+
+    def floors(self, durations) -> np.ndarray:
+        """Start floors for these durations: a finish floor EF ≥ f (an SF link from started
+        work) is a start floor f − d. Works on (n,) or (n, iterations) durations."""
+        d = np.asarray(durations, dtype=float)
+        base = self.floor if d.ndim == 1 else self.floor[:, None]
+        if self.finish_floor is None:
+            return np.broadcast_to(base, d.shape).copy()
+        ff = self.finish_floor if d.ndim == 1 else self.finish_floor[:, None]
+        return np.maximum(base, ff - d)
 
     # --- priorities -----------------------------------------------------
     def priority(self, rule: str) -> list[float]:
@@ -159,7 +187,7 @@ class Leveller:
 
     def result(self, starts, rule: str) -> LevelResult:
         key = list(starts)
-        starts, why = self.forward(key, explain=True)     # the same schedule, with reasons
+        starts, why = self.problem.schedule(key, self.durations, self.offsets, True)   # the same one, with reasons
         d = np.asarray(self.durations)
         st = np.asarray(starts, dtype=float)
         return LevelResult(self.problem.ids, st, st + d, float(self.makespan(starts)),
@@ -179,8 +207,11 @@ class Leveller:
 
 
 def level(plan, rule: str = "lft", budget: int = 0, seed: int = 0, analysis=None) -> LevelResult:
-    """Level the plan's resources. ``rule``: the priority rule; ``budget``: how many more
-    schedules the genetic algorithm may try after the rule and the improvement (0: none).
+    """Level the plan's resources. ``rule``: the priority rule; ``budget``: the most
+    schedules levelling builds in all — the rule's, the improvement's and the genetic
+    algorithm's, which gets what the first two leave (0: no genetic algorithm). The rule
+    and the improvement always run, so a budget smaller than they need is exceeded by
+    them alone (``schedules_tried`` says how many were built).
     Raises PlanError naming the culprit (an unknown rule, an activity that never fits)."""
     if rule not in RULES:
         raise PlanError(f"unknown levelling rule {rule!r} (use {', '.join(RULES)})", "rule")
@@ -188,10 +219,11 @@ def level(plan, rule: str = "lft", budget: int = 0, seed: int = 0, analysis=None
         raise PlanError(f"the schedule budget must be a whole number ≥ 0, not {budget!r}", "budget")
     lev = Leveller(plan, analysis)
     best = lev.improve(lev.forward(lev.priority(rule)))
-    if budget > 0 and lev.problem.n > 1:
+    left = budget - lev.schedules
+    if budget > 0 and left > 0 and lev.problem.n > 1:
         from .level_ga import evolve
 
-        best = evolve(lev, best, budget, seed)
+        best = evolve(lev, best, left, seed)
     return lev.result(best, rule)
 
 

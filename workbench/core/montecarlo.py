@@ -165,11 +165,9 @@ class MonteCarlo:
                                   self.analyzer.finish_floor, self.analyzer.done)
         self.resource_aware = bool(resources)
         if resources:                    # crews hold work back in every iteration
-            if self.progress is not None:
-                raise PlanError("a simulation with the crews does not yet start from the status date; "
-                                "run it without resources for a plan with progress", "resources")
+            from .analysis import analyze
             from .resource_sim import ResourcePasses
-            self.passes = ResourcePasses(plan)
+            self.passes = ResourcePasses(plan, analyze(plan, status_date=status_date))
 
     def _from_status(self, family) -> None:
         frame, base = self.progress, self.analyzer

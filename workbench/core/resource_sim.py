@@ -4,6 +4,11 @@ and machines hold work back in every iteration as they would on site. A fixed pr
 policy is the usual approach for stochastic resource-constrained scheduling (common
 practice: the order is chosen once, before the durations are known).
 
+A plan with progress is simulated from its status date as the logic-only simulation is:
+done work sits on its actual dates and holds no crew any more, remaining work starts
+after the status date and waits for the crews (the floors and cut links of
+:mod:`.progress`, through :func:`.levelling.engine_bounds`).
+
 An activity counts as critical in an iteration when it lies on the driving chain back
 from an activity that finishes last (every one that ties for last, such as a finish
 milestone): each activity's driver is the predecessor whose link set its start or, when
@@ -14,8 +19,8 @@ from __future__ import annotations
 
 import numpy as np
 
-from .levelling import Leveller, level
 from .errors import PlanError
+from .levelling import Leveller, level
 
 EPS = 1e-9
 
@@ -30,6 +35,7 @@ class ResourcePasses:
         self.leveller = Leveller(plan, analysis)
         self.key = list(level(plan, rule=rule, analysis=self.leveller.analysis).order)
         self.net = self.leveller.analysis.schedule.network
+        self.varying = self.leveller.finish_floor is not None      # floors that move with durations
 
     def run(self, durations: np.ndarray, deadline=None, valid: int | None = None):
         n, b = durations.shape
@@ -38,14 +44,17 @@ class ResourcePasses:
         critical = np.zeros(n, dtype=np.int64)
         offsets = self.net.link_offsets(durations)
         problem = self.leveller.problem
+        floors = self.leveller.floors(durations) if self.varying else None
         for it in range(b):
             d = durations[:, it].tolist()
-            starts, why = problem.schedule(self.key, d, offsets[:, it].tolist(), explain=True)
+            floor = None if floors is None else floors[:, it].tolist()
+            starts, why = problem.schedule(self.key, d, offsets[:, it].tolist(), explain=True, floor=floor)
             ends = [s + x for s, x in zip(starts, d)]
             finish[it] = max(ends) if n else 0.0
             if it < valid and n:
                 for j in self._critical(finish[it], starts, ends, why, offsets[:, it]):
                     critical[j] += 1
+        critical[self.leveller.done] = 0           # done work is never critical (as logic-only)
         return finish, critical
 
     def _critical(self, finish: float, starts, ends, why, offsets) -> set[int]:

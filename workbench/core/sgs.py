@@ -122,11 +122,13 @@ class ResourceProblem:
         self.profile = profile
         self.resource_ids = resource_ids
 
-    def schedule(self, key, durations, offsets, explain: bool = False):
+    def schedule(self, key, durations, offsets, explain: bool = False, floor=None):
         """Serial scheme: starts (list) for ``durations``/``offsets`` (per link, see
         ``Network.link_offsets``), taking eligible activities lowest ``key`` first (ties by
-        index). With ``explain`` also a Placement per activity."""
-        n, preds, succs, needs, floor = self.n, self.preds, self.succs, self.needs, self.floor
+        index). With ``explain`` also a Placement per activity. ``floor`` replaces the
+        problem's start floors for this schedule (they may depend on the durations)."""
+        n, preds, succs, needs = self.n, self.preds, self.succs, self.needs
+        floor = self.floor if floor is None else floor
         profile = self.profile.copy()
         left = list(self.indegree)
         eligible = [(key[j], j) for j in range(n) if left[j] == 0]

@@ -20,7 +20,25 @@ class LoadingFigure:
 
     @property
     def title(self) -> str:
-        return f"{self.name}: peak {self.peak:g} of {self.available.max():g} units" if self.available.size else self.name
+        """Plain words: 'Electricians: over-allocated by 1 unit (5 in use, 4 available)'."""
+        if not self.available.size:
+            return self.name
+        if not self.over:
+            return f"{self.name}: within its {self.available.max():g} available (peak {self.peak:g} in use)"
+        excess = float(np.max(self.use - self.available))
+        plural = "" if abs(excess - 1.0) < 1e-9 else "s"
+        at_peak = float(self.available[int(np.argmax(self.use - self.available))])
+        return (f"{self.name}: over-allocated by {excess:g} unit{plural} "
+                f"({excess + at_peak:g} in use, {at_peak:g} available)")
+
+    @property
+    def over_mask(self) -> np.ndarray:
+        """Per step, True where the step lies in an over-allocated period."""
+        mid = 0.5 * (self.edges[:-1] + self.edges[1:])
+        mask = np.zeros(mid.size, dtype=bool)
+        for a, b in self.over:
+            mask |= (mid > a) & (mid < b)
+        return mask
 
 
 def loading_figure(load, until: float | None = None) -> LoadingFigure:

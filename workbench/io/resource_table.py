@@ -1,6 +1,7 @@
 """Resources in spreadsheets: an activity's ``resources`` cell (``crew 2; crane 1``) and the
 table of resources (columns ``id``, ``name``, ``units``, optionally ``cost``), read from an
-XLSX workbook's sheet named ``Resources`` or from a CSV file of its own.
+XLSX workbook's sheet named ``Resources`` or from a CSV file of its own. Other columns are
+not read; they are named back (like the activity table's) so a misspelt heading is noticed.
 
 Every problem names its row and column; a table is read all or nothing.
 """
@@ -48,13 +49,16 @@ def format_needs(needs) -> str:
     return "; ".join(f"{res} {format_number(units)}" for res, units in needs)
 
 
-def _column_map(header: list[str], header_row: int, source: str) -> dict[str, int]:
+def _column_map(header: list[str], header_row: int, source: str, ignored: list | None = None) -> dict[str, int]:
+    """Column of each field; a heading that names none (or repeats one) goes to ``ignored``."""
     found: dict[str, int] = {}
     for i, cell in enumerate(header):
         key = " ".join(str(cell).strip().lower().replace("_", " ").split())
-        for name, aliases in COLUMNS.items():
-            if key in aliases and name not in found:
-                found[name] = i
+        name = next((n for n, aliases in COLUMNS.items() if key in aliases), None)
+        if name is not None and name not in found:
+            found[name] = i
+        elif key and ignored is not None:
+            ignored.append(str(cell).strip())
     missing = [n for n in ("id", "units") if n not in found]
     if missing:
         raise TableImportError([f"row {header_row}: the resources table needs columns 'id' and 'units' "
@@ -72,13 +76,15 @@ def _number(cell: str, row: int, column: str, problems: list[str], default=None)
     return float(text.replace(",", "."))
 
 
-def resources_from_rows(rows: list[tuple[int, list[str]]], source: str) -> list[Resource]:
-    """The resources of a table whose first non-blank row is the header."""
+def resources_from_rows(rows: list[tuple[int, list[str]]], source: str, ignored: list | None = None) -> list[Resource]:
+    """The resources of a table whose first non-blank row is the header. Headings it does not
+    read (none of id, name, units, cost or their aliases) are added to ``ignored`` so the
+    caller can name them, as the activity table's ignored columns are named."""
     rows = [(n, cells) for n, cells in rows if any(str(c).strip() for c in cells)]
     if not rows:
         raise TableImportError(["the resources table is empty"], source)
     (header_row, header), body = rows[0], rows[1:]
-    cols = _column_map(header, header_row, source)
+    cols = _column_map(header, header_row, source, ignored)
     cell = lambda cells, name: str(cells[cols[name]]).strip() if name in cols and cols[name] < len(cells) else ""
     problems, out, seen = [], [], {}
     for n, cells in body:

@@ -103,13 +103,13 @@ def table_rows_of(path, sheet: str | None = None) -> list[tuple[int, list[str]]]
     return _csv_table(path, raw, path.name, ImportReport())[0]
 
 
-def read_resource_file(path) -> list:
+def read_resource_file(path, ignored: list | None = None) -> list:
     """A resources table (columns id, name, units, cost) from its own CSV file, or an XLSX
-    workbook's Resources sheet (else its first)."""
+    workbook's Resources sheet (else its first); headings not read go to ``ignored``."""
     from .resource_table import SHEET, resources_from_rows
 
     path = Path(path)
-    return resources_from_rows(table_rows_of(path, sheet=SHEET), path.name)
+    return resources_from_rows(table_rows_of(path, sheet=SHEET), path.name, ignored)
 
 
 def read_table_report(path, settings: Settings | None = None, resources=None) -> tuple[Plan, ImportReport]:
@@ -129,7 +129,9 @@ def read_table_report(path, settings: Settings | None = None, resources=None) ->
             sheet = read_xlsx_sheet(raw, source, "Resources")
             if sheet is not None and report.sheet.strip().lower() != "resources":
                 from .resource_table import resources_from_rows
-                resources = resources_from_rows(sheet, f"{source}, sheet Resources")
+                unread: list[str] = []
+                resources = resources_from_rows(sheet, f"{source}, sheet Resources", unread)
+                report.ignored_columns += [f"{c} (sheet Resources)" for c in unread]
     elif path.suffix.lower() in XLSX_SUFFIXES:
         raise TableImportError(["not a valid XLSX workbook (it is not a zip container; an old .xls or a "
                                 "password-protected file? save it as .xlsx or CSV)"], source)
@@ -138,7 +140,7 @@ def read_table_report(path, settings: Settings | None = None, resources=None) ->
     header_row, header, body = _header_and_rows(rows)
     if header_row is None:
         raise TableImportError(["the file is empty" if report.kind == "csv" else "the sheet is empty"], source)
-    report.ignored_columns = map_header(header, header_row).ignored
+    report.ignored_columns = map_header(header, header_row).ignored + report.ignored_columns
     plan = build_plan(header, body, settings, header_row=header_row, decimal_comma=decimal_comma,
                       guarded=report.kind == "csv", source=source, resources=resources)
     report.activities, report.links = len(plan), len(plan.links)

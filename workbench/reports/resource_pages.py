@@ -50,8 +50,11 @@ def resource_pages(ctx, frame: tuple[float, float]) -> list:
 
 def _summary(ctx, result) -> str:
     cal = ctx.analysis.calendar
-    if result.delay <= 1e-9:
+    if result.delay <= 1e-9 and not result.moves:
         head = "Every resource has enough units for the logic-only schedule: levelling moves nothing."
+    elif result.delay <= 1e-9:
+        head = (f"Levelling moves {len(result.moves)} activit{'y' if len(result.moves) == 1 else 'ies'} within "
+                f"their float; the finish stays {format_date(cal.finish_date(result.finish))}.")
     else:
         head = (f"On the logic-only dates some resources are asked for more units than exist. Levelled "
                 f"(latest finish first, then justified), the plan finishes {format_date(cal.finish_date(result.finish))}, "
@@ -76,13 +79,14 @@ def _paint_one(c, w, h, early, lev, finish, calendar) -> None:
     fig, lfig = loading_figure(early, until=finish), loading_figure(lev, until=finish)
     top = max(fig.top, lfig.top)
     x0, x1 = float(fig.edges[0]), max(float(fig.edges[-1]), float(lfig.edges[-1]))
-    left, bottom, pw, ph = 34, 16, w - 40, h - 34
+    left, bottom, pw, ph = 34, 16, w - 40, h - 44
     px = lambda v: left + (v - x0) / max(x1 - x0, 1e-9) * pw
     py = lambda u: bottom + u / top * ph
     c.setFont(styles.BOLD, 10)
     c.setFillColor(styles.TEXT)
-    c.drawString(0, h - 10, fit(f"{fig.name} — peak {fig.peak:g}, levelled {lfig.peak:g}, of "
-                                f"{fig.available.max():g} units", w, styles.BOLD, 10))
+    c.drawString(0, h - 10, fit(fig.title, w, styles.BOLD, 10))
+    c.setFont(styles.FONT, 8.5)
+    c.drawString(0, h - 21, fit(f"On the levelled dates: at most {lfig.peak:g} in use", w, styles.FONT, 8.5))
     c.setFillColor(styles.colour(style.WORK))
     c.setStrokeColor(styles.colour(style.WORK_EDGE))
     for a, b, u in zip(fig.edges[:-1], fig.edges[1:], fig.use):
@@ -166,10 +170,6 @@ def _odds(ctx, width) -> list:
     sim = ctx.simulation
     if sim is None:
         return []
-    if ctx.analysis.progress is not None:          # see docs/progress.md, "Known limits"
-        return [Paragraph("The odds with and without the crews", styles.H2),
-                Paragraph("Not shown for a plan with progress: a simulation with the crews does not yet start "
-                          "from the status date.", styles.BODY)]
     from workbench.core.montecarlo import simulate
     from workbench.core.resource_odds import ResourceOdds
 

@@ -95,6 +95,10 @@ class OddsPanel(QWidget):
     def _layout(self) -> None:
         lay = QVBoxLayout(self)
         lay.addWidget(self.headline)
+        self.crews_box = QGroupBox("With the crews")    # shown when the plan has resources
+        self.crews_slot = QVBoxLayout(self.crews_box)
+        self.crews_box.hide()
+        lay.addWidget(self.crews_box)
         lay.addWidget(self.error)
         lay.addWidget(self._question_box())
         lay.addWidget(self._inverse_box())

@@ -12,6 +12,7 @@ from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QSplitter, QWidget
 
 from workbench.core import formatting as fm
 from workbench.figures import odds as fo
+from workbench.ui.crew_odds import CrewOddsPanel
 from workbench.ui.odds.controls import OddsControls
 from workbench.ui.odds.panel import OddsPanel
 from workbench.ui.odds.plot import OddsPlot
@@ -57,6 +58,11 @@ class OddsView(QWidget):
         self.panel = OddsPanel(self)
         self.controls = OddsControls(self)
         self.panel.controls_slot.addWidget(self.controls)
+        self.crews = CrewOddsPanel(self.session, table=False)   # the Resources view's run too
+        self.crews.caution.setText("With the crews, every iteration works them in the levelled order "
+                                   "(a fixed priority policy); the caution below holds for both.")
+        self.crews.shared.changed.connect(self.update_question)   # the headline's third column
+        self.panel.crews_slot.addWidget(self.crews)
         self.runner = OddsRunner(self)
         side = QScrollArea()
         side.setWidget(self.panel)
@@ -134,6 +140,7 @@ class OddsView(QWidget):
                 label.setText("")   # nothing of an earlier plan, and no "Chance 100 %" for nothing
             self.panel.set_table([])
             return
+        self.panel.crews_box.setVisible(bool(a.plan.resources))
         self.plot.set_calendar(a.calendar)
         show_trend(self)
         self._follow_target(a)
@@ -264,12 +271,21 @@ class OddsView(QWidget):
         a = self.analysis
         rows = [("Chance", f"{100 * fo.pert_probability(a.pert, q):.1f} %", self._sim_percent(q))]
         rows += [(f"{p} date", d_pert, d_sim) for p, d_pert, d_sim in self._answer_dates]
-        cells = "".join(f"<tr><td>{r}</td><td>{p}</td><td>{s}</td></tr>" for r, p, s in rows)
+        heads = ["", "PERT", "Simulation"]
+        crews = self.crews.paired_with(self.result) if self.result is not None and not self.stale else None
+        if crews is not None:           # the same run's durations with the crews holding work back
+            heads[2] = "Logic only"
+            heads.append("With the crews")
+            extra = [f"{100 * fo.sim_probability(crews, q):.1f} %"]
+            extra += [fo.format_date(fo.date_of(a.calendar, fo.sim_offset_at(crews, p)))
+                      for p in dict.fromkeys((self.confidence, 0.9))]      # as show_confidence asks
+            rows = [row + (x,) for row, x in zip(rows, extra)]
+        cells = "".join("<tr>" + "".join(f"<td>{c}</td>" for c in row) + "</tr>" for row in rows)
+        head = "".join(f"<td><u>{h}</u></td>" if h else "<td></td>" for h in heads)
         self.panel.headline.setText(
             f"{status_note(a)}{fo.question_headline(q, a.calendar, a.deadline)}"
             "<table cellspacing='0' cellpadding='3' style='font-size:12pt'>"
-            "<tr><td></td><td><u>PERT</u></td><td><u>Simulation</u></td></tr>"
-            f"{cells}</table>")
+            f"<tr>{head}</tr>{cells}</table>")
 
     def _sim_percent(self, q) -> str:
         if self.result is None:
@@ -361,6 +377,7 @@ class OddsView(QWidget):
         self.controls.set_status(f"Simulation failed: {message}", True)
 
     def closeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        self.crews.stop()
         self.runner.abandon()                       # its result, if any, is dropped
         self.runner.wait(int(workers.CLOSE_WAIT_S * 1000))   # bounded: the run stops at its next block
         super().closeEvent(event)

@@ -7,9 +7,8 @@ from __future__ import annotations
 import numpy as np
 import pyqtgraph as pg
 from PySide6.QtCore import Qt
-from PySide6.QtGui import QColor
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QPushButton, QSizePolicy, QTableWidget, QTableWidgetItem,
-                               QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QComboBox, QFrame, QHBoxLayout, QLabel, QPushButton, QScrollArea, QSizePolicy,
+                               QTableWidget, QTableWidgetItem, QTabWidget, QVBoxLayout, QWidget)
 
 from workbench.core.formatting import format_date, format_duration
 from workbench.core.levelling import keep_levelled, level
@@ -17,7 +16,8 @@ from workbench.core.loading import plan_loading
 from workbench.figures import style
 from workbench.figures.loading import loading_figure
 from workbench.ui.date_axis import DateAxis
-from workbench.ui.resources.odds_panel import ResourceOddsPanel
+from workbench.ui.loading_plot import LEGEND, add_loading
+from workbench.ui.crew_odds import CrewOddsPanel
 from workbench.ui.session import refresh_when_shown
 
 NO_RESOURCES = ("This plan has no resources. Give activities their crews, machines or rigs in a "
@@ -39,6 +39,8 @@ class ResourcesView(QWidget):
 
     # --- layout -------------------------------------------------------------
     def _build(self) -> None:
+        """One row of controls, one line of what is wrong, then tabs (chart, what moved, odds):
+        every part keeps a readable size in a small dock at 1024×768."""
         self.resource_box = QComboBox(accessibleName="Resource shown")
         self.resource_box.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToContents)
         self.resource_box.setSizePolicy(QSizePolicy.Policy.Minimum, QSizePolicy.Policy.Fixed)  # never cut a name
@@ -50,35 +52,60 @@ class ResourcesView(QWidget):
         self.keep_button = QPushButton("&Keep levelled dates", clicked=self.keep, enabled=False)
         self.keep_button.setToolTip("Start-no-earlier constraints on the activities a resource held: one undo step")
         bar = QHBoxLayout()
-        for w in (QLabel("Resource"), self.resource_box, self.dates_box):
+        for w in (self.resource_box, self.dates_box):
             bar.addWidget(w)
         bar.addStretch(1)
-        self.axis = DateAxis()
-        self.plot = pg.PlotWidget(axisItems={"bottom": self.axis}, background=style.BACKGROUND)
-        self.plot.setMenuEnabled(False)
-        self.plot.hideButtons()
-        self.plot.setLabel("left", "units")
-        self.plot.setMinimumHeight(160)
-        font = self.plot.font()
-        font.setPointSize(11)
-        for side in ("left", "bottom"):
-            self.plot.getAxis(side).setTickFont(font)
         self.message = QLabel(wordWrap=True)
-        self.moves = QTableWidget(0, 5)
-        self.moves.setHorizontalHeaderLabels(["id", "name", "logic start", "levelled start", "held by"])
-        self.moves.horizontalHeader().setStretchLastSection(True)
-        self.moves.itemSelectionChanged.connect(self._select_moved)
-        self.odds = ResourceOddsPanel(self.session)
-        layout = QVBoxLayout(self)
-        layout.addLayout(bar)
-        layout.addWidget(self.plot, 3)
         status = QHBoxLayout()          # what is over-allocated, beside what to do about it
         status.addWidget(self.message, 1)
         status.addWidget(self.level_button)
         status.addWidget(self.keep_button)
+        self.tabs = QTabWidget(documentMode=True)
+        self.tabs.addTab(self._chart_page(), "Loading")
+        self.moves = QTableWidget(0, 5)
+        self.moves.setHorizontalHeaderLabels(["id", "name", "logic start", "levelled start", "held by"])
+        self.moves.horizontalHeader().setStretchLastSection(True)
+        self.moves.itemSelectionChanged.connect(self._select_moved)
+        self.tabs.addTab(self.moves, "What levelling moved")
+        self.odds = CrewOddsPanel(self.session)
+        scroller = QScrollArea(widgetResizable=True, frameShape=QFrame.Shape.NoFrame)
+        scroller.setWidget(self.odds)
+        self.tabs.addTab(scroller, "Odds with the crews")
+        layout = QVBoxLayout(self)
+        layout.addLayout(bar)
         layout.addLayout(status)
-        layout.addWidget(self.moves, 2)
-        layout.addWidget(self.odds)
+        layout.addWidget(self.tabs, 1)
+
+    def _chart_page(self) -> QWidget:
+        self.chart_title = QLabel(wordWrap=True)
+        font = self.chart_title.font()
+        font.setPointSize(11)
+        font.setBold(True)
+        self.chart_title.setFont(font)
+        self.chart_title.setStyleSheet(f"color: {style.TEXT};")
+        self.legend = QLabel(LEGEND, wordWrap=True)
+        self.legend.setStyleSheet(f"color: {style.TEXT};")
+        self.axis = DateAxis()
+        self.plot = pg.PlotWidget(axisItems={"bottom": self.axis}, background=style.BACKGROUND)
+        self.plot.setMenuEnabled(False)
+        self.plot.hideButtons()
+        self.plot.setLabel("left", "units", color=style.TEXT)
+        self.plot.setMinimumHeight(120)
+        # no preferred height of its own: a dock's scroll frame would otherwise make the view
+        # as tall as the chart would like (its word-wrapped labels ask for height-for-width)
+        self.plot.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Ignored)
+        font = self.plot.font()
+        font.setPointSize(11)
+        for side in ("left", "bottom"):
+            self.plot.getAxis(side).setTickFont(font)
+            self.plot.getAxis(side).setTextPen(pg.mkPen(style.TEXT))
+        page = QWidget()
+        lay = QVBoxLayout(page)
+        lay.setContentsMargins(0, 4, 0, 0)
+        lay.addWidget(self.chart_title)
+        lay.addWidget(self.plot, 1)
+        lay.addWidget(self.legend)
+        return page
 
     # --- refresh -------------------------------------------------------------
     def refresh(self) -> None:
@@ -86,10 +113,10 @@ class ResourcesView(QWidget):
         self.levelled = None
         self.keep_button.setEnabled(False)
         self.moves.setRowCount(0)
-        self.moves.hide()
+        self.tabs.setTabEnabled(1, False)
         plan, analysis = self.session.plan, self.session.analysis
         has = bool(plan.resources) and analysis is not None
-        for w in (self.resource_box, self.dates_box, self.level_button, self.keep_button, self.plot, self.odds):
+        for w in (self.resource_box, self.dates_box, self.level_button, self.keep_button, self.tabs):
             w.setVisible(has)
         if not has:
             self.message.setText(NO_RESOURCES if not plan.resources else "The plan cannot be scheduled: see the Activities table.")
@@ -134,18 +161,10 @@ class ResourcesView(QWidget):
         if self.levelled is not None and self.dates_box.currentIndex() == 1:
             finish = self.levelled.finish
         fig = loading_figure(self.loads[k], until=finish)
-        for a, b in fig.over:
-            span = pg.LinearRegionItem((a, b), movable=False, brush=QColor(213, 94, 0, 70), pen=pg.mkPen(None))
-            self.plot.addItem(span)
-        use = pg.PlotDataItem(fig.edges, fig.use, stepMode="center", fillLevel=0,
-                              brush=QColor(style.WORK), pen=pg.mkPen(style.WORK_EDGE, width=1.5))
-        avail = pg.PlotDataItem(fig.edges, fig.available, stepMode="center",
-                                pen=pg.mkPen(style.TEXT, width=2.5, style=Qt.PenStyle.DashLine))
-        self.plot.addItem(use)
-        self.plot.addItem(avail)
+        add_loading(self.plot, fig, line=2.0)
         self.plot.setYRange(0, fig.top, padding=0)
         self.plot.setXRange(float(fig.edges[0]), float(fig.edges[-1]), padding=0.02)
-        self.plot.setTitle(f"{fig.title} \u2014 dashed: available", size="11pt")
+        self.chart_title.setText(fig.title)
 
     # --- levelling ---------------------------------------------------------------
     def run_level(self) -> None:
@@ -181,7 +200,8 @@ class ResourcesView(QWidget):
                 item.setFlags(item.flags() & ~Qt.ItemFlag.ItemIsEditable)
                 self.moves.setItem(row, col, item)
         self.moves.resizeColumnsToContents()
-        self.moves.setVisible(bool(r.moves))
+        self.tabs.setTabEnabled(1, bool(r.moves))
+        self.tabs.setTabText(1, f"What levelling moved ({len(r.moves)})")
         self.keep_button.setEnabled(any(not m.held_by.startswith("after ") for m in r.moves))
 
     def keep(self) -> None:

@@ -22,6 +22,7 @@ from workbench.ui.timeline.reveal import menu_keys
 from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
+from workbench.ui.timeline.loading_band import LoadingBand, remember_band
 from workbench.ui.timeline.present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
 from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
@@ -87,7 +88,9 @@ class TimelineView(QWidget):
         layout.setContentsMargins(0, 0, 0, 0)
         self.toolbar = self._toolbar()
         layout.addWidget(self.toolbar)
-        layout.addWidget(self.plot)
+        layout.addWidget(self.plot, 1)
+        self.band = LoadingBand(self.view_box, self._stop_auto_fit)   # crews' loading, same date axis
+        layout.addWidget(self.band)
         self._apply_weights()
 
     def _toolbar(self) -> QToolBar:
@@ -99,6 +102,7 @@ class TimelineView(QWidget):
                 ("critical", "Critical path", self.show_critical_path, True),
                 ("late", "Late dates", self.set_late_bars, True),
                 ("links", "Links", self.set_connectors, True),
+                ("loading", "Loading", self.set_loading_band, True),
                 ("png", "Export PNG\u2026", lambda: self._export_dialog("png"), False),
                 ("svg", "Export SVG\u2026", lambda: self._export_dialog("svg"), False),
                 ("print", "Print\u2026", self.print_preview, False)):
@@ -121,6 +125,7 @@ class TimelineView(QWidget):
             self.geometry = None
             self.item.set_geometry(None)
             self.row_axis.set_geometry(None)
+            self.band.hide()
             self._show_message("The plan cannot be scheduled:\n" + (self.session.analysis_error or "no schedule yet"))
             return
         only = critical_ids(analysis) if self.critical_only else None
@@ -136,9 +141,16 @@ class TimelineView(QWidget):
         self.item.set_geometry(self.geometry)
         self.row_axis.set_geometry(self.geometry)
         self._set_limits()
+        self.set_loading_band()
         self._fit_label_column()
         self._update_lines()
         self._follow_selection(self.session.selected())
+
+    def set_loading_band(self, on: bool | None = None) -> None:
+        """Show or hide the resource loading band (remembered); None: as last chosen."""
+        if on is not None:
+            remember_band(bool(on))
+        self.band.update_for(self.session.analysis, self._weights is not style.PRESENT, self.actions_by_name["loading"])
 
     def _set_limits(self) -> None:
         """Keep zoom and pan near the plan: a little beyond its dates and rows."""
@@ -152,9 +164,11 @@ class TimelineView(QWidget):
         """Label column as wide as the longest labels need, at most a third of the view."""
         limit = max(140.0, 0.32 * max(self.width(), 600))
         self.row_axis.setWidth(self.row_axis.preferred_width(self._font(), limit))
+        self.band.set_label_width(self.row_axis.preferred_width(self._font(), limit))
 
     def resizeEvent(self, event) -> None:
         super().resizeEvent(event)
+        self.band.fit_to(self.height())
         if self.geometry is not None:
             self._fit_label_column()
             if self._auto_fit:
@@ -374,6 +388,9 @@ class TimelineView(QWidget):
         self.date_axis.setStyle(tickFont=font)
         self.item.set_weights(self._weights)
         self.bar_drag.readout.set_font_px(1.15 * self._font().pixelSize())
+        self.band.set_font(font)
+        if self.geometry is not None:
+            self.set_loading_band()
         if hasattr(self, "toolbar"):
             self.toolbar.setVisible(self._weights is not style.PRESENT)
         self.reference.clear()
