@@ -9,7 +9,7 @@ from .analysis import moments
 from .calendar import WorkCalendar
 from .cpm import Analyzer, constraint_bounds
 from .crash_lp import Rows, Solution, finish_rows_needed, schedule_rows, solve
-from .crash_terms import cost_slope, crash_range
+from .crash_terms import cost_slope, crash_range, missing_crash_data
 from .duration_lp import DurationLP
 from .errors import PlanError
 from .network import compile_plan
@@ -39,6 +39,8 @@ class CrashProblem:
         self.span = np.array([crash_range(a) for a in acts])
         self.slope = np.array([cost_slope(a) for a in acts])
         self.base_cost = float(sum(a.cost or 0.0 for a in acts))
+        # activities given half their crash data: kept, but not shortened ({id: what is missing})
+        self.incomplete = {a.id: m for a in acts if (m := missing_crash_data(a)) is not None}
         self.crashable = np.flatnonzero(self.span > 0)
         floor, fnlt = constraint_bounds(plan, self.calendar)
         order = [plan.row_of(i) for i in self.ids]

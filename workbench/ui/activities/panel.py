@@ -23,7 +23,8 @@ ALL_GROUPS = "All groups"
 WIDTH_CHARS = {"id": 5, "name": 32, "group": 13, "predecessors": 12, "notes": 20, "distribution": 9,
                "start_no_earlier": 10, "finish_no_later": 10, "early_start": 11, "early_finish": 11,
                "late_start": 11, "late_finish": 11, "critical": 5, "state": 10, "actual_start": 10,
-               "actual_finish": 10, "remaining": 9, "baseline_start": 11, "baseline_finish": 11}
+               "actual_finish": 10, "remaining": 9, "baseline_start": 11, "baseline_finish": 11,
+               "cost": 9, "crash_cost": 9}
 BASELINE_KEYS = ("baseline_start", "baseline_finish", "start_variance", "finish_variance")
 DATE_KEYS = {"start_no_earlier", "finish_no_later", "early_start", "early_finish", "late_start", "late_finish", "actual_start",
              "actual_finish", "baseline_start", "baseline_finish"}

@@ -18,7 +18,9 @@ from workbench.ui.tradeoff.runner import TradeoffRunner
 
 CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
            "simulation, not a promise; the decision rests with your organisation's own approval rules.")
-NO_COSTS = "No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can be shortened."
+NO_COSTS = ("No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can "
+            "be shortened: in the Activities table (right-click a heading to show the Cost, Crash cost and Crash "
+            "estimate columns) or in a spreadsheet.")
 
 
 class DateAxis(pg.AxisItem):
@@ -68,6 +70,15 @@ def _font(size: int):
     font = pg.QtGui.QFont()
     font.setPointSize(size)
     return font
+
+
+def _not_shortened(missing: dict) -> str:
+    """A note on the activities given half their crash data (they are not shortened)."""
+    if not missing:
+        return ""
+    names = ", ".join(f"{k} (no {what})" for k, what in list(missing.items())[:5])
+    more = f" and {len(missing) - 5} more" if len(missing) > 5 else ""
+    return f" Not shortened, crash data incomplete: {names}{more}."
 
 
 class TradeoffView(QWidget):
@@ -192,7 +203,8 @@ class TradeoffView(QWidget):
                             + (f" Confidence plans from {result.iterations:,} scenarios, checked on as many "
                                f"fresh ones (seed {result.seed})." if result.confidence else "")
                             + (" No deadline is set: give the plan one (Plan settings) to see the odds and "
-                               "the confidence plans." if result.deadline is None else ""))
+                               "the confidence plans." if result.deadline is None else "")
+                            + _not_shortened(result.problem.incomplete))
         self.find.setEnabled(result.deadline is not None)
         self._draw()
 
