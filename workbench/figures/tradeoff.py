@@ -10,6 +10,7 @@ import numpy as np
 
 DIRECT, INDIRECT, TOTAL = "#0072B2", "#56B4E9", "#D55E00"
 DEADLINE, OPTIMUM, CHANCE = "#CC79A7", "#000000", "#E69F00"
+CHANCE_TICKS = (0, 20, 40, 60, 80, 100)      # the chance axis, in per cent: both ends always labelled
 
 
 @dataclass

@@ -47,6 +47,31 @@ class MoneyAxis(pg.AxisItem):
         return [ftr.money(v) for v in values]
 
 
+class ChanceAxis(pg.AxisItem):
+    """0–100 % with both ends always labelled (they are the first tick level; the steps
+    between are labelled as room allows). The last label may reach past the axis's end,
+    into a right margin of the plot kept for it (``reserve_room``), instead of being dropped."""
+
+    def __init__(self, **kw):
+        super().__init__("bottom", **kw)
+        self.room = 0
+        ends = (ftr.CHANCE_TICKS[0], ftr.CHANCE_TICKS[-1])
+        self.setTicks([[(v, f"{v:g}") for v in ends], [(v, f"{v:g}") for v in ftr.CHANCE_TICKS[1:-1]]])
+
+    def reserve_room(self, plot_item) -> None:
+        font = self.style["tickFont"] or pg.QtGui.QFont()
+        half = pg.QtGui.QFontMetrics(font).horizontalAdvance(f"{ftr.CHANCE_TICKS[-1]:g}") // 2 + 6
+        self.room = half
+        self.setStyle(hideOverlappingLabels=half)
+        left, top, _, bottom = plot_item.layout.getContentsMargins()
+        plot_item.layout.setContentsMargins(left, top, half, bottom)
+
+    def boundingRect(self):  # noqa: N802 (Qt override)
+        # with a grid, pyqtgraph bounds the labels by the axis alone, whatever the style says
+        room = getattr(self, "room", 0)
+        return super().boundingRect().adjusted(-room, 0, room, 0)
+
+
 def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.PlotWidget:
     axes = {"left": MoneyAxis()}
     if axis is not None:
@@ -61,9 +86,19 @@ def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.Plot
     for side in ("left", "bottom"):
         w.getAxis(side).setTickFont(font)
         w.getAxis(side).setTextPen("#000000")
+    if isinstance(axis, ChanceAxis):
+        axis.reserve_room(w.getPlotItem())
     if legend is not None:
         w.addLegend(offset=legend, labelTextSize="11pt", labelTextColor="#000000", brush=pg.mkBrush(255, 255, 255, 220))
     return w
+
+
+def _label_anchor(x: float, textbook: bool) -> tuple[float, float]:
+    """Where a point's label sits: confidence plans above it (to the left on the right half);
+    the textbook plan, near zero cost, beside it, so the axis never cuts it."""
+    if textbook:
+        return (1.12, 0.5) if x > 35 else (-0.12, 0.5)
+    return (1.05, 1.1) if x > 55 else (-0.05, 1.1)
 
 
 def _font(size: int):
@@ -111,8 +146,9 @@ class TradeoffView(QWidget):
             head.addWidget(w)
         head.addWidget(self.status, 1)
         self.axis = DateAxis()
-        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(-10, -60))
-        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)")
+        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(12, -50))
+        self.chance_axis = ChanceAxis()
+        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)", self.chance_axis)
         charts = QHBoxLayout()
         charts.addWidget(self.curve_plot, 3)
         charts.addWidget(self.chance_plot, 2)
@@ -256,10 +292,12 @@ class TradeoffView(QWidget):
             x = 100 * pt.chance
             p.plot([x], [pt.extra_cost], pen=None, symbol=symbol, symbolSize=16,
                    symbolBrush=colour, symbolPen=pg.mkPen("#000000", width=1.5))
-            p.addItem(pg.ErrorBarItem(x=np.array([x]), y=np.array([pt.extra_cost]),
-                                      width=np.array([200 * pt.standard_error]), pen="#000000"))
-            anchor = (-0.05, -0.1) if pt.textbook else (1.05, 1.1) if x > 55 else (-0.05, 1.1)
-            label = pg.TextItem("textbook crash" if pt.textbook else pt.label,
+            bar = pg.ErrorBarItem(x=np.array([x]), y=np.array([pt.extra_cost]),
+                                  width=np.array([200 * pt.standard_error]), pen=pg.mkPen("#000000", width=2))
+            bar.setZValue(-1)      # under the marker: only a spread wider than the marker shows
+            p.addItem(bar)
+            anchor = _label_anchor(x, pt.textbook)
+            label = pg.TextItem("textbook" if pt.textbook else pt.label,
                                 color="#000000", anchor=anchor)
             label.setFont(_font(11))
             label.setPos(x, pt.extra_cost)
