@@ -297,7 +297,7 @@ class TradeoffView(QWidget):
             bar.setZValue(-1)      # under the marker: only a spread wider than the marker shows
             p.addItem(bar)
             anchor = _label_anchor(x, pt.textbook)
-            label = pg.TextItem("textbook" if pt.textbook else pt.label,
+            label = pg.TextItem(pt.short_label,
                                 color="#000000", anchor=anchor)
             label.setFont(_font(11))
             label.setPos(x, pt.extra_cost)
