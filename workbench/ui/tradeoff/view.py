@@ -19,7 +19,7 @@ from workbench.ui.tradeoff.runner import TradeoffRunner
 CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
            "simulation, not a promise; the decision rests with your organisation's own approval rules.")
 NO_COSTS = ("No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can "
-            "be shortened: in the Activities table (right-click a heading to show the Cost, Crash cost and Crash "
+            "be shortened: in the Activities table (right-click a heading to show the Cost, Crash cost and crash "
             "estimate columns) or in a spreadsheet.")
 
 
