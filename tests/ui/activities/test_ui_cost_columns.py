@@ -155,3 +155,15 @@ def test_rows_copied_with_the_cost_columns_paste_back(window, ui_env):
     for act_id in ("P", "W", "F"):
         a, b = plan.activity(act_id), target.activity(act_id)
         assert [getattr(a, k) for k in COST_KEYS] == [getattr(b, k) for k in COST_KEYS]
+
+
+def test_showing_a_column_keeps_the_baseline_columns_hidden_without_a_baseline(window, ui_env):
+    panel = window.activities
+    assert window.session.variance() is None
+    baseline = panel.column_keys.index("baseline_finish")
+    assert panel.table.isColumnHidden(baseline)
+    row_tools.set_column_shown(panel, "cost", True)
+    assert not panel.table.isColumnHidden(panel.column_keys.index("cost"))
+    assert panel.table.isColumnHidden(baseline)
+    window.session.recalculate()                    # a fresh schedule keeps the user's choice too
+    assert not panel.table.isColumnHidden(panel.column_keys.index("cost")) and panel.table.isColumnHidden(baseline)

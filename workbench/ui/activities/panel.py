@@ -90,11 +90,15 @@ class ActivitiesPanel(QWidget):
             text = metrics.horizontalAdvance(sample) + 14
             table.setColumnWidth(i, max(text, heading.horizontalAdvance(col.title) + 16))
 
+    def auto_hidden(self) -> set[str]:
+        """Columns hidden whatever the user chose: the baseline dates and variances while
+        no baseline is compared."""
+        return set(BASELINE_KEYS) if self.session.variance() is None else set()
+
     def _show_baseline_columns(self) -> None:
-        """The baseline dates and variances are shown while a baseline is compared."""
-        hidden = self.session.variance() is None
-        for key in BASELINE_KEYS:
-            self.table.setColumnHidden(C.INDEX[key], hidden)
+        """The baseline dates and variances are shown while a baseline is compared (unless
+        the user hid them)."""
+        row_tools.apply_hidden(self, row_tools.hidden_columns())
 
     def _make_filter_bar(self) -> QHBoxLayout:
         bar = QHBoxLayout()

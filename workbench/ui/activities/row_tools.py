@@ -87,6 +87,7 @@ def hidden_columns() -> set[str]:
 
 
 def apply_hidden(panel, keys) -> None:
+    keys = set(keys) | panel.auto_hidden()
     for i, key in enumerate(panel.column_keys):
         panel.table.setColumnHidden(i, key in keys)
 
