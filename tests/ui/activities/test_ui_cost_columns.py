@@ -167,3 +167,12 @@ def test_showing_a_column_keeps_the_baseline_columns_hidden_without_a_baseline(w
     assert panel.table.isColumnHidden(baseline)
     window.session.recalculate()                    # a fresh schedule keeps the user's choice too
     assert not panel.table.isColumnHidden(panel.column_keys.index("cost")) and panel.table.isColumnHidden(baseline)
+
+
+@pytest.mark.parametrize("text, amount", [
+    ("12500", 12500), ("12,500", 12500), ("1,234,567.5", 1234567.5), ("12 500", 12500),
+    ("12\u00a0500", 12500), ("12.500,50", 12500.5), ("99,5", 99.5), ("1,5", 1.5), ("", None),
+])
+def test_amounts_are_read_with_thousands_separators_or_a_decimal_comma(text, amount):
+    from workbench.ui.activities.cost_columns import parse_money
+    assert parse_money(text, "K7", "cost", C.parse_number) == amount
