@@ -82,3 +82,15 @@ def test_spreadsheet_plan_without_deadline_gives_the_curve_only(tmp_path, capsys
     d = json.loads(capsys.readouterr().out)
     assert [(p["duration"], p["direct_cost"]) for p in d["curve"]] == [(10, 3100), (11, 2800), (13, 2500), (15, 2300)]
     assert d["to_deadline"] is None and d["to_confidence"] is None and d["deadline"] is None
+
+
+def test_half_given_crash_data_is_named_as_not_shortened(tmp_path, capsys):
+    plan = tmp_path / "half.csv"
+    plan.write_text("id,duration,predecessors,cost,crash cost,crash duration\n"
+                    "A,10,,1000,1400,6\nB,8,,500,,5\nC,5,A;B,800,1100,\n", encoding="utf-8")
+    assert main(["tradeoff", str(plan), "--json"]) == 0
+    d = json.loads(capsys.readouterr().out)
+    assert d["not_shortened"] == {"B": "crash cost", "C": "crash estimate"}
+    assert [(p["duration"], p["direct_cost"]) for p in d["curve"]] == [(13, 2500), (15, 2300)]  # A alone, to B-C
+    assert main(["tradeoff", str(plan)]) == 0
+    assert "Not shortened, crash data incomplete: B (no crash cost); C (no crash estimate)" in capsys.readouterr().out

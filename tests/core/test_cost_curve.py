@@ -14,6 +14,7 @@ from scipy.optimize import linprog
 from workbench.core.block_passes import BlockPasses
 from workbench.core.cost_curve import cost_curve
 from workbench.core.cpm import Analyzer
+from workbench.core.crash_lp import solve
 from workbench.core.crash_problem import CrashProblem
 from workbench.core.errors import PlanError
 from workbench.core.model import Activity, Link, Plan, Settings
@@ -41,6 +42,29 @@ def test_hand_worked_curve():
     assert got[2][2] == {"A": 2}
     assert got[3][2] == {}
     assert curve.at(12).direct_cost == pytest.approx(2650)       # on the 150-a-day segment
+
+
+def give_back_plan() -> Plan:
+    """A → C, A → E → D, B → D: E (4 days, 2 to buy at 10 a day) sits on the one longest
+    path; A and D (4 days, 3 at 30 each) each hold two paths; B and C (6 days, 1 at 100)."""
+    def act(name, d, days, slope):
+        return Activity(name, duration=d, cost=1000, crash_cost=1000 + slope * days, crash_duration=d - days)
+    acts = [act("A", 4, 3, 30), act("B", 6, 1, 100), act("C", 6, 1, 100), act("D", 4, 3, 30), act("E", 4, 2, 10)]
+    return Plan(Settings(start=START), acts, [Link("A", "C"), Link("A", "E"), Link("E", "D"), Link("B", "D")])
+
+
+def test_hand_worked_curve_that_gives_days_back():
+    # Worked by hand: A-E-D is 12 days, A-C and B-D 10. Buy E (10 a day) to 10 days: 20.
+    # Below 10 all three paths hold. Cutting A and D shortens A-E-D twice, so E can be given
+    # its 2 days back: 30 + 30 - 10 = 50 a day, cheaper than A+B or C+D (130); at 8 days E is
+    # uncrashed again (120). Then A and D alone at 60 a day to 7 (180); then B and C at 200
+    # to 6 (380), where C and A are both used up. A rule that never gives days back pays 140 at 8.
+    curve = cost_curve(give_back_plan())
+    got = [(round(p.duration, 9), round(p.direct_cost - 5000, 6), curve.crashed(p)) for p in curve.points]
+    assert got == [(6, 380, {"A": 3, "B": 1, "C": 1, "D": 3}), (7, 180, {"A": 3, "D": 3}),
+                   (8, 120, {"A": 2, "D": 2}), (10, 20, {"E": 2}), (12, 0, {})]
+    assert curve.at(9).direct_cost == pytest.approx(5070)
+    assert curve.at(9).days[list(curve.problem.ids).index("E")] == pytest.approx(1.0)
 
 
 def test_no_cost_data_is_refused():
@@ -131,6 +155,57 @@ def test_end_points_are_all_normal_and_fully_crashed(plan):
     fully = analyzer.run(problem.te - problem.span, paths=False).finish
     assert curve.shortest == pytest.approx(fully)        # finish-to-start: crashing never lengthens
     assert curve.points[0].direct_cost <= problem.direct_cost(problem.span) + 1e-6
+
+
+def random_plan(rng) -> Plan:
+    """A small network, denser than the hypothesis plans (more merging paths, so more
+    cases where days are given back), integer data."""
+    n = int(rng.integers(4, 7))
+    acts = []
+    for i in range(n):
+        d, span = int(rng.integers(1, 7)), int(rng.integers(0, 3))
+        span, cost = min(span, d), int(rng.integers(0, 40))
+        extra = {} if not span else {"crash_cost": cost + span * int(rng.integers(1, 12)), "crash_duration": d - span}
+        acts.append(Activity(f"T{i}", duration=d, cost=cost, **extra))
+    types = ("FS", "FS", "SS", "FF", "SF")
+    links = [Link(f"T{i}", f"T{j}", types[int(rng.integers(len(types)))], float(rng.integers(-1, 2)))
+             for j in range(1, n) for i in range(j) if rng.random() < 0.5]
+    return Plan(Settings(start=START), acts, links)
+
+
+def test_curve_matches_brute_force_on_many_seeded_networks():
+    """Brute force on 200 fixed random networks, at every whole duration from the shortest to
+    the normal one and at the midpoints between (where the curve must be the straight blend)."""
+    rng = np.random.default_rng(1)        # holds cases where tangents meet at an earlier probe
+    for k in range(200):
+        plan = random_plan(rng)
+        curve = cost_curve(plan)
+        finish, cost = brute_force(plan)
+        assert curve.shortest == pytest.approx(finish.min(), abs=1e-7), k
+        whole = np.arange(np.ceil(curve.shortest - 1e-9), curve.normal + 1.0)
+        best = np.array([cost[finish <= T + 1e-9].min() for T in whole])
+        for T, c in zip(whole, best):
+            assert curve.at(T).direct_cost == pytest.approx(c, abs=1e-6), (k, T)
+        for T, c0, c1 in zip(whole[:-1] + 0.5, best[:-1], best[1:]):    # convexity bounds the midpoint
+            assert curve.at(T).direct_cost <= 0.5 * (c0 + c1) + 1e-6, (k, T)
+
+
+@settings(max_examples=30, deadline=None)
+@given(small_plans(), st.lists(st.floats(-0.2, 1.2), min_size=1, max_size=8))
+def test_kept_model_answers_as_a_fresh_solve_in_any_order(plan, where):
+    """The kept HiGHS model re-solved from its last basis, at durations in any order (some
+    out of reach), gives the optimum of a linprog built from scratch."""
+    problem = CrashProblem(plan)
+    _, _, ncol = problem.columns()
+    lo, hi = problem.shortest(), problem.normal_finish
+    for w in where:
+        T = lo + w * (hi - lo) if hi > lo else hi + w
+        kept, fresh = problem.at(T), solve(problem.rows(), ncol, problem.objective(), problem.bounds(), T)
+        assert (kept is None) == (fresh is None), T
+        if kept is not None:
+            assert kept.cost == pytest.approx(fresh.cost, abs=1e-6)
+            assert problem.direct_cost(problem.days(kept.values)) == pytest.approx(
+                problem.base_cost + fresh.cost, abs=1e-5)
 
 
 def test_lp_duality_and_complementary_slackness():

@@ -2,7 +2,7 @@
 
 import pytest
 
-from workbench.core.crash_terms import cost_slope, crash_range, crashed
+from workbench.core.crash_terms import cost_slope, crash_range, crashed, missing_crash_data
 from workbench.core.errors import PlanError
 from workbench.core.model import Activity, Settings
 
@@ -20,7 +20,6 @@ def act(**changes):
     ({"cost": -5, "crash_cost": 10}, "cost must not be negative"),
     ({"crash_cost": -1}, "crash cost must not be negative"),
     ({"crash_pessimistic": None}, "needs crash optimistic, crash most likely and crash pessimistic"),
-    ({"crash_cost": None}, "a crash estimate needs a crash cost"),
     ({"cost": None}, "a crash cost needs the normal cost"),
     ({"crash_duration": 5}, "not both"),
     ({"crash_optimistic": 6, "crash_most_likely": 5}, "out of order"),
@@ -36,9 +35,18 @@ def test_fixed_crash_longer_than_the_normal_mean_is_refused():
         Activity("F1", duration=5, cost=10, crash_cost=20, crash_duration=6).validated()
 
 
-def test_crash_cost_without_estimate_and_negative_settings_are_refused():
-    with pytest.raises(PlanError, match="a crash cost needs a crash estimate"):
-        Activity("F1", duration=5, cost=10, crash_cost=20).validated()
+def test_half_given_crash_data_is_kept_but_buys_nothing():
+    """Typed one cell at a time, a crash cost comes before its estimate or after it: either
+    half alone is kept, and the activity cannot be shortened until both are there."""
+    only_cost = Activity("F1", duration=5, cost=10, crash_cost=20).validated()
+    only_estimate = act(crash_cost=None).validated()
+    assert missing_crash_data(only_cost) == "crash estimate" and missing_crash_data(only_estimate) == "crash cost"
+    for half in (only_cost, only_estimate):
+        assert crash_range(half) == 0 and cost_slope(half) == 0 and crashed(half, 2) is half
+    assert missing_crash_data(act()) is None and missing_crash_data(Activity("F2", duration=1)) is None
+
+
+def test_negative_settings_are_refused():
     with pytest.raises(PlanError, match="indirect cost"):
         Settings(indirect_cost=-1.0).validated()
     with pytest.raises(PlanError, match="late penalty"):

@@ -90,4 +90,7 @@ def render_tradeoff(plan, data: dict) -> str:
     elif c is not None:
         out += ["", f"A {pct(c['target'])} chance cannot be reached even fully crashed "
                 f"(best {pct(c['chance_out_of_sample'])})."]
+    if data["not_shortened"]:
+        out += ["", "Not shortened, crash data incomplete: " + "; ".join(
+            f"{k} (no {what})" for k, what in data["not_shortened"].items())]
     return "\n".join(out + ["", CAUTION])

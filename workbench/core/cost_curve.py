@@ -6,7 +6,9 @@ are found exactly by tangent intersection (the method of J. Eisner and D. Severa
 parametric problems): evaluate C and a subgradient s (the sum of the duals of the rows
 that hold T) at both ends of an interval; the two tangent lines meet at T*; if C(T*)
 lies on them, C is exactly the two lines on the interval and T* is its only breakpoint,
-else split at T* and repeat. Each breakpoint costs about two LP solves. Between two
+else split at T* and repeat. When the tangents meet at an end of the interval, that end
+(an earlier probe) is itself a breakpoint: the curve is one line up to it and bends there.
+Each breakpoint costs about two LP solves, re-solved in one kept model (:mod:`.duration_lp`). Between two
 breakpoints the cheapest crash is the straight-line blend of theirs.
 """
 
@@ -85,8 +87,9 @@ def _probe(problem: CrashProblem, T: float, curve: CostCurve) -> _Probe:
     return _Probe(T, sol.cost, sol.slope, problem.days(sol.values))
 
 
-def _between(problem, left: _Probe, right: _Probe, curve: CostCurve, tol: float, found: list) -> None:
-    """Breakpoints strictly between ``left`` and ``right`` (iteratively, leftmost first)."""
+def _between(problem, left: _Probe, right: _Probe, curve: CostCurve, tol: float) -> list[_Probe]:
+    """Breakpoints strictly between ``left`` and ``right`` (iteratively)."""
+    found: dict[int, _Probe] = {}
     todo = [(left, right)]
     while todo and curve.solves < MAX_SOLVES:
         lo, hi = todo.pop()
@@ -94,13 +97,19 @@ def _between(problem, left: _Probe, right: _Probe, curve: CostCurve, tol: float,
             continue                      # one straight piece
         t_star = (hi.extra - lo.extra + lo.slope * lo.T - hi.slope * hi.T) / (lo.slope - hi.slope)
         if not lo.T + 1e-9 < t_star < hi.T - 1e-9:
+            # the tangents meet at an end: the curve is one line up to that end, which is
+            # a kink (its subgradient differs from the line's): an earlier probe was a breakpoint
+            end = lo if t_star <= lo.T + 1e-9 else hi
+            if end is not left and end is not right:
+                found[id(end)] = end
             continue
         mid = _probe(problem, t_star, curve)
         if mid.extra <= lo.extra + lo.slope * (t_star - lo.T) + tol:
-            found.append(mid)             # the two tangents meet on the curve: one breakpoint
+            found[id(mid)] = mid          # the two tangents meet on the curve: one breakpoint
             continue
         todo.append((mid, hi))
         todo.append((lo, mid))
+    return list(found.values())
 
 
 def cost_curve(plan=None, problem: CrashProblem | None = None) -> CostCurve:
@@ -116,8 +125,7 @@ def cost_curve(plan=None, problem: CrashProblem | None = None) -> CostCurve:
         return curve
     lo = _probe(problem, t_min, curve)
     hi = _Probe(t_max, 0.0, 0.0, zero.days)    # nothing to buy there; 0 is a subgradient at T_max
-    found: list[_Probe] = []
-    _between(problem, lo, hi, curve, _tolerance(problem), found)
+    found = _between(problem, lo, hi, curve, _tolerance(problem))
     probes = [lo] + sorted(found, key=lambda p: p.T)
     curve.points = [Breakpoint(p.T, problem.direct_cost(p.days), p.days) for p in probes] + [zero]
     return curve

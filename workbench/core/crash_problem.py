@@ -9,7 +9,8 @@ from .analysis import moments
 from .calendar import WorkCalendar
 from .cpm import Analyzer, constraint_bounds
 from .crash_lp import Rows, Solution, finish_rows_needed, schedule_rows, solve
-from .crash_terms import cost_slope, crash_range
+from .crash_terms import cost_slope, crash_range, missing_crash_data
+from .duration_lp import DurationLP
 from .errors import PlanError
 from .network import compile_plan
 
@@ -38,6 +39,8 @@ class CrashProblem:
         self.span = np.array([crash_range(a) for a in acts])
         self.slope = np.array([cost_slope(a) for a in acts])
         self.base_cost = float(sum(a.cost or 0.0 for a in acts))
+        # activities given half their crash data: kept, but not shortened ({id: what is missing})
+        self.incomplete = {a.id: m for a in acts if (m := missing_crash_data(a)) is not None}
         self.crashable = np.flatnonzero(self.span > 0)
         floor, fnlt = constraint_bounds(plan, self.calendar)
         order = [plan.row_of(i) for i in self.ids]
@@ -45,6 +48,7 @@ class CrashProblem:
         self.sinks = finish_rows_needed(self.net)
         self.normal_finish = Analyzer(self.net, self.floor, self.fnlt).run(self.te, paths=False).finish
         self._rows: Rows | None = None
+        self._lp: DurationLP | None = None
 
     @property
     def size(self) -> int:
@@ -87,9 +91,12 @@ class CrashProblem:
         return out
 
     def at(self, T: float) -> Solution | None:
-        """The cheapest crash that finishes by T (None when T cannot be reached)."""
-        _, _, ncol = self.columns()
-        return solve(self.rows(), ncol, self.objective(), self.bounds(), T, presolve=False)
+        """The cheapest crash that finishes by T (None when T cannot be reached). One
+        model serves every T, each solve starting from the last one's basis."""
+        if self._lp is None:
+            _, _, ncol = self.columns()
+            self._lp = DurationLP(self.rows(), ncol, self.objective(), self.bounds())
+        return self._lp.at(T)
 
     def shortest(self) -> float:
         """The shortest project duration any crash reaches (the links may make a fully

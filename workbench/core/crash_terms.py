@@ -83,23 +83,29 @@ def _check_not_longer(act) -> None:
 
 
 def check_costs(act) -> None:
-    """Refuse, naming the activity: negative costs, a crash cost below the normal cost,
-    a crash estimate longer than the normal one, or half-given crash data."""
+    """Refuse, naming the activity: negative costs, a crash cost below the normal cost or
+    without it, a crash estimate longer than the normal one, or a half-given three-point
+    crash estimate. A crash estimate without a crash cost (or the reverse) is kept: the
+    activity cannot be shortened until both are given (see ``missing_crash_data``)."""
     _money(act, "cost")
     _money(act, "crash_cost")
     _check_shape(act)
-    crash = act.has_crash
-    if crash and act.crash_cost is None:
-        _fail(act, "a crash estimate needs a crash cost")
-    if act.crash_cost is not None and not crash:
-        _fail(act, "a crash cost needs a crash estimate (crash duration, or crash optimistic, most likely "
-                   "and pessimistic)")
     if act.crash_cost is not None and act.cost is None:
         _fail(act, "a crash cost needs the normal cost too")
     if act.crash_cost is not None and act.crash_cost < act.cost:
         _fail(act, f"crash cost {act.crash_cost:g} is below the normal cost {act.cost:g}")
-    if crash:
+    if act.has_crash:
         _check_not_longer(act)
+
+
+def missing_crash_data(act) -> str | None:
+    """What an activity with half its crash data lacks ("crash cost" or "crash estimate"),
+    or None when it has both or neither."""
+    if act.has_crash and act.crash_cost is None:
+        return "crash cost"
+    if act.crash_cost is not None and not act.has_crash:
+        return "crash estimate"
+    return None
 
 
 def crash_range(act) -> float:

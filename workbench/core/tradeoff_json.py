@@ -31,7 +31,9 @@ def _confidence(result, plan) -> dict:
 
 def tradeoff_to_dict(result, target: float | None = None) -> dict:
     """``curve``, ``optimum``, ``to_deadline`` and ``to_confidence`` (the plan for
-    ``target``, else the first one asked), plus the deadline, costs and seed used."""
+    ``target``, else the first one asked), plus the deadline, costs and seed used, and
+    ``not_shortened``: the activities left as they are for want of half their crash data
+    ({id: "crash cost" or "crash estimate"})."""
     curve = result.curve
     o = result.optimum
     out = {
@@ -45,6 +47,7 @@ def tradeoff_to_dict(result, target: float | None = None) -> dict:
                     "total_cost": _money(result.total_cost(o.duration, o.direct_cost))},
         "to_deadline": None, "to_confidence": None,
         "seed": result.seed, "iterations": result.iterations or None,
+        "not_shortened": dict(result.problem.incomplete),
     }
     d = result.to_deadline
     if d is not None:

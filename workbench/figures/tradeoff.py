@@ -10,6 +10,7 @@ import numpy as np
 
 DIRECT, INDIRECT, TOTAL = "#0072B2", "#56B4E9", "#D55E00"
 DEADLINE, OPTIMUM, CHANCE = "#CC79A7", "#000000", "#E69F00"
+CHANCE_TICKS = (0, 20, 40, 60, 80, 100)      # the chance axis, in per cent: both ends always labelled
 
 
 @dataclass
@@ -45,13 +46,18 @@ class ChancePoint:
     extra_cost: float
     textbook: bool = False
 
+    @property
+    def short_label(self) -> str:
+        """The label beside the point on a chart (the table keeps the full one)."""
+        return "textbook" if self.textbook else self.label
+
 
 def chance_points(result) -> list[ChancePoint]:
     """The textbook crash to the deadline and every reachable confidence plan."""
     out = []
     d = result.to_deadline
     if d is not None:
-        out.append(ChancePoint("crash the mean to the deadline", d.chance, d.standard_error,
+        out.append(ChancePoint("textbook: crash the mean to the deadline", d.chance, d.standard_error,
                                d.point.direct_cost - result.problem.base_cost, True))
     for c in result.confidence:
         if c.reachable:

@@ -112,7 +112,7 @@ def _chances(c, box, points) -> None:
     ax = Axes(c, x + 44, y + 20, w - 50, h - 58, 0.0, 100.0, *ftr.cost_span([p.extra_cost for p in points]))
     ax.value_axis(ftr.nice_ticks(ax.y_lo, ax.y_hi), fmt=ftr.money, grid=True)
     c.setFont(styles.FONT, 8)
-    for v in range(0, 101, 20):
+    for v in ftr.CHANCE_TICKS:
         c.drawCentredString(ax.px(v), ax.y - 12, f"{v} %")
     ax.frame()
     for p in points:
@@ -125,10 +125,23 @@ def _chances(c, box, points) -> None:
         c.rect(px - 4, py - 4, 8, 8, stroke=1, fill=1) if p.textbook else c.circle(px, py, 4.5, stroke=1, fill=1)
         c.setFillColor(styles.TEXT)
         c.setFont(styles.FONT, 8)
-        if px + 7 + c.stringWidth(p.label, styles.FONT, 8) > x + w:
-            c.drawRightString(px - 7, py + 6, p.label)
+        _point_label(c, ax, p, px, py, x + w)
+
+
+def _point_label(c, ax, p, px: float, py: float, right: float) -> None:
+    """Confidence plans labelled above-right (above-left near the right edge); the textbook
+    plan, at or near zero extra cost, beside its marker on the left when there is room
+    (the plans it is compared with lie to its right), else below-right."""
+    width = c.stringWidth(p.short_label, styles.FONT, 8)
+    if p.textbook:
+        if px - 8 - width > ax.x:
+            c.drawRightString(px - 8, py - 3, p.short_label)
         else:
-            c.drawString(px + 7, py + 4, p.label)
+            c.drawString(px + 7, py - 11, p.short_label)
+    elif px + 7 + width > right:
+        c.drawRightString(px - 7, py + 6, p.label)
+    else:
+        c.drawString(px + 7, py + 4, p.label)
 
 
 def options_table(result, width: float, unit: str) -> Table:
@@ -137,7 +150,7 @@ def options_table(result, width: float, unit: str) -> Table:
         days = result.to_deadline.point.days if p.textbook else next(c.days for c in result.confidence
                                                                    if f"{c.target:.0%} plan" == p.label)
         crashed = ", ".join(f"{k} {v:.2f}" for k, v in result.crashed(days).items()) or "none"
-        rows.append([p.label, f"{p.extra_cost:,.0f}", f"{p.chance:.1%} \u00b1 {p.standard_error:.1%}",
+        rows.append([Paragraph(p.label, styles.CELL), f"{p.extra_cost:,.0f}", f"{p.chance:.1%} \u00b1 {p.standard_error:.1%}",
                      Paragraph(crashed, styles.CELL)])
     t = Table(rows, colWidths=[width * 0.2, width * 0.1, width * 0.15, width * 0.55])
     t.setStyle(TableStyle([("FONT", (0, 0), (-1, 0), styles.BOLD, 8), ("FONT", (0, 1), (-1, -1), styles.FONT, 8),

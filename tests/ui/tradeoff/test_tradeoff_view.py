@@ -68,6 +68,16 @@ def test_a_deadline_no_crash_can_meet_clears_the_view_and_says_why(qtbot, view):
     assert view.option.count() == 0 and view.table.rowCount() == 0
 
 
+def test_half_given_crash_data_is_named_in_the_status(qtbot, view):
+    from workbench.core.commands import EditActivity
+
+    act = next(a for a in view.session.plan.activities if a.crash_cost is not None)
+    assert view.session.push(EditActivity(act.id, crash_cost=None))
+    qtbot.waitUntil(lambda: not view.runner.running and view.result is not None
+                    and act.id in view.result.problem.incomplete, timeout=30000)
+    assert f"Not shortened, crash data incomplete: {act.id} (no crash cost)." in view.status.text()
+
+
 def test_plan_without_costs_says_what_to_add(qtbot):
     from support.plans import house_plan
 
@@ -75,6 +85,7 @@ def test_plan_without_costs_says_what_to_add(qtbot):
     qtbot.addWidget(v)
     v.show()
     assert "No cost data" in v.status.text() and not v.find.isEnabled()
+    assert "right-click a heading to show the Cost, Crash cost" in v.status.text()
 
 
 def test_indirect_cost_is_edited_here_as_one_undo_step(qtbot, view):

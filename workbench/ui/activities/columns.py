@@ -15,6 +15,7 @@ from workbench.core import formatting as fm
 from workbench.core.date_text import maybe_date
 from workbench.core.errors import PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity
+from workbench.ui.activities import cost_columns as CC
 from workbench.ui.activities import progress_columns as PC
 
 
@@ -25,6 +26,7 @@ class Column:
     tip: str
     editable: bool = True
     numeric: bool = False
+    hidden: bool = False       # hidden until shown from the headings' menu
 
 
 COLUMNS: tuple[Column, ...] = (
@@ -64,6 +66,17 @@ COLUMNS: tuple[Column, ...] = (
            numeric=True),
     Column("finish_variance", "Finish var.", "Finish now minus baseline finish (positive = later)", editable=False,
            numeric=True),
+    Column("cost", "Cost", "Normal direct cost of the activity, for the Trade-off view", numeric=True, hidden=True),
+    Column("crash_cost", "Crash cost", "Direct cost when fully shortened to its crash estimate (at least the normal "
+                                       "cost; linear in between)", numeric=True, hidden=True),
+    Column("crash_optimistic", "Crash optimistic", "Fastest achievable estimate: optimistic. The first crash point "
+                                                   "typed fills all three", numeric=True, hidden=True),
+    Column("crash_most_likely", "Crash most likely", "Fastest achievable estimate: most likely", numeric=True,
+           hidden=True),
+    Column("crash_pessimistic", "Crash pessimistic", "Fastest achievable estimate: pessimistic", numeric=True,
+           hidden=True),
+    Column("crash_duration", "Crash duration", "A fixed crash duration instead of three crash points",
+           numeric=True, hidden=True),
 )
 KEYS = tuple(c.key for c in COLUMNS)
 INDEX = {c.key: i for i, c in enumerate(COLUMNS)}
@@ -161,6 +174,8 @@ def changes_for(act: Activity, key: str, text: str) -> dict:
         return {key: parse_constraint(text, act.id, title)}
     if key in PC.EDITABLE:
         return PC.changes_for(act, key, text, parse_number, parse_constraint)
+    if key in CC.KEYS:
+        return CC.changes_for(act, key, text, parse_number)
     raise PlanError(f"activity {act.id}: column {title!r} cannot be edited", act.id)
 
 
@@ -171,7 +186,7 @@ def edit_text(act: Activity, key: str) -> str:
 
 def _field_text(act: Activity, key: str) -> str:
     value = getattr(act, key)
-    if key in ESTIMATE or key == "duration":
+    if key in ESTIMATE or key == "duration" or key in CC.KEYS:
         return format_number(value)
     if key in ("start_no_earlier", "finish_no_later"):
         return format_constraint(value)

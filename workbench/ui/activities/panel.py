@@ -23,7 +23,8 @@ ALL_GROUPS = "All groups"
 WIDTH_CHARS = {"id": 5, "name": 32, "group": 13, "predecessors": 12, "notes": 20, "distribution": 9,
                "start_no_earlier": 10, "finish_no_later": 10, "early_start": 11, "early_finish": 11,
                "late_start": 11, "late_finish": 11, "critical": 5, "state": 10, "actual_start": 10,
-               "actual_finish": 10, "remaining": 9, "baseline_start": 11, "baseline_finish": 11}
+               "actual_finish": 10, "remaining": 9, "baseline_start": 11, "baseline_finish": 11,
+               "cost": 9, "crash_cost": 9}
 BASELINE_KEYS = ("baseline_start", "baseline_finish", "start_variance", "finish_variance")
 DATE_KEYS = {"start_no_earlier", "finish_no_later", "early_start", "early_finish", "late_start", "late_finish", "actual_start",
              "actual_finish", "baseline_start", "baseline_finish"}
@@ -89,11 +90,15 @@ class ActivitiesPanel(QWidget):
             text = metrics.horizontalAdvance(sample) + 14
             table.setColumnWidth(i, max(text, heading.horizontalAdvance(col.title) + 16))
 
+    def auto_hidden(self) -> set[str]:
+        """Columns hidden whatever the user chose: the baseline dates and variances while
+        no baseline is compared."""
+        return set(BASELINE_KEYS) if self.session.variance() is None else set()
+
     def _show_baseline_columns(self) -> None:
-        """The baseline dates and variances are shown while a baseline is compared."""
-        hidden = self.session.variance() is None
-        for key in BASELINE_KEYS:
-            self.table.setColumnHidden(C.INDEX[key], hidden)
+        """The baseline dates and variances are shown while a baseline is compared (unless
+        the user hid them)."""
+        row_tools.apply_hidden(self, row_tools.hidden_columns())
 
     def _make_filter_bar(self) -> QHBoxLayout:
         bar = QHBoxLayout()

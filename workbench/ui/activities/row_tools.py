@@ -13,8 +13,10 @@ from PySide6.QtGui import QGuiApplication
 from PySide6.QtWidgets import QMenu
 
 from workbench.ui.activities import activity_ops
+from workbench.ui.activities.columns import COLUMNS
 
 HIDDEN_KEY = "table/hidden_columns"
+SHOWN_KEY = "table/shown_columns"      # columns hidden at first that the user showed
 
 
 def selected_rows(panel) -> list[int]:
@@ -92,12 +94,19 @@ def show_row_menu(panel, pos) -> None:
 
 
 # --- columns shown -------------------------------------------------------------
-def hidden_columns() -> set[str]:
-    value = QSettings().value(HIDDEN_KEY, [])
+def _setting(key: str) -> set[str]:
+    value = QSettings().value(key, [])
     return {value} if isinstance(value, str) and value else set(value or [])
 
 
+def hidden_columns() -> set[str]:
+    """The columns the user hid, and those hidden at first (the cost columns) that the
+    user has not shown."""
+    return _setting(HIDDEN_KEY) | ({c.key for c in COLUMNS if c.hidden} - _setting(SHOWN_KEY))
+
+
 def apply_hidden(panel, keys) -> None:
+    keys = set(keys) | panel.auto_hidden()
     for i, key in enumerate(panel.column_keys):
         panel.table.setColumnHidden(i, key in keys)
 
@@ -107,7 +116,13 @@ def set_column_shown(panel, key: str, shown: bool) -> None:
     keys = keys - {key} if shown else keys | {key}
     if len(keys) >= len(panel.column_keys):   # at least one column stays
         return
-    QSettings().setValue(HIDDEN_KEY, sorted(keys))
+    hidden, shown_at_first_hidden = _setting(HIDDEN_KEY), _setting(SHOWN_KEY)
+    if shown:
+        hidden, shown_at_first_hidden = hidden - {key}, shown_at_first_hidden | {key}
+    else:
+        hidden, shown_at_first_hidden = hidden | {key}, shown_at_first_hidden - {key}
+    QSettings().setValue(HIDDEN_KEY, sorted(hidden))
+    QSettings().setValue(SHOWN_KEY, sorted(shown_at_first_hidden))
     apply_hidden(panel, keys)
 
 

@@ -20,7 +20,9 @@ from workbench.ui.tradeoff.runner import TradeoffRunner
 CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
            "simulation, not a promise; the decision rests with your organisation's own approval rules.")
 FINISH_WAIT_MS = 120_000   # finish_work (screenshots, scripts) waits this long at most
-NO_COSTS = "No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can be shortened."
+NO_COSTS = ("No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can "
+            "be shortened: in the Activities table (right-click a heading to show the Cost, Crash cost and crash "
+            "estimate columns) or in a spreadsheet.")
 
 
 class DateAxis(pg.AxisItem):
@@ -47,6 +49,31 @@ class MoneyAxis(pg.AxisItem):
         return [ftr.money(v) for v in values]
 
 
+class ChanceAxis(pg.AxisItem):
+    """0–100 % with both ends always labelled (they are the first tick level; the steps
+    between are labelled as room allows). The last label may reach past the axis's end,
+    into a right margin of the plot kept for it (``reserve_room``), instead of being dropped."""
+
+    def __init__(self, **kw):
+        super().__init__("bottom", **kw)
+        self.room = 0
+        ends = (ftr.CHANCE_TICKS[0], ftr.CHANCE_TICKS[-1])
+        self.setTicks([[(v, f"{v:g}") for v in ends], [(v, f"{v:g}") for v in ftr.CHANCE_TICKS[1:-1]]])
+
+    def reserve_room(self, plot_item) -> None:
+        font = self.style["tickFont"] or pg.QtGui.QFont()
+        half = pg.QtGui.QFontMetrics(font).horizontalAdvance(f"{ftr.CHANCE_TICKS[-1]:g}") // 2 + 6
+        self.room = half
+        self.setStyle(hideOverlappingLabels=half)
+        left, top, _, bottom = plot_item.layout.getContentsMargins()
+        plot_item.layout.setContentsMargins(left, top, half, bottom)
+
+    def boundingRect(self):  # noqa: N802 (Qt override)
+        # with a grid, pyqtgraph bounds the labels by the axis alone, whatever the style says
+        room = getattr(self, "room", 0)
+        return super().boundingRect().adjusted(-room, 0, room, 0)
+
+
 def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.PlotWidget:
     axes = {"left": MoneyAxis()}
     if axis is not None:
@@ -61,15 +88,34 @@ def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.Plot
     for side in ("left", "bottom"):
         w.getAxis(side).setTickFont(font)
         w.getAxis(side).setTextPen("#000000")
+    if isinstance(axis, ChanceAxis):
+        axis.reserve_room(w.getPlotItem())
     if legend is not None:
         w.addLegend(offset=legend, labelTextSize="11pt", labelTextColor="#000000", brush=pg.mkBrush(255, 255, 255, 220))
     return w
+
+
+def _label_anchor(x: float, textbook: bool) -> tuple[float, float]:
+    """Where a point's label sits: confidence plans above it (to the left on the right half);
+    the textbook plan, near zero cost, beside it, so the axis never cuts it."""
+    if textbook:
+        return (1.12, 0.5) if x > 35 else (-0.12, 0.5)
+    return (1.05, 1.1) if x > 55 else (-0.05, 1.1)
 
 
 def _font(size: int):
     font = pg.QtGui.QFont()
     font.setPointSize(size)
     return font
+
+
+def _not_shortened(missing: dict) -> str:
+    """A note on the activities given half their crash data (they are not shortened)."""
+    if not missing:
+        return ""
+    names = ", ".join(f"{k} (no {what})" for k, what in list(missing.items())[:5])
+    more = f" and {len(missing) - 5} more" if len(missing) > 5 else ""
+    return f" Not shortened, crash data incomplete: {names}{more}."
 
 
 class TradeoffView(QWidget):
@@ -102,8 +148,9 @@ class TradeoffView(QWidget):
             head.addWidget(w)
         head.addWidget(self.status, 1)
         self.axis = DateAxis()
-        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(-10, -60))
-        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)")
+        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(12, -50))
+        self.chance_axis = ChanceAxis()
+        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)", self.chance_axis)
         charts = QHBoxLayout()
         charts.addWidget(self.curve_plot, 3)
         charts.addWidget(self.chance_plot, 2)
@@ -194,7 +241,8 @@ class TradeoffView(QWidget):
                             + (f" Confidence plans from {result.iterations:,} scenarios, checked on as many "
                                f"fresh ones (seed {result.seed})." if result.confidence else "")
                             + (" No deadline is set: give the plan one (Plan settings) to see the odds and "
-                               "the confidence plans." if result.deadline is None else ""))
+                               "the confidence plans." if result.deadline is None else "")
+                            + _not_shortened(result.problem.incomplete))
         self.find.setEnabled(result.deadline is not None)
         self._draw()
 
@@ -251,10 +299,12 @@ class TradeoffView(QWidget):
             x = 100 * pt.chance
             p.plot([x], [pt.extra_cost], pen=None, symbol=symbol, symbolSize=16,
                    symbolBrush=colour, symbolPen=pg.mkPen("#000000", width=1.5))
-            p.addItem(pg.ErrorBarItem(x=np.array([x]), y=np.array([pt.extra_cost]),
-                                      width=np.array([200 * pt.standard_error]), pen="#000000"))
-            anchor = (-0.05, -0.1) if pt.textbook else (1.05, 1.1) if x > 55 else (-0.05, 1.1)
-            label = pg.TextItem("textbook crash" if pt.textbook else pt.label,
+            bar = pg.ErrorBarItem(x=np.array([x]), y=np.array([pt.extra_cost]),
+                                  width=np.array([200 * pt.standard_error]), pen=pg.mkPen("#000000", width=2))
+            bar.setZValue(-1)      # under the marker: only a spread wider than the marker shows
+            p.addItem(bar)
+            anchor = _label_anchor(x, pt.textbook)
+            label = pg.TextItem(pt.short_label,
                                 color="#000000", anchor=anchor)
             label.setFont(_font(11))
             label.setPos(x, pt.extra_cost)
