@@ -39,7 +39,7 @@ def test_after_first_paint_runs_once_after_a_paint_or_the_time_limit(qtbot):
     assert calls == []
     shown.show()
     qtbot.waitUntil(lambda: "shown" in calls)
-    qtbot.waitUntil(lambda: "hidden" in calls, timeout=3000)
+    qtbot.waitUntil(lambda: "hidden" in calls, timeout=5000)
     shown.update()
     qtbot.wait(50)
     assert sorted(calls) == ["hidden", "shown"]

@@ -6,7 +6,7 @@ from __future__ import annotations
 
 from PySide6.QtCore import QEvent, QObject, QTimer
 
-LATEST_MS = 300     # no paint by then (a covered or minimised window): go ahead anyway
+LATEST_MS = 2000    # no paint by then (a covered window): go ahead anyway (a view is built only on screen)
 
 
 class AfterFirstPaint(QObject):
