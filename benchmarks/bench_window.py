@@ -31,7 +31,7 @@ from pathlib import Path
 ROOT = Path(__file__).resolve().parents[1]
 sys.path.insert(0, str(ROOT))
 
-from benchmarks.bench_ui import START_SCRIPT, edit_round_trip  # noqa: E402
+from benchmarks.bench_ui import EDIT_CPU_MS, START_SCRIPT, edit_round_trip  # noqa: E402
 
 OPEN_SCRIPT = START_SCRIPT.replace("run_app([])", "run_app(sys.argv[1:])")
 
@@ -154,8 +154,10 @@ def main(argv=None) -> None:
     print(rerun_figures(args.n))
     print("\n".join(window_figures(args.runs, args.n)))
     core_ms, full_ms = edit_round_trip(args.n, 10)
-    print(f"edit -> recompute -> repaint, {args.n:,} activities, default layout: {full_ms:.0f} ms wall "
-          f"(analyze alone {core_ms:.1f} ms); goal <= 100 ms: {'met' if full_ms <= 100 else 'MISSED'}")
+    cpu_ms = EDIT_CPU_MS[0]
+    print(f"edit -> recompute -> repaint, {args.n:,} activities, default layout: {full_ms:.0f} ms wall, "
+          f"{cpu_ms:.0f} ms CPU (analyze alone {core_ms:.1f} ms wall, ratio {full_ms / core_ms:.1f} x); goal <= 100 ms: "
+          f"{'met' if full_ms <= 100 else 'MISSED'} by wall time, {'met' if cpu_ms <= 100 else 'MISSED'} by CPU time")
 
 
 if __name__ == "__main__":
