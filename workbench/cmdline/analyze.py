@@ -5,7 +5,6 @@ from __future__ import annotations
 import numpy as np
 
 from ..core.analysis import analyze
-from ..figures.odds import confidence_label
 from .common import add_plan_settings, load_plan_with_settings, parse_offset_or_date, write_json
 from .living import add_baseline, add_status_date, apply_status_date, status_lines, variance_for
 from .text import CAUTION, column_table, elide, num, nums, pct
@@ -70,6 +69,8 @@ def summary_lines(result, unit: str) -> list[str]:
         lines.append(f"Deadline       {result.date_of_duration(result.deadline).isoformat()}  "
                      f"({num(result.deadline)} {unit}): z = {num(z, 4)}, "
                      f"P(finish by deadline) = {pct(p.prob_by(result.deadline))}")
+    from ..figures.odds import confidence_label    # here: the figures module is not needed to start
+
     conf = result.plan.settings.target_confidence
     shown = {confidence_label(q): q for q in sorted({0.5, 0.8, 0.9, conf})}
     for label, q in shown.items():

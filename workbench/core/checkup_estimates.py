@@ -13,6 +13,8 @@
 
 from __future__ import annotations
 
+from operator import attrgetter
+
 import numpy as np
 
 from .checkup_frame import CheckupFrame, counted, names, _source
@@ -25,11 +27,10 @@ EPS = 1e-9
 def estimate_arrays(plan) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
     """Optimistic, most likely, pessimistic (NaN without an estimate) and whether the
     activity is declared fixed, in plan order."""
-    acts = plan.activities
-    n = len(acts)
-    a, m, b = (np.fromiter((np.nan if getattr(x, k) is None else getattr(x, k) for x in acts), float, n)
+    acts = plan.activities       # numpy reads a missing value (None) as NaN
+    a, m, b = (np.array(list(map(attrgetter(k), acts)), dtype=float).reshape(-1)
                for k in ("optimistic", "most_likely", "pessimistic"))
-    fixed = np.fromiter((x.distribution == "fixed" for x in acts), bool, n)
+    fixed = np.array([x.distribution == "fixed" for x in acts], dtype=bool).reshape(-1)
     return a, m, b, fixed
 
 

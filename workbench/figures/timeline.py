@@ -21,6 +21,7 @@ placed where the group first appears. A collapsed group shows only its summary r
 from __future__ import annotations
 
 import math
+from operator import attrgetter
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -144,8 +145,8 @@ class TimelineGeometry:
 def _row_order(plan, collapsed, only):
     """Plan index per row (-1 for a group row), depth, and {group row: (name, members)}."""
     acts = plan.activities
-    keep = [i for i, a in enumerate(acts) if only is None or a.id in only]
-    if not any(acts[i].group for i in keep):
+    keep = range(len(acts)) if only is None else [i for i, a in enumerate(acts) if a.id in only]
+    if not (any(map(attrgetter("group"), acts)) if only is None else any(acts[i].group for i in keep)):
         return np.asarray(keep, dtype=np.int64), np.zeros(len(keep), dtype=np.int64), {}
     members: dict[str, list[int]] = {}
     for i in keep:
@@ -166,7 +167,7 @@ def _row_order(plan, collapsed, only):
 
 def _row_texts(plan, index, groups, milestone) -> tuple[list[str], list[str], list[str]]:
     acts = plan.activities
-    if not groups and index.tolist() == list(range(len(acts))):     # plain rows in plan order
+    if not groups and len(index) == len(acts) and bool((index == np.arange(len(acts))).all()):   # plain rows in plan order
         keys = [a.id for a in acts]
         labels = [f"{a.id}  {a.name}" if a.name else a.id for a in acts]
         kinds = ["milestone" if m else "activity" for m in np.asarray(milestone, dtype=bool).tolist()]
@@ -305,7 +306,8 @@ def timeline_geometry(analysis, simulation=None, *, collapsed=(), late_bars: boo
     whisker = finish_whisker(simulation, s.ids)
     geo = TimelineGeometry(index, keys, labels, kinds, depth, collapsed, marks, links, lines,
                            float(s.finish), whisker, _x_range(s, lines, whisker, marks))
-    geo.row_of = {keys[r]: int(r) for r in act_rows.tolist()}
+    rows = act_rows.tolist()
+    geo.row_of = dict(zip(keys, rows)) if len(rows) == len(keys) else {keys[r]: r for r in rows}
     return geo
 
 

@@ -112,3 +112,17 @@ def test_pitch_never_below_legible_at_any_height(qtbot, height):
     v.fit_all()
     assert row_pitch_px(v) >= v.legible_row_pitch() - 0.01
     assert np.isclose(v.view_box.viewRange()[1][0], -0.5, atol=3.0)
+
+
+def test_label_column_follows_a_rename_but_not_an_estimate_edit(qtbot):
+    from workbench.core.commands import EditActivity
+    v = open_view(qtbot, long_plan(30))
+    width = v.row_axis.width()
+    v.session.push(EditActivity("K3", duration=9))             # same rows: the column keeps its width
+    assert v.row_axis.width() == width
+    v.session.push(EditActivity("K4", name="Step four: pour and cure the ground floor slab"))
+    qtbot.waitUntil(lambda: v.row_axis.width() > width)
+    wider = v.row_axis.width()
+    v.session.undo_stack.undo()
+    qtbot.waitUntil(lambda: v.row_axis.width() == width)
+    assert wider > width

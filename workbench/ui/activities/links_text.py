@@ -4,6 +4,6 @@ written so that they read back exactly."""
 from __future__ import annotations
 
 from workbench.io.predecessors import format_number
-from workbench.io.tabular import format_predecessors, parse_predecessors
+from workbench.io.predecessors import format_predecessors, parse_predecessors
 
 __all__ = ["format_number", "format_predecessors", "parse_predecessors"]

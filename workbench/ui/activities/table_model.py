@@ -19,6 +19,7 @@ from workbench.core.errors import PlanError
 from workbench.figures import style
 from workbench.ui.activities import columns as C
 from workbench.ui.activities import progress_columns as PC
+from workbench.ui.activities.changed_rows import changed_rows, row_runs
 from workbench.ui.activities.living_values import living_columns, progress_value
 from workbench.ui.activities.links_text import format_predecessors, parse_predecessors
 from workbench.ui.session import Session
@@ -60,6 +61,7 @@ class ActivityTableModel(QAbstractTableModel):
         self._links_key = None
         self._into: dict = {}
         self._columns: dict = {}
+        self._computed_ids = ()
         self.plan.subscribe(self._on_plan_event)
         session.schedule_changed.connect(self._on_schedule_changed)
         plan = self.plan
@@ -105,15 +107,20 @@ class ActivityTableModel(QAbstractTableModel):
 
     def _on_schedule_changed(self, emit: bool = True) -> None:
         analysis = self.session.analysis
+        old_columns, old_ids = self._columns, self._computed_ids
         self._dates = analysis.dates() if analysis is not None else None
-        self._columns = {}
+        self._columns, self._computed_ids = {}, ()
         if analysis is not None:
             s = analysis.schedule
             self._columns = {"te": analysis.means, "sd": analysis.variances ** 0.5, "total_float": s.total_float,
                              "free_float": s.free_float, "critical": s.critical, **self._dates,
                              **living_columns(analysis, self.session.variance())}
+            self._computed_ids = s.ids
         if emit and self.rowCount():
-            self.dataChanged.emit(self.index(0, COMPUTED[0]), self.index(self.rowCount() - 1, COMPUTED[-1]))
+            rows = changed_rows(old_columns, self._columns, old_ids, self._computed_ids)
+            runs = [(0, self.rowCount() - 1)] if rows is None else row_runs(rows)
+            for first, last in runs:     # only the rows whose figures moved: repainted, re-sorted, re-filtered
+                self.dataChanged.emit(self.index(first, COMPUTED[0]), self.index(last, COMPUTED[-1]))
 
     # --- shape ----------------------------------------------------------
     def rowCount(self, parent: _Index = QModelIndex()) -> int:

@@ -148,13 +148,20 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         """Width that fits the longest labels (the 40 longest by length), at most ``limit``."""
         if self._geo is None or not self._geo.labels:
             return int(min(limit, 120))
+        geo, memo = self._geo, getattr(self, "_width_memo", None)
+        key = (font.key(), float(limit), geo.collapsed)
+        if memo is not None and memo[0] == key and memo[1] == geo.labels and memo[2] == geo.kinds \
+                and np.array_equal(memo[3], geo.depth):
+            return memo[4]     # the same rows (an estimate edit): measured already
         bold = QFont(font)
         bold.setBold(True)
         plain, heavy = QFontMetricsF(font), QFontMetricsF(bold)     # group rows are bold
-        longest = heapq.nlargest(40, range(self._geo.n_rows), key=lambda r: len(self._geo.labels[r]))
-        need = max((heavy if self._geo.kinds[r] == "group" else plain).horizontalAdvance(self.label_text(r))
-                   + INDENT * int(self._geo.depth[r]) for r in longest)
-        return int(min(limit, need + 2 * PADDING + 2))
+        longest = heapq.nlargest(40, range(geo.n_rows), key=lambda r: len(geo.labels[r]))
+        need = max((heavy if geo.kinds[r] == "group" else plain).horizontalAdvance(self.label_text(r))
+                   + INDENT * int(geo.depth[r]) for r in longest)
+        width = int(min(limit, need + 2 * PADDING + 2))
+        self._width_memo = (key, geo.labels, geo.kinds, geo.depth, width)
+        return width
 
     def cache_content(self):
         return None if self._geo is None else id(self._geo)

@@ -7,12 +7,13 @@ import importlib
 from functools import partial
 from pathlib import Path
 
-from PySide6.QtCore import QByteArray, QSettings, Qt, QTimer
+from PySide6.QtCore import QByteArray, QSettings, Qt
 from PySide6.QtGui import QCloseEvent
 from PySide6.QtWidgets import QDockWidget, QLabel, QMainWindow, QUndoView, QVBoxLayout, QWidget
 
 from workbench.core.model import Plan
 from workbench.ui.activities.panel import ActivitiesPanel
+from workbench.ui.workspace.after_paint import AfterFirstPaint
 from workbench.ui.workspace.files import TABLE_SUFFIXES, FileController
 from workbench.ui import prompts, workers
 from workbench.ui.icons import icon
@@ -179,7 +180,7 @@ class MainWindow(QMainWindow):
         if not self._watching:   # build the views on screen once the window is up
             self._watching = True
             keep_on_screen(self)  # now that the frame is known, the whole of it on the screen
-            QTimer.singleShot(0, self._watch_views)
+            AfterFirstPaint(self.activities, self._watch_views)
 
     def built_views(self) -> dict[str, QWidget]:
         """The views built so far (those whose docks have been on screen, or asked for)."""
