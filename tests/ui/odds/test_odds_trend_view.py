@@ -33,7 +33,7 @@ def test_the_trend_is_shown_with_its_headline_and_status_note(view):
     assert view.trend.isVisible()
     assert view.trend.headline.text() == ot.headline(plan.odds_trend, plan.baselines[0])
     assert np.allclose(view.trend.figure.simulation, [p.simulation_probability for p in plan.odds_trend])
-    assert "From the status date 28 May 2027" in view.panel.headline.text()
+    assert "From the status date Fri 28 May 2027" in view.panel.headline.text()   # the one date format
 
 
 def test_a_run_from_a_new_status_date_records_one_point(view):

@@ -6,6 +6,7 @@ from __future__ import annotations
 from PySide6.QtCore import QTimer
 
 from workbench.core.baseline import approved, make_trend_point
+from workbench.core.formatting import format_date
 
 
 def status_note(analysis) -> str:
@@ -13,7 +14,7 @@ def status_note(analysis) -> str:
     frame = analysis.progress if analysis is not None else None
     if frame is None:
         return ""
-    return (f"<div style='color:#009E73'><b>From the status date {frame.status_date.strftime('%d %b %Y')}</b>: "
+    return (f"<div style='color:#009E73'><b>From the status date {format_date(frame.status_date)}</b>: "
             f"actual dates are fixed; only the remaining work is uncertain.</div>")
 
 
