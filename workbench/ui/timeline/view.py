@@ -76,6 +76,7 @@ class TimelineView(QWidget):
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
         self.view_box.sigResized.connect(lambda *_: stack_finish_labels(self))   # labels apart again
+        self.view_box.sigXRangeChanged.connect(lambda *_: stack_finish_labels(self))
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
@@ -286,9 +287,12 @@ class TimelineView(QWidget):
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
         height = max(self.view_box.height(), 200.0)
-        header_px = max(HEADER_PX, 4.0 * self._font().pixelSize())    # two lines of line labels
+        # lines of labels: start and deadline; status; P10 and P90 apart
+        lines = 2 + (geo.finish_whisker is not None) + ("status" in self._lines)
+        header_px = max(HEADER_PX, lines * (2.0 * self._font().pixelSize() + 1.5))   # a label is ~2 px high
         n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
         header = header_px * n / max(height - header_px, 1.0)
+        self.view_box.setLimits(yMin=min(self.view_box.state["limits"]["yLimits"][0], -0.5 - header))
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
         stack_finish_labels(self)
 
