@@ -61,9 +61,23 @@ class OddsPanel(QWidget):
         table.verticalHeader().setVisible(False)
         table.setEditTriggers(QAbstractItemView.NoEditTriggers)
         table.setSelectionMode(QAbstractItemView.NoSelection)
-        table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeToContents)
-        table.horizontalHeader().setStretchLastSection(True)
+        header = table.horizontalHeader()
+        header.setSectionResizeMode(0, QHeaderView.ResizeToContents)
+        for column in (1, 2):           # the two answers share the width and wrap: never cut
+            header.setSectionResizeMode(column, QHeaderView.Stretch)
+        table.setWordWrap(True)
+        table.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
         return table
+
+    def resizeEvent(self, event):  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        if self.table.rowCount():
+            self._fit_rows()
+
+    def _fit_rows(self) -> None:
+        self.table.resizeRowsToContents()
+        height = sum(self.table.rowHeight(r) for r in range(self.table.rowCount()))
+        self.table.setFixedHeight(self.table.horizontalHeader().height() + height + 6)
 
     def _question_box(self) -> QGroupBox:
         box = QGroupBox("Question (drag the purple date lines)")
@@ -131,9 +145,7 @@ class OddsPanel(QWidget):
                     font.setBold(True)
                     item.setFont(font)
                 self.table.setItem(r, c, item)
-        self.table.resizeRowsToContents()
-        height = sum(self.table.rowHeight(r) for r in range(rows))
-        self.table.setFixedHeight(self.table.horizontalHeader().height() + height + 6)
+        self._fit_rows()
 
     def mark_preset(self, probability: float) -> None:
         for button in self.presets.buttons():
