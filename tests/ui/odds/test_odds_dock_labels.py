@@ -113,6 +113,8 @@ def test_y_titles_fit_their_axes(view):
 
 
 def test_the_side_by_side_table_is_not_cut(view, qtbot):
+    side = view.panel.parentWidget().parentWidget()                   # the panel's scroll area
+    assert view.panel.minimumSizeHint().width() <= side.viewport().width(), "the panel is cut at the right"
     table = view.panel.table
     assert table.rowCount() >= 4
     assert table.horizontalHeader().length() <= table.viewport().width() + 1

@@ -10,6 +10,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QButtonGroup, QComboBox, QGrou
 
 from workbench.figures.odds import CAUTION, MODES, PRESETS
 
+BOX_MARGINS = (6, 6, 6, 6)
 MODE_TEXT = {"by": "Finish by the date", "after": "Finish after the date", "between": "Finish between two dates"}
 
 
@@ -40,12 +41,13 @@ class OddsPanel(QWidget):
         self.mode = QComboBox()
         for key in MODES:
             self.mode.addItem(MODE_TEXT[key], key)
+        self.mode.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        self.mode.setMinimumContentsLength(12)
         self.mode.currentIndexChanged.connect(lambda _: self.mode_changed.emit(self.mode.currentData()))
         self.readout = _label(size=10)
         self.readout.setTextFormat(Qt.RichText)
         self.sim_readout = _label(size=10)
         self.inverse = _label(size=10)
-        self.inverse.setWordWrap(False)
         self.inverse.setTextFormat(Qt.RichText)
         self.error = _label()
         self.error.setStyleSheet("color: #8A3B00;")
@@ -67,6 +69,8 @@ class OddsPanel(QWidget):
             header.setSectionResizeMode(column, QHeaderView.Stretch)
         table.setWordWrap(True)
         table.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        table.setSizeAdjustPolicy(QAbstractItemView.SizeAdjustPolicy.AdjustIgnored)
+        table.setMinimumWidth(120)
         return table
 
     def resizeEvent(self, event):  # noqa: N802 (Qt override)
@@ -80,16 +84,21 @@ class OddsPanel(QWidget):
         self.table.setFixedHeight(self.table.horizontalHeader().height() + height + 6)
 
     def _question_box(self) -> QGroupBox:
-        box = QGroupBox("Question (drag the purple date lines)")
+        box = QGroupBox("Question")
         lay = QVBoxLayout(box)
+        lay.setContentsMargins(*BOX_MARGINS)
+        hint = _label("Drag the purple date lines on the chart.")
+        hint.setStyleSheet("color: #555555;")
+        lay.addWidget(hint)
         lay.addWidget(self.mode)
         lay.addWidget(self.readout)
         lay.addWidget(self.sim_readout)
         return box
 
     def _inverse_box(self) -> QGroupBox:
-        box = QGroupBox("Which date can we promise?")
+        box = QGroupBox("Date to promise")
         lay = QVBoxLayout(box)
+        lay.setContentsMargins(*BOX_MARGINS)
         row = QHBoxLayout()
         self.presets = QButtonGroup(self)
         for p in PRESETS:
@@ -101,20 +110,21 @@ class OddsPanel(QWidget):
         self.typed = QLineEdit()
         self.typed.setPlaceholderText("other, e.g. 95 %")
         self.typed.returnPressed.connect(lambda: self.confidence_requested.emit(self.typed.text()))
-        row.addWidget(self.typed, 1)
         lay.addLayout(row)
+        lay.addWidget(self.typed)        # under the presets: the panel may be narrow (a dock)
         lay.addWidget(self.inverse)
         return box
 
     def _layout(self) -> None:
         lay = QVBoxLayout(self)
+        lay.setContentsMargins(4, 4, 4, 4)       # narrow margins: the panel may share a small dock
         lay.addWidget(self.headline)
         lay.addWidget(self.error)
         lay.addWidget(self._question_box())
         lay.addWidget(self._inverse_box())
         self.controls_slot = QVBoxLayout()
         lay.addLayout(self.controls_slot)
-        self.compare_box = QGroupBox("PERT and simulation side by side")
+        self.compare_box = QGroupBox("PERT and simulation")
         inner = QVBoxLayout(self.compare_box)
         inner.addWidget(self.table)
         inner.addWidget(self.merge_note)
