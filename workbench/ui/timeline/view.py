@@ -298,10 +298,10 @@ class TimelineView(QWidget):
 
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
         """How many rows (from the top) a fit shows in ``room_px`` pixels."""
+        if every_row:            # Present mode, or asked for: every row, also on a refit after a resize
+            return n
         if rows_to_fit:
             return min(n, max(5, int(room_px / self._weights.row_height)))
-        if every_row:
-            return n
         return min(n, max(1, int(room_px / self.legible_row_pitch() - 0.1)))
 
     def legible_row_pitch(self) -> float:
