@@ -25,6 +25,7 @@ class Obstacles:
 
     rects: list[Rect] = field(default_factory=list)
     curves: list[tuple[np.ndarray, np.ndarray]] = field(default_factory=list)
+    sorted_x: list[bool] = field(default_factory=list)     # per curve: x never decreases
 
     def vertical_line(self, x: float, top: float, bottom: float, width: float = 2.0) -> None:
         self.rects.append((x - width / 2, top, x + width / 2, bottom))
@@ -36,7 +37,9 @@ class Obstacles:
         xs, ys = np.asarray(xs, float), np.asarray(ys, float)
         keep = np.isfinite(xs) & np.isfinite(ys)
         if np.count_nonzero(keep) >= 2:
-            self.curves.append((xs[keep], ys[keep]))
+            xs, ys = xs[keep], ys[keep]
+            self.curves.append((xs, ys))
+            self.sorted_x.append(bool(np.all(xs[1:] >= xs[:-1])))
 
 
 def rects_meet(a: Rect, b: Rect, gap: float = 0.0) -> bool:
@@ -48,9 +51,18 @@ def inside(rect: Rect, bounds: Rect) -> bool:
     return bounds[0] <= rect[0] and rect[2] <= bounds[2] and bounds[1] <= rect[1] and rect[3] <= bounds[3]
 
 
-def curve_meets(rect: Rect, xs: np.ndarray, ys: np.ndarray) -> bool:
+def curve_meets(rect: Rect, xs: np.ndarray, ys: np.ndarray, sorted_x: bool | None = None) -> bool:
     """True when the polyline through (xs, ys) passes through ``rect``: some segment, cut
-    to the rectangle's x range, spans y values inside it."""
+    to the rectangle's x range, spans y values inside it. A curve whose x never decreases
+    (every chart curve here) is cut to the rectangle's x range first."""
+    if sorted_x is None:
+        sorted_x = bool(np.all(xs[1:] >= xs[:-1]))
+    if sorted_x:
+        lo = max(int(np.searchsorted(xs, rect[0], "left")) - 1, 0)
+        hi = min(int(np.searchsorted(xs, rect[2], "right")) + 1, xs.size)
+        xs, ys = xs[lo:hi], ys[lo:hi]
+        if xs.size < 2:
+            return False
     x0, x1 = xs[:-1], xs[1:]
     y0, y1 = ys[:-1], ys[1:]
     lo, hi = np.minimum(x0, x1), np.maximum(x0, x1)
@@ -76,7 +88,8 @@ def free(rect: Rect, bounds: Rect, taken: list[Rect], obstacles: Obstacles, gap:
         return False
     if any(rects_meet(rect, other) for other in obstacles.rects):
         return False
-    return not any(curve_meets(rect, xs, ys) for xs, ys in obstacles.curves)
+    return not any(curve_meets(rect, xs, ys, ordered)
+                   for (xs, ys), ordered in zip(obstacles.curves, obstacles.sorted_x))
 
 
 def place(candidates: list[list[Rect]], bounds: Rect, obstacles: Obstacles,

@@ -5,7 +5,7 @@ from __future__ import annotations
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import Qt, Signal
+from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtGui import QColor, QFont
 
 from workbench.figures import style
@@ -36,6 +36,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
 
     def __init__(self, parent=None):
         super().__init__(parent)
+        self._placing = False
         self.setBackground(style.BACKGROUND)
         self.density = self._make_plot(0, "Likelihood of finishing (density per unit)")
         self.cumulative = self._make_plot(1, "P(finish by date)")
@@ -250,6 +251,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
                     line.blockSignals(False)
                 mirror.setValue(values[i])
                 self._texts[id(self.marker_texts[i])] = labels[i]
+                self.marker_texts[i].setText(labels[i])
         self.place_labels()
 
     def set_answers(self, probability: float, pert_x, sim_x, labels: tuple[str, str],
@@ -259,18 +261,28 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         self.level.setValue(probability)
         self.answer_dot.setData([pert_x], [pert_y])
         self._texts[id(self.answer_text)] = labels[0]
+        self.answer_text.setText(labels[0])          # whole until placed (it may then shorten)
         self._answer_at = (pert_x, pert_y)
         for line, label, x, text in zip(self.answers, self.answer_texts, (pert_x, sim_x), labels):
             line.setVisible(x is not None)
             self._texts[id(label)] = text if x is not None else ""
+            label.setText(self._texts[id(label)])
             if x is not None:
                 line.setValue(x)
         self.place_labels()
 
     # --- labels where they cover nothing (figures.label_place) --------------------
     def place_labels(self) -> None:
+        """Set the labels once the current changes are in (one placement per turn of the
+        event loop, however many setters ran: a marker drag moves several items)."""
+        if not getattr(self, "_placing", False) and hasattr(self, "answer_texts"):
+            self._placing = True
+            QTimer.singleShot(0, self, self.place_labels_now)    # dropped with the plot
+
+    def place_labels_now(self) -> None:
         """Set every label and legend of both plots where it covers no line, curve or
         other label; hide what has no room. Also words the y titles to fit."""
+        self._placing = False
         if not hasattr(self, "answer_texts"):
             return
         self._fit_titles()
