@@ -2,9 +2,12 @@
 laptop (and larger): no label covers another, a curve or a drawn line; labels and legends
 stay inside their plots; the y-axis titles fit; the side-by-side table is not cut."""
 
+import re
+
 import numpy as np
 import pytest
 from PySide6.QtCore import QPointF, QRectF
+from PySide6.QtGui import QImage, QPainter
 
 from workbench.core.demo import demo_plan
 from workbench.core.montecarlo import simulate
@@ -124,3 +127,21 @@ def test_the_side_by_side_table_is_not_cut(view, qtbot):
             rect = table.visualRect(table.model().index(r, c))
             lines = max(1, rect.height() // table.fontMetrics().height())
             assert table.fontMetrics().horizontalAdvance(text) <= rect.width() * lines, text
+
+
+def _drawn_dates(axis) -> list[str]:
+    """The date labels the axis draws (those it would hide for lack of room are left out)."""
+    image = QImage(10, 10, QImage.Format.Format_ARGB32)
+    painter = QPainter(image)
+    try:
+        specs = axis.generateDrawSpecs(painter)
+    finally:
+        painter.end()
+    return [] if specs is None else [text for _, _, text in specs[2]]
+
+
+def test_dates_under_the_s_curve_at_every_size_and_weeks_when_there_is_room(view):
+    drawn = _drawn_dates(view.plot.cumulative.getAxis("bottom"))
+    assert drawn, "no date under the S-curve"
+    if view.width() >= 1400:
+        assert any(re.fullmatch(r"\d{1,2} [A-Z][a-z]{2}( \d{4})?", t) for t in drawn), drawn

@@ -14,6 +14,8 @@ from workbench.ui.odds import plot_labels as pl
 from workbench.ui.odds.axis import OddsAxis
 
 STALE = "#9A9A9A"
+DATE_OVERFLOW_PX = 30    # how far a date label may reach past the end of its axis
+SHORT_CHART_PX = 420     # a chart shorter than this gives the dates only under the S-curve
 NARROW_PLOT_PX = 300     # a density plot narrower than this shows its title, not its values
 
 
@@ -60,6 +62,9 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         plot.getViewBox().setDefaultPadding(0.0)
         font = QFont()
         font.setPointSizeF(style.SCREEN.font_size + 1)
+        # a date label near an end may reach a little past it (into the y axis's margin)
+        # rather than vanish: a short span may have a single month start, close to the left
+        plot.getAxis("bottom").setStyle(hideOverlappingLabels=DATE_OVERFLOW_PX)
         for name in ("bottom", "left"):
             axis = plot.getAxis(name)
             axis.setTickFont(font)
@@ -295,6 +300,11 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         axis = self.density.getAxis("left")
         if axis.style["showValues"] != values:
             axis.setStyle(showValues=values)
+        # a short chart: the dates once, under the S-curve (both plots share them)
+        dates = self.height() >= SHORT_CHART_PX
+        axis = self.density.getAxis("bottom")
+        if axis.style["showValues"] != dates:
+            axis.setStyle(showValues=dates)
         for plot, key in ((self.density, "density"), (self.cumulative, "cumulative")):
             pl.fit_y_title(plot, pl.Y_TITLES[key])
 

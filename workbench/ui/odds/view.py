@@ -27,9 +27,9 @@ EMPTY_PLAN = "No activities yet: add some, or open or import a plan, to see the 
 STACK_BELOW_PX = 820        # narrower than this (and tall enough), the panel goes under the curves
 STACK_MIN_HEIGHT_PX = 700
 NARROW_PANEL_PX = 380       # a side panel narrower than this words its table shorter
-KEY = ("<span style='color:%s'>&#9632;</span>&nbsp;PERT&nbsp;answer &nbsp; <b>&#9473;</b>&nbsp;PERT &nbsp; "
-       "<span style='color:%s'><b>&#9473;</b></span>&nbsp;Simulation &nbsp; "
-       "<span style='color:%s'>&#9632;</span>&nbsp;simulation&nbsp;answer") % (fstyle.PROBABILITY, fstyle.WORK, fstyle.CRITICAL)
+KEY = ("<b>&#9473;</b>&nbsp;PERT &nbsp; <span style='color:%s'><b>&#9473;</b></span>&nbsp;Simulation<br>"
+       "<span style='color:%s'>&#9632;</span>&nbsp;PERT&nbsp;answer &nbsp; "
+       "<span style='color:%s'>&#9632;</span>&nbsp;simulation&nbsp;answer") % (fstyle.WORK, fstyle.PROBABILITY, fstyle.CRITICAL)
 
 
 class OddsView(QWidget):
@@ -98,6 +98,7 @@ class OddsView(QWidget):
         self.key.setWordWrap(True)
         self.key.setTextFormat(Qt.RichText)
         self.key.setAccessibleName("Key to the curves")
+        self.key.setStyleSheet("font-size: 9pt;")
         self.key.setVisible(False)
         lay.addWidget(self.key)
         plot.legends_shown.connect(lambda shown: self.key.setVisible(not shown))
