@@ -378,7 +378,7 @@ class OddsView(QWidget):
             side = max(least, min(600, int((0.45 if stacked or narrow else 0.3) * length)))
             self.splitter.setSizes([max(1, length - side), side])
         narrow = self.panel.width() < NARROW_PANEL_PX
-        if narrow != getattr(self, "_narrow", None) and self.analysis is not None:
+        if narrow != getattr(self, "_narrow", None) and self.analysis is not None and self.dates[0] is not None:
             self._narrow = narrow
             self.update_question()          # the headline worded for the panel's width
 
