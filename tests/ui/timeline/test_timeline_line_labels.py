@@ -39,3 +39,47 @@ def test_labels_stay_in_the_header_and_apart(qtbot):
     assert {"start", "deadline", "p10", "p90"} <= set(boxes)
     for a, b in (("p10", "p90"), ("p10", "deadline"), ("p90", "deadline"), ("start", "deadline")):
         assert not boxes[a].intersects(boxes[b]), (a, b)
+
+
+def _label_boxes(view):
+    return {name: view.plot.mapFromScene(line.label.sceneBoundingRect()).boundingRect()
+            for name, line in view.reference.lines.items() if line.label.isVisible()}
+
+
+def _assert_apart_above_and_inside(view):
+    first_row_top = view.item.deviceTransform_().map(QPointF(0, -0.5)).y()
+    inside = view.plot.mapFromScene(view.view_box.sceneBoundingRect()).boundingRect()
+    boxes = _label_boxes(view)
+    names = sorted(boxes)
+    for i, a in enumerate(names):
+        box = boxes[a]
+        assert box.bottom() <= first_row_top + 1, a                                  # over no bar
+        assert inside.left() - 1 <= box.left() and box.right() <= inside.right() + 1, a   # not cut
+        for b in names[i + 1:]:
+            assert not box.intersects(boxes[b]), (a, b)
+    return boxes
+
+
+import pytest  # noqa: E402
+
+
+@pytest.mark.parametrize("size", [(590, 358), (788, 358)])      # the dock at 1024×768 and 1366×768
+@pytest.mark.parametrize("simulated", [False, True])
+def test_labels_apart_in_a_small_dock_and_after_zooming_out(qtbot, size, simulated):
+    session = Session(footbridge_plan())
+    view = TimelineView(session)
+    qtbot.addWidget(view)
+    view.resize(*size)
+    view.show()
+    qtbot.waitExposed(view)
+    if simulated:
+        finish = session.analysis.schedule.finish
+        session.set_simulation(Runs(session.analysis.schedule.ids, np.linspace(finish - 4, finish + 9, 101)))
+    view.fit_all()
+    qtbot.wait(20)
+    boxes = _assert_apart_above_and_inside(view)
+    assert set(boxes) == set(view.reference.lines)          # at a fit every label has room
+    lo, hi = session.analysis.schedule.finish * -0.2, session.analysis.schedule.finish * 4
+    view.view_box.setXRange(lo, hi, padding=0)           # zoomed out: start and deadline close together
+    qtbot.wait(20)
+    _assert_apart_above_and_inside(view)

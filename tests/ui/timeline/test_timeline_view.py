@@ -159,8 +159,10 @@ def test_dragging_a_bar_end_is_one_undo_step_with_the_right_most_likely(view, qt
     view.duration_dragging.connect(lambda i, v: moving.append((i, v)))
     view.duration_dragged.connect(lambda i, v: finished.append((i, v)))
     steps_before = session.undo_stack.count()
-    drag(view, start, end)
+    # where the pointer lets go, in plan units as the view stood during the drag (the
+    # view may refit to the longer plan once the change lands)
     x_end = view.item.deviceTransform_().inverted()[0].map(QPointF(end)).x()
+    drag(view, start, end)
     expected = dragged_estimate(before, x_end - es, resolution=1.0)     # a plan in days
     after = session.plan.activity("C")
     assert session.undo_stack.count() == steps_before + 1

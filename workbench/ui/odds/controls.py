@@ -32,6 +32,7 @@ class OddsControls(QGroupBox):
         self.progress = QProgressBar()
         self.progress.setRange(0, 100)
         self.progress.setValue(0)
+        self.progress.setMinimumWidth(40)
         self.status = QLabel("No simulation yet.")
         self.status.setWordWrap(True)
         self._layout()
@@ -39,6 +40,7 @@ class OddsControls(QGroupBox):
 
     def _layout(self) -> None:
         form = QFormLayout()
+        form.setRowWrapPolicy(QFormLayout.RowWrapPolicy.WrapLongRows)   # a narrow panel: box under its name
         form.addRow("Iterations", self.iterations)
         form.addRow("Seed", self.seed)
         row = QHBoxLayout()

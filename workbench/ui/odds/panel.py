@@ -10,6 +10,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QButtonGroup, QComboBox, QGrou
 
 from workbench.figures.odds import CAUTION, MODES, PRESETS
 
+BOX_MARGINS = (6, 6, 6, 6)
 MODE_TEXT = {"by": "Finish by the date", "after": "Finish after the date", "between": "Finish between two dates"}
 
 
@@ -40,12 +41,13 @@ class OddsPanel(QWidget):
         self.mode = QComboBox()
         for key in MODES:
             self.mode.addItem(MODE_TEXT[key], key)
+        self.mode.setSizeAdjustPolicy(QComboBox.SizeAdjustPolicy.AdjustToMinimumContentsLengthWithIcon)
+        self.mode.setMinimumContentsLength(12)
         self.mode.currentIndexChanged.connect(lambda _: self.mode_changed.emit(self.mode.currentData()))
         self.readout = _label(size=10)
         self.readout.setTextFormat(Qt.RichText)
         self.sim_readout = _label(size=10)
         self.inverse = _label(size=10)
-        self.inverse.setWordWrap(False)
         self.inverse.setTextFormat(Qt.RichText)
         self.error = _label()
         self.error.setStyleSheet("color: #8A3B00;")
@@ -61,21 +63,42 @@ class OddsPanel(QWidget):
         table.verticalHeader().setVisible(False)
         table.setEditTriggers(QAbstractItemView.NoEditTriggers)
         table.setSelectionMode(QAbstractItemView.NoSelection)
-        table.horizontalHeader().setSectionResizeMode(QHeaderView.ResizeToContents)
-        table.horizontalHeader().setStretchLastSection(True)
+        header = table.horizontalHeader()
+        header.setSectionResizeMode(0, QHeaderView.ResizeToContents)
+        for column in (1, 2):           # the two answers share the width and wrap: never cut
+            header.setSectionResizeMode(column, QHeaderView.Stretch)
+        table.setWordWrap(True)
+        table.setHorizontalScrollBarPolicy(Qt.ScrollBarAlwaysOff)
+        table.setSizeAdjustPolicy(QAbstractItemView.SizeAdjustPolicy.AdjustIgnored)
+        table.setMinimumWidth(120)
         return table
 
+    def resizeEvent(self, event):  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        if self.table.rowCount():
+            self._fit_rows()
+
+    def _fit_rows(self) -> None:
+        self.table.resizeRowsToContents()
+        height = sum(self.table.rowHeight(r) for r in range(self.table.rowCount()))
+        self.table.setFixedHeight(self.table.horizontalHeader().height() + height + 6)
+
     def _question_box(self) -> QGroupBox:
-        box = QGroupBox("Question (drag the purple date lines)")
+        box = QGroupBox("Question")
         lay = QVBoxLayout(box)
+        lay.setContentsMargins(*BOX_MARGINS)
+        hint = _label("Drag the purple date lines on the chart.")
+        hint.setStyleSheet("color: #555555;")
+        lay.addWidget(hint)
         lay.addWidget(self.mode)
         lay.addWidget(self.readout)
         lay.addWidget(self.sim_readout)
         return box
 
     def _inverse_box(self) -> QGroupBox:
-        box = QGroupBox("Which date can we promise?")
+        box = QGroupBox("Date to promise")
         lay = QVBoxLayout(box)
+        lay.setContentsMargins(*BOX_MARGINS)
         row = QHBoxLayout()
         self.presets = QButtonGroup(self)
         for p in PRESETS:
@@ -87,13 +110,14 @@ class OddsPanel(QWidget):
         self.typed = QLineEdit()
         self.typed.setPlaceholderText("other, e.g. 95 %")
         self.typed.returnPressed.connect(lambda: self.confidence_requested.emit(self.typed.text()))
-        row.addWidget(self.typed, 1)
         lay.addLayout(row)
+        lay.addWidget(self.typed)        # under the presets: the panel may be narrow (a dock)
         lay.addWidget(self.inverse)
         return box
 
     def _layout(self) -> None:
         lay = QVBoxLayout(self)
+        lay.setContentsMargins(4, 4, 4, 4)       # narrow margins: the panel may share a small dock
         lay.addWidget(self.headline)
         self.crews_box = QGroupBox("With the crews")    # shown when the plan has resources
         self.crews_slot = QVBoxLayout(self.crews_box)
@@ -104,7 +128,7 @@ class OddsPanel(QWidget):
         lay.addWidget(self._inverse_box())
         self.controls_slot = QVBoxLayout()
         lay.addLayout(self.controls_slot)
-        self.compare_box = QGroupBox("PERT and simulation side by side")
+        self.compare_box = QGroupBox("PERT and simulation")
         inner = QVBoxLayout(self.compare_box)
         inner.addWidget(self.table)
         inner.addWidget(self.merge_note)
@@ -135,9 +159,7 @@ class OddsPanel(QWidget):
                     font.setBold(True)
                     item.setFont(font)
                 self.table.setItem(r, c, item)
-        self.table.resizeRowsToContents()
-        height = sum(self.table.rowHeight(r) for r in range(rows))
-        self.table.setFixedHeight(self.table.horizontalHeader().height() + height + 6)
+        self._fit_rows()
 
     def mark_preset(self, probability: float) -> None:
         for button in self.presets.buttons():

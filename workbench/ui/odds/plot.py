@@ -5,13 +5,18 @@ from __future__ import annotations
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtCore import Qt, Signal
+from PySide6.QtCore import Qt, QTimer, Signal
 from PySide6.QtGui import QColor, QFont
 
 from workbench.figures import style
+from workbench.figures import label_place as lp
+from workbench.ui.odds import plot_labels as pl
 from workbench.ui.odds.axis import OddsAxis
 
 STALE = "#9A9A9A"
+DATE_OVERFLOW_PX = 30    # how far a date label may reach past the end of its axis
+SHORT_CHART_PX = 420     # a chart shorter than this gives the dates only under the S-curve
+NARROW_PLOT_PX = 300     # a density plot narrower than this shows its title, not its values
 
 
 def _colour(hex_colour: str, alpha: int = 255) -> QColor:
@@ -29,9 +34,11 @@ class OddsPlot(pg.GraphicsLayoutWidget):
 
     marker_moved = Signal()       # while dragging
     marker_released = Signal()    # once, when a drag ends
+    legends_shown = Signal(bool)  # False when a legend has no free corner (the view shows a key)
 
     def __init__(self, parent=None):
         super().__init__(parent)
+        self._placing = False
         self.setBackground(style.BACKGROUND)
         self.density = self._make_plot(0, "Likelihood of finishing (density per unit)")
         self.cumulative = self._make_plot(1, "P(finish by date)")
@@ -41,6 +48,8 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         self.ci.layout.setRowStretchFactor(1, 2)
         self._make_items()
         self._make_markers()
+        for plot in (self.density, self.cumulative):
+            plot.vb.sigRangeChanged.connect(lambda *_: self.place_labels())
 
     def _make_plot(self, row: int, ylabel: str) -> pg.PlotItem:
         axis = OddsAxis("bottom")
@@ -53,6 +62,9 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         plot.getViewBox().setDefaultPadding(0.0)
         font = QFont()
         font.setPointSizeF(style.SCREEN.font_size + 1)
+        # a date label near an end may reach a little past it (into the y axis's margin)
+        # rather than vanish: a short span may have a single month start, close to the left
+        plot.getAxis("bottom").setStyle(hideOverlappingLabels=DATE_OVERFLOW_PX)
         for name in ("bottom", "left"):
             axis = plot.getAxis(name)
             axis.setTickFont(font)
@@ -63,7 +75,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
     def _make_items(self) -> None:
         d, c = self.density, self.cumulative  # density items here, cumulative ones below
         self.legend = d.addLegend(offset=(-10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
-                                  brush=pg.mkBrush(255, 255, 255, 220))
+                                  brush=pg.mkBrush(255, 255, 255, 220), colCount=2)
         self.hist = pg.PlotDataItem(pen=_pen(style.WORK, 2.0), fillLevel=0.0,
                                     brush=_colour(style.FLOAT, 45), name="Simulation")
         # a solid fill with a heavy stepped outline: pattern brushes cost ~3x more to paint
@@ -92,7 +104,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         self.ecdf = pg.PlotDataItem(pen=_pen(style.WORK, 2.5), name="Simulation (S-curve)")
         # top left: an S-curve is still near zero there, and the answer labels sit low
         self.cum_legend = c.addLegend(offset=(10, 10), labelTextSize="10pt", labelTextColor=style.TEXT,
-                                      brush=pg.mkBrush(255, 255, 255, 220))
+                                      brush=pg.mkBrush(255, 255, 255, 220), colCount=2)
         c.addItem(self.pert_cdf)
         c.addItem(self.ecdf)
         self.level = pg.InfiniteLine(angle=0, pen=_pen(style.MUTED_TEXT, 1.5, dash=True), movable=False)
@@ -103,10 +115,13 @@ class OddsPlot(pg.GraphicsLayoutWidget):
 
     def _make_markers(self) -> None:
         self.markers, self.mirrors, self.answers = [], [], []
+        self._texts: dict[int, str] = {}      # label item → its whole text (it may show a shorter one)
+        self._answer_at = (0.0, 0.0)
+        self.marker_texts: list[pg.TextItem] = []
+        self.answer_texts: list[pg.TextItem] = []
         for key in ("D1", "D2"):
             line = pg.InfiniteLine(angle=90, movable=True, pen=_pen(style.DEADLINE, 3.0),
-                                   hoverPen=_pen(style.DEADLINE, 5.0), label="",
-                                   labelOpts={"position": 0.95, "color": style.TEXT, "fill": (255, 255, 255, 220)})
+                                   hoverPen=_pen(style.DEADLINE, 5.0))
             line.setZValue(20)
             line.sigPositionChanged.connect(lambda *_: self.marker_moved.emit())
             line.sigPositionChangeFinished.connect(lambda *_: self.marker_released.emit())
@@ -115,12 +130,21 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             self.cumulative.addItem(mirror)
             self.markers.append(line)
             self.mirrors.append(mirror)
-        for colour, where in ((style.TEXT, 0.1), (style.WORK, 0.24)):
-            line = pg.InfiniteLine(angle=90, movable=False, pen=_pen(colour, 2.0, dash=True), label="",
-                                   labelOpts={"position": where, "color": colour, "fill": (255, 255, 255, 230),
-                                              "anchors": [(1.02, 0.5), (1.02, 0.5)]})
+            self.marker_texts.append(self._text(self.density, style.TEXT, 220))
+        for colour in (style.TEXT, style.WORK):
+            line = pg.InfiniteLine(angle=90, movable=False, pen=_pen(colour, 2.0, dash=True))
             self.cumulative.addItem(line)
             self.answers.append(line)
+            self.answer_texts.append(self._text(self.cumulative, colour, 230))
+
+    @staticmethod
+    def _text(plot: pg.PlotItem, colour: str, alpha: int) -> pg.TextItem:
+        """A label placed by ``place_labels`` (hidden until it has a free place)."""
+        text = pg.TextItem("", color=colour, anchor=(0, 0), fill=(255, 255, 255, alpha))
+        text.setZValue(25)
+        text.setVisible(False)
+        plot.addItem(text, ignoreBounds=True)
+        return text
 
     # --- setters (all drawing comes in as figures geometry) ---------------------
     def set_calendar(self, calendar) -> None:
@@ -157,6 +181,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             self.hist.setData([], [])
             self.ecdf.setData([], [])
             self.p_points.setData([], [])
+            self.place_labels()
             return
         colour = STALE if stale else style.WORK
         self.hist.setPen(_pen(colour, 2.0))
@@ -172,14 +197,16 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         font.setPointSizeF(style.SCREEN.label_font_size + 1)
         font.setBold(True)
         for name, x, y in zip(names, xs, ys):
-            # below and right of its point: the S-curve rises to the right, so that corner
-            # is clear of it; a light backing keeps it legible over the grid and guides
-            text = pg.TextItem(name, color=colour, anchor=(-0.25, -0.05), fill=(255, 255, 255, 215))
+            # a light backing keeps it legible over the grid; place_labels picks its side
+            text = pg.TextItem(name, color=colour, anchor=(0, 0), fill=(255, 255, 255, 215))
             text.setFont(font)
+            text.point = (x, y)          # placed beside its point by place_labels
             text.setPos(x, y)
-            self.cumulative.addItem(text)
+            text.setZValue(25)
+            self.cumulative.addItem(text, ignoreBounds=True)
             self.p_labels.append(text)
         self._y_top(float(np.max(fig.heights)))
+        self.place_labels()
 
     def _legend_for_sim(self, shown: bool) -> None:
         """List the simulation's items in the legends only when there is a simulation."""
@@ -209,8 +236,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         super().resizeEvent(event)
         if hasattr(self, "_sim_top"):
             self._y_top(self._sim_top)
-        if hasattr(self, "answer_text"):
-            self._relayout_answer()
+        self.place_labels()
 
     def fit_y(self, has_sim: bool) -> None:
         if not has_sim:
@@ -221,13 +247,17 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             show = i == 0 or mode == "between"
             line.setVisible(show)
             mirror.setVisible(show)
+            if not show:
+                self._texts[id(self.marker_texts[i])] = ""
             if show and values[i] is not None:
                 if abs(line.value() - values[i]) > 1e-12:
                     line.blockSignals(True)
                     line.setValue(values[i])
                     line.blockSignals(False)
                 mirror.setValue(values[i])
-                line.label.setFormat(labels[i])
+                self._texts[id(self.marker_texts[i])] = labels[i]
+                self.marker_texts[i].setText(labels[i])
+        self.place_labels()
 
     def set_answers(self, probability: float, pert_x, sim_x, labels: tuple[str, str],
                     pert_y: float = 0.0) -> None:
@@ -235,35 +265,106 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         density curve a diamond at the PERT date."""
         self.level.setValue(probability)
         self.answer_dot.setData([pert_x], [pert_y])
-        self.answer_text.setText(labels[0])
-        self.answer_text.setPos(pert_x, pert_y)
-        self._keep_answer_inside(pert_x)
-        for line, x, text in zip(self.answers, (pert_x, sim_x), labels):
+        self._texts[id(self.answer_text)] = labels[0]
+        self.answer_text.setText(labels[0])          # whole until placed (it may then shorten)
+        self._answer_at = (pert_x, pert_y)
+        for line, label, x, text in zip(self.answers, self.answer_texts, (pert_x, sim_x), labels):
             line.setVisible(x is not None)
+            self._texts[id(label)] = text if x is not None else ""
+            label.setText(self._texts[id(label)])
             if x is not None:
                 line.setValue(x)
-                line.label.setFormat(text)
+        self.place_labels()
 
-    def _keep_answer_inside(self, x: float) -> None:
-        """Put the PERT answer's text on the side of its diamond with room for it; in a
-        plot too narrow for either side, centre it over the diamond."""
-        (lo, hi), _ = self.density.vb.viewRange()
-        width_px = self.density.vb.width()
-        if hi <= lo or width_px <= 0:
+    # --- labels where they cover nothing (figures.label_place) --------------------
+    def place_labels(self) -> None:
+        """Set the labels once the current changes are in (one placement per turn of the
+        event loop, however many setters ran: a marker drag moves several items)."""
+        if not getattr(self, "_placing", False) and hasattr(self, "answer_texts"):
+            self._placing = True
+            QTimer.singleShot(0, self, self.place_labels_now)    # dropped with the plot
+
+    def place_labels_now(self) -> None:
+        """Set every label and legend of both plots where it covers no line, curve or
+        other label; hide what has no room. Also words the y titles to fit."""
+        self._placing = False
+        if not hasattr(self, "answer_texts"):
             return
-        at = (x - lo) / (hi - lo) * width_px            # the diamond, in pixels from the left
-        w = max(self.answer_text.textItem.boundingRect().width(), 1.0)
-        if width_px - at >= 1.15 * w + 4.0:
-            self.answer_text.setAnchor((-0.15, 1.0))    # right of the diamond
-        elif at >= 1.15 * w + 4.0:
-            self.answer_text.setAnchor((1.15, 1.0))     # left of it
-        else:                                           # above it, as far inside as it goes
-            left = min(max(at - w / 2, 0.0), max(width_px - w, 0.0))
-            self.answer_text.setAnchor(((at - left) / w, 1.4))
+        self._fit_titles()
+        self._place_density()
+        self._place_cumulative()
 
-    def _relayout_answer(self) -> None:
-        if self.answer_text.textItem.toPlainText():
-            self._keep_answer_inside(self.answer_text.pos().x())
+    def _fit_titles(self) -> None:
+        # in a narrow plot the density's values (per unit of time) give their room to the dates
+        values = self.density.vb.width() >= NARROW_PLOT_PX
+        axis = self.density.getAxis("left")
+        if axis.style["showValues"] != values:
+            axis.setStyle(showValues=values)
+        # a short chart: the dates once, under the S-curve (both plots share them)
+        dates = self.height() >= SHORT_CHART_PX
+        axis = self.density.getAxis("bottom")
+        if axis.style["showValues"] != dates:
+            axis.setStyle(showValues=dates)
+        for plot, key in ((self.density, "density"), (self.cumulative, "cumulative")):
+            pl.fit_y_title(plot, pl.Y_TITLES[key])
+
+    def _obstacles(self, plot, curves, lines) -> lp.Obstacles:
+        obstacles = lp.Obstacles()
+        pl.curve_obstacles(plot.vb, curves, obstacles)
+        pl.line_obstacles(plot.vb, lines, obstacles)
+        return obstacles
+
+    def _place_density(self) -> None:
+        vb = self.density.vb
+        bounds = pl.scene_rect(vb)
+        obstacles = self._obstacles(self.density, (self.pert_curve, self.hist, self.sim_shade),
+                                    [*self.markers, self.certain])
+        entries = []
+        for text, line in zip(self.marker_texts, self.markers):
+            if line.isVisible() and self._texts.get(id(text)):
+                x = vb.mapViewToScene(pg.Point(line.value(), 0)).x()
+                entries.append((text, self._texts[id(text)],
+                                lambda w, h, x=x: lp.beside_line(x, bounds[1], bounds[3], w, h, left_first=True)))
+        if self._texts.get(id(self.answer_text)):
+            dot = vb.mapViewToScene(pg.Point(*self._answer_at))     # the diamond the PERT answer belongs to
+            obstacles.rects.append((dot.x() - 8, dot.y() - 8, dot.x() + 8, dot.y() + 8))
+            entries.append((self.answer_text, self._texts[id(self.answer_text)],
+                            lambda w, h: lp.around_point(dot.x(), dot.y(), w, h, pad=10.0)
+                            + lp.beside_line(dot.x(), bounds[1], dot.y(), w, h)))
+        taken: list = []
+        pl.place_items(vb, entries, bounds, obstacles, taken)
+        legend = lp.corners(bounds, *pl.legend_size(self.legend))
+        pick = lp.place([legend], bounds, obstacles, taken)[0]
+        pl.put_legend(vb, self.legend, None if pick is None else legend[pick])
+
+    def _place_cumulative(self) -> None:
+        vb = self.cumulative.vb
+        bounds = pl.scene_rect(vb)
+        obstacles = self._obstacles(self.cumulative, (self.pert_cdf, self.ecdf),
+                                    [*self.mirrors, *self.answers, self.level])
+        entries = []
+        for line, text in zip(self.answers, self.answer_texts):
+            if line.isVisible() and self._texts.get(id(text)):
+                x = vb.mapViewToScene(pg.Point(line.value(), 0)).x()
+                entries.append((text, self._texts[id(text)],
+                                lambda w, h, x=x: lp.beside_line(x, bounds[1], bounds[3], w, h)))
+        for text in self.p_labels:
+            point = vb.mapViewToScene(pg.Point(*text.point))
+            obstacles.rects.append((point.x() - 6, point.y() - 6, point.x() + 6, point.y() + 6))
+        for text in sorted(self.p_labels, key=lambda t: P_ORDER.get(t.textItem.toPlainText(), 9)):
+            point = vb.mapViewToScene(pg.Point(*text.point))
+            entries.append((text, text.textItem.toPlainText(),
+                            lambda w, h, p=point: lp.around_point(p.x(), p.y(), w, h)))
+        taken: list = []
+        pl.place_items(vb, entries, bounds, obstacles, taken)
+        legend = lp.corners(bounds, *pl.legend_size(self.cum_legend))
+        legend = [legend[1], legend[2], legend[0], legend[3]]     # top left first: an S-curve starts low
+        pick = lp.place([legend], bounds, obstacles, taken)[0]
+        pl.put_legend(vb, self.cum_legend, None if pick is None else legend[pick])
+        self.legends_shown.emit(self.legend.isVisible() and self.cum_legend.isVisible())
+
+
+P_ORDER = {"P80": 0, "P90": 1, "P50": 2, "P10": 3}     # the target first; P10 last
 
 
 def _thin(x: np.ndarray, y: np.ndarray, most: int = 2000):

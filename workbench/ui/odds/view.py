@@ -8,14 +8,16 @@ All numbers come from ``workbench.core`` (analysis, simulation) through the geom
 from __future__ import annotations
 
 from PySide6.QtCore import QCoreApplication, Qt
-from PySide6.QtWidgets import QHBoxLayout, QScrollArea, QSplitter, QWidget
+from PySide6.QtWidgets import QHBoxLayout, QLabel, QScrollArea, QSplitter, QVBoxLayout, QWidget
 
 from workbench.core import formatting as fm
 from workbench.figures import odds as fo
 from workbench.ui.crew_odds import CrewOddsPanel
+from workbench.figures import style as fstyle
 from workbench.ui.odds.controls import OddsControls
 from workbench.ui.odds.panel import OddsPanel
 from workbench.ui.odds.plot import OddsPlot
+from workbench.ui.odds.plot_labels import shorter
 from workbench.ui.odds.living import record_run, show_trend, status_note
 from workbench.ui import workers
 from workbench.ui.odds.runner import OddsRunner
@@ -26,6 +28,10 @@ from workbench.ui.session import WhenShown, take_simulation
 EMPTY_PLAN = "No activities yet: add some, or open or import a plan, to see the odds of finishing."
 STACK_BELOW_PX = 820        # narrower than this (and tall enough), the panel goes under the curves
 STACK_MIN_HEIGHT_PX = 700
+NARROW_PANEL_PX = 380       # a side panel narrower than this words its table shorter
+KEY = ("<b>&#9473;</b>&nbsp;PERT &nbsp; <span style='color:%s'><b>&#9473;</b></span>&nbsp;Simulation<br>"
+       "<span style='color:%s'>&#9632;</span>&nbsp;PERT&nbsp;answer &nbsp; "
+       "<span style='color:%s'>&#9632;</span>&nbsp;simulation&nbsp;answer") % (fstyle.WORK, fstyle.PROBABILITY, fstyle.CRITICAL)
 
 
 class OddsView(QWidget):
@@ -71,7 +77,7 @@ class OddsView(QWidget):
         self.trend = TrendPlot(self)
         self._trend_slot = lambda: show_trend(self)     # one slot, so a hidden view draws it once
         self.charts = QSplitter(Qt.Vertical)
-        self.charts.addWidget(self.plot)
+        self.charts.addWidget(self._with_key(self.plot))
         self.charts.addWidget(self.trend)
         self.charts.setStretchFactor(0, 3)
         self.charts.setStretchFactor(1, 2)
@@ -86,6 +92,24 @@ class OddsView(QWidget):
         lay = QHBoxLayout(self)
         lay.setContentsMargins(2, 2, 2, 2)
         lay.addWidget(self.splitter)
+
+    def _with_key(self, plot: OddsPlot) -> QWidget:
+        """The curves with a key under them, shown when a plot too small for its legend
+        hides it (the key then says which line is which)."""
+        box = QWidget()
+        lay = QVBoxLayout(box)
+        lay.setContentsMargins(0, 0, 0, 0)
+        lay.setSpacing(0)
+        lay.addWidget(plot, 1)
+        self.key = QLabel(KEY)
+        self.key.setWordWrap(True)
+        self.key.setTextFormat(Qt.RichText)
+        self.key.setAccessibleName("Key to the curves")
+        self.key.setStyleSheet("font-size: 9pt;")
+        self.key.setVisible(False)
+        lay.addWidget(self.key)
+        plot.legends_shown.connect(lambda shown: self.key.setVisible(not shown))
+        return box
 
     def _connect(self) -> None:
         s = self.session
@@ -271,20 +295,23 @@ class OddsView(QWidget):
         a = self.analysis
         rows = [("Chance", f"{100 * fo.pert_probability(a.pert, q):.1f} %", self._sim_percent(q))]
         rows += [(f"{p} date", d_pert, d_sim) for p, d_pert, d_sim in self._answer_dates]
-        heads = ["", "PERT", "Simulation"]
+        narrow = self.panel.width() < NARROW_PANEL_PX     # a small dock: dates without weekday and year
+        heads = ["", "PERT", "Sim." if narrow else "Simulation"]
         crews = self.crews.paired_with(self.result) if self.result is not None and not self.stale else None
         if crews is not None:           # the same run's durations with the crews holding work back
-            heads[2] = "Logic only"
-            heads.append("With the crews")
+            heads[2] = "Logic" if narrow else "Logic only"
+            heads.append("Crews" if narrow else "With the crews")
             extra = [f"{100 * fo.sim_probability(crews, q):.1f} %"]
             extra += [fo.format_date(fo.date_of(a.calendar, fo.sim_offset_at(crews, p)))
                       for p in dict.fromkeys((self.confidence, 0.9))]      # as show_confidence asks
             rows = [row + (x,) for row, x in zip(rows, extra)]
+        if narrow:
+            rows = [(row[0], *(shorter(c) for c in row[1:])) for row in rows]
         cells = "".join("<tr>" + "".join(f"<td>{c}</td>" for c in row) + "</tr>" for row in rows)
         head = "".join(f"<td><u>{h}</u></td>" if h else "<td></td>" for h in heads)
         self.panel.headline.setText(
             f"{status_note(a)}{fo.question_headline(q, a.calendar, a.deadline)}"
-            "<table cellspacing='0' cellpadding='3' style='font-size:12pt'>"
+            f"<table cellspacing='0' cellpadding='{2 if narrow else 3}' style='font-size:{10 if narrow else 12}pt'>"
             f"<tr>{head}</tr>{cells}</table>")
 
     def _sim_percent(self, q) -> str:
@@ -367,6 +394,10 @@ class OddsView(QWidget):
             least = 300 if stacked else (220 if narrow else 400)
             side = max(least, min(600, int((0.45 if stacked or narrow else 0.3) * length)))
             self.splitter.setSizes([max(1, length - side), side])
+        narrow = self.panel.width() < NARROW_PANEL_PX
+        if narrow != getattr(self, "_narrow", None) and self.analysis is not None and self.dates[0] is not None:
+            self._narrow = narrow
+            self.update_question()          # the headline worded for the panel's width
 
     def _on_run_cancelled(self) -> None:
         self.controls.set_done(False)

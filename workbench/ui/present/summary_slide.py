@@ -2,38 +2,41 @@
 
 from __future__ import annotations
 
+from dataclasses import replace
+
 from PySide6.QtCore import QRectF, Qt
 from PySide6.QtGui import QColor, QFont, QPainter, QPen
 from PySide6.QtWidgets import QWidget
 
 from workbench.figures import style
-from workbench.reports.summary import deadline_text, pert_probability, simulated_probability
-from workbench.reports.text import format_date
+from workbench.figures.headline import CAUTION, headline
+from workbench.reports.summary import deadline_text
 
 from workbench.ui.present.chart_slide import session_context
+from workbench.ui.session import take_simulation
 
 PATH_JOIN = " \u2013 "
+STALE_COLOUR = "#8A3B00"   # the summary strip's colour for an out-of-date simulation
 PATH_NAMED = 6        # critical-path steps shown with their names on the slide
 
 
-def summary_lines(ctx) -> list[tuple[str, str, str]]:
-    """(label, value, role) rows; role picks the colour of the value."""
-    a, sim = ctx.analysis, ctx.simulation
-    target = ctx.settings.target_confidence
-    rows = [("Finish on expected durations", format_date(a.finish_date), "text"),
-            ("Deadline", deadline_text(ctx), "deadline"),
-            ("Chance of finishing by the deadline (PERT)", pert_probability(ctx), "probability"),
-            ("Chance by the deadline (simulation)", _rounded(simulated_probability(ctx)), "probability"),
-            (f"Date we reach with {target * 100:.0f} % confidence (PERT)", format_date(a.date_at(target)), "text")]
-    if sim is not None:
-        rows.append((f"Date at {target * 100:.0f} % (simulation)", format_date(ctx.date_of(sim.percentile(target * 100))), "text"))
+def summary_lines(ctx, stale: bool = False) -> list[tuple[str, str, str]]:
+    """(label, value, role) rows; role picks the colour and size of the value.
+
+    Worded by ``workbench.figures.headline`` as the summary strip and the pack cover are:
+    a current simulation leads with PERT beside it (role "beside"), a stale one is named
+    in the note. ``ctx.simulation`` is the latest run shown, ``stale`` True when the plan
+    changed after it ran."""
+    head = headline(ctx.analysis, ctx.simulation, stale)
+    rows = []
+    for figure in head.figures():
+        rows.append((figure.caption, figure.value, "probability" if figure is head.odds else "text"))
+        if figure.beside:
+            rows.append(("", figure.beside, "beside"))
+    rows.append(("Deadline", deadline_text(ctx), "deadline"))
     rows.append(("Critical path", critical_path_text(ctx), "critical"))
+    rows.append(("", head.note, "stale" if head.stale else "note"))
     return rows
-
-
-def _rounded(text: str) -> str:
-    """A room needs the figure, not the simulation's error margin ("43.7 %", not "43.7 % (± 0.5 points)")."""
-    return text.split(" (\u00b1", 1)[0]
 
 
 def critical_path_text(ctx, named: int = PATH_NAMED) -> str:
@@ -63,30 +66,58 @@ def draw_wrapped(p: QPainter, box: QRectF, text: str, px: float, bold: bool = Fa
     return used.height()
 
 
+# value size in pixels at 768 px height, and colour, per row role
+ROLE_LOOK = {"text": (30, style.TEXT), "probability": (30, style.TEXT), "deadline": (30, style.DEADLINE),
+             "critical": (22, style.CRITICAL), "beside": (19, style.MUTED_TEXT),
+             "note": (17, style.MUTED_TEXT), "stale": (19, STALE_COLOUR)}
+
+
 class PresentSummarySlide(QWidget):
+    """The headline in large type: keeps the last simulation (marked stale after an
+    edit) as the summary strip does, so the slide and the strip say the same."""
+
+    present_caution = CAUTION       # odds are on this slide: the window shows the caution under it
+
     def __init__(self, session, parent=None):
         super().__init__(parent)
         self.session = session
+        self.result, self.stale = session.simulation, False
+        self.plan_generation = session.plan_generation
         session.schedule_changed.connect(self.update)
-        session.simulation_changed.connect(self.update)
+        session.simulation_changed.connect(self._on_simulation_changed)
+
+    def _on_simulation_changed(self) -> None:
+        take_simulation(self)
+        self.update()
+
+    def context(self):
+        """The pack context the slide reads, carrying the run it shows (None while unschedulable)."""
+        ctx = session_context(self.session)
+        return None if ctx is None else replace(ctx, simulation=self.result)
+
+    def lines(self) -> list[tuple[str, str, str]]:
+        ctx = self.context()
+        return [] if ctx is None else summary_lines(ctx, self.stale)
 
     def paintEvent(self, event):  # noqa: N802 (Qt override)
         p = QPainter(self)
         p.setRenderHint(QPainter.RenderHint.Antialiasing, True)
         p.fillRect(self.rect(), QColor(style.BACKGROUND))
-        ctx = session_context(self.session)
+        ctx = self.context()
         unit = max(1.0, self.height() / 768.0)
         if ctx is None:
             self._text(p, QRectF(self.rect()), f"The plan cannot be scheduled yet: {self.session.analysis_error}", 30 * unit)
             return
-        y = 20 * unit
-        y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 60 * unit), ctx.settings.title, 40 * unit, True)
-        for label, value, role in summary_lines(ctx):
-            y += 10 * unit
-            y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 30 * unit), label, 20 * unit, False, style.MUTED_TEXT)
-            colour = {"deadline": style.DEADLINE, "critical": style.CRITICAL}.get(role, style.TEXT)
-            size = 22 if role == "critical" else 30       # the path's names wrap: a size smaller
-            y += self._text(p, QRectF(40 * unit, y, self.width() - 80 * unit, 80 * unit), value, size * unit, True, colour)
+        y = 16 * unit
+        width = self.width() - 80 * unit
+        y += self._text(p, QRectF(40 * unit, y, width, 60 * unit), ctx.settings.title, 36 * unit, True)
+        for label, value, role in summary_lines(ctx, self.stale):
+            size, colour = ROLE_LOOK[role]
+            y += (2 if role == "beside" else 8) * unit
+            if label:
+                y += self._text(p, QRectF(40 * unit, y, width, 30 * unit), label, 18 * unit, False, style.MUTED_TEXT)
+            bold = role not in ("beside", "note")
+            y += self._text(p, QRectF(40 * unit, y, width, 80 * unit), value, size * unit, bold, colour)
         p.end()
 
     _text = staticmethod(draw_wrapped)

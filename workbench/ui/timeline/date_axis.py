@@ -25,12 +25,25 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         self._labels: dict[float, str] = {}
         self._laid_out: dict[str, tuple[float, QStaticText]] = {}
         self._laid_out_key = None
+        self._fitted_key, self._fitted = None, []
         self.setStyle(tickLength=5, autoExpandTextSpace=True, hideOverlappingLabels=False)
 
     def set_calendar(self, calendar) -> None:
         self._calendar = calendar
         self.picture = None
         self.update()
+
+    def _fitted_ticks(self, lo: float, hi: float, width: float, font: QFont, laid_out: dict, metrics) -> list:
+        """``fitted_date_ticks`` for this range, width and font, kept while they and the
+        calendar's working days stay the same (an edit makes a new calendar of the same
+        days: its ticks are those already chosen; a zoom or pan chooses again)."""
+        cal = self._calendar
+        key = (lo, hi, width, font.key(), str(cal.first_day), cal.weekmask, cal.per_unit,
+               cal.holidays.size, cal.holidays.tobytes())
+        if key != self._fitted_key:
+            self._fitted = fitted_date_ticks(cal, lo, hi, width, self._measure(laid_out, font, metrics))
+            self._fitted_key = key
+        return self._fitted
 
     def cache_content(self):
         return None if self._calendar is None else id(self._calendar)
@@ -43,7 +56,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
             return super().tickValues(minVal, maxVal, size)
         font = self._font()
         laid_out, metrics = self._laid_out_for(font), QFontMetricsF(font)
-        ticks = fitted_date_ticks(self._calendar, minVal, maxVal, size, self._measure(laid_out, font, metrics))
+        ticks = self._fitted_ticks(minVal, maxVal, size, font, laid_out, metrics)
         self._labels = {round(o, 6): text for o, text in ticks}
         return [(1.0, [o for o, _ in ticks])]
 
@@ -67,7 +80,7 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
             return None
         font = self._font()
         metrics, laid_out = QFontMetricsF(font), self._laid_out_for(font)
-        ticks = fitted_date_ticks(self._calendar, lo, hi, bounds.width(), self._measure(laid_out, font, metrics))
+        ticks = self._fitted_ticks(lo, hi, bounds.width(), font, laid_out, metrics)
         offsets = np.array([o for o, _ in ticks], float)
         xs = bounds.left() + (offsets - lo) / (hi - lo) * bounds.width()
         need = int(np.ceil(metrics.height()))

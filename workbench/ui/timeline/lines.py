@@ -73,6 +73,9 @@ class TimelineLines:
                                           "anchors": [anchor, anchor]})
         line.label.setFont(font)
         line.setZValue(LABEL_Z)
+        for item in (line, line.label):     # labels show dates; clicks and drags reach the bars under them
+            item.setAcceptedMouseButtons(Qt.MouseButton.NoButton)
+            item.setAcceptHoverEvents(False)
         for item in (stroke, line):
             self.plot.addItem(item, ignoreBounds=True)
         self.lines[name], self.strokes[name] = line, stroke
@@ -88,7 +91,8 @@ class TimelineLines:
         """Set each label on a header line and a side of its line where it covers no label
         placed before it (in the order start, status, deadline, P10, P90) and stays inside
         the view: its own place first, then the other side, then the other header lines
-        (as many as the band above the first row holds, at least two)."""
+        (as many as the band above the first row holds, at least two). A label with no
+        free place is hidden until there is room (zoomed far out): never drawn on another."""
         vb = self.plot.getViewBox()
         box = vb.sceneBoundingRect()
         header = vb.mapViewToScene(QPointF(0, -0.5)).y() - box.top()
@@ -102,10 +106,11 @@ class TimelineLines:
             order = [band] + [b for b in range(bands) if b != band]
             tries = [(b, side) for b in order for side in (anchor[0], 1.0 - anchor[0])]
             spans = [(b, x - side * rect.width(), x + (1 - side) * rect.width()) for b, side in tries]
-            free = [k for k, (b, lo, hi) in enumerate(spans) if hi <= box.right()
-                    and not any(b == b2 and lo < hi2 + 4 and lo2 - 4 < hi for b2, lo2, hi2 in taken)]
-            k = free[0] if free else 0
-            taken.append(spans[k])
+            k = min(range(len(spans)), key=lambda j: (_cost(spans[j], taken, box), j))
+            # no free place (zoomed far out): the line stays, its label waits for room
+            line.label.setVisible(_cost(spans[k], taken, box) == 0.0 or not taken)
+            if line.label.isVisible():
+                taken.append(spans[k])
             line.label.anchors = [(tries[k][1], 0.0)] * 2
             line.label.setPosition(self._position(tries[k][0], rect.height()))
 
@@ -117,6 +122,15 @@ class TimelineLines:
         self.band.setRegion(whisker)
         if self.band.scene() is None:
             self.plot.addItem(self.band, ignoreBounds=True)
+
+
+def _cost(span, taken, box) -> float:
+    """Pixels of a label span (header line, left, right) over other labels on its line or
+    outside the view: 0 for a free place."""
+    b, lo, hi = span
+    out = max(0.0, box.left() - lo) + max(0.0, hi - box.right())
+    over = sum(max(0.0, min(hi, hi2 + 4) - max(lo, lo2 - 4)) for b2, lo2, hi2 in taken if b2 == b)
+    return 10.0 * out + over
 
 
 def label_text(calendar, name: str, offset: float) -> str:

@@ -39,6 +39,7 @@ def present_key(view, key) -> bool:
 
 def stack_finish_labels(view) -> None:
     """Set the line labels in the header band above the first row, apart from each other
-    (see ``TimelineLines.place_labels``): the P10 / P90 lines often fall close together."""
-    if "p10" in view._lines and "p90" in view._lines:
+    (see ``TimelineLines.place_labels``): start and deadline, and the P10 / P90 lines that
+    often fall close together. Called whenever the lines or the visible range change."""
+    if view._lines:
         view.reference.place_labels(view._font())

@@ -1,8 +1,9 @@
 """The Timeline's label column: activity ids and names, left-aligned and elided.
 
-Replaces the numeric left axis: one label per visible row (thinned out when the rows
-are shorter than the text), group rows marked with an open/closed triangle and their
-members indented.
+Replaces the numeric left axis: one label per visible row, group rows marked with an
+open/closed triangle and their members indented. Rows shorter than the label type get
+smaller type (down to ``FLOOR_PX``) so that every row in view keeps its label; only rows
+shorter than even that share labels with their neighbours.
 """
 
 from __future__ import annotations
@@ -24,6 +25,7 @@ PADDING = 6.0
 LABEL_CACHE = 4000     # cut labels kept (a few screens' worth)
 LINE_SHARE = 1.05      # a row shorter than this many text lines shares a label with its neighbours
 LEGIBLE_GAP_PX = 3.0   # air between labels at the legible row pitch
+FLOOR_PX = 8           # rows shorter than the label type get smaller type, down to this size
 
 
 def legible_pitch(font: QFont) -> float:
@@ -68,6 +70,19 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         frac = (rows - r0) / (r1 - r0) if r1 != r0 else np.zeros(len(rows))
         return bounds.bottom() - frac * bounds.height()
 
+    def row_font(self, bounds: QRectF) -> QFont:
+        """The label type for the rows in view: the axis's own when rows are tall enough
+        for it, else smaller, in whole pixels, but not below ``FLOOR_PX``."""
+        font = QFont(self.style.get("tickFont") or QFont())
+        lo, hi = sorted(self.range)
+        row_px = bounds.height() / max(hi - lo, 1e-9)
+        line = QFontMetricsF(font).height() * LINE_SHARE
+        if row_px >= line:
+            return font
+        size = font.pixelSize() if font.pixelSize() > 0 else font.pointSizeF() * 96.0 / 72.0
+        font.setPixelSize(max(FLOOR_PX, int(size * row_px / line)))
+        return font
+
     def visible_rows(self, bounds: QRectF, font_px: float) -> range:
         lo, hi = sorted(self.range)
         row_px = bounds.height() / max(hi - lo, 1e-9)
@@ -80,38 +95,57 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         """Axis line, tick heights and the labels on screen (a :class:`RowLabels`)."""
         if self._geo is None:
             return super().generateDrawSpecs(p)
-        font = self.style.get("tickFont") or QFont()
-        h = QFontMetricsF(font).height()
         bounds = self.mapRectFromParent(self.geometry())
+        font = self.row_font(bounds)
+        h = QFontMetricsF(font).height()
         axis = (QPen(self.pen()), QPointF(bounds.right(), bounds.top()), QPointF(bounds.right(), bounds.bottom()))
         shown = self.visible_rows(bounds, h)
         rows = np.arange(shown.start, shown.stop, shown.step)
         ys = self._rows_to_local(bounds, rows)
         keep = (ys >= bounds.top() - h / 2) & (ys <= bounds.bottom() + h / 2)
         rows, ys = rows[keep], ys[keep]
-        return axis, (bounds.right(), ys), RowLabels(self, bounds, rows, ys, math.ceil(h))
+        labels = RowLabels(self, bounds, rows, ys, math.ceil(h), font)
+        labels.step = shown.step
+        return axis, (bounds.right(), ys), labels
+
+    def thinning_note(self, step: int) -> str:
+        """Said at the top of the column when rows share labels (never dropped silently)."""
+        return "" if step <= 1 else f"Rows too short: 1 label in {step} rows (zoom in)"
+
+    def _draw_note(self, p, labels: "RowLabels") -> None:
+        note = self.thinning_note(labels.step)
+        if not note:
+            return
+        font = QFont(labels.font)
+        font.setItalic(True)
+        p.setFont(font)
+        room = labels.bounds.adjusted(PADDING, 2, -PADDING, 0)
+        p.drawText(QRectF(room.left(), room.top(), room.width(), labels.line * 2.2),
+                   int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop | Qt.TextFlag.TextWordWrap), note)
 
     def shown_labels(self) -> list[str]:
         """The label texts as they are drawn now (cut to the column), top to bottom."""
         return [] if self._geo is None else [spec[4] for spec in self.generateDrawSpecs(None)[2].specs()]
 
-    def _label(self, text: str, width: int, bold: bool) -> str:
-        """The label cut to ``width`` (kept across repaints and zooms)."""
-        key = (text, width, bold)
+    def _label(self, text: str, width: int, bold: bool, font: QFont | None = None) -> str:
+        """The label cut to ``width`` in ``font`` (kept across repaints and zooms)."""
+        size = None if font is None else font.pixelSize()
+        key = (text, width, bold, size)
         cut = self._cut.get(key)
         if cut is None:
             if len(self._cut) >= LABEL_CACHE:
                 self._cut.clear()
-            cut = self._cut[key] = self._metrics(bold).elidedText(text, Qt.TextElideMode.ElideRight, width)
+            cut = self._cut[key] = self._metrics(bold, font).elidedText(text, Qt.TextElideMode.ElideRight, width)
         return cut
 
-    def _metrics(self, bold: bool) -> QFontMetricsF:
-        """Metrics of the label type, plain or bold (made once per type)."""
-        found = self._metrics_of.get(bold)
+    def _metrics(self, bold: bool, font: QFont | None = None) -> QFontMetricsF:
+        """Metrics of the label type, plain or bold (made once per type and size)."""
+        key = (bold, None if font is None else font.pixelSize())
+        found = self._metrics_of.get(key)
         if found is None:
-            font = QFont(self.style.get("tickFont") or QFont())
+            font = QFont(font or self.style.get("tickFont") or QFont())
             font.setBold(bold)
-            found = self._metrics_of[bold] = QFontMetricsF(font)
+            found = self._metrics_of[key] = QFontMetricsF(font)
         return found
 
     def _stamp(self, p, font: QFont, labels: "RowLabels", colour: QColor, column: float) -> bool:
@@ -178,7 +212,8 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         text_pen, room = self.textPen(), self.boundingRect()
         p.setPen(text_pen)
         p.setClipRect(room.toAlignedRect())
-        font = QFont(self.style.get("tickFont") or QFont())
+        font = QFont(textSpecs.font)
+        self._draw_note(p, textSpecs)
         if isinstance(p.device(), RASTER) and self._stamp(p, font, textSpecs, text_pen.color(), room.width()):
             return
         bold = QFont(font)                  # paper, PDF and SVG: plain vector text
@@ -193,8 +228,10 @@ class RowLabels:
     """The labels of the rows on screen: ``rows`` and their centres ``ys`` (axis
     coordinates); ``specs()`` lays each out as ``(x, top, width, height, text, bold)``."""
 
-    def __init__(self, axis: TimelineRowAxis, bounds: QRectF, rows: np.ndarray, ys: np.ndarray, line: int):
-        self.axis, self.bounds, self.rows, self.ys, self.line = axis, bounds, rows, ys, line
+    def __init__(self, axis: TimelineRowAxis, bounds: QRectF, rows: np.ndarray, ys: np.ndarray, line: int,
+                 font: QFont):
+        self.axis, self.bounds, self.rows, self.ys, self.line, self.font = axis, bounds, rows, ys, line, font
+        self.step = 1        # 1: every row in view has its label; n: one in n (rows too short)
 
     def specs(self) -> list[tuple]:
         geo, texts = self.axis._geo, []
@@ -202,7 +239,7 @@ class RowLabels:
             indent = INDENT * int(geo.depth[row])
             width = int(self.bounds.width() - 2 * PADDING - indent)
             bold = geo.kinds[row] == "group"
-            text = self.axis._label(self.axis.label_text(row), width, bold)
+            text = self.axis._label(self.axis.label_text(row), width, bold, self.font)
             texts.append((round(self.bounds.left() + PADDING + indent), round(y - self.line / 2),
                           width, self.line, text, bold))
         return texts

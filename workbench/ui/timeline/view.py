@@ -79,6 +79,7 @@ class TimelineView(QWidget):
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
         self.view_box.sigResized.connect(lambda *_: stack_finish_labels(self))   # labels apart again
+        self.view_box.sigXRangeChanged.connect(lambda *_: stack_finish_labels(self))
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
         pi.addItem(self._message, ignoreBounds=True)
@@ -306,18 +307,21 @@ class TimelineView(QWidget):
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
         height = max(self.view_box.height(), 200.0)
-        header_px = max(HEADER_PX, 4.0 * self._font().pixelSize())    # two lines of line labels
+        # lines of labels: start and deadline; status; P10 and P90 apart
+        lines = 2 + (geo.finish_whisker is not None) + ("status" in self._lines)
+        header_px = max(HEADER_PX, lines * (2.0 * self._font().pixelSize() + 1.5))   # a label is ~2 px high
         n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
         header = header_px * n / max(height - header_px, 1.0)
+        self.view_box.setLimits(yMin=min(self.view_box.state["limits"]["yLimits"][0], -0.5 - header))
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
         stack_finish_labels(self)
 
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
         """How many rows (from the top) a fit shows in ``room_px`` pixels."""
+        if every_row:            # Present mode, or asked for: every row, also on a refit after a resize
+            return n
         if rows_to_fit:
             return min(n, max(5, int(room_px / self._weights.row_height)))
-        if every_row:
-            return n
         return min(n, max(1, int(room_px / self.legible_row_pitch() - 0.1)))
 
     def legible_row_pitch(self) -> float:
