@@ -19,6 +19,12 @@ LEFT = 40.0
 S_CURVE_POINTS = 501
 
 
+def deadline_text(ctx) -> str:
+    """The deadline's legend entry with its date: the line sits at the end of that day, which
+    is where the next working day's tick begins, so the date is said rather than left to the axis."""
+    return f"Deadline: end of {format_date(ctx.date_of(ctx.deadline()))}"
+
+
 def _fill_swatch(colour):
     def draw(c, x, y, w, h):
         c.saveState()
@@ -106,7 +112,7 @@ class OddsPainter:
             items += [("Simulated finishes", _fill_swatch(styles.FLOAT_TINT)),
                       ("Simulated P50/P80/P90", mk.line_swatch(styles.TEXT, 0.8, (1.5, 1.5)))]
         if self.ctx.deadline() is not None:
-            items.append(("Deadline", mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))
+            items.append((deadline_text(self.ctx), mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))
         return items
 
 
@@ -132,7 +138,8 @@ class SCurvePainter:
         items = [("PERT (one path)", mk.line_swatch(styles.TEXT, 1.2))]
         if sim is not None:
             items.append((f"Simulation ({sim.iterations:,} runs)", mk.line_swatch(styles.WORK, 2.2)))
-        items.append(("Deadline" if self.ctx.deadline() is not None else "Target date", mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))
+        items.append((deadline_text(self.ctx) if self.ctx.deadline() is not None else "Target date",
+                      mk.line_swatch(styles.DEADLINE, 1.8, (5, 2))))
         mk.legend(c, 0, 2, items)
 
     def _guides(self, ax: Axes) -> None:
