@@ -218,3 +218,36 @@ def settle(timeout: float) -> list[str]:
     for thread in list(_threads):
         thread.join(max(0.0, deadline - time.monotonic()))
     return sorted(t.name for t in _threads if t.is_alive())
+
+
+class OneJobAtATime:
+    """For a runner (a QObject) that keeps one job at a time: ``_job`` is the run whose
+    reports come through, ``_last`` the run started last (for :meth:`wait`)."""
+
+    _job: Job | None = None
+    _last: Job | None = None
+
+    @property
+    def running(self) -> bool:
+        return self._job is not None
+
+    def _begin(self, job: Job) -> None:
+        self._job = self._last = job
+
+    def stop(self) -> None:
+        """Ask the current run to stop; what it reports (a cancellation) still comes."""
+        if self._job is not None:
+            self._job.stop()
+
+    def abandon(self) -> bool:
+        """Stop the current run and drop whatever it still reports (its view is closing);
+        True when there was one."""
+        if self._job is None:
+            return False
+        self._job.abandon()
+        self._job = None
+        return True
+
+    def wait(self, msecs: int = 30_000) -> bool:
+        """Wait at most ``msecs`` for the run started last to end; True when none runs."""
+        return self._last is None or self._last.wait(msecs / 1000)

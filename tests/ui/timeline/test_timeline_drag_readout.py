@@ -12,6 +12,7 @@ from workbench.core import Activity, Link, Plan, Settings
 from workbench.core.formatting import format_date
 from workbench.ui.session import Session
 from workbench.ui.timeline.view import TimelineView
+from support.timeline import bar_of
 
 
 def plan(unit="days"):
@@ -36,14 +37,7 @@ def view(qtbot):
 
 
 def bar_end(view, act_id):
-    geo = view.geometry
-    row = geo.row_of[act_id]
-    for kind in ("critical", "work"):
-        m = geo.marks[kind]
-        hit = np.flatnonzero(m.rows == row)
-        if hit.size:
-            return row, float(m.x0[hit[0]]), float(m.x1[hit[0]])
-    raise AssertionError(act_id)
+    return bar_of(view, act_id)[1:]
 
 
 def px(view, x, row) -> QPoint:

@@ -15,6 +15,7 @@ from workbench.figures.timeline import dragged_estimate
 from workbench.ui.session import Session
 from workbench.ui.timeline.output import export_pdf, export_svg, render_image
 from workbench.ui.timeline.view import TimelineView
+from support.timeline import bar_of
 
 
 def small_plan(deadline=None):
@@ -65,14 +66,7 @@ def near(image, point: QPoint, colour: str, radius: int = 2) -> bool:
 
 
 def bar(view, act_id):
-    geo = view.geometry
-    row = geo.row_of[act_id]
-    for kind in ("critical", "work"):
-        m = geo.marks[kind]
-        hit = np.flatnonzero(m.rows == row)
-        if hit.size:
-            return kind, row, float(m.x0[hit[0]]), float(m.x1[hit[0]])
-    raise AssertionError(f"{act_id} has no bar")
+    return bar_of(view, act_id)
 
 
 def test_critical_and_work_bars_have_their_colours(view):

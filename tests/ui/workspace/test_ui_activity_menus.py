@@ -3,12 +3,12 @@ change the plan (one undo step) or move the selection like the table's row menu.
 
 import datetime as dt
 
-import numpy as np
 import pytest
 from PySide6.QtCore import QPoint, QPointF, QRectF, Qt
 from PySide6.QtTest import QTest
 
 from workbench.core.model import Link
+from support.timeline import bar_of
 
 
 @pytest.fixture
@@ -35,16 +35,9 @@ def network(window, qtbot):
 
 
 def bar_point(view, act_id) -> QPoint:
-    geo = view.geometry
-    row = geo.row_of[act_id]
-    for kind in ("critical", "work"):
-        m = geo.marks[kind]
-        hit = np.flatnonzero(m.rows == row)
-        if hit.size:
-            x = (float(m.x0[hit[0]]) * 0.7 + float(m.x1[hit[0]]) * 0.3)
-            p = view.item.deviceTransform_().map(QPointF(x, row))
-            return QPoint(round(p.x()), round(p.y()))
-    raise AssertionError(act_id)
+    _, row, x0, x1 = bar_of(view, act_id)
+    p = view.item.deviceTransform_().map(QPointF(x0 * 0.7 + x1 * 0.3, row))
+    return QPoint(round(p.x()), round(p.y()))
 
 
 def box_point(view, act_id) -> QPoint:

@@ -19,7 +19,7 @@ def simulate_copy(plan, iterations: int, seed, progress, cancel):
     return simulate(plan, iterations=iterations, seed=seed, progress=progress, cancel=cancel)
 
 
-class OddsRunner(QObject):
+class OddsRunner(workers.OneJobAtATime, QObject):
     """Starts one simulation at a time; re-emits the current run's signals only."""
 
     progress = Signal(int, int)
@@ -29,40 +29,24 @@ class OddsRunner(QObject):
     running_changed = Signal(bool)
 
     def __init__(self, parent: QObject | None = None):
-        super().__init__(parent)
-        self._job: workers.Job | None = None     # the run whose reports come through
-        self._last: workers.Job | None = None    # the run started last (for wait)
-
-    @property
-    def running(self) -> bool:
-        return self._job is not None
+        QObject.__init__(self, parent)
 
     def start(self, plan, iterations: int, seed: int | None) -> None:
         """Simulate a copy of ``plan``; a run still going is abandoned (it stops, and
         nothing it reports comes through)."""
         if self._job is not None:
             self._job.abandon()
-        self._job = workers.start(simulate_copy, plan.copy(), int(iterations), seed, cancellable=True,
+        self._begin(workers.start(simulate_copy, plan.copy(), int(iterations), seed, cancellable=True,
                                   on_done=self._on_finished, on_failed=self._on_failed,
-                                  on_progress=self._on_progress, name="slackline-odds")
-        self._last = self._job
+                                  on_progress=self._on_progress, name="slackline-odds"))
         self.running_changed.emit(True)
 
-    def stop(self) -> None:
-        """Ask the current run to stop; it reports ``cancelled`` and leaves no result."""
-        if self._job is not None:
-            self._job.stop()
-
-    def abandon(self) -> None:
+    def abandon(self) -> bool:
         """Stop the current run and drop whatever it still reports (the view is closing)."""
-        if self._job is not None:
-            self._job.abandon()
-            self._job = None
-            self.running_changed.emit(False)
-
-    def wait(self, msecs: int = 30_000) -> bool:
-        """Wait at most ``msecs`` for the current run to end; True when none runs."""
-        return self._last is None or self._last.wait(msecs / 1000)
+        if not super().abandon():
+            return False
+        self.running_changed.emit(False)
+        return True
 
     def _end(self) -> bool:
         """The current run has ended; True when it was asked to stop."""

@@ -14,7 +14,7 @@ def tradeoff_copy(plan, progress, cancel, **kwargs):
     return tradeoff(plan, progress=progress, cancel=cancel, **kwargs)
 
 
-class TradeoffRunner(QObject):
+class TradeoffRunner(workers.OneJobAtATime, QObject):
     """One run at a time; only the latest run's signals come through. A cancelled run
     reports ``failed("")``."""
 
@@ -23,35 +23,14 @@ class TradeoffRunner(QObject):
     failed = Signal(str)
 
     def __init__(self, parent=None):
-        super().__init__(parent)
-        self._job: workers.Job | None = None     # the run whose reports come through
-        self._last: workers.Job | None = None    # the run started last (for wait)
-
-    @property
-    def running(self) -> bool:
-        return self._job is not None
+        QObject.__init__(self, parent)
 
     def start(self, plan, **kwargs) -> None:
         """Trade off a copy of ``plan``; a run still going is abandoned."""
         self.abandon()
-        self._job = workers.start(tradeoff_copy, plan.copy(), cancellable=True, on_done=self._done,
+        self._begin(workers.start(tradeoff_copy, plan.copy(), cancellable=True, on_done=self._done,
                                   on_failed=self._fail, on_progress=self._progress, name="slackline-tradeoff",
-                                  **kwargs)
-        self._last = self._job
-
-    def stop(self) -> None:
-        if self._job is not None:
-            self._job.stop()
-
-    def abandon(self) -> None:
-        """Stop the current run and drop whatever it still reports (the view is closing)."""
-        if self._job is not None:
-            self._job.abandon()
-            self._job = None
-
-    def wait(self, msecs: int = 30_000) -> bool:
-        """Wait at most ``msecs`` for the current run to end; True when none runs."""
-        return self._last is None or self._last.wait(msecs / 1000)
+                                  **kwargs))
 
     def _progress(self, done, total) -> None:
         self.progress.emit(int(done), int(total))
