@@ -123,7 +123,7 @@ def _simulate(plan, iterations, seed, report):
         raise PlanError(f"seed must be a whole number of at least 0, not {seed!r}", "seed")
     from workbench.core.montecarlo import simulate
 
-    seed = secrets.randbelow(2**31) if seed is None else seed
+    # seed None: the simulation draws one of at most six digits, to read aloud and retype
     return simulate(plan, iterations=iterations, seed=seed,
                     progress=lambda done, total: report(70 * done / max(total, 1)))
 
