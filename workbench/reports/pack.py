@@ -101,7 +101,7 @@ def story(ctx: PackContext, report) -> list:
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     parts += tradeoff_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(80)
-    parts += new_page(PORTRAIT) + activity_table(ctx, portrait_w)
+    parts += new_page(LANDSCAPE) + activity_table(ctx, frame_size(ctx.paper, LANDSCAPE)[0])   # room for whole dates
     parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)
     parts += (new_page(PORTRAIT) + full_path(ctx, portrait_w)) if is_long(ctx) else []
     report(85)
