@@ -11,7 +11,9 @@ from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QProgressBar, QPu
 from workbench.core.buy_time import BuyTimeCommand
 from workbench.core.calendar import WorkCalendar
 from workbench.core.crash_problem import has_cost_data
+from workbench.core.formatting import format_day_month, format_number, format_percent
 from workbench.figures import tradeoff as ftr
+from workbench.ui.date_axis import DateAxis
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.tradeoff.cost_settings import CostSettings
 from workbench.ui import workers
@@ -23,19 +25,6 @@ FINISH_WAIT_MS = 120_000   # finish_work (screenshots, scripts) waits this long 
 NO_COSTS = ("No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can "
             "be shortened: in the Activities table (right-click a heading to show the Cost, Crash cost and crash "
             "estimate columns) or in a spreadsheet.")
-
-
-class DateAxis(pg.AxisItem):
-    """Plan offsets labelled with the calendar dates they finish on."""
-
-    def __init__(self, **kw):
-        super().__init__("bottom", **kw)
-        self.calendar = None
-
-    def tickStrings(self, values, scale, spacing):  # noqa: N802 (Qt override)
-        if self.calendar is None:
-            return [f"{v:g}" for v in values]
-        return [self.calendar.finish_date(max(v, 0.0)).strftime("%d %b %Y") for v in values]
 
 
 class MoneyAxis(pg.AxisItem):
@@ -267,7 +256,7 @@ class TradeoffView(QWidget):
         if self.result is None:
             self.table.setRowCount(0)
             return
-        self.axis.calendar = WorkCalendar(self.session.plan.settings)
+        self.axis.set_calendar(WorkCalendar(self.session.plan.settings))
         self._draw_curve(ftr.curve_lines(self.result))
         self._draw_chances(ftr.chance_points(self.result))
         self._list_options()
@@ -280,7 +269,7 @@ class TradeoffView(QWidget):
             p.plot(lines.durations, ys, pen=style, symbol="o", symbolSize=6, symbolBrush=colour, name=name)
         x, y = lines.optimum
         p.plot([x], [y], pen=None, symbol="star", symbolSize=22, symbolBrush=ftr.OPTIMUM, name="least total cost")
-        when = self.axis.calendar.finish_date(x).strftime("%d %b")
+        when = format_day_month(self.axis.calendar.finish_date(x))
         label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(0.5, 1.3))
         label.setFont(_font(11))
         label.setPos(x, y)
@@ -349,7 +338,8 @@ class TradeoffView(QWidget):
             cells = [act_id, plan.activity(act_id).name, f"{x:.2f}", f"{slope[act_id] * x:,.0f}"]
             for col, text in enumerate(cells):
                 self.table.setItem(row, col, QTableWidgetItem(text))
-        odds = "" if chance is None else f"; chance {chance:.1%} \u00b1 {se:.1%} (fresh simulation)"
+        odds = "" if chance is None else (f"; chance {format_percent(chance)} \u00b1 {format_number(se * 100)} points"
+                                          " (fresh simulation)")
         nothing = "" if crashed else " Nothing to buy: the mean schedule already meets this."
         self.summary.setText(f"{extra:,.0f} extra{odds}.{nothing}")
         self.apply.setEnabled(bool(crashed))
