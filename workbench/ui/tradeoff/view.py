@@ -92,6 +92,14 @@ def _label_anchor(x: float, textbook: bool) -> tuple[float, float]:
     return (1.05, 1.1) if x > 55 else (-0.05, 1.1)
 
 
+def _along(x: float, lines) -> float:
+    """How far ``x`` lies across the curve's span, 0 to 1: the optimum's label is anchored
+    there, so at either end of the curve it stays inside the chart."""
+    xs = [float(v) for v in lines.durations] + ([] if lines.deadline is None else [float(lines.deadline)])
+    lo, hi = min(xs, default=x), max(xs, default=x)
+    return 0.5 if hi <= lo else min(max((x - lo) / (hi - lo), 0.0), 1.0)
+
+
 def _font(size: int):
     font = pg.QtGui.QFont()
     font.setPointSize(size)
@@ -270,7 +278,7 @@ class TradeoffView(QWidget):
         x, y = lines.optimum
         p.plot([x], [y], pen=None, symbol="star", symbolSize=22, symbolBrush=ftr.OPTIMUM, name="least total cost")
         when = format_day_month(self.axis.calendar.finish_date(x))
-        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(0.5, 1.3))
+        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(_along(x, lines), 1.3))
         label.setFont(_font(11))
         label.setPos(x, y)
         p.addItem(label)
@@ -301,9 +309,9 @@ class TradeoffView(QWidget):
         p.setXRange(0, 100, padding=0.04)
         p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
         if not self.result.confidence:
-            hint = pg.TextItem("Find confidence plans: what a 50, 80 or 90 %\nchance of the deadline would cost",
+            hint = pg.TextItem("Find confidence plans:\nwhat a 50, 80 or 90 %\nchance would cost",   # narrow at 1024×768
                                color="#555555", anchor=(0.5, 0.5))
-            hint.setFont(_font(12))
+            hint.setFont(_font(11))
             lo, hi = ftr.cost_span([q.extra_cost for q in points])
             hint.setPos(50, lo + 0.6 * (hi - lo))
             p.addItem(hint)
