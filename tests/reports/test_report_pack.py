@@ -59,7 +59,7 @@ def test_text_pages_portrait_and_chart_pages_landscape(pack):
     for name, page in found.items():
         box = reader.pages[page].mediabox
         landscape = float(box.width) > float(box.height)
-        assert landscape == (name in ("Timeline", "Network", "Odds", "S-curve", "Drivers")), name
+        assert landscape == (name in ("Timeline", "Network", "Odds", "S-curve", "Drivers", "Activities")), name
 
 
 def test_summary_shows_title_critical_path_and_screen_probability(pack):

@@ -164,3 +164,10 @@ def test_a_rarely_critical_driver_is_explained_through_its_correlation_group():
     note = _through_others(ctx, shown)
     assert "X is rarely critical but its duration moves with Y, W ('Crew speed')" in note
     assert "Z " not in note and "Y is" not in note
+
+
+def test_a_seed_drawn_for_the_pack_can_be_read_aloud(tmp_path):
+    """README: a seed drawn for you has at most six digits (the pack's footer prints it)."""
+    seeds = {build_pack(footbridge_plan(), tmp_path / f"p{k}.pdf", iterations=50, generated_at=WHEN).seed
+             for k in range(3)}
+    assert all(0 <= s < montecarlo.SEED_RANGE for s in seeds), seeds

@@ -45,3 +45,13 @@ def test_applied_option_is_named(tmp_path):
 def test_no_page_without_cost_data(tmp_path):
     _, titles = _pack(footbridge_plan(), tmp_path)
     assert "Trade-off" not in titles
+
+
+def test_chances_read_as_in_the_window(tmp_path):
+    """'53.0 % ± 1.2 points', as the Trade-off view and the Odds pages write a chance."""
+    import re
+    reader, titles = _pack(load_plan(SAMPLE), tmp_path)
+    text = " ".join(reader.pages[titles["Trade-off"]].extract_text().split())
+    found = re.findall(r"\d+(?:\.\d)?\s?% \u00b1 \d+(?:\.\d)?\s?(?:%|points)", text)
+    assert len(found) >= 4, text                        # textbook, 50/80/90 % plans, the applied option
+    assert all(re.fullmatch(r"\d+(\.\d)? % \u00b1 \d+(\.\d)? points", f) for f in found), found

@@ -9,7 +9,7 @@ import numpy as np
 
 TIMELINE_PAGES = 60            # landscape Timeline pages, rows and time windows together
 TIMELINE_WINDOWS = 6           # pages across the same rows, for a very long time span
-TABLE_ROWS = 2_500             # rows of the activity table (about 40 portrait pages)
+TABLE_ROWS = 2_500             # rows of the activity table (about 70 landscape pages)
 NETWORK_ACTIVITIES = 5_000     # larger networks get no diagram (laying one out takes minutes)
 NETWORK_DETAIL_PAGES = 40      # detail pages after the overview (past it: the critical path's only)
 

@@ -101,7 +101,7 @@ def story(ctx: PackContext, report) -> list:
     parts += chart_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     parts += tradeoff_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     report(80)
-    parts += new_page(PORTRAIT) + activity_table(ctx, portrait_w)
+    parts += new_page(LANDSCAPE) + activity_table(ctx, frame_size(ctx.paper, LANDSCAPE)[0])   # room for whole dates
     parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)
     parts += (new_page(PORTRAIT) + full_path(ctx, portrait_w)) if is_long(ctx) else []
     report(85)
@@ -123,7 +123,7 @@ def _simulate(plan, iterations, seed, report):
         raise PlanError(f"seed must be a whole number of at least 0, not {seed!r}", "seed")
     from workbench.core.montecarlo import simulate
 
-    seed = secrets.randbelow(2**31) if seed is None else seed
+    # seed None: the simulation draws one of at most six digits, to read aloud and retype
     return simulate(plan, iterations=iterations, seed=seed,
                     progress=lambda done, total: report(70 * done / max(total, 1)))
 

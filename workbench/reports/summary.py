@@ -13,7 +13,7 @@ from .drivers_data import top_drivers
 from .layout import Section
 from .path_pages import is_long, short_path
 
-from .text import elide, format_date, format_duration, format_number, format_percent, format_signed, para
+from .text import elide, format_date, format_duration, format_number, format_percent, para
 
 CONFIDENCES = (0.5, 0.8, 0.9)
 PATH_NAMES_SHOWN = 20
@@ -114,7 +114,7 @@ def drivers(ctx: PackContext, width: float) -> list:
     for d in shown:
         rows.append([Paragraph(para(d.id), styles.CELL_BOLD), Paragraph(para(ctx.name_of(d.id)), styles.CELL),
                      Paragraph(format_percent(d.criticality), styles.CELL),
-                     Paragraph(format_signed(d.sensitivity, 2), styles.CELL)])
+                     Paragraph(f"{d.sensitivity + 0.0:+.2f}", styles.CELL)])   # as the Drivers page
     table = Table(rows, colWidths=[70, width - 230, 80, 80], hAlign="LEFT")
     table.setStyle(TableStyle([("LINEBELOW", (0, 0), (-1, -1), 0.25, styles.GRID)]))
     note = ("Criticality: share of simulation runs in which the activity was on the critical path. "

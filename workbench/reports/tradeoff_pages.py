@@ -10,6 +10,7 @@ from reportlab.platypus import Paragraph, Spacer, Table, TableStyle
 from workbench.core.calendar import WorkCalendar
 from workbench.core.crash_problem import has_cost_data
 from workbench.core.errors import PlanError
+from workbench.core.formatting import format_number, format_percent
 from workbench.figures import tradeoff as ftr
 
 from . import styles
@@ -144,13 +145,18 @@ def _point_label(c, ax, p, px: float, py: float, right: float) -> None:
         c.drawString(px + 7, py + 4, p.label)
 
 
+def _chance(p: float, se: float) -> str:
+    """``53.0 % ± 1.2 points``, as the window writes a simulated chance and its spread."""
+    return f"{format_percent(p)} \u00b1 {format_number(se * 100)} points"
+
+
 def options_table(result, width: float, unit: str) -> Table:
     rows = [["Option", "Extra cost", "Chance of the deadline", "Activities shortened (by " + unit + ")"]]
     for p in ftr.chance_points(result):
         days = result.to_deadline.point.days if p.textbook else next(c.days for c in result.confidence
                                                                    if f"{c.target:.0%} plan" == p.label)
         crashed = ", ".join(f"{k} {v:.2f}" for k, v in result.crashed(days).items()) or "none"
-        rows.append([Paragraph(p.label, styles.CELL), f"{p.extra_cost:,.0f}", f"{p.chance:.1%} \u00b1 {p.standard_error:.1%}",
+        rows.append([Paragraph(p.label, styles.CELL), f"{p.extra_cost:,.0f}", _chance(p.chance, p.standard_error),
                      Paragraph(crashed, styles.CELL)])
     t = Table(rows, colWidths=[width * 0.2, width * 0.1, width * 0.15, width * 0.55])
     t.setStyle(TableStyle([("FONT", (0, 0), (-1, 0), styles.BOLD, 8), ("FONT", (0, 1), (-1, -1), styles.FONT, 8),
@@ -163,7 +169,7 @@ def applied(ctx) -> list:
     b = ctx.settings.bought
     if b is None:
         return [Paragraph("No trade-off option has been applied to this plan.", styles.BODY)]
-    odds = "" if b.chance is None else f", expected chance {b.chance:.1%} \u00b1 {(b.standard_error or 0):.1%}"
+    odds = "" if b.chance is None else f", expected chance {_chance(b.chance, b.standard_error or 0)}"
     bought = ", ".join(f"{i} by {x:.2f}" for i, x in b.crashed)
     return [Paragraph(f"<b>Applied option: {b.label}</b> \u2014 {b.cost:,.0f} extra{odds}. Shortened: {bought}. "
                       "The estimates in this pack already include it.", styles.BODY)]

@@ -23,6 +23,9 @@ def chain(deadline, unit="days") -> Plan:
     (11.0, "days", "1 day of float to the deadline"),
     (7.0, "days", "3 days late for the deadline (negative float)"),
     (12.5, "weeks", "2.5 weeks of float to the deadline"),
+    (10.0 - 17 / 6, "days", "2.8 days late for the deadline (negative float)"),   # rounded like every figure
+    (10.0 + 1 / 3, "days", "0.3 days of float to the deadline"),
+    (10.02, "days", None),                                  # rounds to no float: nothing to say
 ])
 def test_the_critical_paths_float_to_the_deadline_is_said(qtbot, deadline, unit, said):
     strip = SummaryStrip(Session(chain(deadline, unit)))

@@ -91,6 +91,7 @@ class ResourcesView(QWidget):
         self.plot.hideButtons()
         self.plot.setLabel("left", "units", color=style.TEXT)
         self.plot.setMinimumHeight(120)
+        self.plot.getPlotItem().setContentsMargins(0, 8, 0, 0)     # room for the top unit label's upper half
         # no preferred height of its own: a dock's scroll frame would otherwise make the view
         # as tall as the chart would like (its word-wrapped labels ask for height-for-width)
         self.plot.setSizePolicy(QSizePolicy.Policy.Expanding, QSizePolicy.Policy.Ignored)

@@ -247,6 +247,8 @@ class TimelineView(QWidget):
     # --- hover (see bar_drag.py for the grab zone) ------------------------------------
     def _hover(self, pos, screen_pos) -> None:
         geo = self.geometry
+        if self.bar_drag.active is not None:
+            return                   # no hover text over a drag in progress
         row = None if geo is None or pos is None else geo.row_at(pos.y())
         if row is None or geo.kinds[row] == "group":
             self.item.setCursor(Qt.CursorShape.ArrowCursor)
@@ -288,6 +290,8 @@ class TimelineView(QWidget):
         if row is None or geo.index[row] < 0 or not self.bar_drag.near_end(row, pos.x()):
             return False
         self.bar_drag.start(geo.keys[row], row)
+        self.item.setToolTip("")
+        QToolTip.hideText()          # the hover text would cover the drag note and the bars
         return True
 
     # --- zoom, pan, filters -------------------------------------------------------------

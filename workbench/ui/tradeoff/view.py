@@ -11,7 +11,7 @@ from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QProgressBar, QPu
 from workbench.core.buy_time import BuyTimeCommand
 from workbench.core.calendar import WorkCalendar
 from workbench.core.crash_problem import has_cost_data
-from workbench.core.formatting import format_day_month
+from workbench.core.formatting import format_day_month, format_number, format_percent
 from workbench.figures import tradeoff as ftr
 from workbench.ui.date_axis import DateAxis
 from workbench.ui.session import refresh_when_shown
@@ -90,6 +90,14 @@ def _label_anchor(x: float, textbook: bool) -> tuple[float, float]:
     if textbook:
         return (1.12, 0.5) if x > 35 else (-0.12, 0.5)
     return (1.05, 1.1) if x > 55 else (-0.05, 1.1)
+
+
+def _along(x: float, lines) -> float:
+    """How far ``x`` lies across the curve's span, 0 to 1: the optimum's label is anchored
+    there, so at either end of the curve it stays inside the chart."""
+    xs = [float(v) for v in lines.durations] + ([] if lines.deadline is None else [float(lines.deadline)])
+    lo, hi = min(xs, default=x), max(xs, default=x)
+    return 0.5 if hi <= lo else min(max((x - lo) / (hi - lo), 0.0), 1.0)
 
 
 def _font(size: int):
@@ -270,7 +278,7 @@ class TradeoffView(QWidget):
         x, y = lines.optimum
         p.plot([x], [y], pen=None, symbol="star", symbolSize=22, symbolBrush=ftr.OPTIMUM, name="least total cost")
         when = format_day_month(self.axis.calendar.finish_date(x))
-        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(0.5, 1.3))
+        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(_along(x, lines), 1.3))
         label.setFont(_font(11))
         label.setPos(x, y)
         p.addItem(label)
@@ -301,9 +309,9 @@ class TradeoffView(QWidget):
         p.setXRange(0, 100, padding=0.04)
         p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
         if not self.result.confidence:
-            hint = pg.TextItem("Find confidence plans: what a 50, 80 or 90 %\nchance of the deadline would cost",
+            hint = pg.TextItem("Find confidence plans:\nwhat a 50, 80 or 90 %\nchance would cost",   # narrow at 1024×768
                                color="#555555", anchor=(0.5, 0.5))
-            hint.setFont(_font(12))
+            hint.setFont(_font(11))
             lo, hi = ftr.cost_span([q.extra_cost for q in points])
             hint.setPos(50, lo + 0.6 * (hi - lo))
             p.addItem(hint)
@@ -338,7 +346,8 @@ class TradeoffView(QWidget):
             cells = [act_id, plan.activity(act_id).name, f"{x:.2f}", f"{slope[act_id] * x:,.0f}"]
             for col, text in enumerate(cells):
                 self.table.setItem(row, col, QTableWidgetItem(text))
-        odds = "" if chance is None else f"; chance {chance:.1%} \u00b1 {se:.1%} (fresh simulation)"
+        odds = "" if chance is None else (f"; chance {format_percent(chance)} \u00b1 {format_number(se * 100)} points"
+                                          " (fresh simulation)")
         nothing = "" if crashed else " Nothing to buy: the mean schedule already meets this."
         self.summary.setText(f"{extra:,.0f} extra{odds}.{nothing}")
         self.apply.setEnabled(bool(crashed))

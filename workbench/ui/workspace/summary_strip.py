@@ -7,6 +7,7 @@ from PySide6.QtCore import Qt
 from PySide6.QtGui import QFont
 from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QPushButton, QSizePolicy
 
+from workbench.core.formatting import format_duration, format_number
 from workbench.figures.headline import headline
 from workbench.ui.session import Session, take_simulation
 
@@ -20,10 +21,9 @@ def _float_to_deadline(a) -> str:
     if a.deadline is None or not len(a.schedule.total_float):
         return ""
     least = float(a.schedule.total_float.min())
-    if abs(least) < 1e-9:
+    amount = format_duration(abs(least), a.plan.settings.unit)   # rounded like every figure shown
+    if format_number(abs(least)) == "0":
         return ""
-    unit = a.plan.settings.unit
-    amount = f"{abs(least):g} {unit if abs(least) != 1 else unit[:-1]}"
     return (f"  ·  {amount} of float to the deadline" if least > 0
             else f"  ·  {amount} late for the deadline (negative float)")
 
