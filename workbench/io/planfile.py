@@ -139,9 +139,8 @@ def load_plan(path) -> Plan:
 def encode_plan(plan: Plan) -> bytes:
     """The plan file's bytes, refused (naming the field) when a text cannot be stored as
     UTF-8 or the file would be too large to open again."""
-    text = dumps(plan)
     try:
-        data = text.encode("utf-8")
+        data = dumps(plan).encode("utf-8")      # the text is let go before the read-back
     except UnicodeEncodeError:
         raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
     _refuse_oversize(len(data))
