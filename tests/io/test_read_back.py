@@ -85,3 +85,26 @@ def test_quick_read_back_agrees_with_the_plain_load(n, links):
         assert plain_answer(data) == plan_to_dict(plan)
     else:
         assert isinstance(plain_answer(data), str)     # refused: the plain load names why
+
+
+def _file_with_links(links) -> bytes:
+    plan = plain_plan(3)
+    plan.links.extend(Link(p, s, t) for p, s, t in links)
+    return planfile.dumps(plan).encode()
+
+
+@pytest.mark.parametrize("links, words", [
+    ([("A0", "A1", "FS"), ("A0", "A1", "FS")], "link A0 \u2192 A1 (FS) appears twice (links 1 and 2)"),
+    ([("A0", "A1", "SS"), ("A1", "A0", "FS"), ("A0", "A1", "SS")], "link A0 \u2192 A1 (SS) appears twice (links 1 and 3)"),
+    ([("A0", "A1", "SS"), ("A0", "A1", "FF"), ("A0", "A1", "SF"), ("A0", "A1", "FS")], None),
+])
+def test_a_repeated_link_is_named_before_any_later_problem(links, words):
+    """Repeats are found on the compiled network, in bulk; a repeat is still named first,
+    even when the links also make a loop (which the compiler would meet first)."""
+    data = _file_with_links(links)
+    if words is None:
+        assert len(planfile.loads(data).links) == len(links)       # four types: four links
+    else:
+        with pytest.raises(PlanFileError) as refused:
+            planfile.loads(data, "plan.slw")
+        assert str(refused.value) == f"plan.slw: {words}; keep one of them"

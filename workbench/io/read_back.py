@@ -6,7 +6,8 @@ link, as slow as opening the file. Here the activity and link lists are decoded 
 (``plan_bulk``) and compared, column by column, with the plan being saved; when every
 value is the same, the plan file reader runs over the decoded file with the plan's own
 activity and link records in place of new ones (every whole-plan check still runs: ids,
-repeated links, references, loops). Anything else (a list that differs, a row the bulk
+repeated links, references, loops; the network the plan's last analysis compiled is
+reused when its ids and links are these very ones). Anything else (a list that differs, a row the bulk
 checks doubt, text with a surrogate escape) is loaded the plain way, which names what is
 wrong exactly as before.
 """
@@ -66,7 +67,7 @@ def quick_read_back(data: bytes, plan) -> bool:
             return False
         parsed["activities"], parsed["links"] = _Same(acts), _Same(links)
         try:
-            plan_from_dict(parsed)
+            plan_from_dict(parsed, getattr(plan, "_analyzer", None))   # its network, when current
         except PlanFileError:
             return False                # the plain load says what is wrong, in its own words
     return True
