@@ -140,10 +140,15 @@ def load_plan(path) -> Plan:
 def encode_plan(plan: Plan) -> bytes:
     """The plan file's bytes, refused (naming the field) when a text cannot be stored as
     UTF-8 or the file would be too large to open again."""
-    try:
-        data = dumps(plan).encode("utf-8")      # the text is let go before the read-back
-    except UnicodeEncodeError:
-        raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
+    with paused_gc():
+        pieces = fast_parts(plan, _layout) or [_layout(plan_to_dict(plan)) + "\n"]
+        try:
+            for k, piece in enumerate(pieces):   # each piece's text let go once encoded
+                pieces[k] = piece.encode("utf-8")
+        except UnicodeEncodeError:
+            raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
+        data = b"".join(pieces)
+        del pieces
     _refuse_oversize(len(data))
     if not quick_read_back(data, plan):       # never write a file we could not read back
         loads(data, "not saved")
