@@ -55,3 +55,18 @@ def test_imported_plan_analyses_as_a_fresh_one(tmp_path):
     for name in ("es", "ef", "ls", "lf", "total_float", "free_float", "critical"):
         assert np.array_equal(getattr(kept.schedule, name), getattr(fresh.schedule, name)), name
     assert kept.schedule.paths == fresh.schedule.paths
+
+
+EDGES = [
+    ("space before an id", lambda lines: [lines[0].replace("SITE,", " SITE,", 1)] + lines[1:]),
+    ("tab after a name", lambda lines: [lines[0].replace("Site survey", "Site survey\t", 1)] + lines[1:]),
+    ("spaces round a number", lambda lines: [lines[0].replace(",2,", ", 2 ,", 1)] + lines[1:]),
+    ("formula guard in the first row", lambda lines: [lines[0].replace("Site survey", "'=Site survey", 1)] + lines[1:]),
+    ("formula guard in the last row", lambda lines: lines[:-1] + [lines[-1].replace("Handover", "'+Handover", 1)]),
+]
+
+
+@pytest.mark.parametrize("label, edit", EDGES, ids=[e[0] for e in EDGES])
+def test_cells_with_spaces_or_guards_read_alike(tmp_path, monkeypatch, label, edit):
+    path = write(tmp_path, edit(list(CLEAN)))
+    assert outcome(path) == row_reader_outcome(path, monkeypatch)

@@ -30,6 +30,7 @@ TEXTS = ("name", "group", "notes")
 # Every other import column (constraints, resources, progress, costs, ...): a table using any
 # of them is read by the row reader, so a column added there can never be dropped here.
 _SPACE = re.compile(r"\s")
+_EDGE_SPACE = re.compile(r"(?:^|\x00)\s|\s(?:\x00|$)")   # a cell that strip() would change
 RARE = tuple(f for f in FIELDS if f not in ("id", "predecessors") + NUMBERS + TEXTS)
 
 
@@ -39,15 +40,17 @@ def _columns(cols, rows) -> dict[str, list[str]] | None:
     if len(widths) != 1 or min(widths) < cols.width:
         return None
     table = list(zip(*(cells for _, cells in rows)))
-    if not all(set(map(type, col)) <= {str} for col in table):
+    try:
+        joined = ["\x00".join(col) for col in table]
+    except TypeError:
         return None                          # cells that are not text (a spreadsheet's numbers)
     if any("".join(col).strip() for col in table[cols.width:]):
         return None                          # text beyond the header: the row reader says where
     out = {}
     for name, i in cols.index.items():
-        if "\x00'" in "\x00" + "\x00".join(table[i]):
+        if joined[i].startswith("'") or "\x00'" in joined[i]:
             return None                      # a formula guard to undo
-        out[name] = list(map(str.strip, table[i]))
+        out[name] = list(map(str.strip, table[i])) if _EDGE_SPACE.search(joined[i]) else list(table[i])
     return out
 
 
@@ -137,6 +140,6 @@ def bulk_plan(cols, rows, settings: Settings | None, decimal_comma: bool) -> tup
     values = [[None if x != x else x for x in v.tolist()] for v in numbers]
     acts = list(map(Activity, ids, *texts, *values))
     settings = replace(settings) if settings is not None else Settings()
-    plan = Plan(settings, acts, links, validated=True)
+    plan = Plan(settings, acts, links, validated=True, ends_known=True)
     compile_links = partial(compile_network, ids, src, dst, np.zeros(src.size), np.zeros(src.size, np.int64))
     return plan, dict(zip(ids, (number for number, _ in rows))), compile_links
