@@ -8,6 +8,7 @@ for any dict it wrote. Dates are ISO strings; a constraint or deadline is tagged
 from __future__ import annotations
 
 import datetime as dt
+from operator import attrgetter
 
 import numpy as np
 
@@ -280,7 +281,7 @@ def _core(check):
 
 
 def _unique(acts: list[Activity]) -> None:
-    if len({a.id for a in acts}) == len(acts):
+    if len(set(map(attrgetter("id"), acts))) == len(acts):
         return
     first: dict[str, int] = {}
     for i, act in enumerate(acts, 1):
@@ -311,9 +312,13 @@ def plan_from_dict(data, compiled=None) -> Plan:
 
 
 def _checked_plan(top: Fields, settings, acts, links, compiled) -> Plan:
-    known = {a.id for a in acts}
-    risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
-    corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    items = top.raw_list("risks")
+    known = {a.id for a in acts} if items else None      # found only when something names ids
+    risks = [risk_from_dict(x, i, known) for i, x in enumerate(items, 1)]
+    items = top.raw_list("correlations")
+    if items and known is None:
+        known = {a.id for a in acts}
+    corr = [correlation_from_dict(x, i, known) for i, x in enumerate(items, 1)]
     settings, per_activity = read_costs(top.raw("costs"), settings)
     _core(settings.validated)
     acts = [_core(a.validated) for a in merge_costs(acts, per_activity)] if per_activity else acts

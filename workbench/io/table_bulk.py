@@ -30,7 +30,7 @@ TEXTS = ("name", "group", "notes")
 # Every other import column (constraints, resources, progress, costs, ...): a table using any
 # of them is read by the row reader, so a column added there can never be dropped here.
 _SPACE = re.compile(r"\s")
-_EDGE_SPACE = re.compile(r"(?:^|\x00)\s|\s(?:\x00|$)")   # a cell that strip() would change
+_INNER_EDGE = re.compile(r"\s\x00|\x00\s")   # with the ends: a cell strip() would change
 RARE = tuple(f for f in FIELDS if f not in ("id", "predecessors") + NUMBERS + TEXTS)
 
 
@@ -50,8 +50,13 @@ def _columns(cols, rows) -> dict[str, list[str]] | None:
     for name, i in cols.index.items():
         if joined[i].startswith("'") or "\x00'" in joined[i]:
             return None                      # a formula guard to undo
-        out[name] = list(map(str.strip, table[i])) if _EDGE_SPACE.search(joined[i]) else list(table[i])
+        out[name] = list(map(str.strip, table[i])) if _edge_space(joined[i]) else list(table[i])
     return out
+
+
+def _edge_space(joined: str) -> bool:
+    """Does a cell of this column (cells joined by NUL) begin or end with white space?"""
+    return joined[:1].isspace() or joined[-1:].isspace() or bool(_INNER_EDGE.search(joined))
 
 
 def _numbers(col: list[str] | None, n: int) -> np.ndarray | None:
@@ -60,7 +65,8 @@ def _numbers(col: list[str] | None, n: int) -> np.ndarray | None:
     if "_" in "".join(col):
         return None
     try:
-        values = np.array([float(t) if t else np.nan for t in col])
+        values = (np.array([float(t) if t else np.nan for t in col]) if "" in col
+                  else np.fromiter(map(float, col), float, n))
     except ValueError:
         return None
     if np.count_nonzero(np.isnan(values)) != col.count("") or np.isinf(values).any():
