@@ -93,7 +93,9 @@ def run(script: str, args: list[str], code: Path) -> tuple[str, float, float]:
     env.pop("PYTHONDONTWRITEBYTECODE", None)    # compiled once, as an installed app is
     before = os.times()
     start = time.perf_counter()
-    done = subprocess.run([sys.executable, "-c", script, *args], check=True, capture_output=True, text=True, env=env)
+    # run in the checkout's folder: ``python -c`` puts the working folder first on the path
+    done = subprocess.run([sys.executable, "-c", script, *args], check=True, capture_output=True, text=True, env=env,
+                          cwd=code)
     wall = time.perf_counter() - start
     after = os.times()
     return done.stdout, wall, (after.children_user - before.children_user) + (after.children_system - before.children_system)

@@ -438,9 +438,11 @@ class Plan:
     def __init__(self, settings: Settings | None = None, activities: Iterable[Activity] = (),
                  links: Iterable[Link] = (), risks: Iterable[Risk] = (),
                  correlations: Iterable[CorrelationGroup] = (), *, validated: bool = False,
-                 resources: Iterable[Resource] = (), baselines: Iterable = (), odds_trend: Iterable = ()):
+                 resources: Iterable[Resource] = (), baselines: Iterable = (), odds_trend: Iterable = (),
+                 ends_known: bool = False):
         """``validated=True``: the caller (a file reader) has validated every activity and
-        link already; only duplicate ids and link ends are checked again."""
+        link already; only duplicate ids and link ends are checked again (``ends_known``:
+        the caller has also found every link's ends among these activities)."""
         self.settings = settings or Settings()
         if not validated:
             check_settings_text(self.settings)
@@ -456,7 +458,7 @@ class Plan:
         self._listeners: list[Listener] = []
         self._analyzer = None  # the engine's compiled network for this plan (see analysis.analyze)
         if validated:
-            self._take_checked(list(activities), list(links))
+            self._take_checked(list(activities), list(links), ends_known)
         else:
             for act in activities:
                 self._append(check_activity_text(act.validated()))
@@ -465,7 +467,7 @@ class Plan:
                 self.links.append(link)
         self._check_all_demands()
 
-    def _take_checked(self, acts: list[Activity], links: list[Link]) -> None:
+    def _take_checked(self, acts: list[Activity], links: list[Link], ends_known: bool = False) -> None:
         """Activities and links a file reader has validated: only duplicate ids and link
         ends are checked here, in bulk, falling back to one at a time to name a culprit."""
         self._index = dict(zip(map(attrgetter("id"), acts), range(len(acts))))
@@ -476,6 +478,8 @@ class Plan:
             for act in acts:
                 self._append(act)       # raises, naming the duplicate
         self.links = links
+        if ends_known and len(self._index) == len(acts):
+            return
         ends = set(map(attrgetter("pred"), links))
         ends.update(map(attrgetter("succ"), links))
         if not ends <= self._index.keys():

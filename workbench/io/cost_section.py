@@ -13,6 +13,7 @@ Absent in a file (older writers), the section reads as empty.
 from __future__ import annotations
 
 from dataclasses import replace
+from operator import attrgetter
 
 from workbench.core.model import BoughtTime, Plan, Settings
 
@@ -45,8 +46,13 @@ def _bought_to_dict(b: BoughtTime | None):
 
 def costs_to_dict(plan: Plan) -> dict:
     s = plan.settings
-    rows = [{"id": a.id, **{k: _num(getattr(a, k)) for k in COST_FIELDS}}
-            for a in plan.activities if any(getattr(a, k) is not None for k in COST_FIELDS)]
+    acts = plan.activities
+    costed = set()                  # rows with any cost field, found a column at a time
+    for k in COST_FIELDS:
+        column = list(map(attrgetter(k), acts))
+        if column.count(None) != len(column):
+            costed.update(i for i, v in enumerate(column) if v is not None)
+    rows = [{"id": a.id, **{k: _num(getattr(a, k)) for k in COST_FIELDS}} for a in map(acts.__getitem__, sorted(costed))]
     return {"indirect_cost": float(s.indirect_cost), "late_penalty": float(s.late_penalty),
             "bought": _bought_to_dict(s.bought), "activities": rows}
 

@@ -8,6 +8,7 @@ text check runs only when the file holds a surrogate escape at all.
 from __future__ import annotations
 
 import re
+from operator import attrgetter
 
 from workbench.core.text import clean_text, lone_surrogate
 
@@ -83,6 +84,9 @@ def check_storable(data, source: str) -> None:
 def refuse_duplicate_links(links) -> None:
     """A link of one type from the same predecessor to the same successor may appear once
     only (an SS and an FF link between the same two activities are two links)."""
+    keys = zip(map(attrgetter("pred"), links), map(attrgetter("succ"), links), map(attrgetter("type"), links))
+    if len(set(keys)) == len(links):
+        return                          # the common case, in bulk; else name the first repeat
     seen: dict[tuple[str, str, str], int] = {}
     for i, link in enumerate(links, 1):
         key = (link.pred, link.succ, link.type)

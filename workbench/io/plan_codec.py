@@ -8,6 +8,9 @@ for any dict it wrote. Dates are ISO strings; a constraint or deadline is tagged
 from __future__ import annotations
 
 import datetime as dt
+from operator import attrgetter
+
+import numpy as np
 
 from workbench.core.errors import PlanError
 from workbench.core.model import (LINK_TYPES, MAX_UNITS, Activity, Availability, Calendar, CorrelationGroup, Link, Plan,
@@ -278,7 +281,7 @@ def _core(check):
 
 
 def _unique(acts: list[Activity]) -> None:
-    if len({a.id for a in acts}) == len(acts):
+    if len(set(map(attrgetter("id"), acts))) == len(acts):
         return
     first: dict[str, int] = {}
     for i, act in enumerate(acts, 1):
@@ -287,20 +290,35 @@ def _unique(acts: list[Activity]) -> None:
         first[act.id] = i
 
 
-def plan_from_dict(data) -> Plan:
+def plan_from_dict(data, compiled=None) -> Plan:
     """Build and check a plan from plan file data (older versions are upgraded first).
     Raises :class:`PlanFileError` naming the activity and field; a loop in the links
-    raises it with the loop in order."""
+    raises it with the loop in order. ``compiled``: an analyzer already compiled for these
+    very activity ids and links (a plan being saved and read back), reused when current."""
     top = Fields(upgrade(data), "plan file")
     top.text("format"), top.number("version")
     settings = settings_from_dict(top.raw("settings", {}))
     acts = _activities_from_list(top.raw_list("activities"))
     _unique(acts)
     links = _links_from_list(top.raw_list("links"))
-    refuse_duplicate_links(links)
-    known = {a.id for a in acts}
-    risks = [risk_from_dict(x, i, known) for i, x in enumerate(top.raw_list("risks"), 1)]
-    corr = [correlation_from_dict(x, i, known) for i, x in enumerate(top.raw_list("correlations"), 1)]
+    try:
+        plan = _checked_plan(top, settings, acts, links, compiled)
+    except PlanFileError:
+        refuse_duplicate_links(links)   # a repeated link is named first, as it always was
+        raise
+    if _repeats(plan._analyzer.net):
+        refuse_duplicate_links(links)   # names the repeat
+    return plan
+
+
+def _checked_plan(top: Fields, settings, acts, links, compiled) -> Plan:
+    items = top.raw_list("risks")
+    known = {a.id for a in acts} if items else None      # found only when something names ids
+    risks = [risk_from_dict(x, i, known) for i, x in enumerate(items, 1)]
+    items = top.raw_list("correlations")
+    if items and known is None:
+        known = {a.id for a in acts}
+    corr = [correlation_from_dict(x, i, known) for i, x in enumerate(items, 1)]
     settings, per_activity = read_costs(top.raw("costs"), settings)
     _core(settings.validated)
     acts = [_core(a.validated) for a in merge_costs(acts, per_activity)] if per_activity else acts
@@ -312,7 +330,20 @@ def plan_from_dict(data) -> Plan:
     plan = _core(lambda: Plan(settings, acts, links, risks, corr, validated=True, resources=resources,
                               baselines=baselines, odds_trend=trend))
     plan.checkup_thresholds = checkup
-    analyzer = Analyzer(_core(lambda: compile_plan(plan)))
+    if compiled is not None and compiled.net.ids == plan.ids() and compiled.links == plan.links:
+        analyzer = Analyzer(compiled.net)
+    else:
+        analyzer = Analyzer(_core(lambda: compile_plan(plan)))
     analyzer.links = list(plan.links)
     plan._analyzer = analyzer           # the first analysis reuses the network compiled here
     return plan
+
+
+def _repeats(net) -> bool:
+    """Does a link of one type join the same two activities twice? (In bulk, on the
+    compiled network: a link's type is its pair of finish/start ends.)"""
+    if net.src.size < 2:
+        return False
+    ends = (net.src * len(net.ids) + net.dst) * 4 + net.src_fin.astype(np.int64) * 2 + net.dst_fin.astype(np.int64)
+    ends.sort()
+    return bool((ends[1:] == ends[:-1]).any())

@@ -103,27 +103,27 @@ def link_lines(links: list[Link]) -> list[str] | None:
 SLICE = 2000   # lines joined at a time: no single step holds Python's lock for long
 
 
-def _block(lines: list[str]) -> list[str]:
-    """A list at depth 1 as the plain writer lays it out (one entry per line), in pieces of
-    :data:`SLICE` lines."""
-    if not lines:
+def _block(pieces: list[str]) -> list[str]:
+    """A list at depth 1 as the plain writer lays it out (one entry per line), from its
+    entries joined :data:`SLICE` lines at a time."""
+    if not pieces:
         return ["[]"]
     parts = ["[\n  "]
-    for start in range(0, len(lines), SLICE):
-        parts += [",\n  "] if start else []
-        parts.append(",\n  ".join(lines[start:start + SLICE]))
+    for k, piece in enumerate(pieces):
+        parts += [",\n  ", piece] if k else [piece]
     return parts + ["\n ]"]
 
 
 def _sliced(make, items) -> list[str] | None:
-    """``make(items)`` a slice at a time (each step over the columns stays short)."""
-    lines: list[str] = []
+    """``make(items)`` a slice at a time (each step over the columns stays short), each
+    slice's lines joined at once: no list of every line is ever held."""
+    pieces: list[str] = []
     for start in range(0, len(items), SLICE):
         part = make(items[start:start + SLICE])
         if part is None:
             return None
-        lines += part
-    return lines
+        pieces.append(",\n  ".join(part))
+    return pieces
 
 
 def fast_dumps(plan, layout) -> str | None:

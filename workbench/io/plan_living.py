@@ -106,9 +106,9 @@ def progress_from(top: Fields, settings, acts: list[Activity]) -> tuple:
     rule = top.text("progress_rule", "retained logic")
     if rule not in PROGRESS_RULES:
         raise top.error("progress_rule", f"must be \"retained logic\" or \"progress override\", got {show(rule)}")
-    index = {a.id: i for i, a in enumerate(acts)}
-    acts = list(acts)
-    for pos, raw in enumerate(top.raw_list("progress"), 1):
+    entries, acts = top.raw_list("progress"), list(acts)
+    index = {a.id: i for i, a in enumerate(acts)} if entries else {}   # most plans list no progress
+    for pos, raw in enumerate(entries, 1):
         e = Fields.entry(raw, "progress of activity", pos)
         act_id = e.text("id", required=True)
         if act_id not in index:

@@ -24,6 +24,7 @@ from .plan_bulk import bulk_plan_data
 from .plan_codec import FORMAT, VERSION, plan_from_dict, plan_to_dict
 from .plan_lines import fast_dumps, fast_parts
 from .plan_migrate import upgrade
+from .read_back import quick_read_back
 
 __all__ = ["FORMAT", "VERSION", "OwnershipChange", "PlanFileError", "load_plan", "save_plan", "plan_to_dict",
            "plan_from_dict", "plan_hash", "dumps", "loads", "upgrade", "ownership_problem"]
@@ -139,13 +140,18 @@ def load_plan(path) -> Plan:
 def encode_plan(plan: Plan) -> bytes:
     """The plan file's bytes, refused (naming the field) when a text cannot be stored as
     UTF-8 or the file would be too large to open again."""
-    text = dumps(plan)
-    try:
-        data = text.encode("utf-8")
-    except UnicodeEncodeError:
-        raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
+    with paused_gc():
+        pieces = fast_parts(plan, _layout) or [_layout(plan_to_dict(plan)) + "\n"]
+        try:
+            for k, piece in enumerate(pieces):   # each piece's text let go once encoded
+                pieces[k] = piece.encode("utf-8")
+        except UnicodeEncodeError:
+            raise PlanFileError(f"not saved: {unstorable_text(plan_to_dict(plan))}", "text") from None
+        data = b"".join(pieces)
+        del pieces
     _refuse_oversize(len(data))
-    loads(data, "not saved")  # never write a file we could not read back
+    if not quick_read_back(data, plan):       # never write a file we could not read back
+        loads(data, "not saved")
     return data
 
 

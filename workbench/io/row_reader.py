@@ -13,6 +13,7 @@ from dataclasses import replace
 from workbench.core.errors import CycleError, PlanError
 from workbench.core.model import DISTRIBUTIONS, Activity, Link, Plan, Settings, check_activity_text
 from workbench.core.progress_fields import Progress
+from workbench.core.cpm import Analyzer
 from workbench.core.network import compile_plan
 
 from .errors import TableImportError
@@ -220,8 +221,9 @@ def build_plan(header: list[str], rows: list[Row], settings: Settings | None = N
         with paused_gc():
             fast = bulk_plan(cols, rows, settings, decimal_comma)     # a clean table, read by columns
             if fast is not None:
-                _check_loops(*fast, source)
-                return fast[0]
+                plan, numbers, compile_links = fast
+                _check_loops(plan, numbers, source, compile_links)
+                return plan
     reader = RowReader(cols, decimal_comma, guarded, resources or ())
     for number, cells in rows:
         reader.read(number, cells)
@@ -253,9 +255,13 @@ def _loop_among(ids: set[str], links, rows: dict[str, int]) -> str | None:
     return None
 
 
-def _check_loops(plan: Plan, rows: dict[str, int], source: str) -> None:
+def _check_loops(plan: Plan, rows: dict[str, int], source: str, compile_links=None) -> None:
+    """Refuse a loop, naming its rows; the network compiled here is kept for the first
+    analysis (as a loaded plan file's is)."""
     try:
-        compile_plan(plan)
+        analyzer = Analyzer(compile_links() if compile_links else compile_plan(plan))
+        analyzer.links = list(plan.links)
+        plan._analyzer = analyzer
     except CycleError as exc:
         where = ", ".join(str(rows[a]) for a in exc.loop[:-1])
         raise TableImportError([f"{exc} (rows {where}, column 'predecessors')"], source) from exc

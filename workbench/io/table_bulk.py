@@ -11,12 +11,16 @@ else returns None and the row reader reads the table as before, naming every pro
 
 from __future__ import annotations
 
+import re
 from dataclasses import replace
-from itertools import chain, repeat
+from functools import partial
+from itertools import compress, repeat
+from typing import Callable
 
 import numpy as np
 
 from workbench.core.model import _BAD_ID, MAX_ID_LENGTH, Activity, Link, Plan, Settings
+from workbench.core.network import compile_network
 
 from .plan_bulk import plain_numbers
 from .table_columns import FIELDS
@@ -25,6 +29,8 @@ NUMBERS = ("optimistic", "most_likely", "pessimistic", "duration")
 TEXTS = ("name", "group", "notes")
 # Every other import column (constraints, resources, progress, costs, ...): a table using any
 # of them is read by the row reader, so a column added there can never be dropped here.
+_SPACE = re.compile(r"\s")
+_INNER_EDGE = re.compile(r"\s\x00|\x00\s")   # with the ends: a cell strip() would change
 RARE = tuple(f for f in FIELDS if f not in ("id", "predecessors") + NUMBERS + TEXTS)
 
 
@@ -34,16 +40,23 @@ def _columns(cols, rows) -> dict[str, list[str]] | None:
     if len(widths) != 1 or min(widths) < cols.width:
         return None
     table = list(zip(*(cells for _, cells in rows)))
-    if not all(set(map(type, col)) <= {str} for col in table):
+    try:
+        joined = ["\x00".join(col) for col in table]
+    except TypeError:
         return None                          # cells that are not text (a spreadsheet's numbers)
     if any("".join(col).strip() for col in table[cols.width:]):
         return None                          # text beyond the header: the row reader says where
     out = {}
     for name, i in cols.index.items():
-        if "\x00'" in "\x00" + "\x00".join(table[i]):
+        if joined[i].startswith("'") or "\x00'" in joined[i]:
             return None                      # a formula guard to undo
-        out[name] = list(map(str.strip, table[i]))
+        out[name] = list(map(str.strip, table[i])) if _edge_space(joined[i]) else list(table[i])
     return out
+
+
+def _edge_space(joined: str) -> bool:
+    """Does a cell of this column (cells joined by NUL) begin or end with white space?"""
+    return joined[:1].isspace() or joined[-1:].isspace() or bool(_INNER_EDGE.search(joined))
 
 
 def _numbers(col: list[str] | None, n: int) -> np.ndarray | None:
@@ -52,7 +65,8 @@ def _numbers(col: list[str] | None, n: int) -> np.ndarray | None:
     if "_" in "".join(col):
         return None
     try:
-        values = np.array([float(t) if t else np.nan for t in col])
+        values = (np.array([float(t) if t else np.nan for t in col]) if "" in col
+                  else np.fromiter(map(float, col), float, n))
     except ValueError:
         return None
     if np.count_nonzero(np.isnan(values)) != col.count("") or np.isinf(values).any():
@@ -66,23 +80,40 @@ def _ids_plain(ids: list[str]) -> bool:
             and not _BAD_ID.search("\x00".join(ids)) and len(set(ids)) == len(ids))
 
 
-def _links(ids: list[str], cells: list[str] | None) -> list[Link] | None:
-    """Plain finish-to-start links from cells that list ids only (``A; B``), each once."""
+def _links(ids: list[str], cells: list[str] | None) -> tuple[list[Link], np.ndarray, np.ndarray] | None:
+    """Plain finish-to-start links from cells that list ids only (``A; B``), each once,
+    with their ends as row indices."""
+    n = len(ids)
     if cells is None or not any(cells):
-        return []
-    if "," in "".join(cells):
+        return [], np.zeros(0, np.int64), np.zeros(0, np.int64)
+    joined = ";".join(cells)
+    if "," in joined:
         return None                          # the row reader tells a separator from a decimal comma
-    parts = list(map(str.split, cells, repeat(";")))
-    counts = np.fromiter(map(len, parts), np.int64, len(parts))
-    succs = list(map(ids.__getitem__, np.repeat(np.arange(len(ids)), counts).tolist()))
-    preds = list(map(str.strip, chain.from_iterable(parts)))
+    if _SPACE.search(joined):
+        return _spaced_links(ids, cells)
+    counts = np.fromiter(map(str.count, cells, repeat(";")), np.int64, n) + 1
+    preds = joined.split(";")
+    dst = np.repeat(np.arange(n), counts)
     if "" in preds:                          # empty cells and stray separators name nothing
-        keep = [k for k, pred in enumerate(preds) if pred]
-        preds, succs = [preds[k] for k in keep], [succs[k] for k in keep]
-    if (not set(ids).issuperset(preds) or _BAD_ID.search("\x00".join(preds))
-            or any(map(str.__eq__, preds, succs)) or len(set(zip(preds, succs))) != len(preds)):
-        return None
-    return list(map(Link, preds, succs))
+        keep = np.array([bool(p) for p in preds])
+        preds, dst = list(compress(preds, keep)), dst[keep]
+    index = dict(zip(ids, range(n)))
+    try:
+        src = np.fromiter(map(index.__getitem__, preds), np.int64, len(preds))
+    except KeyError:
+        return None                          # an unknown predecessor: the row reader names it
+    pairs = np.sort(src * n + dst)
+    if (src == dst).any() or (pairs[1:] == pairs[:-1]).any():
+        return None                          # a self link or a repeat: the row reader names it
+    succs = np.array(ids, dtype=object)[dst].tolist()
+    return list(map(Link, preds, succs)), src, dst
+
+
+def _spaced_links(ids: list[str], cells: list[str]):
+    """As :func:`_links`, for cells with spaces around the ids (``A; B``); None when an
+    id holds a space (the row reader names it)."""
+    cells = [";".join(map(str.strip, cell.split(";"))) for cell in cells]
+    return None if _SPACE.search(";".join(cells)) else _links(ids, cells)
 
 
 def _storable(column: list[str]) -> bool:
@@ -93,8 +124,9 @@ def _storable(column: list[str]) -> bool:
     return True
 
 
-def bulk_plan(cols, rows, settings: Settings | None, decimal_comma: bool) -> tuple[Plan, dict] | None:
-    """The plan and each id's row number, or None when the row reader should read it."""
+def bulk_plan(cols, rows, settings: Settings | None, decimal_comma: bool) -> tuple[Plan, dict, Callable] | None:
+    """The plan, each id's row number and a function compiling its network (from the link
+    ends found here), or None when the row reader should read it."""
     if decimal_comma or not rows or "id" not in cols.index:
         return None
     table = _columns(cols, rows)
@@ -104,13 +136,16 @@ def bulk_plan(cols, rows, settings: Settings | None, decimal_comma: bool) -> tup
     numbers = [_numbers(table.get(k), n) for k in NUMBERS]
     if not _ids_plain(ids) or any(v is None for v in numbers) or not plain_numbers(*numbers).all():
         return None
-    links = _links(ids, table.get("predecessors"))
-    if links is None:
+    found = _links(ids, table.get("predecessors"))
+    if found is None:
         return None
+    links, src, dst = found
     texts = [table.get(k, [""] * n) for k in TEXTS]
     if not all(_storable(col) for col in texts + [ids]):
         return None                          # a lone surrogate: the row reader names its row and column
     values = [[None if x != x else x for x in v.tolist()] for v in numbers]
     acts = list(map(Activity, ids, *texts, *values))
     settings = replace(settings) if settings is not None else Settings()
-    return Plan(settings, acts, links, validated=True), dict(zip(ids, (number for number, _ in rows)))
+    plan = Plan(settings, acts, links, validated=True, ends_known=True)
+    compile_links = partial(compile_network, ids, src, dst, np.zeros(src.size), np.zeros(src.size, np.int64))
+    return plan, dict(zip(ids, (number for number, _ in rows))), compile_links

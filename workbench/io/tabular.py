@@ -13,6 +13,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 from functools import partial
+from itertools import islice
 from pathlib import Path
 
 from workbench.core.errors import PlanError
@@ -76,7 +77,7 @@ def _header_and_rows(rows):
     """The header is the first of the first ten non-blank rows that names an id column
     and another known column (title lines above it are skipped), else the first
     non-blank row. Returns (header row number, header cells, rows below it)."""
-    filled = [k for k, (_, cells) in enumerate(rows) if any(str(c).strip() for c in cells)]
+    filled = list(islice((k for k, (_, cells) in enumerate(rows) if any(str(c).strip() for c in cells)), 10))
     if not filled:
         return None, [], []
     k = next((k for k in filled[:10] if _is_header(rows[k][1])), filled[0])
