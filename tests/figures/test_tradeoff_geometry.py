@@ -23,7 +23,7 @@ def test_curve_lines_hold_every_breakpoint_and_the_optimum(result):
 
 def test_chance_points_and_merging(result):
     pts = ftr.chance_points(result)
-    assert pts[0].textbook and [p.label for p in pts[1:]] == ["50% plan", "90% plan"]
+    assert pts[0].textbook and [p.label for p in pts[1:]] == ["50 % plan", "90 % plan"]
     same = [ftr.ChancePoint("a", 0.9, 0.01, 0.0), ftr.ChancePoint("b", 0.9, 0.01, 0.0, True)]
     assert [p.label for p in ftr.merged(same)] == ["a; b"]
 

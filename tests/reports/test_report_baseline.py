@@ -16,6 +16,7 @@ from workbench.figures import odds_trend as ot
 from workbench.io.planfile import load_plan, plan_hash
 from workbench.reports.pack import build_pack
 from workbench.resources import demo_update_path
+from workbench.core.formatting import format_whole_percent
 
 WHEN = dt.datetime(2027, 5, 31, 9, 0, tzinfo=dt.timezone.utc)
 
@@ -47,7 +48,8 @@ def test_the_baseline_page_says_what_moved_and_how_the_odds_went(pack):
     assert ot.headline(plan.odds_trend, base) in text.replace("\n", " ")
     v = variance_against(analyze(plan), base)
     assert f"{v.finish_variance:g} days later" in text
-    assert f"{base.simulation.probability:.0%}" in text and f"{info.simulation.prob_by(info.analysis.deadline)[0]:.0%}" in text
+    assert format_whole_percent(base.simulation.probability) in text
+    assert format_whole_percent(info.simulation.prob_by(info.analysis.deadline)[0]) in text
     changed = reader.pages[page + 1].extract_text()
     assert "What changed since 'Board approval, February 2027'" in changed
     assert "B2A" in changed and "re-estimated" in changed and "20 / 25 / 40" in changed

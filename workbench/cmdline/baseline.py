@@ -12,6 +12,7 @@ from pathlib import Path
 from ..core.errors import PlanError
 from .common import check_iterations, load_plan_file
 from .living import add_status_date, apply_status_date
+from workbench.core.formatting import format_whole_percent
 
 
 def add_arguments(p) -> None:
@@ -63,7 +64,7 @@ def listing(plan) -> str:
     lines = []
     for b in plan.baselines:
         odds = b.simulation or b.pert
-        chance = "" if odds is None or odds.probability is None else f", chance of the deadline {odds.probability:.0%}"
+        chance = "" if odds is None or odds.probability is None else f", chance of the deadline {format_whole_percent(odds.probability)}"
         lines.append(f"{'*' if b.approved else ' '} {b.name}: recorded {b.recorded.isoformat()}, finish "
                      f"{b.finish.isoformat()}{chance}, plan {b.plan_hash}")
     return "\n".join(lines + ["(* approved)"])

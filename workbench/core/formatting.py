@@ -120,6 +120,19 @@ def format_duration(value, unit: str = "days", digits: int = 1) -> str:
     return text if text == NONE else f"{text} {plural(unit, value)}"
 
 
+def format_whole_percent(p) -> str:
+    """A probability in whole percent, with the space: ``43 %``; ``< 1 %`` and ``> 99 %`` near
+    the ends, ``0 %`` and ``100 %`` only when exact."""
+    if p is None or math.isnan(float(p)):
+        return NONE
+    p = float(p)
+    if 0.0 < p < 0.005:
+        return "< 1 %"
+    if 0.995 < p < 1.0:
+        return "> 99 %"
+    return f"{max(0.0, min(1.0, p)) * 100:.0f} %"
+
+
 def format_percent(p) -> str:
     """A probability for people: ``85.5 %``; ``< 0.1 %`` and ``> 99.9 %`` near the ends so
     an uncertain finish never reads as certain; ``0 %`` and ``100 %`` only when exact."""

@@ -13,6 +13,7 @@ import datetime as dt
 from dataclasses import dataclass, field
 
 import numpy as np
+from workbench.core.formatting import format_whole_percent
 
 STEADY = 0.01     # a move smaller than one percentage point reads as "steady"
 
@@ -109,12 +110,12 @@ def headline(points, baseline=None) -> str:
     if not series:
         return "No odds recorded yet: run a simulation after moving the status date."
     day, now = series[-1]
-    text = f"Chance of the committed date on {_day(day)}: {now:.0%}"
+    text = f"Chance of the committed date on {_day(day)}: {format_whole_percent(now)}"
     if len(series) > 1:
         before_day, before = series[-2]
-        text += f", {direction(before, now)} from {before:.0%} on {_day(before_day)}"
+        text += f", {direction(before, now)} from {format_whole_percent(before)} on {_day(before_day)}"
     if mark is not None:
-        text += f"; {mark[1]:.0%} when '{mark[2]}' was approved"
+        text += f"; {format_whole_percent(mark[1])} when '{mark[2]}' was approved"
     return text + "."
 
 

@@ -7,6 +7,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 import numpy as np
+from workbench.core.formatting import format_whole_percent
 
 DIRECT, INDIRECT, TOTAL = "#0072B2", "#56B4E9", "#D55E00"
 DEADLINE, OPTIMUM, CHANCE = "#CC79A7", "#000000", "#E69F00"
@@ -61,7 +62,7 @@ def chance_points(result) -> list[ChancePoint]:
                                d.point.direct_cost - result.problem.base_cost, True))
     for c in result.confidence:
         if c.reachable:
-            out.append(ChancePoint(f"{c.target:.0%} plan", c.chance_out_of_sample, c.standard_error, c.extra_cost))
+            out.append(ChancePoint(f"{format_whole_percent(c.target)} plan", c.chance_out_of_sample, c.standard_error, c.extra_cost))
     return out
 
 

@@ -15,6 +15,7 @@ from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
 from .text import format_date, format_number, para
 from .trend_paint import TrendPainter
+from workbench.core.formatting import format_whole_percent
 
 SIDE_W = 250.0
 SLIPPED_SHOWN = 10
@@ -57,7 +58,7 @@ def _cells(rows, widths, header: bool = True) -> Table:
 
 
 def _chance(p) -> str:
-    return "no deadline" if p is None else f"{p:.0%}"
+    return "no deadline" if p is None else f"{format_whole_percent(p)}"
 
 
 def _moved(value: float, unit: str) -> str:

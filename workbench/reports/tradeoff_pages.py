@@ -17,6 +17,7 @@ from . import styles
 from .axes import Axes
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
+from workbench.core.formatting import format_whole_percent
 
 TARGETS = (0.5, 0.8, 0.9)
 ITERATIONS = 2000
@@ -154,7 +155,7 @@ def options_table(result, width: float, unit: str) -> Table:
     rows = [["Option", "Extra cost", "Chance of the deadline", "Activities shortened (by " + unit + ")"]]
     for p in ftr.chance_points(result):
         days = result.to_deadline.point.days if p.textbook else next(c.days for c in result.confidence
-                                                                   if f"{c.target:.0%} plan" == p.label)
+                                                                   if f"{format_whole_percent(c.target)} plan" == p.label)
         crashed = ", ".join(f"{k} {v:.2f}" for k, v in result.crashed(days).items()) or "none"
         rows.append([Paragraph(p.label, styles.CELL), f"{p.extra_cost:,.0f}", _chance(p.chance, p.standard_error),
                      Paragraph(crashed, styles.CELL)])

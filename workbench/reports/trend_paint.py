@@ -15,6 +15,7 @@ from . import marks as mk
 from . import styles
 from .axes import TICK_FONT, Axes
 from .text import clean
+from workbench.core.formatting import format_whole_percent
 
 LEFT, AXIS_H, LEGEND_H = 40.0, 26.0, 16.0
 
@@ -89,7 +90,7 @@ class TrendPainter:
         c.line(ax.x, y, ax.x + ax.w, y)
         c.setFillColor(styles.MUTED)
         c.setFont(styles.BOLD, TICK_FONT)
-        c.drawRightString(ax.x + ax.w - 2, y + 3, clean(f"target {self.fig.target:.0%}"))
+        c.drawRightString(ax.x + ax.w - 2, y + 3, clean(f"target {format_whole_percent(self.fig.target)}"))
         c.restoreState()
 
     def _values(self, ax: Axes) -> None:
@@ -100,7 +101,7 @@ class TrendPainter:
         c.setFillColor(styles.TEXT)
         for x, y in zip(self.fig.x, self.fig.simulation):
             if np.isfinite(y):
-                c.drawCentredString(ax.px(x), ax.py(y) + 6 * self.scale, f"{y:.0%}")
+                c.drawCentredString(ax.px(x), ax.py(y) + 6 * self.scale, f"{format_whole_percent(y)}")
         c.restoreState()
 
     def _baseline(self, ax: Axes) -> None:
@@ -112,7 +113,7 @@ class TrendPainter:
         mk.diamond(c, ax.px(x), ax.py(y), 5 * self.scale, _white(), 1.2)
         c.setFont(styles.BOLD, 8 * self.scale)
         c.setFillColor(styles.TEXT)
-        c.drawString(ax.px(x) + 7, ax.py(y) - 12 * self.scale, clean(f"approved: {name} ({y:.0%})"))
+        c.drawString(ax.px(x) + 7, ax.py(y) - 12 * self.scale, clean(f"approved: {name} ({format_whole_percent(y)})"))
         c.restoreState()
 
     def _legend(self):

@@ -112,3 +112,9 @@ def test_date_labels_are_drawn_below_the_chart(slide):
     band = np.array([[image.pixelColor(x, y).lightness() for x in range(axis_rect.left(), axis_rect.right(), 2)]
                      for y in range(axis_rect.top() + 8, min(axis_rect.bottom(), image.height() - 1))])
     assert (band < 100).sum() > 50                                   # dark text pixels under the ticks
+
+
+def test_the_finish_lines_come_with_the_odds_caution(slide):
+    win, view = slide
+    assert {"p10", "p90"} <= set(view._lines)                       # simulated finish lines drawn
+    assert win.caution.isVisible() and "judgement" in win.caution.text()

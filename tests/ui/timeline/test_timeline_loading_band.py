@@ -64,7 +64,7 @@ def test_over_allocated_steps_are_drawn_where_core_loading_finds_them(ui_env, qt
         assert spans == pytest.approx([v for a, b, *_ in load.over for v in (a, b)])
     assert any(len(items) > 2 for items in v.band.items)     # the demo's crews are over-allocated
     ticks = v.band.axis._tickLevels[0]
-    assert any(text.startswith("over!") for _, text in ticks)
+    assert any(text.startswith("Over: ") for _, text in ticks)
 
 
 def test_hidden_without_resources_and_the_choice_is_remembered(ui_env, qtbot):

@@ -287,7 +287,7 @@ def test_simulation_adds_the_finish_band_and_criticality(view):
     assert view.reference.band.scene() is not None
     assert view.reference.band.getRegion() == pytest.approx((11.5, 15.5))
     from workbench.ui.timeline.tooltip import tooltip_text
-    assert "criticality 50% (simulated)" in tooltip_text(view.session.analysis, view.session.simulation, "C")
+    assert "criticality 50 % (simulated)" in tooltip_text(view.session.analysis, view.session.simulation, "C")
     view.session.set_simulation(None)
     assert view.reference.band.scene() is None
 

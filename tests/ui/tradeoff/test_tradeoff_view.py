@@ -33,8 +33,8 @@ def test_confidence_search_then_apply_is_one_undo_step(qtbot, view):
     view.search()
     qtbot.waitUntil(lambda: not view.runner.running, timeout=60000)
     labels = [view.option.itemText(i) for i in range(view.option.count())]
-    assert "90% chance of the deadline" in labels
-    view.option.setCurrentIndex(labels.index("90% chance of the deadline"))
+    assert "90 % chance of the deadline" in labels
+    view.option.setCurrentIndex(labels.index("90 % chance of the deadline"))
     assert view.table.rowCount() > 0
     session = view.session
     before = session.plan.activity(view.table.item(0, 0).text()).mean
@@ -42,8 +42,8 @@ def test_confidence_search_then_apply_is_one_undo_step(qtbot, view):
     assert view.apply_option()
     assert session.undo_stack.count() == steps + 1
     act = session.plan.activity(view.table.item(0, 0).text())
-    assert act.mean < before and "Trade-off (90% chance" in act.notes
-    assert session.plan.settings.bought.label == "90% chance of the deadline"
+    assert act.mean < before and "Trade-off (90 % chance" in act.notes
+    assert session.plan.settings.bought.label == "90 % chance of the deadline"
     session.undo_stack.undo()
     assert session.plan.activity(act.id).mean == pytest.approx(before) and session.plan.settings.bought is None
 

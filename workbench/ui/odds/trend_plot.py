@@ -15,6 +15,7 @@ from PySide6.QtWidgets import QLabel, QVBoxLayout, QWidget
 
 from workbench.figures import odds_trend as ot
 from workbench.figures import style
+from workbench.core.formatting import format_whole_percent
 
 
 class _DayAxis(pg.AxisItem):
@@ -66,18 +67,18 @@ class TrendPlot(QWidget):
         p.plotItem.legend.clear()
         p.setXRange(fig.x_lo, fig.x_hi, padding=0)
         p.addItem(pg.InfiniteLine(fig.target, angle=0, pen=pg.mkPen(style.MUTED_TEXT, width=2, style=Qt.DotLine),
-                                  label=f"target {fig.target:.0%}", labelOpts={"position": 0.95, "color": style.MUTED_TEXT}))
+                                  label=f"target {format_whole_percent(fig.target)}", labelOpts={"position": 0.95, "color": style.MUTED_TEXT}))
         self._series(fig.x, fig.pert, pg.mkPen(style.TEXT, width=2, style=Qt.DashLine), "o", 7, style.TEXT,
                      "by PERT (one path)")
         self._series(fig.x, fig.simulation, pg.mkPen(style.WORK, width=5), "s", 13, style.WORK, "by simulation")
         for x, y in zip(fig.x, fig.simulation):
             if np.isfinite(y):
-                self._text(f"{y:.0%}", x, y, (0.5, 1.3), style.TEXT)
+                self._text(f"{format_whole_percent(y)}", x, y, (0.5, 1.3), style.TEXT)
         if fig.baseline is not None:
             x, y, name = fig.baseline
             p.addItem(pg.ScatterPlotItem([x], [y], symbol="d", size=16, pen=pg.mkPen(style.TEXT, width=2),
                                          brush=pg.mkBrush("#FFFFFF")))
-            self._text(f"approved: {name} ({y:.0%})", x, y, (-0.05, -0.4), style.TEXT)
+            self._text(f"approved: {name} ({format_whole_percent(y)})", x, y, (-0.05, -0.4), style.TEXT)
 
     def _series(self, x, y, pen, symbol: str, size: int, colour: str, name: str) -> None:
         ok = np.isfinite(y)

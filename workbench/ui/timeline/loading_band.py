@@ -121,7 +121,7 @@ class LoadingBand(QWidget):
     @staticmethod
     def _lane_label(fig) -> str:
         top = float(fig.available.max()) if fig.available.size else 0.0
-        mark = "over! " if fig.over else ""
+        mark = "Over: " if fig.over else ""
         return f"{mark}{fig.name} ({top:g})"
 
     def fit_to(self, view_height: int) -> None:

@@ -6,6 +6,7 @@ import math
 
 from workbench.core.formatting import format_date as _date
 from workbench.core.formatting import format_number as _num
+from workbench.core.formatting import format_whole_percent
 
 
 def tooltip_text(analysis, simulation, act_id: str) -> str:
@@ -33,7 +34,7 @@ def tooltip_text(analysis, simulation, act_id: str) -> str:
         lines.append("on the critical path")
     crit = _criticality(simulation, s.ids, i)
     if crit is not None:
-        lines.append(f"criticality {crit:.0%} (simulated)")
+        lines.append(f"criticality {format_whole_percent(crit)} (simulated)")
     return "\n".join(lines)
 
 

@@ -389,6 +389,15 @@ class TimelineView(QWidget):
         if on:
             fold_all(self, True)
 
+    @property
+    def present_caution(self) -> str:
+        """On a Present slide with the simulated finish lines (P10–P90) drawn, the odds
+        caution goes under the slide, as on the Odds and Summary slides."""
+        if not self.present_hint or self.session.simulation is None:
+            return ""
+        from workbench.figures.headline import CAUTION
+        return CAUTION
+
     def _apply_weights(self) -> None:
         font = self._font()
         self.row_axis.set_font(font)

@@ -11,7 +11,7 @@ from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QProgressBar, QPu
 from workbench.core.buy_time import BuyTimeCommand
 from workbench.core.calendar import WorkCalendar
 from workbench.core.crash_problem import has_cost_data
-from workbench.core.formatting import format_day_month, format_number, format_percent
+from workbench.core.formatting import format_day_month, format_number, format_percent, format_whole_percent
 from workbench.figures import tradeoff as ftr
 from workbench.ui.date_axis import DateAxis
 from workbench.ui.session import refresh_when_shown
@@ -290,7 +290,7 @@ class TradeoffView(QWidget):
         p = self.chance_plot
         target = self.session.plan.settings.target_confidence
         p.addItem(pg.InfiniteLine(100 * target, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=2, style=pg.QtCore.Qt.PenStyle.DotLine),
-                                  label=f"target {target:.0%}", labelOpts={"color": ftr.DEADLINE, "position": 0.3}))
+                                  label=f"target {format_whole_percent(target)}", labelOpts={"color": ftr.DEADLINE, "position": 0.3}))
         for pt in ftr.merged(points):
             symbol, colour = ("s", ftr.DEADLINE) if pt.textbook else ("o", ftr.CHANCE)
             x = 100 * pt.chance
@@ -325,7 +325,7 @@ class TradeoffView(QWidget):
                                  d.point.direct_cost - r.problem.base_cost, d.chance, d.standard_error))
         for c in r.confidence:
             if c.reachable:
-                self.options.append((f"{c.target:.0%} chance of the deadline", c.days, c.extra_cost,
+                self.options.append((f"{format_whole_percent(c.target)} chance of the deadline", c.days, c.extra_cost,
                                      c.chance_out_of_sample, c.standard_error))
         o = r.optimum
         self.options.append(("Total-cost optimum", o.days, o.direct_cost - r.problem.base_cost, None, None))

@@ -10,6 +10,7 @@ from PySide6.QtWidgets import (QAbstractItemView, QComboBox, QDialog, QDialogBut
 from workbench.core import baseline as bl
 from workbench.core.baseline_commands import ApproveBaseline, DeleteBaseline, RecordBaseline, RenameBaseline
 from workbench.core.errors import PlanError
+from workbench.core.formatting import format_whole_percent
 
 HEADINGS = ("Name", "Recorded", "Status date", "Finish", "Chance of the deadline", "Approved")
 APPROVED_MARK = "\u2714 approved"
@@ -20,7 +21,7 @@ def chance_text(b) -> str:
     odds = b.simulation or b.pert
     if odds is None or odds.probability is None:
         return "no deadline"
-    return f"{odds.probability:.0%} ({'simulation' if b.simulation else 'PERT'})"
+    return f"{format_whole_percent(odds.probability)} ({'simulation' if b.simulation else 'PERT'})"
 
 
 def record_current(session, name: str, approved: bool = False) -> bool:
