@@ -1,12 +1,13 @@
 """Present mode's Timeline slide on a 1024×768 projector: groups folded so every row fits
-large, keys to open them or show the critical path, reference-line labels apart, whole
-date labels. Geometry and pixel facts, offscreen Qt."""
+large, keys to open them or show the critical path, the opened rows in pages at the
+Present type with keys to turn them, reference-line labels apart, whole date labels. Geometry and pixel facts, offscreen Qt."""
 
 from __future__ import annotations
 
 import numpy as np
 import pytest
-from PySide6.QtCore import Qt
+from PySide6.QtCore import QPointF, Qt
+from PySide6.QtGui import QColor
 
 from workbench.core.montecarlo import simulate
 from workbench.figures import style
@@ -57,15 +58,119 @@ def test_opens_with_groups_folded_and_every_row_in_view_at_a_large_size(slide):
     assert "G:" in win.counter.text()                               # the keys are on the slide
 
 
-def test_g_opens_every_group_and_folds_them_again(slide, qtbot):
+def open_groups(view, qtbot):
+    qtbot.keyClick(view.plot, Qt.Key.Key_G)
+    qtbot.wait(20)
+
+
+def labelled_rows(view):
+    """The rows that carry a label now, and the label type."""
+    labels = view.row_axis.generateDrawSpecs(None)[2]
+    assert labels.step == 1                                          # no row shares a label
+    return labels.rows.tolist(), labels.font
+
+
+def centred_rows(view) -> list[int]:
+    """Rows whose centre lies inside the chart, below the header band of the line labels
+    (on a later page it spans the rows before the page: they are not drawn, see
+    ``test_rows_above_a_later_page_leave_the_header_band_to_the_line_labels``)."""
+    top, bottom = rows_in_view(view)
+    return [r for r in range(view.geometry.n_rows) if max(top, view.page_first - 0.5) < r < bottom]
+
+
+def test_g_opens_every_group_as_a_page_of_rows_in_the_present_type(slide, qtbot):
     win, view = slide
     n_acts = len(view.session.plan.activities)
-    qtbot.keyClick(view.plot, Qt.Key.Key_G)
-    assert view.geometry.n_rows == n_acts + len(group_names(view.session.plan))
+    open_groups(view, qtbot)
+    n = view.geometry.n_rows
+    assert n == n_acts + len(group_names(view.session.plan))
+    rows, font = labelled_rows(view)
+    present_px = round(style.PRESENT.label_font_size * 96 / 72)
+    assert font.pixelSize() >= present_px == view.row_axis.floor_px  # the Present type, never smaller
+    assert rows == centred_rows(view) == list(range(len(rows)))      # every row shown is labelled
+    assert 10 <= len(rows) < n
+    assert row_px(view) >= view.legible_row_pitch() - 0.01
+    assert view.row_axis.page_note.splitlines()[0] == f"Rows 1\u2013{len(rows)} of {n}"
+    assert "more rows" in view.row_axis.page_note
+    assert "[ ]" in win.counter.text()                               # the keys are on the slide
+
+
+def test_paging_keys_show_the_next_rows_and_the_note_follows(slide, qtbot):
+    win, view = slide
+    open_groups(view, qtbot)
+    first_page, _ = labelled_rows(view)
+    per = len(first_page)
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)
+    rows, font = labelled_rows(view)
+    assert rows == centred_rows(view) == list(range(per, 2 * per))
+    assert font.pixelSize() >= view.row_axis.floor_px
+    assert view.row_axis.page_note.splitlines()[0] == f"Rows {per + 1}\u2013{2 * per} of {view.geometry.n_rows}"
+    assert "back" in view.row_axis.page_note
+    assert win.current_title() == "Timeline"                         # the key did not step slides
+    qtbot.keyClick(view.plot, Qt.Key.Key_P)                           # back, with the other key
+    assert labelled_rows(view)[0] == first_page
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketLeft)                 # no page before the first
+    assert labelled_rows(view)[0] == first_page
+    qtbot.keyClick(view.plot, Qt.Key.Key_N)
+    assert labelled_rows(view)[0] == list(range(per, 2 * per))
+
+
+def test_the_last_page_ends_at_the_last_row(slide, qtbot):
+    win, view = slide
+    open_groups(view, qtbot)
+    n = view.geometry.n_rows
+    per = len(labelled_rows(view)[0])
+    for _ in range(n // per + 3):                                      # more presses than pages
+        qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)
+    rows, _ = labelled_rows(view)
+    assert rows == centred_rows(view) == list(range(n - per, n))      # a full page, the last row last
+    assert view.row_axis.page_note.splitlines()[0] == f"Rows {n - per + 1}\u2013{n} of {n}"
+    assert "more rows" not in view.row_axis.page_note
+    assert win.current_title() == "Timeline"
+
+
+def test_rows_above_a_later_page_leave_the_header_band_to_the_line_labels(slide, qtbot):
+    win, view = slide
+    open_groups(view, qtbot)
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)
+    qtbot.wait(20)
+    first = view.page_first
+    assert first > 0
+    vb = view.view_box
+    band_bottom = vb.mapViewToScene(QPointF(0, first - 0.5)).y()
+    band_top = vb.sceneBoundingRect().top()
+    assert band_bottom - band_top > 60
+    for name in ("start", "deadline", "p10", "p90"):
+        label = view._lines[name].label
+        rect = label.sceneBoundingRect()
+        assert label.isVisible() and band_top - 1 <= rect.top() and rect.bottom() <= band_bottom + 1, name
+    a, b = (view._lines[k].label.sceneBoundingRect() for k in ("p10", "p90"))
+    assert not a.intersects(b)
+    image = view.plot.grab().toImage()
+    left = round(vb.sceneBoundingRect().left())
+    bar_blue = QColor(style.WORK)
+    inked = [(x, y) for y in range(round(band_top) + 2, round(band_bottom) - 2, 2)
+             for x in range(left + 2, image.width() - 2, 3)
+             if _near(image.pixelColor(x, y), bar_blue)]
+    assert inked == []                                                 # no bars of earlier rows there
+    assert len(view.date_axis.shown_labels()) >= 2                     # the date axis still labelled
+
+
+def _near(colour, target, tol=30) -> bool:
+    return all(abs(a - b) <= tol for a, b in zip(colour.getRgb()[:3], target.getRgb()[:3]))
+
+
+def test_g_again_folds_back_to_the_whole_view(slide, qtbot):
+    win, view = slide
+    open_groups(view, qtbot)
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)
+    open_groups(view, qtbot)                                           # fold them again
+    n = view.geometry.n_rows
+    assert n == len(group_names(view.session.plan))
     top, bottom = rows_in_view(view)
-    assert top <= -0.5 and bottom >= view.geometry.n_rows - 0.5
-    qtbot.keyClick(view.plot, Qt.Key.Key_G)
-    assert view.geometry.n_rows == len(group_names(view.session.plan))
+    assert top <= -0.5 and bottom >= n - 0.5
+    assert labelled_rows(view)[0] == list(range(n))
+    assert view.row_axis.page_note == "" and view.page_first == 0 and view.item.first_row == 0
 
 
 def test_c_shows_the_critical_activities_themselves(slide, qtbot):
