@@ -251,6 +251,8 @@ class TimelineView(QWidget):
     def toggle_group(self, name: str) -> None:
         self.collapsed ^= {name}
         self.refresh()
+        if self.present_hint:      # a slide: the rows (and their pages) are fitted again
+            self.fit_all()
 
     # --- hover (see bar_drag.py for the grab zone) ------------------------------------
     def _hover(self, pos, screen_pos) -> None:
