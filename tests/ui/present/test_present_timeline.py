@@ -217,3 +217,30 @@ def test_date_labels_are_drawn_below_the_chart(slide):
     band = np.array([[image.pixelColor(x, y).lightness() for x in range(axis_rect.left(), axis_rect.right(), 2)]
                      for y in range(axis_rect.top() + 8, min(axis_rect.bottom(), image.height() - 1))])
     assert (band < 100).sum() > 50                                   # dark text pixels under the ticks
+
+
+def test_a_group_folded_on_a_page_refits_the_pages(slide, qtbot):
+    win, view = slide
+    open_groups(view, qtbot)
+    n = view.geometry.n_rows
+    members = sum(1 for a in view.session.plan.activities if a.group == "Approvals")
+    view.toggle_group("Approvals")                                     # what a click on its row does
+    assert view.geometry.n_rows == n - members
+    assert view.row_axis.page_note.splitlines()[0].endswith(f"of {n - members}")
+    rows, _ = labelled_rows(view)
+    assert rows == centred_rows(view) and rows[0] == 0
+
+
+def test_dragging_the_rows_by_hand_leaves_the_pages(slide, qtbot):
+    win, view = slide
+    open_groups(view, qtbot)
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)
+    first = view.page_first
+    assert first > 0
+    view.view_box.sigRangeChangedManually.emit([False, True])          # as a wheel or a drag does
+    assert view.page_first == view.item.first_row == 0 and view.row_axis.page_note == ""
+    rows, font = labelled_rows(view)
+    assert rows[0] < first                                             # the rows above are back
+    assert font.pixelSize() >= view.row_axis.floor_px
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)                 # the pages come back
+    assert view.page_first > 0 and view.row_axis.page_note

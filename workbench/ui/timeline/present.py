@@ -46,6 +46,7 @@ def present_key(view, key) -> bool:
         return True
     if key in NEXT_ROWS or key in PREVIOUS_ROWS:
         view.row_page += 1 if key in NEXT_ROWS else -1
+        view._auto_fit = True    # a page again, also after a resize
         view.fit_all()           # the page is clamped there: no turning past either end
         return True
     return False
@@ -65,6 +66,15 @@ def page_of_rows(view, n: int, room_px: float) -> tuple[int, int]:
     first = min(view.row_page * per, n - per)
     view.row_axis.set_page(first, rows_note(first, per, n))
     return first, per
+
+
+def leave_page(view) -> None:
+    """The rows were zoomed or dragged by hand: every row is drawn again and the page note
+    goes (its row numbers no longer hold); ] / [ or N / P bring the pages back."""
+    if view.page_first or view.row_axis.page_note:
+        view.page_first = view.item.first_row = 0
+        view.row_axis.set_page(0, "")
+        view.item.update()
 
 
 def rows_note(first: int, count: int, n: int) -> str:

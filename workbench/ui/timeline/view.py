@@ -23,8 +23,8 @@ from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
 from workbench.ui.timeline.loading_band import LoadingBand, remember_band
-from workbench.ui.timeline.present import (PRESENT_HINT, fold_all, page_of_rows, plot_resized, present_key,
-                                           stack_finish_labels)
+from workbench.ui.timeline.present import (PRESENT_HINT, fold_all, leave_page, page_of_rows, plot_resized,
+                                           present_key, stack_finish_labels)
 from workbench.ui.timeline.row_axis import FLOOR_PX, TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
 
@@ -181,6 +181,7 @@ class TimelineView(QWidget):
 
     def _stop_auto_fit(self, *args) -> None:
         self._auto_fit = False
+        leave_page(self)
 
     def _font(self, bold: bool = False) -> QFont:
         """Type sized in pixels (points at 96 dpi), so that print, PDF and SVG scale it
