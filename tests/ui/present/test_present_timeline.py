@@ -7,7 +7,7 @@ from __future__ import annotations
 import numpy as np
 import pytest
 from PySide6.QtCore import QPointF, Qt
-from PySide6.QtGui import QColor
+from PySide6.QtGui import QColor, QFontMetricsF
 
 from workbench.core.montecarlo import simulate
 from workbench.figures import style
@@ -15,7 +15,7 @@ from workbench.ui.present.shots import _plan
 from workbench.ui.session import Session
 
 from support.ui import present_at
-from workbench.ui.timeline.present import group_names
+from workbench.ui.timeline.present import continued_group, fold_all, group_names, rows_note
 
 
 @pytest.fixture(scope="module")
@@ -244,3 +244,34 @@ def test_dragging_the_rows_by_hand_leaves_the_pages(slide, qtbot):
     assert font.pixelSize() >= view.row_axis.floor_px
     qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)                 # the pages come back
     assert view.page_first > 0 and view.row_axis.page_note
+
+
+def test_a_page_that_starts_inside_a_group_names_the_group(slide):
+    _, view = slide
+    fold_all(view, False)
+    geo = view.geometry
+    inside = geo.row_of["B6"]
+    assert geo.kinds[inside] != "group"
+    assert continued_group(geo, inside) == "Building works"
+    assert continued_group(geo, geo.keys.index("Services")) == ""      # a page starting at a group row
+    note = rows_note(inside, 17, geo.n_rows, continued_group(geo, inside))
+    assert note.splitlines()[:2] == [f"Rows {inside + 1}\u2013{inside + 17} of {geo.n_rows}",
+                                     "Building works, continued"]
+
+
+@pytest.mark.parametrize("simulated", [False, True])
+def test_the_page_note_sits_above_the_first_label(demo, qtbot, simulated):
+    plan, sim = demo
+    session = Session(plan.copy())
+    if simulated:
+        session.set_simulation(sim)
+    win = present_at(qtbot, session, 1)
+    view = win.stack.currentWidget()
+    open_groups(view, qtbot)
+    qtbot.keyClick(view.plot, Qt.Key.Key_BracketRight)
+    labels = view.row_axis.generateDrawSpecs(None)[2]
+    lines = view.row_axis.page_note.splitlines()
+    assert len(lines) == 4                                             # rows, group, both keys
+    note_bottom = labels.bounds.top() + 2 + len(lines) * QFontMetricsF(labels.font).lineSpacing()
+    first_top = min(top for _, top, *_ in labels.specs())
+    assert note_bottom <= first_top

@@ -15,10 +15,12 @@ from __future__ import annotations
 import math
 
 from PySide6.QtCore import Qt
+from PySide6.QtGui import QFontMetricsF
 
 PRESENT_HINT = "G: groups  \u00b7  C: critical path  \u00b7  [ ]: more rows"
 NEXT_ROWS = {Qt.Key.Key_BracketRight, Qt.Key.Key_N}
 PREVIOUS_ROWS = {Qt.Key.Key_BracketLeft, Qt.Key.Key_P}
+NOTE_LINES = 4       # the page note: rows, the group continued, next and previous keys
 
 
 def group_names(plan) -> set[str]:
@@ -52,6 +54,14 @@ def present_key(view, key) -> bool:
     return False
 
 
+def header_for_pages(view, header_px: float, n: int, height: float) -> float:
+    """The band above the rows on a slide: when the ``n`` rows do not all fit below it, tall
+    enough for the page note too (up to four lines: rows, group, two keys)."""
+    if n * view.legible_row_pitch() <= height - header_px:
+        return header_px
+    return max(header_px, NOTE_LINES * math.ceil(QFontMetricsF(view._font()).height()) + 8.0)
+
+
 def page_of_rows(view, n: int, room_px: float) -> tuple[int, int]:
     """First row and number of rows of the page in view when ``n`` rows share
     ``room_px`` pixels at the pitch that keeps the Present type (``legible_row_pitch``).
@@ -64,8 +74,18 @@ def page_of_rows(view, n: int, room_px: float) -> tuple[int, int]:
     pages = math.ceil(n / per)
     view.row_page = max(0, min(view.row_page, pages - 1))
     first = min(view.row_page * per, n - per)
-    view.row_axis.set_page(first, rows_note(first, per, n))
+    view.row_axis.set_page(first, rows_note(first, per, n, continued_group(view.geometry, first)))
     return first, per
+
+
+def continued_group(geo, row: int) -> str:
+    """The name of the group whose rows a page starting at ``row`` continues ("" when the
+    page starts with a group's own row or an ungrouped activity)."""
+    if geo is None or row >= geo.n_rows or geo.kinds[row] == "group" or not geo.depth[row]:
+        return ""
+    while row > 0 and geo.kinds[row] != "group":
+        row -= 1
+    return geo.labels[row] if geo.kinds[row] == "group" else ""
 
 
 def leave_page(view) -> None:
@@ -77,15 +97,15 @@ def leave_page(view) -> None:
         view.item.update()
 
 
-def rows_note(first: int, count: int, n: int) -> str:
-    """The label column's note on a page of rows: "Rows 16–30 of 52" and, a line each,
-    the keys that reach the others."""
-    keys = []
+def rows_note(first: int, count: int, n: int, group: str = "") -> str:
+    """The label column's note on a page of rows: "Rows 16–30 of 52", the group the page
+    continues and, a line each, the keys that reach the others."""
+    lines = [f"Rows {first + 1}\u2013{first + count} of {n}"] + ([f"{group}, continued"] if group else [])
     if first + count < n:
-        keys.append("] or N: more rows")
+        lines.append("] or N: more rows")
     if first > 0:
-        keys.append("[ or P: back")
-    return "\n".join([f"Rows {first + 1}\u2013{first + count} of {n}"] + keys)
+        lines.append("[ or P: back")
+    return "\n".join(lines)
 
 
 def plot_resized(view) -> None:

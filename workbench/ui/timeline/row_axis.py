@@ -132,7 +132,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         font.setItalic(True)
         p.setFont(font)
         room = labels.bounds.adjusted(PADDING, 2, -PADDING, 0)
-        p.drawText(QRectF(room.left(), room.top(), room.width(), labels.line * 3.3),
+        p.drawText(QRectF(room.left(), room.top(), room.width(), labels.line * 4.4),
                    int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop | Qt.TextFlag.TextWordWrap), note)
 
     def shown_labels(self) -> list[str]:
