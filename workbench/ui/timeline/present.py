@@ -62,20 +62,22 @@ def header_for_pages(view, header_px: float, n: int, height: float) -> float:
     return max(header_px, NOTE_LINES * math.ceil(QFontMetricsF(view._font()).height()) + 8.0)
 
 
-def page_of_rows(view, n: int, room_px: float) -> tuple[int, int]:
-    """First row and number of rows of the page in view when ``n`` rows share
-    ``room_px`` pixels at the pitch that keeps the Present type (``legible_row_pitch``).
-    Pages hold the same number of rows; the last ends at the last row (it may repeat a
-    few rows of the page before). Sets the page and its note in the label column."""
-    per = max(1, int(room_px / view.legible_row_pitch()))
+def page_of_rows(view, n: int, height: float, header_px: float) -> tuple[int, int, float]:
+    """First row, number of rows and header band (pixels) of the page in view when ``n``
+    rows share ``height`` pixels at the pitch that keeps the Present type
+    (``legible_row_pitch``). Pages hold the same number of rows; the last ends at the last
+    row (it may repeat a few rows of the page before). Sets the page and its note in the
+    label column."""
+    header_px = header_for_pages(view, header_px, n, height)
+    per = max(1, int((height - header_px) / view.legible_row_pitch()))
     if n <= per:
         view.row_page = 0
-        return 0, n
+        return 0, n, header_px
     pages = math.ceil(n / per)
     view.row_page = max(0, min(view.row_page, pages - 1))
     first = min(view.row_page * per, n - per)
     view.row_axis.set_page(first, rows_note(first, per, n, continued_group(view.geometry, first)))
-    return first, per
+    return first, per, header_px
 
 
 def continued_group(geo, row: int) -> str:

@@ -23,7 +23,7 @@ from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
 from workbench.ui.timeline.loading_band import LoadingBand, remember_band
-from workbench.ui.timeline.present import (PRESENT_HINT, fold_all, header_for_pages, leave_page, page_of_rows,
+from workbench.ui.timeline.present import (PRESENT_HINT, fold_all, leave_page, page_of_rows,
                                            plot_resized, present_key, stack_finish_labels)
 from workbench.ui.timeline.row_axis import FLOOR_PX, TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
@@ -323,15 +323,14 @@ class TimelineView(QWidget):
         header_px = max(HEADER_PX, lines * (2.0 * self._font().pixelSize() + 1.5))   # a label is ~2 px high
         self.row_axis.set_page(0, "")
         if paged:
-            header_px = header_for_pages(self, header_px, max(geo.n_rows, 1), height)
-            first, n = page_of_rows(self, max(geo.n_rows, 1), height - header_px)
+            first, n, header_px = page_of_rows(self, max(geo.n_rows, 1), height, header_px)
         else:
             first, n = 0, self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, bool(every_row))
         self.page_first = self.item.first_row = first
         header = header_px * n / max(height - header_px, 1.0)
         self.view_box.setLimits(yMin=min(self.view_box.state["limits"]["yLimits"][0], -0.5 - header))
-        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(first - 0.5 - header, first + n - (0.5 if paged else 0.4)),
-                               padding=0)
+        bottom = first + n - (0.5 if paged else 0.4)          # a page: no part of the next row
+        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(first - 0.5 - header, bottom), padding=0)
         stack_finish_labels(self)
 
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
