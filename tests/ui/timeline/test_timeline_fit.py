@@ -99,11 +99,22 @@ def test_short_plan_fits_all_rows(qtbot):
     assert row_pitch_px(v) > v.legible_row_pitch()
 
 
-def test_present_mode_still_fits_every_row(qtbot):
+def test_present_mode_fits_every_row_that_fits_at_full_type(qtbot):
+    v = open_view(qtbot, long_plan(8))
+    v.set_present(True)
+    v.fit_all()
+    assert rows_in_view(v) == list(range(8))
+    assert v.row_axis.page_note == ""
+
+
+def test_present_mode_shows_a_page_of_rows_at_full_type_when_they_do_not_fit(qtbot):
     v = open_view(qtbot, long_plan(40))
     v.set_present(True)
     v.fit_all()
-    assert rows_in_view(v) == list(range(40))
+    rows = rows_in_view(v)
+    assert rows[0] == 0 and 5 <= len(rows) < 40                   # a page from the top, not all 40
+    assert row_pitch_px(v) >= v.legible_row_pitch() - 0.01
+    assert v.row_axis.page_note.startswith(f"Rows 1\u2013{len(rows)} of 40")
 
 
 @pytest.mark.parametrize("height", [400, 768, 1080])

@@ -1,6 +1,7 @@
 """Screenshots of Present mode at projector size, for people to look at:
 ``python -m workbench.ui.present.shots OUTDIR [PLAN] [--iterations N] [--seed S]``
-writes OUTDIR/present-1-summary.png … one per slide, at 1024×768, offscreen."""
+writes OUTDIR/present-1-summary.png … one per slide, at 1024×768, offscreen, and the
+Timeline slide again with its groups open (present-2-timeline-open.png: the first page of rows)."""
 
 from __future__ import annotations
 
@@ -43,14 +44,30 @@ def shoot(outdir, plan, simulation=None, size=SIZE) -> list[Path]:
     out = []
     for index in range(window.slide_count()):
         window.go(index)
-        for _ in range(5):              # let the charts lay out their axes before grabbing
-            app.processEvents()
-            time.sleep(0.05)
-        path = Path(outdir) / f"present-{index + 1}-{window.current_title().lower()}.png"
-        window.grab().save(str(path))
-        out.append(path)
+        name = f"present-{index + 1}-{window.current_title().lower()}"
+        out.append(_grab(app, window, Path(outdir) / f"{name}.png"))
+        if window.current_title() == "Timeline":
+            out.append(_groups_open(app, window, Path(outdir) / f"{name}-open.png"))
     window.close()
     return out
+
+
+def _grab(app, window, path: Path) -> Path:
+    for _ in range(5):              # let the charts lay out their axes before grabbing
+        app.processEvents()
+        time.sleep(0.05)
+    window.grab().save(str(path))
+    return path
+
+
+def _groups_open(app, window, path: Path) -> Path:
+    """The Timeline slide with every group open (what G shows), then folded again."""
+    from workbench.ui.timeline.present import fold_all
+    view = window.stack.currentWidget()
+    fold_all(view, False)
+    _grab(app, window, path)
+    fold_all(view, True)
+    return path
 
 
 def main(argv=None) -> int:

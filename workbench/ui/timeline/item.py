@@ -62,6 +62,7 @@ class TimelineItem(pg.GraphicsObject):
         self._selected_rows = np.zeros(0, dtype=np.int64)
         self._preview: tuple[int, float, float] | None = None   # row, x0, x1 of a dragged bar
         self._nonworking = None     # callable(lo, hi) -> offsets where a non-working stretch lies
+        self.first_row = 0          # rows above it are not drawn (a Present page of later rows)
         self._cache: QImage | None = None    # the settled drawing, for repaints on screen
         self._cache_key = None
         self._cache_at = QPointF()
@@ -166,6 +167,8 @@ class TimelineItem(pg.GraphicsObject):
         t = p.combinedTransform()      # world and window/viewport: exact device pixels
         view = self.viewRect()
         rows = (-1.0, float(self._geo.n_rows)) if view is None else (view.top() - 1, view.bottom() + 1)
+        if self.first_row > 0:      # the band above a page's first row holds only the line labels
+            rows = (max(rows[0], self.first_row - 0.5), rows[1])
         xs = (self._geo.x_range if view is None else (view.left(), view.right()))
         p.save()
         p.resetTransform()

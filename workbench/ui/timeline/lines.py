@@ -87,15 +87,16 @@ class TimelineLines:
         height = max(self.plot.getViewBox().height(), 1.0)
         return min(0.5, (1.0 + band * (label_h + 1.0)) / height)
 
-    def place_labels(self, font) -> None:
+    def place_labels(self, font, first_row: int = 0) -> None:
         """Set each label on a header line and a side of its line where it covers no label
         placed before it (in the order start, status, deadline, P10, P90) and stays inside
         the view: its own place first, then the other side, then the other header lines
         (as many as the band above the first row holds, at least two). A label with no
-        free place is hidden until there is room (zoomed far out): never drawn on another."""
+        free place is hidden until there is room (zoomed far out): never drawn on another.
+        ``first_row``: the row the band sits above (a Present page of later rows)."""
         vb = self.plot.getViewBox()
         box = vb.sceneBoundingRect()
-        header = vb.mapViewToScene(QPointF(0, -0.5)).y() - box.top()
+        header = vb.mapViewToScene(QPointF(0, first_row - 0.5)).y() - box.top()
         taken: list[tuple[int, float, float]] = []
         for name in sorted(self.lines, key=list(LINE_NAMES).index):
             line = self.lines[name]

@@ -2,8 +2,10 @@
 
 Replaces the numeric left axis: one label per visible row, group rows marked with an
 open/closed triangle and their members indented. Rows shorter than the label type get
-smaller type (down to ``FLOOR_PX``) so that every row in view keeps its label; only rows
-shorter than even that share labels with their neighbours.
+smaller type (down to ``floor_px``: ``FLOOR_PX`` in the window, the full label type in
+Present mode) so that every row in view keeps its label; only rows shorter than even that
+share labels with their neighbours. A note at the top of the column says when labels are
+shared, or which rows a Present page shows.
 """
 
 from __future__ import annotations
@@ -42,6 +44,9 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         self._atlas = TimelineLabelAtlas()
         self._slot_of_row = np.zeros(0)            # per row: its label's atlas slot, -1 if unknown
         self._slot_key = None
+        self.floor_px = FLOOR_PX          # labels never get smaller type than this
+        self.page_note = ""               # Present: which rows are on the page, keys for the others
+        self.first_row = 0                # rows above it get no label (a Present page of later rows)
         self.setWidth(int(width))
         self.setStyle(tickLength=0, autoExpandTextSpace=False)
 
@@ -58,6 +63,13 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         self.picture = None
         self.update()
 
+    def set_page(self, first_row: int, note: str) -> None:
+        """A Present page: rows from ``first_row`` on, ``note`` at the top of the column."""
+        if (first_row, note) != (self.first_row, self.page_note):
+            self.first_row, self.page_note = first_row, note
+            self.picture = None
+            self.update()
+
     def label_text(self, row: int) -> str:
         """The text shown for a row (before eliding)."""
         geo = self._geo
@@ -72,7 +84,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
 
     def row_font(self, bounds: QRectF) -> QFont:
         """The label type for the rows in view: the axis's own when rows are tall enough
-        for it, else smaller, in whole pixels, but not below ``FLOOR_PX``."""
+        for it, else smaller, in whole pixels, but not below ``floor_px``."""
         font = QFont(self.style.get("tickFont") or QFont())
         lo, hi = sorted(self.range)
         row_px = bounds.height() / max(hi - lo, 1e-9)
@@ -80,14 +92,14 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         if row_px >= line:
             return font
         size = font.pixelSize() if font.pixelSize() > 0 else font.pointSizeF() * 96.0 / 72.0
-        font.setPixelSize(max(FLOOR_PX, int(size * row_px / line)))
+        font.setPixelSize(max(self.floor_px, int(size * row_px / line)))
         return font
 
     def visible_rows(self, bounds: QRectF, font_px: float) -> range:
         lo, hi = sorted(self.range)
         row_px = bounds.height() / max(hi - lo, 1e-9)
         step = max(1, math.ceil(font_px * LINE_SHARE / max(row_px, 1e-9)))
-        first = max(0, math.ceil(lo - 0.5))
+        first = max(self.first_row, math.ceil(lo - 0.5))
         first = first + (-first) % step
         return range(first, min(self._geo.n_rows, math.floor(hi + 0.5) + 1), step)
 
@@ -113,14 +125,14 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         return "" if step <= 1 else f"Rows too short: 1 label in {step} rows (zoom in)"
 
     def _draw_note(self, p, labels: "RowLabels") -> None:
-        note = self.thinning_note(labels.step)
+        note = self.page_note or self.thinning_note(labels.step)
         if not note:
             return
         font = QFont(labels.font)
         font.setItalic(True)
         p.setFont(font)
         room = labels.bounds.adjusted(PADDING, 2, -PADDING, 0)
-        p.drawText(QRectF(room.left(), room.top(), room.width(), labels.line * 2.2),
+        p.drawText(QRectF(room.left(), room.top(), room.width(), labels.line * 4.4),
                    int(Qt.AlignmentFlag.AlignLeft | Qt.AlignmentFlag.AlignTop | Qt.TextFlag.TextWordWrap), note)
 
     def shown_labels(self) -> list[str]:
@@ -198,7 +210,7 @@ class TimelineRowAxis(TimelineAxisCache, pg.AxisItem):
         return width
 
     def cache_content(self):
-        return None if self._geo is None else id(self._geo)
+        return None if self._geo is None else (id(self._geo), self.first_row, self.page_note)
 
     def drawPicture(self, p, axisSpec, tickSpecs, textSpecs):
         """Like the base class, with group rows in bold; on screen the labels are copied

@@ -23,8 +23,9 @@ from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
 from workbench.ui.timeline.loading_band import LoadingBand, remember_band
-from workbench.ui.timeline.present import PRESENT_HINT, fold_all, present_key, stack_finish_labels
-from workbench.ui.timeline.row_axis import TimelineRowAxis, legible_pitch
+from workbench.ui.timeline.present import (PRESENT_HINT, fold_all, leave_page, page_of_rows,
+                                           plot_resized, present_key, stack_finish_labels)
+from workbench.ui.timeline.row_axis import FLOOR_PX, TimelineRowAxis, legible_pitch
 from workbench.ui.timeline.tooltip import tooltip_text
 
 HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
@@ -46,6 +47,8 @@ class TimelineView(QWidget):
         self.connectors = False
         self._weights = style.SCREEN
         self.present_hint = ""     # keys shown on the Present slide
+        self.row_page = 0          # Present: the page of rows shown when they do not all fit
+        self.page_first = 0        # the first row of that page (0 outside Present)
         self.geometry = None
         self._auto_fit = True      # refit on resize until the user zooms or pans
         self._build()
@@ -78,7 +81,7 @@ class TimelineView(QWidget):
         pi.addItem(self.item)
         self.reference = TimelineLines(self.plot)
         self._lines = self.reference.lines      # name → labelled line (tests, Present)
-        self.view_box.sigResized.connect(lambda *_: stack_finish_labels(self))   # labels apart again
+        self.view_box.sigResized.connect(lambda *_: plot_resized(self))   # labels apart, a page refitted
         self.view_box.sigXRangeChanged.connect(lambda *_: stack_finish_labels(self))
         self._message = pg.TextItem("", color=style.TEXT, anchor=(0, 0))
         self._message.setVisible(False)
@@ -178,6 +181,7 @@ class TimelineView(QWidget):
 
     def _stop_auto_fit(self, *args) -> None:
         self._auto_fit = False
+        leave_page(self)
 
     def _font(self, bold: bool = False) -> QFont:
         """Type sized in pixels (points at 96 dpi), so that print, PDF and SVG scale it
@@ -200,6 +204,11 @@ class TimelineView(QWidget):
                               self._weights.reference_line, self._font(bold=True))
         stack_finish_labels(self)
 
+    def _row_at(self, pos) -> int | None:
+        """The row under ``pos`` (data units); None off the rows and above a Present page."""
+        row = None if self.geometry is None else self.geometry.row_at(pos.y())
+        return None if row is None or row < self.page_first else row
+
     # --- selection -----------------------------------------------------------------
     def _follow_selection(self, ids) -> None:
         geo = self.geometry
@@ -208,7 +217,7 @@ class TimelineView(QWidget):
 
     def _click(self, pos, modifiers) -> None:
         geo = self.geometry
-        row = None if geo is None else geo.row_at(pos.y())
+        row = self._row_at(pos)
         if row is None:
             self.session.select([])
             return
@@ -227,7 +236,7 @@ class TimelineView(QWidget):
         """Right-click on an activity's row: it joins (or becomes) the selection and the
         window offers its menu (``menu_requested``)."""
         geo = self.geometry
-        row = None if geo is None else geo.row_at(pos.y())
+        row = self._row_at(pos)
         if row is None or geo.kinds[row] == "group":
             return
         act_id = geo.keys[row]
@@ -243,13 +252,15 @@ class TimelineView(QWidget):
     def toggle_group(self, name: str) -> None:
         self.collapsed ^= {name}
         self.refresh()
+        if self.present_hint:      # a slide: the rows (and their pages) are fitted again
+            self.fit_all()
 
     # --- hover (see bar_drag.py for the grab zone) ------------------------------------
     def _hover(self, pos, screen_pos) -> None:
         geo = self.geometry
         if self.bar_drag.active is not None:
             return                   # no hover text over a drag in progress
-        row = None if geo is None or pos is None else geo.row_at(pos.y())
+        row = None if pos is None else self._row_at(pos)
         if row is None or geo.kinds[row] == "group":
             self.item.setCursor(Qt.CursorShape.ArrowCursor)
             self.item.setToolTip("")
@@ -286,7 +297,7 @@ class TimelineView(QWidget):
 
     def _drag_start(self, pos) -> bool:
         geo = self.geometry
-        row = None if geo is None else geo.row_at(pos.y())
+        row = self._row_at(pos)
         if row is None or geo.index[row] < 0 or not self.bar_drag.near_end(row, pos.x()):
             return False
         self.bar_drag.start(geo.keys[row], row)
@@ -301,28 +312,34 @@ class TimelineView(QWidget):
         Rows shrink to fit the height, but not below the pitch where each row keeps its
         own label (``legible_pitch``); the rows below are reached by scrolling. With
         ``rows_to_fit`` rows stay at full size; with ``every_row`` every row is squeezed
-        in (labels thinned), which is what Present mode does by default.
+        in (labels in smaller type, or thinned). Present mode shows every row when they
+        fit at that pitch, else the page ``row_page`` of them (``page_of_rows``).
         """
         geo = self.geometry
         if geo is None:
             return
-        if every_row is None:
-            every_row = self._weights is style.PRESENT
+        paged = every_row is None and self._weights is style.PRESENT
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
         height = max(self.view_box.height(), 200.0)
         # lines of labels: start and deadline; status; P10 and P90 apart
         lines = 2 + (geo.finish_whisker is not None) + ("status" in self._lines)
         header_px = max(HEADER_PX, lines * (2.0 * self._font().pixelSize() + 1.5))   # a label is ~2 px high
-        n = self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, every_row)
+        self.row_axis.set_page(0, "")
+        if paged:
+            first, n, header_px = page_of_rows(self, max(geo.n_rows, 1), height, header_px)
+        else:
+            first, n = 0, self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, bool(every_row))
+        self.page_first = self.item.first_row = first
         header = header_px * n / max(height - header_px, 1.0)
         self.view_box.setLimits(yMin=min(self.view_box.state["limits"]["yLimits"][0], -0.5 - header))
-        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(-0.5 - header, n - 0.4), padding=0)
+        bottom = first + n - (0.5 if paged else 0.4)          # a page: no part of the next row
+        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(first - 0.5 - header, bottom), padding=0)
         stack_finish_labels(self)
 
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
         """How many rows (from the top) a fit shows in ``room_px`` pixels."""
-        if every_row:            # Present mode, or asked for: every row, also on a refit after a resize
+        if every_row:            # asked for (Every row)
             return n
         if rows_to_fit:
             return min(n, max(5, int(room_px / self._weights.row_height)))
@@ -382,7 +399,7 @@ class TimelineView(QWidget):
     # --- Present mode and output -------------------------------------------------------------
     def set_present(self, on: bool) -> None:
         """Bigger type and heavier lines for a projector; groups folded so every row fits
-        (keys G and C, see ``timeline_present``)."""
+        (keys G, C and the row pages, see ``timeline.present``)."""
         self._weights = style.PRESENT if on else style.SCREEN
         self.present_hint = PRESENT_HINT if on else ""
         self._apply_weights()
@@ -400,6 +417,7 @@ class TimelineView(QWidget):
 
     def _apply_weights(self) -> None:
         font = self._font()
+        self.row_axis.floor_px = font.pixelSize() if self._weights is style.PRESENT else FLOOR_PX
         self.row_axis.set_font(font)
         self._fit_label_column()
         self.date_axis.setStyle(tickFont=font)
