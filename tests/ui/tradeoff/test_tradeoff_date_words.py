@@ -6,10 +6,8 @@ import re
 import pytest
 
 from test_tradeoff_chance_axis import drawn_labels
-from workbench.core.demo import demo_plan
 from workbench.core.formatting import DAYS, MONTHS
-from workbench.ui.session import Session
-from workbench.ui.tradeoff.view import TradeoffView
+from support.tradeoff import shown_tradeoff_view
 
 
 
@@ -21,15 +19,7 @@ def reads_right(text: str) -> bool:
 
 @pytest.fixture
 def view(qtbot):
-    v = TradeoffView(Session(demo_plan()))
-    qtbot.addWidget(v)
-    v.resize(1920, 1080)
-    v.show()
-    qtbot.waitExposed(v)
-    qtbot.waitUntil(lambda: v.result is not None, timeout=30000)
-    yield v
-    v.runner.stop()
-    v.runner.wait()
+    yield from shown_tradeoff_view(qtbot, (1920, 1080))
 
 
 def test_the_finish_axis_and_the_optimum_read_like_every_date(qtbot, view):

@@ -7,19 +7,12 @@ from workbench.core.demo import demo_plan
 from workbench.ui.session import Session
 from workbench.ui.tradeoff.view import TradeoffView
 
+from support.tradeoff import shown_tradeoff_view
+
 
 @pytest.fixture
 def view(qtbot):
-    session = Session(demo_plan())
-    v = TradeoffView(session)
-    qtbot.addWidget(v)
-    v.resize(1400, 900)
-    v.show()
-    qtbot.waitExposed(v)
-    qtbot.waitUntil(lambda: v.result is not None, timeout=30000)
-    yield v
-    v.runner.stop()
-    v.runner.wait()
+    yield from shown_tradeoff_view(qtbot, (1400, 900))
 
 
 def test_curve_and_textbook_option_are_shown(view):
@@ -112,12 +105,3 @@ def test_clicking_a_crash_row_selects_the_activity(qtbot, view):
     view.table.selectRow(0)
     assert view.session.selected() == [view.table.item(0, 0).text()]
 
-
-def test_the_curve_axis_and_optimum_use_the_plans_one_date_format(qtbot, view):
-    from workbench.core.formatting import MONTHS
-    ticks = view.axis.tickValues(*view.curve_plot.getViewBox().viewRange()[0], view.axis.width() or 800)
-    labels = view.axis.tickStrings(ticks[0][1], 1.0, 1.0) if ticks else []
-    assert labels and not any(text[:1] == "0" for text in labels)          # no "05 Aug 2027"
-    assert any(any(m in text for m in MONTHS) for text in labels)
-    optimum = [i for i in view.curve_plot.getPlotItem().items if hasattr(i, "textItem") and "optimum" in i.textItem.toPlainText()]
-    assert optimum and optimum[0].textItem.toPlainText().split("optimum ")[1][:3] in ("Mon", "Tue", "Wed", "Thu", "Fri", "Sat", "Sun")
