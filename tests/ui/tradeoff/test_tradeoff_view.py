@@ -3,7 +3,6 @@ cancelled, and Apply changes the plan as one undo step."""
 
 import pytest
 
-from workbench.core.demo import demo_plan
 from workbench.ui.session import Session
 from workbench.ui.tradeoff.view import TradeoffView
 
