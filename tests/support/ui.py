@@ -108,3 +108,12 @@ def present_at(qtbot, session, slide: int = 0):
     if slide:
         win.go(slide)
     return win
+
+
+def shown(qtbot, widget, size: tuple[int, int]):
+    """``widget`` handed to qtbot (closed after the test), sized, shown and exposed."""
+    qtbot.addWidget(widget)
+    widget.resize(*size)
+    widget.show()
+    qtbot.waitExposed(widget)
+    return widget

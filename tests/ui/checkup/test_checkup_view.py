@@ -12,17 +12,13 @@ from workbench.ui.checkup.keeper import checkup_keeper
 from workbench.ui.checkup.view import CheckupView
 from workbench.ui.session import Session
 
-from support.ui import sample_plan
+from support.ui import shown, sample_plan
 
 
 @pytest.fixture
 def view(qtbot):
     session = Session(sample_plan())
-    v = CheckupView(session)
-    qtbot.addWidget(v)
-    v.resize(900, 600)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, CheckupView(session), (900, 600))
     return v
 
 
@@ -140,11 +136,7 @@ def test_a_wide_window_shows_every_threshold_whole_and_a_dock_keeps_the_figures(
 
     session = Session(demo_plan())
     checkup_keeper(session, threaded=False)
-    v = CheckupView(session)
-    qtbot.addWidget(v)
-    v.resize(1900, 900)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, CheckupView(session), (1900, 900))
     assert v.table.columnWidth(3) >= v.table.sizeHintForColumn(3)
     v.resize(470, 600)
     qtbot.wait(20)

@@ -6,17 +6,14 @@ from workbench.core.demo import demo_plan
 from workbench.core.montecarlo import simulate
 from workbench.figures import drivers as fdr
 from workbench.ui.drivers.chart import DriversChart
+from support.ui import shown
 
 
 @pytest.mark.parametrize("width", [260, 360, 900])
 def test_values_stay_inside_the_plot(qtbot, width):
     plan = demo_plan()
     sim = simulate(plan, 400, seed=6)
-    chart = DriversChart("Sensitivity", "rank correlation", True)
-    qtbot.addWidget(chart)
-    chart.resize(width, 320)
-    chart.show()
-    qtbot.waitExposed(chart)
+    chart = shown(qtbot, DriversChart("Sensitivity", "rank correlation", True), (width, 320))
     chart.set_bars(fdr.sensitivity_bars(sim, plan, 8))
     qtbot.wait(30)
     box = chart.getPlotItem().vb.sceneBoundingRect()

@@ -12,16 +12,13 @@ from workbench.ui.drivers.view import DriversView
 from workbench.ui.session import Session
 
 from support.plans import house_plan
+from support.ui import shown
 
 
 @pytest.fixture
 def drivers(qtbot):
     session = Session(house_plan())
-    v = DriversView(session)
-    qtbot.addWidget(v)
-    v.resize(1400, 800)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, DriversView(session), (1400, 800))
     return v
 
 

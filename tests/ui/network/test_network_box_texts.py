@@ -11,6 +11,7 @@ from workbench.core.formatting import format_date
 from workbench.ui.network import detail
 from workbench.ui.network.view import NetworkView
 from workbench.ui.session import Session
+from support.ui import shown
 
 
 def screen_scale(view) -> float:
@@ -44,11 +45,7 @@ def test_the_demo_in_the_docked_network_shows_names(window, qtbot):
 
 
 def zoomed(qtbot, node_px: float):
-    view = NetworkView(Session(demo_plan()))
-    qtbot.addWidget(view)
-    view.resize(900, 420)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, NetworkView(Session(demo_plan())), (900, 420))
     i = view.layout_result.index_of("B4")
     x, y, w, h = map(float, view.layout_result.boxes[i])
     span = w * view.viewbox.width() / node_px

@@ -6,6 +6,7 @@ from PySide6.QtCore import QPointF
 from support.plans import small_plan
 from workbench.ui.network.view import NetworkView
 from workbench.ui.session import Session
+from support.ui import shown
 
 
 def _share_of_width(view) -> float:
@@ -32,11 +33,7 @@ def test_a_small_plan_fills_the_dock_when_first_shown(qtbot):
 
 
 def test_after_the_user_zooms_a_resize_keeps_the_view(qtbot):
-    view = NetworkView(Session(small_plan()))
-    qtbot.addWidget(view)
-    view.resize(900, 600)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, NetworkView(Session(small_plan())), (900, 600))
     qtbot.wait(50)
     view.viewbox.scaleBy((0.5, 0.5))            # zoom in
     view.viewbox.sigRangeChangedManually.emit(view.viewbox.state["mouseEnabled"])
@@ -48,11 +45,7 @@ def test_after_the_user_zooms_a_resize_keeps_the_view(qtbot):
 def test_a_newly_opened_small_plan_is_fitted_not_drawn_at_the_old_plans_scale(qtbot):
     from workbench.core.demo import demo_plan
     session = Session(demo_plan())
-    view = NetworkView(session)
-    qtbot.addWidget(view)
-    view.resize(900, 600)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, NetworkView(session), (900, 600))
     qtbot.wait(50)
     session.load(small_plan())            # File → Open of a small plan
     qtbot.wait(50)

@@ -12,16 +12,13 @@ from workbench.ui.network.view import NetworkView
 from workbench.ui.session import Session
 
 from support.plans import small_plan
+from support.ui import shown
 
 
 @pytest.fixture
 def view(qtbot):
     session = Session(small_plan())
-    v = NetworkView(session)
-    qtbot.addWidget(v)
-    v.resize(900, 600)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, NetworkView(session), (900, 600))
     return v
 
 
@@ -248,11 +245,7 @@ def test_print_preview_is_landscape_and_paints(view, qtbot, tmp_path):
 def test_far_out_picture_follows_edits_and_pans(qtbot):
     acts = [Activity(id=f"K{i}", duration=1.0) for i in range(40)] + [Activity(id="S", duration=5.0)]
     links = [Link(f"K{i}", f"K{i + 1}") for i in range(39)] + [Link("K0", "S"), Link("S", "K39")]
-    v = NetworkView(Session(Plan(Settings(title="far"), acts, links)))
-    qtbot.addWidget(v)
-    v.resize(900, 500)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, NetworkView(Session(Plan(Settings(title="far"), acts, links))), (900, 500))
     v.fit()
     v.graphics.repaint()
     assert v.item.painter.node_px(v.viewbox.viewPixelSize()[0] ** -1) < 40     # far out

@@ -13,6 +13,7 @@ from workbench.core.demo import demo_plan
 from workbench.core.montecarlo import simulate
 from workbench.ui.odds.view import OddsView
 from workbench.ui.session import Session
+from support.ui import shown
 
 
 @pytest.fixture(scope="module")
@@ -25,11 +26,7 @@ def demo():
 def view(request, qtbot, demo):
     plan, sim = demo
     session = Session(plan.copy())
-    v = OddsView(session)
-    qtbot.addWidget(v)
-    v.resize(*request.param)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, OddsView(session), request.param)
     session.set_simulation(sim)
     qtbot.wait(30)
     yield v

@@ -13,14 +13,11 @@ from workbench.ui.resources.view import ResourcesView
 from workbench.ui.session import Session
 
 from support.plans import house_plan
+from support.ui import shown
 
 
 def _view(qtbot, session):
-    v = OddsView(session)
-    qtbot.addWidget(v)
-    v.resize(1400, 900)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, OddsView(session), (1400, 900))
     return v
 
 

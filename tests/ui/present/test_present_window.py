@@ -10,7 +10,7 @@ from PySide6.QtGui import QColor
 from PySide6.QtWidgets import QWidget
 
 from support.plans import footbridge_plan
-from support.ui import present_at
+from support.ui import shown, present_at
 from workbench.core.commands import EditActivity
 from workbench.figures import style
 from workbench.figures.headline import percent
@@ -103,11 +103,7 @@ def _orange_pixels(widget) -> int:
 @pytest.fixture
 def odds_slide(qtbot):
     session = Session(footbridge_plan())
-    slide = PresentOddsSlide(session)
-    qtbot.addWidget(slide)
-    slide.resize(1024, 680)
-    slide.show()
-    qtbot.waitExposed(slide)
+    slide = shown(qtbot, PresentOddsSlide(session), (1024, 680))
     return slide
 
 

@@ -6,15 +6,12 @@ from PySide6.QtGui import QImage, QPainter
 from workbench.core.demo import demo_plan
 from workbench.ui.resources.view import ResourcesView
 from workbench.ui.session import Session
+from support.ui import shown
 
 
 @pytest.mark.parametrize("size", [(580, 420), (1200, 800)])
 def test_the_top_unit_label_is_inside_the_chart(qtbot, size):
-    view = ResourcesView(Session(demo_plan()))
-    qtbot.addWidget(view)
-    view.resize(*size)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, ResourcesView(Session(demo_plan())), size)
     try:
         qtbot.wait(50)
         axis = view.plot.getAxis("left")

@@ -11,16 +11,13 @@ from workbench.ui.resources.view import NO_RESOURCES, ResourcesView
 from workbench.ui.session import Session
 
 from support.plans import small_plan
+from support.ui import shown
 
 
 @pytest.fixture
 def view(qtbot):
     session = Session(demo_plan())
-    v = ResourcesView(session)
-    qtbot.addWidget(v)
-    v.resize(1200, 800)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, ResourcesView(session), (1200, 800))
     yield v
     v.odds.stop()
 
@@ -75,11 +72,7 @@ def test_the_odds_caution_names_pert_and_claims_no_independence_the_run_lacks(vi
 def test_in_a_half_width_dock_the_resource_name_is_not_cut(qtbot):
     """At 1024×768 the Resources dock is about 520 px wide: the crew's name in the chooser
     reads whole ("Electricia" was all that showed) and the view asks for no more width."""
-    v = ResourcesView(Session(demo_plan()))
-    qtbot.addWidget(v)
-    v.resize(520, 430)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, ResourcesView(Session(demo_plan())), (520, 430))
     box = v.resource_box
     assert v.minimumSizeHint().width() <= 520
     assert box.width() >= box.fontMetrics().horizontalAdvance(box.currentText()) + 20

@@ -8,14 +8,11 @@ from support.plans import footbridge_plan
 from workbench.core.commands import EditActivity, SetSettings
 from workbench.ui.session import Session
 from workbench.ui.timeline.view import TimelineView
+from support.ui import shown
 
 
 def _view(qtbot):
-    view = TimelineView(Session(footbridge_plan()))
-    qtbot.addWidget(view)
-    view.resize(900, 500)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, TimelineView(Session(footbridge_plan())), (900, 500))
     view.fit_all()
     view.view_box.setXRange(0, 40, padding=0)        # days on the axis: holidays move ticks
     qtbot.wait(10)

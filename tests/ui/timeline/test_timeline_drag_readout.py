@@ -13,6 +13,7 @@ from workbench.core.formatting import format_date
 from workbench.ui.session import Session
 from workbench.ui.timeline.view import TimelineView
 from support.timeline import bar_of
+from support.ui import shown
 
 
 def plan(unit="days"):
@@ -26,11 +27,7 @@ def plan(unit="days"):
 
 @pytest.fixture
 def view(qtbot):
-    v = TimelineView(Session(plan()))
-    qtbot.addWidget(v)
-    v.resize(1024, 500)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(plan())), (1024, 500))
     v.fit_all()
     qtbot.wait(20)          # the item's transform follows the fitted range
     return v
@@ -91,11 +88,7 @@ def test_an_estimate_shows_te_and_most_likely_and_lands_on_whole_days(view):
 
 
 def test_a_plan_in_weeks_snaps_to_a_working_day(qtbot):
-    v = TimelineView(Session(plan("weeks")))
-    qtbot.addWidget(v)
-    v.resize(1024, 500)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(plan("weeks"))), (1024, 500))
     v.fit_all()
     qtbot.wait(20)
     row, es, ef = bar_end(v, "D")

@@ -13,6 +13,7 @@ from workbench.core import Activity, Link, Plan, Settings
 from workbench.ui.session import Session
 from workbench.ui.timeline.output import render_image
 from workbench.ui.timeline.view import TimelineView
+from support.ui import shown
 
 PROJECTOR = (1024, 768)
 
@@ -24,11 +25,7 @@ def long_plan(n=100):
 
 
 def open_view(qtbot, plan, size=PROJECTOR):
-    v = TimelineView(Session(plan))
-    qtbot.addWidget(v)
-    v.resize(*size)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(plan)), size)
     return v
 
 

@@ -20,11 +20,7 @@ class Runs:
 
 def test_labels_stay_in_the_header_and_apart(qtbot):
     session = Session(footbridge_plan())
-    view = TimelineView(session)
-    qtbot.addWidget(view)
-    view.resize(1400, 700)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, TimelineView(session), (1400, 700))
     qtbot.wait(50)
     finish = session.analysis.schedule.finish
     session.set_simulation(Runs(session.analysis.schedule.ids, np.linspace(finish - 4, finish + 9, 101)))
@@ -61,17 +57,14 @@ def _assert_apart_above_and_inside(view):
 
 
 import pytest  # noqa: E402
+from support.ui import shown
 
 
 @pytest.mark.parametrize("size", [(590, 358), (788, 358)])      # the dock at 1024×768 and 1366×768
 @pytest.mark.parametrize("simulated", [False, True])
 def test_labels_apart_in_a_small_dock_and_after_zooming_out(qtbot, size, simulated):
     session = Session(footbridge_plan())
-    view = TimelineView(session)
-    qtbot.addWidget(view)
-    view.resize(*size)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, TimelineView(session), size)
     if simulated:
         finish = session.analysis.schedule.finish
         session.set_simulation(Runs(session.analysis.schedule.ids, np.linspace(finish - 4, finish + 9, 101)))

@@ -13,17 +13,14 @@ from workbench.ui.session import Session
 from workbench.ui.timeline.output import render_image
 from workbench.ui.timeline.paint_living import BASELINE, DONE, SLIPPED
 from workbench.ui.timeline.view import TimelineView
+from support.ui import shown
 
 SAMPLE = Path(__file__).resolve().parents[2] / "data" / "harbour_kiosk_progress_v3.slw"
 
 
 @pytest.fixture
 def view(qtbot):
-    v = TimelineView(Session(load_plan(SAMPLE)))
-    qtbot.addWidget(v)
-    v.resize(1200, 600)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(load_plan(SAMPLE))), (1200, 600))
     v.fit_all()
     qtbot.wait(20)
     return v

@@ -12,14 +12,11 @@ from workbench.ui.session import Session
 from workbench.ui.timeline.view import TimelineView
 
 from support.plans import small_plan
+from support.ui import shown
 
 
 def _shown(qtbot, plan, size=(1024, 768)):
-    v = TimelineView(Session(plan))
-    qtbot.addWidget(v)
-    v.resize(*size)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(plan)), size)
     v.fit_all()
     return v
 

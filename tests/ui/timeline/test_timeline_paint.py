@@ -19,6 +19,7 @@ from workbench.figures.timeline import Marks
 from workbench.ui.session import Session
 from workbench.ui.timeline.paint import merge_runs, visible_x
 from workbench.ui.timeline.view import TimelineView
+from support.ui import shown
 
 
 def chain_plan(n: int) -> Plan:
@@ -30,11 +31,7 @@ def chain_plan(n: int) -> Plan:
 
 @pytest.fixture
 def view(qtbot):
-    v = TimelineView(Session(chain_plan(60)))
-    qtbot.addWidget(v)
-    v.resize(1100, 700)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(chain_plan(60))), (1100, 700))
     v.fit_all()
     qtbot.wait(20)
     return v
@@ -311,11 +308,7 @@ def test_slack_lines_and_bars_in_one_pass_match_drawing_each_style(qtbot, monkey
     route, with bars cut at the view's edges, bars under one pixel wide (stroked) and
     several row pitches."""
     from workbench.ui.timeline import fused as timeline_fused
-    v = TimelineView(Session(mixed_plan(80, seed)))
-    qtbot.addWidget(v)
-    v.resize(1000, 640)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(mixed_plan(80, seed))), (1000, 640))
     v.fit_all()
     if move == "zoom in":
         v.zoom(6.0)

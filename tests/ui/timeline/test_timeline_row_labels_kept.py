@@ -8,7 +8,7 @@ import math
 from PySide6.QtCore import Qt
 from PySide6.QtGui import QFontMetricsF
 
-from support.ui import present_at
+from support.ui import shown, present_at
 from workbench.core import Activity, Link, Plan, Settings
 from workbench.ui.present.shots import _plan
 from workbench.ui.session import Session
@@ -49,11 +49,7 @@ def chain(n: int) -> Plan:
 
 
 def _dock(qtbot, n, size):
-    view = TimelineView(Session(chain(n)))
-    qtbot.addWidget(view)
-    view.resize(*size)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, TimelineView(Session(chain(n))), size)
     view.fit_every_row()
     qtbot.wait(10)
     return view

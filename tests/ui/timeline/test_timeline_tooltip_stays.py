@@ -9,15 +9,12 @@ from support.plans import small_plan
 from workbench.ui.session import Session
 from workbench.ui.timeline.tooltip import tooltip_text
 from workbench.ui.timeline.view import TimelineView
+from support.ui import shown
 
 
 def test_tooltip_survives_the_pointer_coming_to_rest(qtbot):
     session = Session(small_plan())
-    view = TimelineView(session)
-    qtbot.addWidget(view)
-    view.resize(1000, 500)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, TimelineView(session), (1000, 500))
     qtbot.wait(50)                                            # laid out
     view.fit_all()
     qtbot.wait(50)

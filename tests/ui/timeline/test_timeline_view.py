@@ -16,6 +16,7 @@ from workbench.ui.session import Session
 from workbench.ui.timeline.output import export_pdf, export_svg, render_image
 from workbench.ui.timeline.view import TimelineView
 from support.timeline import bar_of
+from support.ui import shown
 
 
 def small_plan(deadline=None):
@@ -30,11 +31,7 @@ def small_plan(deadline=None):
 
 def shown_view(qtbot, session: Session, size: tuple[int, int]) -> TimelineView:
     """A Timeline on screen at ``size``, fitted."""
-    v = TimelineView(session)
-    qtbot.addWidget(v)
-    v.resize(*size)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(session), size)
     v.fit_all()
     return v
 
@@ -314,11 +311,7 @@ def test_hover_shows_the_activity_numbers(view):
 def test_long_labels_are_elided_to_the_column(qtbot):
     plan = small_plan()
     plan.replace_activity("D", plan.activity("D").with_(name="Paint every wall, door, window frame and skirting board twice"))
-    v = TimelineView(Session(plan))
-    qtbot.addWidget(v)
-    v.resize(700, 400)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(plan)), (700, 400))
     assert v.row_axis.width() <= 0.32 * 700 + 1
     render_image(v)                    # paints the label column
     texts = v.row_axis.shown_labels()
@@ -328,11 +321,7 @@ def test_long_labels_are_elided_to_the_column(qtbot):
 def test_only_rows_on_screen_are_painted(qtbot):
     acts = [Activity(f"T{i}", duration=1 + i % 5) for i in range(300)]
     plan = Plan(Settings(start=dt.date(2026, 12, 7)), acts, [Link(f"T{i}", f"T{i + 1}") for i in range(299)])
-    v = TimelineView(Session(plan))
-    qtbot.addWidget(v)
-    v.resize(1000, 600)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(plan)), (1000, 600))
     v.view_box.setYRange(100, 120, padding=0)
     render_image(v)
     assert 15 <= v.item.painted_rows <= 25

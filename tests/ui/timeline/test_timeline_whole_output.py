@@ -12,6 +12,7 @@ from workbench.core import Activity, Link, Plan, Settings
 from workbench.ui.session import Session
 from workbench.ui.timeline import output
 from workbench.ui.timeline.view import TimelineView
+from support.ui import shown
 
 LONG = "Commission heating, ventilation and water systems in the east wing plant room"
 
@@ -24,11 +25,7 @@ def _plan(n=70):
 
 @pytest.fixture
 def view(qtbot):
-    v = TimelineView(Session(_plan()))
-    qtbot.addWidget(v)
-    v.resize(900, 500)
-    v.show()
-    qtbot.waitExposed(v)
+    v = shown(qtbot, TimelineView(Session(_plan())), (900, 500))
     qtbot.wait(50)
     v.fit_all()
     qtbot.wait(50)

@@ -8,6 +8,7 @@ import pytest
 from workbench.core.demo import demo_plan
 from workbench.ui.session import Session
 from workbench.ui.tradeoff.view import TradeoffView
+from support.ui import shown
 
 
 def _plan(indirect: float):
@@ -38,19 +39,15 @@ def test_the_optimum_label_is_inside_the_chart(qtbot, indirect):
 
 
 def test_the_hint_to_find_confidence_plans_fits_the_narrow_chance_chart(qtbot):
-    view = TradeoffView(Session(_plan(2400.0)))
-    qtbot.addWidget(view)
-    view.resize(570, 600)
-    view.show()
-    qtbot.waitExposed(view)
+    view = shown(qtbot, TradeoffView(Session(_plan(2400.0))), (570, 600))
     qtbot.waitUntil(lambda: view.result is not None, timeout=30000)
     try:
         qtbot.wait(50)
         plot = view.chance_plot.getPlotItem()
         hints = [i for i in plot.items if hasattr(i, "textItem") and "confidence plans" in i.textItem.toPlainText()]
         assert len(hints) == 1
-        inside, shown = plot.vb.sceneBoundingRect(), hints[0].textItem.sceneBoundingRect()
-        assert inside.left() <= shown.left() and shown.right() <= inside.right(), (inside, shown)
+        inside, hint = plot.vb.sceneBoundingRect(), hints[0].textItem.sceneBoundingRect()
+        assert inside.left() <= hint.left() and hint.right() <= inside.right(), (inside, hint)
     finally:
         view.runner.stop()
         view.runner.wait()
