@@ -25,3 +25,20 @@ def test_unlimited_units_give_the_logic_only_run_for_the_same_seed():
     # the finish milestone O3 ties with O2 that leads into it: both are on every run's critical path
     assert dict(zip(logic.ids, logic.criticality)) == dict(zip(aware.ids, aware.criticality))
     assert dict(zip(aware.ids, aware.criticality))["O3"] == 1.0
+
+
+def test_two_predecessors_that_tie_are_both_critical_with_the_crews():
+    """Two fixed-length branches into one activity finish together in every run: both have
+    no float, so both are critical with the crews as without them (not one chosen)."""
+    import datetime as dt
+
+    from workbench.core.model import Activity, Link, Plan, Settings
+    need = (("crew", 1.0),)
+    acts = [Activity("A", duration=3, resources=need), Activity("B", duration=3, resources=need),
+            Activity("C", optimistic=1, most_likely=2, pessimistic=4, resources=need)]
+    plan = Plan(Settings(start=dt.date(2027, 3, 1)), acts, [Link("A", "C"), Link("B", "C")],
+                resources=[Resource("crew", "Crew", 10.0)])
+    logic = simulate(plan, 200, seed=4)
+    aware = simulate(plan, 200, seed=4, resources=True)
+    assert dict(zip(aware.ids, aware.criticality)) == {"A": 1.0, "B": 1.0, "C": 1.0}
+    assert np.array_equal(logic.criticality, aware.criticality)

@@ -9,10 +9,11 @@ done work sits on its actual dates and holds no crew any more, remaining work st
 after the status date and waits for the crews (the floors and cut links of
 :mod:`.progress`, through :func:`.levelling.engine_bounds`).
 
-An activity counts as critical in an iteration when it lies on the driving chain back
-from an activity that finishes last (every one that ties for last, such as a finish
-milestone): each activity's driver is the predecessor whose link set its start or, when
-a resource held it, the activity that finished at that moment and freed the resource.
+An activity counts as critical in an iteration when it drives an activity that finishes
+last (every one that ties for last, such as a finish milestone), through a chain of
+drivers: an activity's drivers are the predecessors whose links set its start (all of
+them when they tie, as all have no float) or, when a resource held it, the activities
+that finished at that moment and freed the resource.
 """
 
 from __future__ import annotations
@@ -58,26 +59,29 @@ class ResourcePasses:
         return finish, critical
 
     def _critical(self, finish: float, starts, ends, why, offsets) -> set[int]:
-        """Every activity on a driving chain back from an activity that finishes last (a
-        finish milestone ties with the work before it: both are critical)."""
+        """Every activity driving an activity that finishes last (a finish milestone ties
+        with the work before it: both are critical)."""
         found: set[int] = set()
         for last in range(len(ends)):
             if ends[last] >= finish - EPS and last not in found:
                 found.update(self._chain(last, starts, ends, why, offsets))
         return found
 
-    def _chain(self, last: int, starts, ends, why, offsets) -> list[int]:
-        problem, chain, j, seen = self.leveller.problem, [], last, set()
-        while j is not None and j not in seen:
-            seen.add(j)
-            chain.append(j)
+    def _chain(self, last: int, starts, ends, why, offsets) -> set[int]:
+        """Every activity that drives ``last``, back to the start: all predecessors whose
+        links set its start (when two tie, both drive it, as both have no float) or, when a
+        resource held it, every activity that freed that resource at that moment."""
+        problem, found, todo = self.leveller.problem, set(), [last]
+        while todo:
+            j = todo.pop()
+            if j in found:
+                continue
+            found.add(j)
             s = starts[j]
             if why[j].resource is not None:
                 r = problem.resource_ids.index(why[j].resource)
-                j = next((k for k in range(problem.n) if k not in seen and abs(ends[k] - s) < EPS
-                          and any(rr == r for rr, _ in problem.needs[k])), None)
-                continue
-            j = next((i for i, e in problem.preds[j] if abs(starts[i] + offsets[e] - s) < EPS and s > problem.floor[j] - EPS
-                      and i not in seen), None)
-        return chain
-
+                todo.extend(k for k in range(problem.n) if k not in found and abs(ends[k] - s) < EPS
+                            and any(rr == r for rr, _ in problem.needs[k]))
+            elif s > problem.floor[j] - EPS:
+                todo.extend(i for i, e in problem.preds[j] if i not in found and abs(starts[i] + offsets[e] - s) < EPS)
+        return found
