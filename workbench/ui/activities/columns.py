@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import datetime as dt
 import math
+import re
 from dataclasses import dataclass
 
 from workbench.core import formatting as fm
@@ -106,8 +107,29 @@ def format_date(value) -> str:
     return fm.format_date(value)
 
 
+_GROUPED = re.compile(r"[+-]?\d{1,3}(,\d{3})+(\.\d+)?")            # 12,500.50  1,500
+_GROUPED_DOT = re.compile(r"[+-]?\d{1,3}((\.\d{3})+,\d+|(\.\d{3}){2,})")  # 12.500,50  1.500.000
+_SPACES = str.maketrans("", "", " \u00a0\u202f\u2009")
+
+
+def read_number_text(text: str) -> str:
+    """Typed number text in Python's own form. One rule for every number cell: spaces group
+    digits; a comma before groups of three digits groups thousands ("1,500" is 1500, as the
+    table writes amounts); a dot is the decimal point ("1.500" is 1.5) unless dots group
+    thousands before a decimal comma ("12.500,50") or group twice ("1.500.000"); any other
+    single comma is a decimal comma ("1,5")."""
+    text = text.strip().translate(_SPACES)
+    if _GROUPED.fullmatch(text):
+        return text.replace(",", "")
+    if _GROUPED_DOT.fullmatch(text):
+        return text.replace(".", "").replace(",", ".")
+    if text.count(",") == 1 and "." not in text:
+        return text.replace(",", ".")
+    return text
+
+
 def parse_number(text: str, act_id: str, title: str) -> float | None:
-    text = text.strip().replace(",", ".") if text.count(",") == 1 and "." not in text else text.strip()
+    text = read_number_text(text)
     if not text:
         return None
     try:

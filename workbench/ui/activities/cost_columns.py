@@ -12,23 +12,12 @@ step is one.
 
 from __future__ import annotations
 
-import re
-
 from workbench.core.crash_terms import CRASH_POINTS
 
 KEYS = ("cost", "crash_cost") + CRASH_POINTS + ("crash_duration",)
-_GROUPED = re.compile(r"\d{1,3}(,\d{3})+(\.\d+)?")          # 12,500.50
-_GROUPED_DOT = re.compile(r"\d{1,3}(\.\d{3})+(,\d+)?")      # 12.500,50
-
-
 def parse_money(text: str, act_id: str, title: str, parse_number) -> float | None:
-    """A typed amount: "12500", "12,500", "12 500", "12.500,50" or a decimal comma
-    ("99,5"); a comma before groups of three digits separates thousands."""
-    text = text.strip().replace("\u00a0", "").replace("\u202f", "").replace(" ", "")
-    if _GROUPED.fullmatch(text):
-        text = text.replace(",", "")
-    elif _GROUPED_DOT.fullmatch(text):
-        text = text.replace(".", "").replace(",", ".")
+    """A typed amount, read as every number cell reads: "12500", "12,500", "12 500",
+    "12.500,50" or a decimal comma ("99,5")."""
     return parse_number(text, act_id, title)
 
 
