@@ -8,7 +8,7 @@ A zero variance gives an exact step (0 or 1), never NaN.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 
 import numpy as np
 

@@ -147,7 +147,7 @@ def engine_inputs(frame: ProgressFrame, net, floor: np.ndarray) -> EngineInputs:
 def out_of_sequence(frame: ProgressFrame, net) -> list[str]:
     """Warnings for work started (or finished) before a predecessor's link allows it,
     naming both activities. Accepted: the engine applies the plan's rule."""
-    state, a_s, a_f = frame.state, frame.actual_start, frame.actual_finish
+    a_s, a_f = frame.actual_start, frame.actual_finish
     src, dst, lag = net.src, net.dst, net.lag
     from_fin, to_fin = net.src_fin > 0, net.dst_fin > 0
     pred_time = np.where(from_fin, a_f[src], a_s[src])     # NaN when that end has not happened

@@ -10,7 +10,6 @@ from __future__ import annotations
 
 import datetime as dt
 
-from workbench.core.calendar import round_offset
 from workbench.core.progress import has_progress
 from workbench.core.progress_json import progress_columns, variance_columns
 

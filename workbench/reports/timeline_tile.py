@@ -8,7 +8,7 @@ from reportlab.lib import colors
 
 from . import marks as mk
 from . import fonts, styles
-from .axes import Axes, text_width
+from .axes import Axes
 from .tables import fit
 from .timeline_living_paint import draw_living, living_legend
 

@@ -23,7 +23,7 @@ import threading
 import time
 import weakref
 from dataclasses import dataclass, field
-from typing import Any, Callable
+from typing import Callable
 
 import shiboken6
 from PySide6.QtCore import QObject, Signal, Slot

@@ -10,7 +10,6 @@
 
 from __future__ import annotations
 
-import numpy as np
 from PySide6.QtCore import QPointF, Qt
 from PySide6.QtGui import QPainter, QPainterPath, QPolygonF
 

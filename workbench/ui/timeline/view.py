@@ -10,7 +10,7 @@ draws it and turns gestures into session calls and core commands.
 from __future__ import annotations
 
 import pyqtgraph as pg
-from PySide6.QtCore import QEvent, QObject, QPoint, Qt, Signal
+from PySide6.QtCore import QPoint, Qt, Signal
 from PySide6.QtGui import QAction, QFont
 from PySide6.QtWidgets import QToolBar, QToolTip, QVBoxLayout, QWidget
 
@@ -22,16 +22,14 @@ from workbench.ui.timeline.reveal import menu_keys
 from workbench.ui.timeline.date_axis import TimelineDateAxis
 from workbench.ui.timeline.item import TimelineItem, nonworking_finder
 from workbench.ui.timeline.lines import TimelineLines
+from workbench.ui.timeline.navigation import TimelineNavigation
 from workbench.ui.timeline.loading_band import LoadingBand, remember_band
-from workbench.ui.timeline.present import (PRESENT_HINT, fold_all, leave_page, page_of_rows,
-                                           plot_resized, present_key, stack_finish_labels)
-from workbench.ui.timeline.row_axis import FLOOR_PX, TimelineRowAxis, legible_pitch
+from workbench.ui.timeline.present import PRESENT_HINT, fold_all, leave_page, plot_resized, stack_finish_labels
+from workbench.ui.timeline.row_axis import FLOOR_PX, TimelineRowAxis
 from workbench.ui.timeline.tooltip import tooltip_text
 
-HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
 
-
-class TimelineView(QWidget):
+class TimelineView(TimelineNavigation, QWidget):
     """``TimelineView(session)``: the Timeline of the session's plan."""
 
     duration_dragging = Signal(str, float)   # activity id, most likely value (continuous)
@@ -306,53 +304,6 @@ class TimelineView(QWidget):
         return True
 
     # --- zoom, pan, filters -------------------------------------------------------------
-    def fit_all(self, rows_to_fit: bool = False, every_row: bool | None = None) -> None:
-        """Fit the plan's dates to the width, and as many rows as stay legible from the top.
-
-        Rows shrink to fit the height, but not below the pitch where each row keeps its
-        own label (``legible_pitch``); the rows below are reached by scrolling. With
-        ``rows_to_fit`` rows stay at full size; with ``every_row`` every row is squeezed
-        in (labels in smaller type, or thinned). Present mode shows every row when they
-        fit at that pitch, else the page ``row_page`` of them (``page_of_rows``).
-        """
-        geo = self.geometry
-        if geo is None:
-            return
-        paged = every_row is None and self._weights is style.PRESENT
-        lo, hi = geo.x_range
-        pad = 0.03 * (hi - lo)
-        height = max(self.view_box.height(), 200.0)
-        # lines of labels: start and deadline; status; P10 and P90 apart
-        lines = 2 + (geo.finish_whisker is not None) + ("status" in self._lines)
-        header_px = max(HEADER_PX, lines * (2.0 * self._font().pixelSize() + 1.5))   # a label is ~2 px high
-        self.row_axis.set_page(0, "")
-        if paged:
-            first, n, header_px = page_of_rows(self, max(geo.n_rows, 1), height, header_px)
-        else:
-            first, n = 0, self._rows_in_fit(max(geo.n_rows, 1), height - header_px, rows_to_fit, bool(every_row))
-        self.page_first = self.item.first_row = first
-        header = header_px * n / max(height - header_px, 1.0)
-        self.view_box.setLimits(yMin=min(self.view_box.state["limits"]["yLimits"][0], -0.5 - header))
-        bottom = first + n - (0.5 if paged else 0.4)          # a page: no part of the next row
-        self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(first - 0.5 - header, bottom), padding=0)
-        stack_finish_labels(self)
-
-    def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
-        """How many rows (from the top) a fit shows in ``room_px`` pixels."""
-        if every_row:            # asked for (Every row)
-            return n
-        if rows_to_fit:
-            return min(n, max(5, int(room_px / self._weights.row_height)))
-        return min(n, max(1, int(room_px / self.legible_row_pitch() - 0.1)))
-
-    def legible_row_pitch(self) -> float:
-        """Row pitch in pixels below which the label column starts thinning labels."""
-        return legible_pitch(self._font())
-
-    def fit_every_row(self) -> None:
-        """Squeeze every row into the view (labels thinned when rows are short)."""
-        self.fit_all(every_row=True)
-
     def show_critical_path(self, on: bool = True) -> None:
         """Show only the critical rows (or all rows again) and fit them."""
         self.critical_only = bool(on)
@@ -367,34 +318,6 @@ class TimelineView(QWidget):
     def set_connectors(self, on: bool) -> None:
         self.connectors = bool(on)
         self.refresh()
-
-    def zoom(self, factor: float) -> None:
-        self._auto_fit = False
-        self.view_box.scaleBy((1.0 / factor, 1.0))
-
-    def pan(self, dx_frac: float = 0.0, dy_rows: float = 0.0) -> None:
-        self._auto_fit = False
-        (x0, x1), _ = self.view_box.viewRange()
-        self.view_box.translateBy(x=dx_frac * (x1 - x0), y=dy_rows)
-
-    def eventFilter(self, obj: QObject, event: QEvent) -> bool:
-        if event.type() == QEvent.Type.KeyPress and obj is getattr(self, "plot", None):
-            return self._key(event.key())
-        return super().eventFilter(obj, event)
-
-    def _key(self, key) -> bool:
-        K = Qt.Key
-        actions = {K.Key_Plus: lambda: self.zoom(1.25), K.Key_Equal: lambda: self.zoom(1.25),
-                   K.Key_Minus: lambda: self.zoom(0.8), K.Key_Left: lambda: self.pan(-0.1),
-                   K.Key_Right: lambda: self.pan(0.1), K.Key_Up: lambda: self.pan(dy_rows=-3),
-                   K.Key_Down: lambda: self.pan(dy_rows=3), K.Key_Home: self.fit_all,
-                   K.Key_0: self.fit_all, K.Key_Escape: self.cancel_drag}
-        if self.present_hint and present_key(self, key):
-            return True
-        if key in actions:
-            actions[key]()
-            return True
-        return False
 
     # --- Present mode and output -------------------------------------------------------------
     def set_present(self, on: bool) -> None:

@@ -3,7 +3,6 @@ one the variance columns and the Timeline compare with. Every change is one undo
 
 from __future__ import annotations
 
-from PySide6.QtCore import Qt
 from PySide6.QtWidgets import (QAbstractItemView, QComboBox, QDialog, QDialogButtonBox, QHBoxLayout, QInputDialog,
                                QLabel, QPushButton, QTableWidget, QTableWidgetItem, QVBoxLayout)
 

@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import datetime as dt
 
-from PySide6.QtCore import QDate, Qt, Signal
+from PySide6.QtCore import QDate, Signal
 from PySide6.QtWidgets import (QCalendarWidget, QHBoxLayout, QLineEdit, QMenu, QToolButton,
                                QWidget, QWidgetAction)
 
