@@ -107,7 +107,9 @@ def _legend(c, x, y, items) -> None:
 
 def _chances(c, box, points) -> None:
     x, y, w, h = box
-    _title(c, x, y + h - 10, "Extra cost against the chance of the deadline")
+    title = "Extra cost against the chance of the deadline"
+    c.setFont(styles.BOLD, 10)
+    _title(c, x, y + h - 10, title if c.stringWidth(title, styles.BOLD, 10) <= w else "Extra cost vs chance")
     if not points:
         return
     points = ftr.merged(points)

@@ -1,4 +1,4 @@
-"""The Checkup slide of Present mode: last, the keeper's count, marks drawn without colour."""
+"""The Checkup slide of Present mode: after the Drivers, the keeper's count, marks drawn without colour."""
 
 from PySide6.QtGui import QColor
 
@@ -10,7 +10,7 @@ from workbench.ui.session import Session
 from support.ui import present_at
 
 
-def test_the_checkup_slide_comes_last_and_reads_in_grayscale(qtbot):
+def test_the_checkup_slide_follows_the_drivers_and_reads_in_grayscale(qtbot):
     session = Session(demo_plan())
     keeper = checkup_keeper(session, threaded=False)
     win = present_at(qtbot, session, 5)

@@ -101,6 +101,11 @@ class PresentCanvas:
         path.addRect(QRectF(float(x), float(y), float(w), float(h)))
         self._draw(path, stroke, fill)
 
+    def circle(self, x, y, r, stroke=1, fill=0):
+        path = QPainterPath()
+        path.addEllipse(QPointF(float(x), float(y)), float(r), float(r))
+        self._draw(path, stroke, fill)
+
     def line(self, x1, y1, x2, y2):
         self.p.setPen(self._pen)
         self.p.drawLine(QPointF(float(x1), float(y1)), QPointF(float(x2), float(y2)))

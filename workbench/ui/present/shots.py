@@ -56,6 +56,12 @@ def _grab(app, window, path: Path) -> Path:
     for _ in range(5):              # let the charts lay out their axes before grabbing
         app.processEvents()
         time.sleep(0.05)
+    finish = getattr(window.stack.currentWidget(), "finish_work", None)
+    if callable(finish):            # a slide working in the background shows its result
+        finish()
+        for _ in range(5):
+            app.processEvents()
+            time.sleep(0.05)
     window.grab().save(str(path))
     return path
 

@@ -115,6 +115,10 @@ class PresentWindow(QWidget):
         return False
 
     def closeEvent(self, event):  # noqa: N802
+        for k in range(self.stack.count()):        # a slide still working in the background stops
+            stop = getattr(self.stack.widget(k), "stop_work", None)
+            if callable(stop):
+                stop()
         if self._filtering:
             QApplication.instance().removeEventFilter(self)
             self._filtering = False
