@@ -35,20 +35,20 @@ def resource_pages(ctx, frame: tuple[float, float]) -> list:
     levelled = plan_loading(ctx.analysis, result.starts)
     story = new_page(LANDSCAPE) + [Section("Resources", "resources"),
                                    Paragraph("Resources: who is needed when", styles.H1),
-                                   Paragraph(_summary(ctx, result), styles.BODY)]
+                                   Paragraph(summary_text(ctx, result), styles.BODY)]
     chart_h = (height - 90) / 2
     for k in range(0, len(early), PER_PAGE):
         if k:
             story += new_page(LANDSCAPE)
         pairs = list(zip(early[k:k + PER_PAGE], levelled[k:k + PER_PAGE]))
         story.append(ChartFlowable(width, chart_h * ((len(pairs) + 1) // 2),
-                                   lambda c, w, h, pairs=pairs: _paint_grid(c, w, h, pairs, result.finish,
+                                   lambda c, w, h, pairs=pairs: paint_grid(c, w, h, pairs, result.finish,
                                                                             ctx.analysis.calendar)))
     story += new_page(LANDSCAPE) + _moved_table(ctx, result, width) + _odds(ctx, width)
     return story
 
 
-def _summary(ctx, result) -> str:
+def summary_text(ctx, result) -> str:
     cal = ctx.analysis.calendar
     if result.delay <= 1e-9 and not result.moves:
         head = "Every resource has enough units for the logic-only schedule: levelling moves nothing."
@@ -64,7 +64,7 @@ def _summary(ctx, result) -> str:
                    "the levelled dates; dashed: units available.")
 
 
-def _paint_grid(c, w, h, pairs, finish, calendar) -> None:
+def paint_grid(c, w, h, pairs, finish, calendar) -> None:
     cols, rows = 2, (len(pairs) + 1) // 2
     cw, ch = (w - 20) / cols, h / rows
     for i, (early, lev) in enumerate(pairs):
@@ -82,9 +82,10 @@ def _paint_one(c, w, h, early, lev, finish, calendar) -> None:
     left, bottom, pw, ph = 34, 16, w - 40, h - 44
     px = lambda v: left + (v - x0) / max(x1 - x0, 1e-9) * pw
     py = lambda u: bottom + u / top * ph
-    c.setFont(styles.BOLD, 10)
     c.setFillColor(styles.TEXT)
-    c.drawString(0, h - 10, fit(fig.title, w, styles.BOLD, 10))
+    title, size = chart_title(c, fig.title, w)
+    c.setFont(styles.BOLD, size)
+    c.drawString(0, h - 10, title)
     c.setFont(styles.FONT, 8.5)
     c.drawString(0, h - 21, fit(f"On the levelled dates: at most {lfig.peak:g} in use", w, styles.FONT, 8.5))
     c.setFillColor(styles.colour(style.WORK))
@@ -106,6 +107,16 @@ def _paint_one(c, w, h, early, lev, finish, calendar) -> None:
     for offset, label in date_ticks(calendar, x0, x1, max(2, int(pw // 70))):
         c.line(px(offset), bottom, px(offset), bottom - 3)
         c.drawCentredString(px(offset), bottom - 11, label)
+
+
+def chart_title(c, title: str, width: float) -> tuple[str, float]:
+    """The chart's title as it fits: whole; else without its bracketed detail ("(5 in use,
+    4 available)"); else a size smaller; else cut with an ellipsis."""
+    short = title.split(" (")[0]
+    for text, size in ((title, 10), (short, 10), (short, 9)):
+        if c.stringWidth(text, styles.BOLD, size) <= width:
+            return text, size
+    return fit(short, width, styles.BOLD, 9), 9
 
 
 def _hatch_over(c, fig, px, py) -> None:

@@ -14,7 +14,8 @@ from workbench.ui.session import Session
 
 
 def tradeoff_slide(qtbot, session):
-    win = present_at(qtbot, session, 6)
+    win = present_at(qtbot, session)
+    win.go(win.slide_count() - 1)                 # the last slide
     slide = win.stack.currentWidget()
     qtbot.waitUntil(lambda: slide.result is not None, timeout=60_000)
     return win, slide
@@ -23,7 +24,7 @@ def tradeoff_slide(qtbot, session):
 def test_the_slide_shows_the_packs_options_for_the_demo(qtbot):
     session = Session(demo_plan())
     win, slide = tradeoff_slide(qtbot, session)
-    assert win.slide_count() == 7 and win.current_title() == "Trade-off"
+    assert win.slide_count() == 8 and win.current_title() == "Trade-off"
     assert isinstance(slide, PresentTradeoffSlide)
     pack = compute(PackContext(session.plan, session.analysis, session.simulation, None, "a4"))
     assert option_lines(slide.result) == option_lines(pack)          # same seed, same scenarios

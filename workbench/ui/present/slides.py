@@ -1,5 +1,5 @@
 """The slides of Present mode, in order: summary, timeline, network, odds, drivers, checkup,
-and trade-off for a plan with cost data and a deadline.
+then resources for a plan with resources and trade-off for a plan with cost data and a deadline.
 
 A window view is reused when it offers a ``set_present(True)`` hook (large type, heavy
 lines); otherwise the slide draws the approval pack's chart for it, scaled up. The
@@ -25,7 +25,8 @@ NO_SIMULATION_HOW = ("To get one: leave Present (Esc), press Run simulation in t
                      "then come back (F5).")
 SLIDES = (("Summary", None), ("Timeline", "timeline"), ("Network", "network"), ("Odds", "odds"),
           ("Drivers", "drivers"),
-          ("Checkup", "checkup"), ("Trade-off", "tradeoff"))
+          ("Checkup", "checkup"), ("Resources", "resources"),
+          ("Trade-off", "tradeoff"))
 
 
 def _view_class(package: str):
@@ -96,6 +97,11 @@ def build_slides(session) -> list[tuple[str, object]]:
         if title == "Checkup":
             from workbench.ui.present.checkup_slide import PresentCheckupSlide
             slides.append((title, PresentCheckupSlide(session)))
+            continue
+        if title == "Resources":
+            from workbench.ui.present.resources_slide import PresentResourcesSlide, has_resources
+            if has_resources(session.plan):
+                slides.append((title, PresentResourcesSlide(session)))
             continue
         if title == "Trade-off":
             from workbench.ui.present.tradeoff_slide import PresentTradeoffSlide, has_tradeoff

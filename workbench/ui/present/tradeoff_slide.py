@@ -13,6 +13,7 @@ from workbench.figures import tradeoff as ftr
 from workbench.reports import styles
 from workbench.reports.tradeoff_pages import CAUTION, ITERATIONS, TARGETS, paint_tradeoff
 
+from workbench.ui.present.canvas import wrap_words
 from workbench.ui.present.chart_slide import PresentChartSlide
 from workbench.ui.tradeoff.runner import TradeoffRunner
 
@@ -85,7 +86,7 @@ class PresentTradeoffSlide(PresentChartSlide):
             c.drawCentredString(w / 2, h / 2, self.message)
             return
         lines = option_lines(self.result)
-        caution = _wrap(c, CAUTION, w, styles.FONT, 7.5)
+        caution = wrap_words(c, CAUTION, w, styles.FONT, 7.5)
         chart_h = h - 22 - 13 * len(lines) - 9.5 * len(caution)
         c.saveState()
         c.translate(0, h - 4 - chart_h)
@@ -101,14 +102,3 @@ class PresentTradeoffSlide(PresentChartSlide):
         c.setFont(styles.FONT, 7.5)
         for k, part in enumerate(caution):
             c.drawString(0, 2 + 9.5 * (len(caution) - 1 - k), part)
-
-def _wrap(c, text: str, width: float, font: str, size: float) -> list[str]:
-    lines, line = [], ""
-    for word in text.split():
-        trial = f"{line} {word}".strip()
-        if line and c.stringWidth(trial, font, size) > width:
-            lines.append(line)
-            line = word
-        else:
-            line = trial
-    return lines + ([line] if line else [])
