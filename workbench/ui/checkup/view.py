@@ -3,15 +3,17 @@ colour; clicking a check selects its offending activities in every view."""
 
 from __future__ import annotations
 
-from PySide6.QtCore import Qt
-from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QHeaderView, QLabel, QPushButton, QTableView,
-                               QVBoxLayout, QWidget)
+from PySide6.QtCore import QEvent, Qt
+from PySide6.QtWidgets import (QAbstractItemView, QGridLayout, QHeaderView, QLabel, QPushButton, QSizePolicy,
+                               QTableView, QVBoxLayout, QWidget)
 
 from workbench.core.checkup_limits import STANDARD_NAME, STANDARD_SOURCE
+from workbench.ui.checkup.fitted_text import FittedTextDelegate
 from workbench.ui.checkup.keeper import checkup_keeper
 from workbench.ui.checkup.table_model import CheckupTableModel
 
 HINT = "Click a check to select its offenders in every view."
+MIN_ROWS = 3            # the table's least height, in rows
 STANDARD_EDITION = "DCMA-EA PAM 200.1, October 2012"
 CAUTION = ("Odds checks rest on estimates, which are judgement; PERT assumes one path and independent "
            "durations. The decision rests with your organisation's own approval rules.")
@@ -35,6 +37,7 @@ class CheckupView(QWidget):
         font.setPointSizeF(font.pointSizeF() * 1.35)
         font.setBold(True)
         self.headline.setFont(font)
+        self.headline.setWordWrap(True)          # a very narrow dock: two lines, never cut
         self.standard = QLabel(f"{STANDARD_NAME} ({STANDARD_EDITION}) and our own checks (common practice). {HINT}")
         self.standard.setToolTip(f"Standard: {STANDARD_SOURCE}")
         self.standard.setWordWrap(True)
@@ -46,18 +49,42 @@ class CheckupView(QWidget):
         self.detail.setWordWrap(True)
         self.detail.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         self.detail.setAccessibleName("Check details")
-        head = QHBoxLayout()
-        head.addWidget(self.headline, 1)
-        head.addWidget(self.thresholds)
-        caution = QLabel(CAUTION)
-        caution.setWordWrap(True)
-        caution.setStyleSheet("color: #444444; font-size: 8pt;")
+        self.head = QGridLayout()
+        self.head.setColumnStretch(0, 1)
+        self._narrow_head = None
+        self.caution = QLabel(CAUTION)
+        self.caution.setWordWrap(True)
+        self.caution.setStyleSheet("color: #444444; font-size: 8pt;")
         lay = QVBoxLayout(self)
-        lay.addLayout(head)
-        lay.addWidget(self.standard)
+        lay.addLayout(self.head)
         lay.addWidget(self.table, 1)
         lay.addWidget(self.detail)
-        lay.addWidget(caution)
+        lay.addWidget(self.caution)
+        self._arrange_head()
+
+    def _arrange_head(self) -> None:
+        """Wide: the headline with *Thresholds…* at its right, the description under both.
+        Narrow (the headline and the button do not fit side by side): the headline has the
+        whole width and the button goes beside the description, which wraps."""
+        spacing = max(0, self.head.horizontalSpacing())
+        margins = self.layout().contentsMargins() if self.layout() else self.contentsMargins()
+        room = self.width() - margins.left() - margins.right()
+        one_line = self.headline.fontMetrics().horizontalAdvance(self.headline.text()) + 4
+        narrow = one_line + spacing + self.thresholds.sizeHint().width() > room
+        if narrow == self._narrow_head:
+            return
+        self._narrow_head = narrow
+        for widget in (self.headline, self.thresholds, self.standard):
+            self.head.removeWidget(widget)
+        top = Qt.AlignmentFlag.AlignTop
+        if narrow:
+            self.head.addWidget(self.headline, 0, 0, 1, 2)
+            self.head.addWidget(self.standard, 1, 0)
+            self.head.addWidget(self.thresholds, 1, 1, top)
+        else:
+            self.head.addWidget(self.headline, 0, 0)
+            self.head.addWidget(self.thresholds, 0, 1)
+            self.head.addWidget(self.standard, 1, 0, 1, 2)
 
     def _table(self) -> QTableView:
         table = QTableView(self)
@@ -67,6 +94,7 @@ class CheckupView(QWidget):
         table.setEditTriggers(QAbstractItemView.EditTrigger.NoEditTriggers)
         table.verticalHeader().hide()
         table.setWordWrap(False)
+        table.setItemDelegate(FittedTextDelegate(table))     # narrow columns: shorter wordings
         header = table.horizontalHeader()
         header.setSectionResizeMode(QHeaderView.ResizeMode.Interactive)
         header.setSectionResizeMode(0, QHeaderView.ResizeMode.ResizeToContents)
@@ -76,31 +104,56 @@ class CheckupView(QWidget):
         header.resizeSection(1, 14 * em)       # long names elide; the tooltip and details have them whole
         header.resizeSection(3, 8 * em)
         table.setTextElideMode(Qt.TextElideMode.ElideRight)
+        # a short dock: the table gives up its height first (down to a few rows, then it
+        # scrolls), so the headline, the details and the caution stay in sight
+        policy = table.sizePolicy()
+        policy.setVerticalPolicy(QSizePolicy.Policy.Ignored)
+        table.setSizePolicy(policy)
+        rows = table.verticalHeader().defaultSectionSize()
+        table.setMinimumHeight(header.sizeHint().height() + MIN_ROWS * rows + 2 * table.frameWidth())
         table.setAccessibleName("Checkup checks")
         table.clicked.connect(lambda index: self.pick(index.row()))
         table.activated.connect(lambda index: self.pick(index.row()))
+        self._viewport = table.viewport()
+        self._viewport.installEventFilter(self)      # its width also changes with its scroll bar
         return table
 
     def resizeEvent(self, event):  # noqa: N802 (Qt override)
         super().resizeEvent(event)
-        self._fit_threshold()
+        self._arrange_head()
+        self._fit_columns()
 
-    def _fit_threshold(self) -> None:
-        """The threshold column as wide as its longest entry, up to a fifth of the view: a
-        wide window never cuts "informational"; a narrow dock keeps room for the figures."""
+    def eventFilter(self, watched, event):  # noqa: N802 (Qt override)
+        if watched is self._viewport and event.type() == QEvent.Type.Resize:
+            self._fit_columns()
+        return super().eventFilter(watched, event)
+
+    def _fit_columns(self) -> None:
+        """The columns share the table's width, so it never scrolls sideways: the threshold
+        as wide as its longest entry up to a fifth of the room beside the marks, the check's
+        name up to 14 letters' width or about two fifths; the figure takes the rest. Cells
+        that do not fit say it shorter; their tooltips have it whole."""
         header = self.table.horizontalHeader()
+        least = header.minimumSectionSize()
+        room = self.table.viewport().width() - header.sectionSize(0)
         want = max(self.table.sizeHintForColumn(3), header.sectionSizeHint(3))
-        header.resizeSection(3, max(header.minimumSectionSize(), min(want, self.width() // 5)))
+        threshold = max(least, min(want, room // 5))
+        em = self.table.fontMetrics().horizontalAdvance("M")
+        name = max(least, min(14 * em, room * 21 // 50))
+        header.resizeSection(3, threshold)
+        header.resizeSection(1, name)
 
     def show_checkup(self, checkup) -> None:
         current = self.table.currentIndex().row()
         self.model.set_checkup(checkup)
-        self._fit_threshold()
+        self._fit_columns()
         if checkup is None:
             self.headline.setText("Checkup: the plan cannot be scheduled yet")
+            self._arrange_head()
             self.detail.setText(self.session.analysis_error or "")
             return
         self.headline.setText(f"{checkup.summary_text()}  \u00b7  {checkup.count('n/a')} not applicable")
+        self._arrange_head()
         if 0 <= current < len(checkup):
             self.table.selectRow(current)
             self._describe(checkup.checks[current])
