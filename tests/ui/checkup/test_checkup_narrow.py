@@ -56,9 +56,12 @@ def _text_fits(label: QLabel) -> bool:
     return one_line or (label.wordWrap() and label.heightForWidth(label.width()) <= label.height())
 
 
-@pytest.mark.parametrize("size", [(410, 330), (580, 330)], ids=["410x330", "580x330"])
+@pytest.mark.parametrize("size", [(320, 330), (410, 330), (580, 330)], ids=["320x330", "410x330", "580x330"])
 def test_nothing_scrolls_sideways_and_nothing_is_cut(qtbot, size):
     view, area = in_a_dock(qtbot, size)
+    view.pick(next(r for r, c in enumerate(view.model.checks) if c.id == "leads"))    # details shown
+    qtbot.waitUntil(lambda: view.detail.isVisible() and view.detail.height() >= view.detail.heightForWidth(
+        view.detail.width()))
     assert view.headline.text().startswith("Checkup: ") and "not applicable" in view.headline.text()
     assert view.minimumSizeHint().width() <= area.viewport().width()
     assert area.horizontalScrollBar().maximum() == 0
@@ -70,6 +73,11 @@ def test_nothing_scrolls_sideways_and_nothing_is_cut(qtbot, size):
     assert view.thresholds.width() >= view.thresholds.sizeHint().width()       # "Thresholds…" whole
     header = view.table.horizontalHeader()
     assert header.length() <= view.table.viewport().width()
+    parts = [view.headline, view.standard, view.thresholds, view.table, view.detail, view.caution]
+    for i, a in enumerate(parts):                       # stacked, never drawn over one another
+        for b in parts[i + 1:]:
+            assert not a.geometry().intersects(b.geometry()), (a, b)
+    assert view.table.height() >= view.table.rows_height()          # a few rows always show
 
 
 def test_a_narrow_dock_puts_the_button_under_the_headline_a_wide_one_beside_it(qtbot):

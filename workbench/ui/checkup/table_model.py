@@ -32,7 +32,8 @@ class CheckupTableModel(QAbstractTableModel):
         return 0 if parent.isValid() else len(HEADERS)
 
     def headerData(self, section, orientation, role=Qt.ItemDataRole.DisplayRole):  # noqa: N802 (Qt override)
-        if role == Qt.ItemDataRole.DisplayRole and orientation == Qt.Orientation.Horizontal:
+        if role in (Qt.ItemDataRole.DisplayRole, Qt.ItemDataRole.ToolTipRole) \
+                and orientation == Qt.Orientation.Horizontal:
             return HEADERS[section]
         return None
 

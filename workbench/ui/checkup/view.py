@@ -4,16 +4,17 @@ colour; clicking a check selects its offending activities in every view."""
 from __future__ import annotations
 
 from PySide6.QtCore import QEvent, Qt
-from PySide6.QtWidgets import (QAbstractItemView, QGridLayout, QHeaderView, QLabel, QPushButton, QSizePolicy,
-                               QTableView, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QAbstractItemView, QHBoxLayout, QHeaderView, QLabel, QPushButton, QVBoxLayout,
+                               QWidget)
 
 from workbench.core.checkup_limits import STANDARD_NAME, STANDARD_SOURCE
-from workbench.ui.checkup.fitted_text import FittedTextDelegate
+from workbench.ui.checkup.checks_table import ChecksTable
+from workbench.ui.checkup.fitted_text import FittedTextDelegate, shorter_forms
 from workbench.ui.checkup.keeper import checkup_keeper
 from workbench.ui.checkup.table_model import CheckupTableModel
 
 HINT = "Click a check to select its offenders in every view."
-MIN_ROWS = 3            # the table's least height, in rows
+SHORT_THRESHOLD_CHARS = 8     # "<= 5 %", ">= 0.95": shown whole in the narrowest dock
 STANDARD_EDITION = "DCMA-EA PAM 200.1, October 2012"
 CAUTION = ("Odds checks rest on estimates, which are judgement; PERT assumes one path and independent "
            "durations. The decision rests with your organisation's own approval rules.")
@@ -49,14 +50,16 @@ class CheckupView(QWidget):
         self.detail.setWordWrap(True)
         self.detail.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         self.detail.setAccessibleName("Check details")
-        self.head = QGridLayout()
-        self.head.setColumnStretch(0, 1)
+        self._top, self._below = QHBoxLayout(), QHBoxLayout()     # the headline's row, the description's
+        self._top.addWidget(self.headline, 1)
+        self._below.addWidget(self.standard, 1)
         self._narrow_head = None
         self.caution = QLabel(CAUTION)
         self.caution.setWordWrap(True)
         self.caution.setStyleSheet("color: #444444; font-size: 8pt;")
         lay = QVBoxLayout(self)
-        lay.addLayout(self.head)
+        lay.addLayout(self._top)
+        lay.addLayout(self._below)
         lay.addWidget(self.table, 1)
         lay.addWidget(self.detail)
         lay.addWidget(self.caution)
@@ -66,28 +69,22 @@ class CheckupView(QWidget):
         """Wide: the headline with *Thresholds…* at its right, the description under both.
         Narrow (the headline and the button do not fit side by side): the headline has the
         whole width and the button goes beside the description, which wraps."""
-        spacing = max(0, self.head.horizontalSpacing())
-        margins = self.layout().contentsMargins() if self.layout() else self.contentsMargins()
+        margins = self.layout().contentsMargins()
         room = self.width() - margins.left() - margins.right()
         one_line = self.headline.fontMetrics().horizontalAdvance(self.headline.text()) + 4
-        narrow = one_line + spacing + self.thresholds.sizeHint().width() > room
+        narrow = one_line + self._top.spacing() + self.thresholds.sizeHint().width() > room
         if narrow == self._narrow_head:
             return
         self._narrow_head = narrow
-        for widget in (self.headline, self.thresholds, self.standard):
-            self.head.removeWidget(widget)
-        top = Qt.AlignmentFlag.AlignTop
+        for row in (self._top, self._below):
+            row.removeWidget(self.thresholds)
         if narrow:
-            self.head.addWidget(self.headline, 0, 0, 1, 2)
-            self.head.addWidget(self.standard, 1, 0)
-            self.head.addWidget(self.thresholds, 1, 1, top)
+            self._below.addWidget(self.thresholds, 0, Qt.AlignmentFlag.AlignTop)
         else:
-            self.head.addWidget(self.headline, 0, 0)
-            self.head.addWidget(self.thresholds, 0, 1)
-            self.head.addWidget(self.standard, 1, 0, 1, 2)
+            self._top.addWidget(self.thresholds)
 
-    def _table(self) -> QTableView:
-        table = QTableView(self)
+    def _table(self) -> ChecksTable:
+        table = ChecksTable(self)         # a few rows' height asked; the rest by stretch
         table.setModel(self.model)
         table.setSelectionBehavior(QAbstractItemView.SelectionBehavior.SelectRows)
         table.setSelectionMode(QAbstractItemView.SelectionMode.SingleSelection)
@@ -100,17 +97,11 @@ class CheckupView(QWidget):
         header.setSectionResizeMode(0, QHeaderView.ResizeMode.ResizeToContents)
         header.setSectionResizeMode(2, QHeaderView.ResizeMode.Stretch)
         header.setMinimumSectionSize(40)
+        header.setTextElideMode(Qt.TextElideMode.ElideRight)     # a narrow column's title: "Thresh…"
         em = table.fontMetrics().horizontalAdvance("M")
         header.resizeSection(1, 14 * em)       # long names elide; the tooltip and details have them whole
         header.resizeSection(3, 8 * em)
         table.setTextElideMode(Qt.TextElideMode.ElideRight)
-        # a short dock: the table gives up its height first (down to a few rows, then it
-        # scrolls), so the headline, the details and the caution stay in sight
-        policy = table.sizePolicy()
-        policy.setVerticalPolicy(QSizePolicy.Policy.Ignored)
-        table.setSizePolicy(policy)
-        rows = table.verticalHeader().defaultSectionSize()
-        table.setMinimumHeight(header.sizeHint().height() + MIN_ROWS * rows + 2 * table.frameWidth())
         table.setAccessibleName("Checkup checks")
         table.clicked.connect(lambda index: self.pick(index.row()))
         table.activated.connect(lambda index: self.pick(index.row()))
@@ -130,18 +121,31 @@ class CheckupView(QWidget):
 
     def _fit_columns(self) -> None:
         """The columns share the table's width, so it never scrolls sideways: the threshold
-        as wide as its longest entry up to a fifth of the room beside the marks, the check's
-        name up to 14 letters' width or about two fifths; the figure takes the rest. Cells
-        that do not fit say it shorter; their tooltips have it whole."""
+        as wide as its longest entry up to a fifth of the room beside the marks (never so
+        narrow that a short one such as "<= 5 %" is cut), the figure at least wide enough
+        for its number ("85.5 % …"), the check's name up to 14 letters' width from what is
+        left; the figure takes the rest. Cells that do not fit say it shorter; their
+        tooltips have it whole."""
         header = self.table.horizontalHeader()
         least = header.minimumSectionSize()
         room = self.table.viewport().width() - header.sectionSize(0)
         want = max(self.table.sizeHintForColumn(3), header.sectionSizeHint(3))
-        threshold = max(least, min(want, room // 5))
+        threshold = max(least, min(want, max(room // 5, self._needed(3, SHORT_THRESHOLD_CHARS))))
         em = self.table.fontMetrics().horizontalAdvance("M")
-        name = max(least, min(14 * em, room * 21 // 50))
+        name = max(least, min(14 * em, room - threshold - self._needed(2)))
         header.resizeSection(3, threshold)
         header.resizeSection(1, name)
+
+    def _needed(self, column: int, longest: int | None = None) -> int:
+        """The width a column's short wordings need with the cell's margins: the figures'
+        numbers ("85.5 % …"), or the entries of at most ``longest`` characters."""
+        metrics = self.table.fontMetrics()
+        texts = [self.model.index(r, column).data() or "" for r in range(self.model.rowCount())]
+        if longest is None:
+            texts = [shorter_forms(t, column)[-1] for t in texts if " (" in t]
+        else:
+            texts = [t for t in texts if len(t) <= longest]
+        return max((metrics.horizontalAdvance(t) for t in texts), default=0) + 2 * metrics.horizontalAdvance("m")
 
     def show_checkup(self, checkup) -> None:
         current = self.table.currentIndex().row()
