@@ -50,13 +50,18 @@ class CheckupView(QWidget):
         self.detail.setWordWrap(True)
         self.detail.setTextInteractionFlags(Qt.TextInteractionFlag.TextSelectableByMouse)
         self.detail.setAccessibleName("Check details")
-        self._top, self._below = QHBoxLayout(), QHBoxLayout()     # the headline's row, the description's
-        self._top.addWidget(self.headline, 1)
-        self._below.addWidget(self.standard, 1)
-        self._narrow_head = None
         self.caution = QLabel(CAUTION)
         self.caution.setWordWrap(True)
         self.caution.setStyleSheet("color: #444444; font-size: 8pt;")
+        self._lay_out()
+
+    def _lay_out(self) -> None:
+        """One above the other: the headline's row, the description's, the table, the
+        details and the caution (``_arrange_head`` puts the button in one of the rows)."""
+        self._top, self._below = QHBoxLayout(), QHBoxLayout()
+        self._top.addWidget(self.headline, 1)
+        self._below.addWidget(self.standard, 1)
+        self._narrow_head = None
         lay = QVBoxLayout(self)
         lay.addLayout(self._top)
         lay.addLayout(self._below)
