@@ -10,6 +10,7 @@ from workbench.core.checkup_limits import COMMON_PRACTICE
 HEADERS = ("Mark", "Check", "Figure", "Threshold")
 FAIL_TINT = "#FBE3D6"        # a light vermillion tint; the mark's word and weight carry the meaning
 NA_TEXT = "#5A5A5A"
+CHANGED = "This plan's own threshold: it differs from the default (the standard's figure for its checks)."
 
 
 class CheckupTableModel(QAbstractTableModel):
@@ -31,7 +32,8 @@ class CheckupTableModel(QAbstractTableModel):
         return 0 if parent.isValid() else len(HEADERS)
 
     def headerData(self, section, orientation, role=Qt.ItemDataRole.DisplayRole):  # noqa: N802 (Qt override)
-        if role == Qt.ItemDataRole.DisplayRole and orientation == Qt.Orientation.Horizontal:
+        if role in (Qt.ItemDataRole.DisplayRole, Qt.ItemDataRole.ToolTipRole) \
+                and orientation == Qt.Orientation.Horizontal:
             return HEADERS[section]
         return None
 
@@ -65,10 +67,13 @@ class CheckupTableModel(QAbstractTableModel):
 
     @staticmethod
     def _tip(c, col: int) -> str:
+        """The cell whole (a narrow column says it shorter), then what stands behind it."""
+        whole = {1: c.name, 2: c.value_text, 3: f"Threshold: {c.threshold}"}.get(col, f"{c.mark}: {c.name}")
         if col == 3 and c.changed:
-            return "This plan's own threshold: it differs from the default (the standard's figure for its checks)."
+            return f"{whole}\n{CHANGED}"
         source = "Source: " + ("common practice (no published source)" if c.source == COMMON_PRACTICE else c.source)
-        return f"{c.value_text}\n{source}" + (f"\n{c.note}" if c.note else "")
+        lines = [whole] + ([c.value_text] if col != 2 else []) + [source] + ([c.note] if c.note else [])
+        return "\n".join(lines)
 
     def check_at(self, row: int):
         return self.checks[row] if 0 <= row < len(self.checks) else None

@@ -12,6 +12,7 @@ from workbench.figures import style
 from workbench.figures import label_place as lp
 from workbench.ui.odds import plot_labels as pl
 from workbench.ui.odds.axis import OddsAxis
+from workbench.ui.odds.chance_axis import ChanceAxis
 
 STALE = "#9A9A9A"
 DATE_OVERFLOW_PX = 30    # how far a date label may reach past the end of its axis
@@ -52,8 +53,10 @@ class OddsPlot(pg.GraphicsLayoutWidget):
             plot.vb.sigRangeChanged.connect(lambda *_: self.place_labels())
 
     def _make_plot(self, row: int, ylabel: str) -> pg.PlotItem:
-        axis = OddsAxis("bottom")
-        plot = self.addPlot(row=row, col=0, axisItems={"bottom": axis})
+        axes = {"bottom": OddsAxis("bottom")}
+        if row == 1:
+            axes["left"] = ChanceAxis()
+        plot = self.addPlot(row=row, col=0, axisItems=axes)
         plot.setLabel("left", ylabel)
         if row == 1:  # read dates and probabilities off the S-curve; the density needs no grid
             plot.showGrid(x=True, y=True, alpha=0.25)
@@ -305,6 +308,7 @@ class OddsPlot(pg.GraphicsLayoutWidget):
         axis = self.density.getAxis("bottom")
         if axis.style["showValues"] != dates:
             axis.setStyle(showValues=dates)
+        self.cumulative.getAxis("left").fit_height(self.cumulative.vb.height())   # halves on a low chart
         for plot, key in ((self.density, "density"), (self.cumulative, "cumulative")):
             pl.fit_y_title(plot, pl.Y_TITLES[key])
 

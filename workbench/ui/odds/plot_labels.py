@@ -15,7 +15,10 @@ from workbench.figures import label_place as lp
 
 # y-axis titles, longest first: the longest that fits the plot's height is shown
 Y_TITLES = {"density": ("Likelihood of finishing (density per unit)", "Likelihood of finishing", "Likelihood"),
-            "cumulative": ("P(finish by date)", "P(by date)", "P")}
+            "cumulative": ("Chance of finishing by the date", "Chance by the date", "Chance")}
+# a title takes at most this share of its plot's height, centred on it: the two charts'
+# titles, one above the other, stay apart and each sits clearly beside its own plot
+TITLE_SHARE = 0.7
 
 
 def scene_rect(vb) -> lp.Rect:
@@ -85,10 +88,10 @@ def legend_size(legend) -> tuple[float, float]:
 
 
 def fit_y_title(plot, titles: tuple[str, ...]) -> None:
-    """Show the longest of ``titles`` that fits along the plot's left axis, as drawn (or
-    none); measured again only when the axis height changes."""
+    """Show the longest of ``titles`` that fits along the middle of the plot's left axis,
+    as drawn (or none); measured again only when the axis height changes."""
     axis = plot.getAxis("left")
-    room = plot.vb.height() - 6.0              # the axis runs along the plot's height
+    room = plot.vb.height() * TITLE_SHARE      # the axis runs along the plot's height
     if abs(getattr(plot, "_y_room", -99.0) - room) < 1.0:
         return
     plot._y_room = room
@@ -96,6 +99,7 @@ def fit_y_title(plot, titles: tuple[str, ...]) -> None:
         plot.setLabel("left", title)
         if axis.label.boundingRect().width() <= room:
             axis.showLabel(True)
+            axis.resizeEvent(None)             # centred again for this wording's length
             return
     axis.showLabel(False)
 
