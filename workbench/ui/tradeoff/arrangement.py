@@ -13,16 +13,17 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 import pyqtgraph as pg
-from PySide6.QtCore import QEvent, QObject, QRect, Qt
 from PySide6.QtGui import QFont, QFontMetrics
 from PySide6.QtWidgets import (QBoxLayout, QComboBox, QHBoxLayout, QLabel, QTabBar, QVBoxLayout,
                                QWidget)
+
+from workbench.ui.wrap_fit import WrapHeight
 
 PAGES = ("Cost by date", "Cost vs chance", "What to buy")
 SHARES = (3, 2)        # the curve's and the chance chart's shares of the width, side by side
 TITLE_SIZE = 13        # points: the charts' titles
 BESIDE_TITLE = 130     # pixels a chart needs beside its title: the cost axis, its label, margins
-CHART_HEIGHT = 190     # the least height a chart reads at (a dock scrolls below it)
+CHART_HEIGHT = 170     # the least height a chart reads at (a dock scrolls below it)
 TABLE_HEIGHT = 110     # the crash table: its heading and a few rows
 WIDE_HEIGHT = 560      # below it, side by side the charts would be too short to read above the table
 COMBO_FRAME = 40       # an option list's arrow and frame beside its words
@@ -51,46 +52,6 @@ def wide_width(titles) -> int:
     metrics = QFontMetrics(font)
     total = sum(SHARES)
     return max((metrics.horizontalAdvance(t) + BESIDE_TITLE) * total // share for t, share in zip(titles, SHARES))
-
-
-def wrapped_height(label: QLabel) -> int:
-    """The height ``label``'s plain text takes wrapped at the label's width (its own
-    ``heightForWidth`` never reports less than the least height already set)."""
-    m = label.contentsMargins()
-    inner = max(1, label.width() - m.left() - m.right() - 2 * label.margin())
-    flags = int(label.alignment()) | int(Qt.TextFlag.TextWordWrap)
-    text = label.fontMetrics().boundingRect(QRect(0, 0, inner, 1_000_000), flags, label.text())
-    return text.height() + m.top() + m.bottom() + 2 * label.margin()
-
-
-class WrapHeight(QObject):
-    """Keeps each word-wrapped label's least height at what its text needs at its present
-    width, so the view's minimum size is honest without reporting a height for its width
-    (a dock's scroller would then make the view as tall as it would like, not as it needs)."""
-
-    def __init__(self, labels, parent):
-        super().__init__(parent)
-        self.labels = list(labels)
-        for label in self.labels:
-            label.installEventFilter(self)
-        for holder in {label.parentWidget() for label in self.labels} - {None}:
-            holder.installEventFilter(self)     # a new text asks its holder to lay out again
-
-    def eventFilter(self, obj, event):  # noqa: N802 (Qt override)
-        if event.type() == QEvent.Type.Resize and obj in self.labels:
-            self.fit(obj)
-        elif event.type() == QEvent.Type.LayoutRequest:
-            self.fit_all()
-        return False
-
-    def fit(self, label: QLabel) -> None:
-        need = wrapped_height(label) if label.text() else 0
-        if label.minimumHeight() != need:
-            label.setMinimumHeight(need)
-
-    def fit_all(self) -> None:
-        for label in self.labels:
-            self.fit(label)
 
 
 class Arrangement:

@@ -87,11 +87,17 @@ def font_of(size: int):
     return font
 
 
-def top_for_label(point_y: float, bottom: float, top: float, room: float, height: float) -> float:
-    """The top of a value range [bottom, top] raised, if need be, so ``room`` pixels fit above
-    ``point_y`` in a plot ``height`` pixels high (a label above a point at the top of a short
-    chart would otherwise be cut by the chart's edge)."""
-    r = room / height if height > 0 else 0.0
-    if not 0.0 <= r < 0.9:
-        return top
-    return max(top, (point_y - r * bottom) / (1.0 - r))
+def room_range(lo: float, hi: float, up: tuple[float, float], down: tuple[float, float],
+               height: float) -> tuple[float, float]:
+    """A value range holding [lo, hi] with ``up[1]`` pixels above the value ``up[0]`` (a label
+    over a point) and ``down[1]`` pixels below the value ``down[0]`` (a marker's lower half),
+    in a plot ``height`` pixels high: on a short chart a label at the top, or a marker at the
+    bottom, would otherwise be cut by the chart's edge."""
+    a, b = (up[1] / height, down[1] / height) if height > 0 else (0.0, 0.0)
+    if a < 0 or b < 0 or a + b >= 0.9:
+        return lo, hi
+    bottom, top = lo, hi
+    for _ in range(60):      # the least range meeting both: a contraction, as a + b < 1
+        span = top - bottom
+        bottom, top = min(lo, down[0] - b * span), max(hi, up[0] + a * span)
+    return bottom, top

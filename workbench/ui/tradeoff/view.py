@@ -16,7 +16,7 @@ from workbench.figures import tradeoff as ftr
 from workbench.ui.date_axis import DateAxis
 from workbench.ui.session import refresh_when_shown
 from workbench.ui.tradeoff.arrangement import Arrangement, Parts
-from workbench.ui.tradeoff.charts import ChanceAxis, along, font_of, label_anchor, make_plot, top_for_label
+from workbench.ui.tradeoff.charts import ChanceAxis, along, font_of, label_anchor, make_plot, room_range
 from workbench.ui.tradeoff.cost_settings import CostSettings
 from workbench.ui import workers
 from workbench.ui.tradeoff.runner import TradeoffRunner
@@ -71,8 +71,9 @@ class TradeoffView(QWidget):
         self.chance_axis = ChanceAxis()
         self.chance_plot = make_plot(CHANCE_TITLE, "extra cost", "chance of the deadline (%)", self.chance_axis)
         self.chance_plot.getPlotItem().vb.sigResized.connect(self._fit_hint)
-        self.curve_plot.getPlotItem().vb.sigResized.connect(self._fit_curve_room)
-        self.hint, self.curve_room = None, None
+        for plot in (self.curve_plot, self.chance_plot):
+            plot.getPlotItem().vb.sigResized.connect(self._fit_rooms)
+        self.hint, self.rooms = None, {}
         caution = QLabel(CAUTION)
         caution.setWordWrap(True)
         parts = Parts(controls=[QLabel("Scenarios"), self.iterations, self.find, self.cancel],
@@ -188,7 +189,7 @@ class TradeoffView(QWidget):
     def _draw(self) -> None:
         for w in (self.curve_plot, self.chance_plot):
             w.clear()
-        self.hint, self.curve_room = None, None
+        self.hint, self.rooms = None, {}
         self.options = []
         self.option.clear()
         if self.result is None:
@@ -214,28 +215,28 @@ class TradeoffView(QWidget):
         label.setFont(font_of(11))
         label.setPos(x, y)
         p.addItem(label)
-        self.curve_room = (y, float(np.min(np.concatenate([lines.direct, lines.indirect, lines.total]))),
-                           float(np.max(lines.total)), label)
-        self._fit_curve_room()
+        ys = np.concatenate([lines.direct, lines.indirect, lines.total])
+        pad = 0.06 * (float(np.ptp(ys)) or max(abs(float(ys.max())), 1.0))
+        self.rooms[p] = (float(ys.min()) - pad, float(ys.max()) + pad, (y, label), (float(ys.min()), 6.0))
+        self._fit_rooms()
         if lines.deadline is not None:
             p.addItem(pg.InfiniteLine(lines.deadline, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=3, style=pg.QtCore.Qt.PenStyle.DashLine),
                                       label="deadline", labelOpts={"color": ftr.DEADLINE, "position": 0.95}))
 
-    def _fit_curve_room(self, *_) -> None:
-        """The cost range, with room above the optimum for its label at the chart's height."""
-        if self.curve_room is None:
-            return
-        y, lo, hi, label = self.curve_room
-        pad = 0.06 * (hi - lo if hi > lo else max(abs(hi), 1.0))
-        vb = self.curve_plot.getPlotItem().vb
-        room = 1.3 * label.textItem.boundingRect().height() + 6
-        vb.setYRange(lo - pad, top_for_label(y, lo - pad, hi + pad, room, vb.height()), padding=0)
+    def _fit_rooms(self, *_) -> None:
+        """Each chart's cost range, with room above its topmost label and below its lowest
+        marker at the chart's present height."""
+        for plot, (lo, hi, (y, label), low) in self.rooms.items():
+            vb = plot.getPlotItem().vb
+            up = 1.3 * label.textItem.boundingRect().height() + 6
+            vb.setYRange(*room_range(lo, hi, (y, up), low, vb.height()), padding=0)
 
     def _draw_chances(self, points) -> None:
         p = self.chance_plot
         target = self.session.plan.settings.target_confidence
         p.addItem(pg.InfiniteLine(100 * target, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=2, style=pg.QtCore.Qt.PenStyle.DotLine),
                                   label=f"target {format_whole_percent(target)}", labelOpts={"color": ftr.DEADLINE, "position": 0.3}))
+        top = None
         for pt in ftr.merged(points):
             symbol, colour = ("s", ftr.DEADLINE) if pt.textbook else ("o", ftr.CHANCE)
             x = 100 * pt.chance
@@ -251,8 +252,13 @@ class TradeoffView(QWidget):
             label.setFont(font_of(11))
             label.setPos(x, pt.extra_cost)
             p.addItem(label)
+            top = (pt.extra_cost, label) if top is None or pt.extra_cost > top[0] else top
         p.setXRange(0, 100, padding=0.04)
-        p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
+        lo, hi = ftr.cost_span([q.extra_cost for q in points])
+        p.setYRange(lo, hi, padding=0)
+        if top is not None:
+            self.rooms[p] = (lo, hi, top, (min(q.extra_cost for q in points), 12.0))   # half a marker, and a little
+            self._fit_rooms()
         if not self.result.confidence:
             self.hint = pg.TextItem(HINT, color="#555555", anchor=(0.5, 0.5))
             self.hint.setFont(font_of(11))
