@@ -99,10 +99,10 @@ class Arrangement:
         self.body.addWidget(self.tabs)
         self.body.addLayout(charts, 3)
         self.body.addWidget(self.buy, 2)
-        lay = QVBoxLayout(self.view)
-        lay.addLayout(self.head)
-        lay.addLayout(self.body, 1)
-        lay.addWidget(p.caution)
+        self.outer = QVBoxLayout(self.view)
+        self.outer.addLayout(self.head)
+        self.outer.addLayout(self.body, 1)
+        self.outer.addWidget(p.caution)
         self._build_buy()
         for chart in (p.curve, p.chance):
             chart.setMinimumHeight(CHART_HEIGHT)
@@ -160,6 +160,8 @@ class Arrangement:
         lr, tb = QBoxLayout.Direction.LeftToRight, QBoxLayout.Direction.TopToBottom
         self.head.setDirection(tb if narrow else lr)
         self._place_controls(narrow)
+        self.outer.removeWidget(self.parts.caution)     # narrow: under the status, in sight whatever scrolls
+        self.outer.insertWidget(1 if narrow else self.outer.count(), self.parts.caution)
         self.row.setDirection(tb if narrow else lr)
         self.row.setStretch(0, 0 if narrow else 1)
         self.row.setStretch(1, 1 if narrow else 3)
