@@ -117,3 +117,29 @@ def test_labels_keep_room_on_a_short_chart():
     assert (top - 95.0) / span * 100.0 == pytest.approx(30.0)   # 30 px above the label's point
     assert (0.0 - bottom) / span * 100.0 == pytest.approx(10.0)  # 10 px under the lowest marker
     assert room_range(0.0, 100.0, (50.0, 10.0), (40.0, 10.0), 400.0) == (0.0, 100.0)   # room enough already
+
+
+def test_one_page_at_a_time_the_search_cancels_and_an_option_applies_by_its_buttons(qtbot, docked):
+    from PySide6.QtCore import Qt
+
+    frame, area, view = docked
+    resize_to(qtbot, frame, view, (580, 330), narrow=True)
+    view.arrangement.show_page("Cost vs chance")
+    qtbot.waitUntil(view.find.isVisible)                       # the controls sit above the chance chart
+    view.iterations.setValue(20000)
+    qtbot.mouseClick(view.find, Qt.MouseButton.LeftButton)
+    qtbot.waitUntil(lambda: view.cancel.isVisible() and view.cancel.isEnabled())
+    qtbot.mouseClick(view.cancel, Qt.MouseButton.LeftButton)
+    qtbot.waitUntil(lambda: not view.runner.running, timeout=60000)
+    assert "cancelled" in view.status.text()
+    view.iterations.setValue(300)
+    qtbot.mouseClick(view.find, Qt.MouseButton.LeftButton)
+    qtbot.waitUntil(lambda: not view.runner.running and bool(view.result.confidence), timeout=60000)
+    view.arrangement.show_page("What to buy")
+    qtbot.waitUntil(view.apply.isVisible)
+    labels = [view.option.itemText(i) for i in range(view.option.count())]
+    view.option.setCurrentIndex(labels.index("90 % chance of the deadline"))
+    steps = view.session.undo_stack.count()
+    qtbot.mouseClick(view.apply, Qt.MouseButton.LeftButton)
+    assert view.session.undo_stack.count() == steps + 1
+    assert view.session.plan.settings.bought.label == "90 % chance of the deadline"
