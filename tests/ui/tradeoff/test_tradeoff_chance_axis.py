@@ -7,7 +7,8 @@ from PySide6.QtGui import QColor, QImage, QPainter
 
 from workbench.core.demo import demo_plan
 from workbench.ui.session import Session
-from workbench.ui.tradeoff.view import TradeoffView, _label_anchor
+from workbench.ui.tradeoff.charts import label_anchor as _label_anchor
+from workbench.ui.tradeoff.view import TradeoffView
 
 
 @pytest.fixture
@@ -45,7 +46,8 @@ def dark_pixels(image: QImage, rect) -> int:
 @pytest.mark.parametrize("size", [(640, 480), (800, 600), (1024, 768), (1920, 1080)])
 def test_both_ends_of_the_chance_axis_are_labelled_on_screen(qtbot, view, size):
     view.resize(*size)
-    qtbot.waitUntil(lambda: view.chance_plot.width() > 0 and view.size().width() == size[0])
+    view.arrangement.show_page("Cost vs chance")         # behind a tab when the view is narrow
+    qtbot.waitUntil(lambda: view.chance_plot.isVisible() and view.size().width() == size[0])
     qtbot.wait(20)
     axis, plot = view.chance_axis, view.chance_plot
     labels = drawn_labels(axis)

@@ -13,6 +13,8 @@ from workbench.figures import drivers as fdr
 from workbench.figures import style
 
 STALE = "#A0A0A0"
+ROW = 18        # px: the least height of a row, so row labels never run into each other
+CHROME = 90     # px: the title, the value axis and its label
 
 
 class DriversChart(pg.PlotWidget):
@@ -23,6 +25,7 @@ class DriversChart(pg.PlotWidget):
     def __init__(self, title: str, xlabel: str, signed: bool, parent=None):
         super().__init__(parent, background=style.BACKGROUND)
         self.signed = signed
+        self.chart_title = title
         self.bars: list[fdr.DriverBar] = []
         self.rects: list[fdr.BarRect] = []
         self.selected: set[str] = set()
@@ -65,6 +68,7 @@ class DriversChart(pg.PlotWidget):
         item.setYRange(-max(1, len(bars)) + 0.4, 0.6, padding=0.02)
         self._set_row_labels()
         self._fit_value_room()          # after the row labels: they set the plot's width
+        self.setMinimumHeight(CHROME + ROW * max(1, len(bars)))   # rows never overlap: a short dock scrolls
 
     def _fit_value_room(self) -> None:
         """The x range, widened until the value printed beyond the longest bar fits inside

@@ -5,13 +5,17 @@ the rest folded into one row; a click selects that activity in every view."""
 
 from __future__ import annotations
 
-from PySide6.QtWidgets import QHBoxLayout, QLabel, QSpinBox, QStackedLayout, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QHBoxLayout, QLabel, QSpinBox, QStackedLayout, QTabBar, QVBoxLayout, QWidget
 
 from workbench.figures import drivers as fdr
 from workbench.ui.drivers.chart import DriversChart
 from workbench.ui.session import WhenShown, take_simulation
+from workbench.ui.wrap_fit import WrapHeight
 
 PLACEHOLDER = "No simulation yet. Run a simulation in the Odds view to see what drives the finish."
+LEGEND = ("activities; the rest fold into one row. Vermillion with a heavy edge: on the PERT critical path. "
+          "Click a bar to select the activity.")
+WIDE = 640     # px: narrower, the two charts are shown one at a time (each needs ~300 to read)
 STALE_NOTE = "Stale: the plan changed since this simulation (shown in grey). Run it again in the Odds view."
 
 
@@ -23,6 +27,7 @@ class DriversView(QWidget):
         self.session = session
         self.result = None
         self.stale = False
+        self.narrow = False
         self.when_shown = WhenShown(self)   # while hidden, redraws wait until it is shown
         self._build()
         session.simulation_changed.connect(self._on_simulation_changed)
@@ -50,23 +55,48 @@ class DriversView(QWidget):
         self.stack.addWidget(self._charts())
         outer = QVBoxLayout(self)
         outer.addLayout(self.stack)
+        self.wraps = WrapHeight((self.placeholder, self.legend, self.note), self)
+
+    def hasHeightForWidth(self) -> bool:  # noqa: N802 (Qt override)
+        # the wrapped labels keep their own least heights (WrapHeight): in a dock the view
+        # gets the dock's height, so the placeholder shows in the middle of what is seen
+        return False
 
     def _charts(self) -> QWidget:
         page = QWidget()
         head = QHBoxLayout()
         head.addWidget(QLabel("Show the top"))
         head.addWidget(self.top)
-        head.addWidget(QLabel("activities; the rest fold into one row. Vermillion with a heavy edge: on the "
-                              "PERT critical path. Click a bar to select the activity."))
-        head.addStretch(1)
+        self.legend = QLabel(LEGEND)
+        self.legend.setWordWrap(True)          # wraps at the dock's width (a 1024×768 projector)
+        head.addWidget(self.legend, 1)
+        self.tabs = QTabBar()                  # one chart at a time in a narrow dock
+        for chart in (self.criticality, self.sensitivity):
+            self.tabs.addTab(chart.chart_title)
+        self.tabs.setExpanding(False)
+        self.tabs.setVisible(False)
+        self.tabs.currentChanged.connect(self._show_chart)
         charts = QHBoxLayout()
         charts.addWidget(self.criticality, 1)
         charts.addWidget(self.sensitivity, 1)
         lay = QVBoxLayout(page)
         lay.addLayout(head)
         lay.addWidget(self.note)
+        lay.addWidget(self.tabs)
         lay.addLayout(charts, 1)
         return page
+
+    def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        narrow = event.size().width() < WIDE
+        if narrow != self.narrow:
+            self.narrow = narrow        # True while the charts are shown one at a time
+            self.tabs.setVisible(narrow)
+            self._show_chart(self.tabs.currentIndex())
+        super().resizeEvent(event)
+
+    def _show_chart(self, index: int) -> None:
+        for i, chart in enumerate((self.criticality, self.sensitivity)):
+            chart.setVisible(not self.narrow or i == index)
 
     def _on_simulation_changed(self) -> None:
         take_simulation(self)

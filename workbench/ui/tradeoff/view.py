@@ -5,8 +5,8 @@ from __future__ import annotations
 
 import numpy as np
 import pyqtgraph as pg
-from PySide6.QtWidgets import (QComboBox, QHBoxLayout, QLabel, QProgressBar, QPushButton, QSpinBox,
-                               QTableWidget, QTableWidgetItem, QVBoxLayout, QWidget)
+from PySide6.QtWidgets import (QComboBox, QLabel, QProgressBar, QPushButton, QSpinBox, QTableWidget,
+                               QTableWidgetItem, QWidget)
 
 from workbench.core.buy_time import BuyTimeCommand
 from workbench.core.calendar import WorkCalendar
@@ -15,6 +15,8 @@ from workbench.core.formatting import format_day_month, format_number, format_pe
 from workbench.figures import tradeoff as ftr
 from workbench.ui.date_axis import DateAxis
 from workbench.ui.session import refresh_when_shown
+from workbench.ui.tradeoff.arrangement import Arrangement, Parts
+from workbench.ui.tradeoff.charts import ChanceAxis, along, font_of, label_anchor, make_plot, room_range
 from workbench.ui.tradeoff.cost_settings import CostSettings
 from workbench.ui import workers
 from workbench.ui.tradeoff.runner import TradeoffRunner
@@ -22,88 +24,11 @@ from workbench.ui.tradeoff.runner import TradeoffRunner
 CAUTION = ("Caution: estimates are judgement; crash costs are quotes, not facts. Chances come from a "
            "simulation, not a promise; the decision rests with your organisation's own approval rules.")
 FINISH_WAIT_MS = 120_000   # finish_work (screenshots, scripts) waits this long at most
+CURVE_TITLE, CHANCE_TITLE = "Cost of finishing by each date", "Extra cost vs chance"
+HINT = "Find confidence plans: what a 50, 80 or 90 % chance would cost"
 NO_COSTS = ("No cost data in this plan. Give activities a cost, and a crash cost and crash estimate where they can "
             "be shortened: in the Activities table (right-click a heading to show the Cost, Crash cost and crash "
             "estimate columns) or in a spreadsheet.")
-
-
-class MoneyAxis(pg.AxisItem):
-    """Costs as 950, 12.5k, 1.25M (never in scientific notation)."""
-
-    def __init__(self, **kw):
-        super().__init__("left", **kw)
-        self.enableAutoSIPrefix(False)
-
-    def tickStrings(self, values, scale, spacing):  # noqa: N802 (Qt override)
-        return [ftr.money(v) for v in values]
-
-
-class ChanceAxis(pg.AxisItem):
-    """0–100 % with both ends always labelled (they are the first tick level; the steps
-    between are labelled as room allows). The last label may reach past the axis's end,
-    into a right margin of the plot kept for it (``reserve_room``), instead of being dropped."""
-
-    def __init__(self, **kw):
-        super().__init__("bottom", **kw)
-        self.room = 0
-        ends = (ftr.CHANCE_TICKS[0], ftr.CHANCE_TICKS[-1])
-        self.setTicks([[(v, f"{v:g}") for v in ends], [(v, f"{v:g}") for v in ftr.CHANCE_TICKS[1:-1]]])
-
-    def reserve_room(self, plot_item) -> None:
-        font = self.style["tickFont"] or pg.QtGui.QFont()
-        half = pg.QtGui.QFontMetrics(font).horizontalAdvance(f"{ftr.CHANCE_TICKS[-1]:g}") // 2 + 6
-        self.room = half
-        self.setStyle(hideOverlappingLabels=half)
-        left, top, _, bottom = plot_item.layout.getContentsMargins()
-        plot_item.layout.setContentsMargins(left, top, half, bottom)
-
-    def boundingRect(self):  # noqa: N802 (Qt override)
-        # with a grid, pyqtgraph bounds the labels by the axis alone, whatever the style says
-        room = getattr(self, "room", 0)
-        return super().boundingRect().adjusted(-room, 0, room, 0)
-
-
-def _plot(title: str, left: str, bottom: str, axis=None, legend=None) -> pg.PlotWidget:
-    axes = {"left": MoneyAxis()}
-    if axis is not None:
-        axes["bottom"] = axis
-    w = pg.PlotWidget(background="w", axisItems=axes)
-    w.setTitle(title, color="#000000", size="13pt")
-    w.setLabel("left", left)
-    w.setLabel("bottom", bottom)
-    w.showGrid(x=True, y=True, alpha=0.2)
-    font = pg.QtGui.QFont()
-    font.setPointSize(11)
-    for side in ("left", "bottom"):
-        w.getAxis(side).setTickFont(font)
-        w.getAxis(side).setTextPen("#000000")
-    if isinstance(axis, ChanceAxis):
-        axis.reserve_room(w.getPlotItem())
-    if legend is not None:
-        w.addLegend(offset=legend, labelTextSize="11pt", labelTextColor="#000000", brush=pg.mkBrush(255, 255, 255, 220))
-    return w
-
-
-def _label_anchor(x: float, textbook: bool) -> tuple[float, float]:
-    """Where a point's label sits: confidence plans above it (to the left on the right half);
-    the textbook plan, near zero cost, beside it, so the axis never cuts it."""
-    if textbook:
-        return (1.12, 0.5) if x > 35 else (-0.12, 0.5)
-    return (1.05, 1.1) if x > 55 else (-0.05, 1.1)
-
-
-def _along(x: float, lines) -> float:
-    """How far ``x`` lies across the curve's span, 0 to 1: the optimum's label is anchored
-    there, so at either end of the curve it stays inside the chart."""
-    xs = [float(v) for v in lines.durations] + ([] if lines.deadline is None else [float(lines.deadline)])
-    lo, hi = min(xs, default=x), max(xs, default=x)
-    return 0.5 if hi <= lo else min(max((x - lo) / (hi - lo), 0.0), 1.0)
-
-
-def _font(size: int):
-    font = pg.QtGui.QFont()
-    font.setPointSize(size)
-    return font
 
 
 def _not_shortened(missing: dict) -> str:
@@ -119,6 +44,7 @@ class TradeoffView(QWidget):
     def __init__(self, session, parent=None):
         super().__init__(parent)
         self.session, self.result, self.options = session, None, []
+        self.costs = CostSettings(session)
         self.runner = TradeoffRunner(self)
         self.runner.progress.connect(self._on_progress)
         self.runner.finished.connect(self._on_result)
@@ -140,28 +66,25 @@ class TradeoffView(QWidget):
         self.cancel.clicked.connect(self.runner.stop)
         self.progress = QProgressBar()
         self.progress.setVisible(False)
-        head = QHBoxLayout()
-        for w in (QLabel("Scenarios"), self.iterations, self.find, self.cancel, self.progress):
-            head.addWidget(w)
-        head.addWidget(self.status, 1)
         self.axis = DateAxis()
-        self.curve_plot = _plot("Cost of finishing by each date", "cost", "finish", self.axis, legend=(12, -50))
+        self.curve_plot = make_plot(CURVE_TITLE, "cost", "finish", self.axis, legend=(12, -50))
         self.chance_axis = ChanceAxis()
-        self.chance_plot = _plot("Extra cost vs chance", "extra cost", "chance of the deadline (%)", self.chance_axis)
-        charts = QHBoxLayout()
-        charts.addWidget(self.curve_plot, 3)
-        charts.addWidget(self.chance_plot, 2)
-        lay = QVBoxLayout(self)
-        lay.addLayout(head)
-        lay.addLayout(charts, 3)
-        lay.addLayout(self._table_row(), 2)
+        self.chance_plot = make_plot(CHANCE_TITLE, "extra cost", "chance of the deadline (%)", self.chance_axis)
+        self.chance_plot.getPlotItem().vb.sigResized.connect(self._fit_hint)
+        for plot in (self.curve_plot, self.chance_plot):
+            plot.getPlotItem().vb.sigResized.connect(self._fit_rooms)
+        self.hint, self.rooms = None, {}
         caution = QLabel(CAUTION)
         caution.setWordWrap(True)
-        lay.addWidget(caution)
+        parts = Parts(controls=[QLabel("Scenarios"), self.iterations, self.find, self.cancel],
+                      progress=self.progress, status=self.status, curve=self.curve_plot, chance=self.chance_plot,
+                      costs=self.costs, choice=self._choice(), table=self._table(), caution=caution)
+        self.arrangement = Arrangement(self, parts, (CURVE_TITLE, CHANCE_TITLE))
         self._set_running(False)
 
-    def _table_row(self):
+    def _choice(self) -> list:
         self.option = QComboBox()
+        self.option.setMinimumContentsLength(14)      # one page at a time: the list's width follows the page
         self.option.currentIndexChanged.connect(self._fill_table)
         self.apply = QPushButton("Apply as a scenario")
         self.apply.setToolTip("Replace the estimates of the activities listed by their crashed ones "
@@ -169,21 +92,28 @@ class TradeoffView(QWidget):
         self.apply.clicked.connect(self.apply_option)
         self.summary = QLabel()
         self.summary.setWordWrap(True)
+        return [QLabel("Option"), self.option, self.summary, self.apply]
+
+    def _table(self) -> QTableWidget:
         self.table = QTableWidget(0, 4)
         self.table.setHorizontalHeaderLabels(["id", "activity", "shortened by", "extra cost"])
-        self.table.horizontalHeader().setSectionResizeMode(1, self.table.horizontalHeader().ResizeMode.Stretch)
+        header = self.table.horizontalHeader()
+        header.setSectionResizeMode(1, header.ResizeMode.Stretch)
+        for column in (0, 2, 3):     # the figures' columns as wide as their words: the names get the rest
+            header.setSectionResizeMode(column, header.ResizeMode.ResizeToContents)
         self.table.setEditTriggers(QTableWidget.EditTrigger.NoEditTriggers)
         self.table.setSelectionBehavior(QTableWidget.SelectionBehavior.SelectRows)
         self.table.itemSelectionChanged.connect(self._select_in_views)
-        self.costs = CostSettings(self.session)
-        side = QVBoxLayout()
-        for w in (self.costs, QLabel("Option"), self.option, self.summary, self.apply):
-            side.addWidget(w)
-        side.addStretch(1)
-        row = QHBoxLayout()
-        row.addLayout(side, 1)
-        row.addWidget(self.table, 3)
-        return row
+        return self.table
+
+    def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        self.arrangement.fit(event.size().width(), event.size().height())
+        super().resizeEvent(event)
+
+    def hasHeightForWidth(self) -> bool:  # noqa: N802 (Qt override)
+        # the wrapped labels keep their own least heights (WrapHeight): a dock's scroller then
+        # gives the view the dock's height down to the view's true minimum, then scrolls
+        return False
 
     # --- running -------------------------------------------------------------
     def _kwargs(self, targets=()) -> dict:
@@ -259,13 +189,16 @@ class TradeoffView(QWidget):
     def _draw(self) -> None:
         for w in (self.curve_plot, self.chance_plot):
             w.clear()
+        self.hint, self.rooms = None, {}
         self.options = []
         self.option.clear()
         if self.result is None:
             self.table.setRowCount(0)
+            self.arrangement.refill_legend()
             return
         self.axis.set_calendar(WorkCalendar(self.session.plan.settings))
         self._draw_curve(ftr.curve_lines(self.result))
+        self.arrangement.refill_legend()
         self._draw_chances(ftr.chance_points(self.result))
         self._list_options()
 
@@ -278,19 +211,32 @@ class TradeoffView(QWidget):
         x, y = lines.optimum
         p.plot([x], [y], pen=None, symbol="star", symbolSize=22, symbolBrush=ftr.OPTIMUM, name="least total cost")
         when = format_day_month(self.axis.calendar.finish_date(x))
-        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(_along(x, lines), 1.3))
-        label.setFont(_font(11))
+        label = pg.TextItem(f"optimum {when}", color="#000000", anchor=(along(x, lines), 1.3))
+        label.setFont(font_of(11))
         label.setPos(x, y)
         p.addItem(label)
+        ys = np.concatenate([lines.direct, lines.indirect, lines.total])
+        pad = 0.06 * (float(np.ptp(ys)) or max(abs(float(ys.max())), 1.0))
+        self.rooms[p] = (float(ys.min()) - pad, float(ys.max()) + pad, (y, label), (float(ys.min()), 6.0))
+        self._fit_rooms()
         if lines.deadline is not None:
             p.addItem(pg.InfiniteLine(lines.deadline, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=3, style=pg.QtCore.Qt.PenStyle.DashLine),
                                       label="deadline", labelOpts={"color": ftr.DEADLINE, "position": 0.95}))
+
+    def _fit_rooms(self, *_) -> None:
+        """Each chart's cost range, with room above its topmost label and below its lowest
+        marker at the chart's present height."""
+        for plot, (lo, hi, (y, label), low) in self.rooms.items():
+            vb = plot.getPlotItem().vb
+            up = 1.3 * label.textItem.boundingRect().height() + 6
+            vb.setYRange(*room_range(lo, hi, (y, up), low, vb.height()), padding=0)
 
     def _draw_chances(self, points) -> None:
         p = self.chance_plot
         target = self.session.plan.settings.target_confidence
         p.addItem(pg.InfiniteLine(100 * target, angle=90, pen=pg.mkPen(ftr.DEADLINE, width=2, style=pg.QtCore.Qt.PenStyle.DotLine),
                                   label=f"target {format_whole_percent(target)}", labelOpts={"color": ftr.DEADLINE, "position": 0.3}))
+        top = None
         for pt in ftr.merged(points):
             symbol, colour = ("s", ftr.DEADLINE) if pt.textbook else ("o", ftr.CHANCE)
             x = 100 * pt.chance
@@ -300,21 +246,33 @@ class TradeoffView(QWidget):
                                   width=np.array([200 * pt.standard_error]), pen=pg.mkPen("#000000", width=2))
             bar.setZValue(-1)      # under the marker: only a spread wider than the marker shows
             p.addItem(bar)
-            anchor = _label_anchor(x, pt.textbook)
+            anchor = label_anchor(x, pt.textbook)
             label = pg.TextItem(pt.short_label,
                                 color="#000000", anchor=anchor)
-            label.setFont(_font(11))
+            label.setFont(font_of(11))
             label.setPos(x, pt.extra_cost)
             p.addItem(label)
+            top = (pt.extra_cost, label) if top is None or pt.extra_cost > top[0] else top
         p.setXRange(0, 100, padding=0.04)
-        p.setYRange(*ftr.cost_span([q.extra_cost for q in points]), padding=0)
+        lo, hi = ftr.cost_span([q.extra_cost for q in points])
+        p.setYRange(lo, hi, padding=0)
+        if top is not None:
+            self.rooms[p] = (lo, hi, top, (min(q.extra_cost for q in points), 12.0))   # half a marker, and a little
+            self._fit_rooms()
         if not self.result.confidence:
-            hint = pg.TextItem("Find confidence plans:\nwhat a 50, 80 or 90 %\nchance would cost",   # narrow at 1024×768
-                               color="#555555", anchor=(0.5, 0.5))
-            hint.setFont(_font(11))
+            self.hint = pg.TextItem(HINT, color="#555555", anchor=(0.5, 0.5))
+            self.hint.setFont(font_of(11))
             lo, hi = ftr.cost_span([q.extra_cost for q in points])
-            hint.setPos(50, lo + 0.6 * (hi - lo))
-            p.addItem(hint)
+            self.hint.setPos(50, lo + 0.6 * (hi - lo))
+            p.addItem(self.hint)
+            self._fit_hint()
+
+    def _fit_hint(self, *_) -> None:
+        """The placeholder wraps inside the chart, whatever its width."""
+        if self.hint is not None and self.hint.scene() is not None:
+            width = self.chance_plot.getPlotItem().vb.width()
+            self.hint.textItem.setTextWidth(max(80.0, 0.8 * width))
+            self.hint.updateTextPos()
 
     # --- options -------------------------------------------------------------
     def _list_options(self) -> None:
@@ -331,6 +289,7 @@ class TradeoffView(QWidget):
         self.options.append(("Total-cost optimum", o.days, o.direct_cost - r.problem.base_cost, None, None))
         for label, *_ in self.options:
             self.option.addItem(label)
+        self.arrangement.fit(self.width(), self.height())      # the longest option may set where the costs go
         self._fill_table()
 
     def _fill_table(self) -> None:
