@@ -4,6 +4,8 @@ which activities are still to do, the thresholds and how to turn counts into a :
 from __future__ import annotations
 
 from dataclasses import dataclass
+from functools import cached_property
+from operator import attrgetter
 
 import numpy as np
 
@@ -33,6 +35,14 @@ class CheckupFrame:
     @property
     def net(self):
         return self.analysis.schedule.network
+
+    @cached_property
+    def lags(self) -> np.ndarray:
+        """Each link's lag as the plan gives it, in link order. (The schedule's network is the
+        engine's: from a status date it marks links that progress has passed with a lag of
+        minus infinity, which is no lead the planner entered.)"""
+        links = self.plan.links
+        return np.fromiter(map(attrgetter("lag"), links), dtype=float, count=len(links))
 
     @property
     def unit(self) -> str:

@@ -59,14 +59,14 @@ def _link_names(frame: CheckupFrame, links: np.ndarray) -> tuple[list[str], str]
     """Successor ids (unique, plan order) and a note naming the first few links."""
     net, ids, plan_links = frame.net, frame.ids, frame.plan.links
     succ = sorted(set(net.dst[links].tolist()))
-    shown = [f"{ids[net.src[k]]} \u2192 {ids[net.dst[k]]} ({plan_links[k].type} {net.lag[k]:+g})"
+    shown = [f"{ids[net.src[k]]} \u2192 {ids[net.dst[k]]} ({plan_links[k].type} {frame.lags[k]:+g})"
              for k in links[:3].tolist()]
     more = f" and {links.size - 3} more" if links.size > 3 else ""
     return [ids[i] for i in succ], ("; ".join(shown) + more) if shown else ""
 
 
 def leads(frame: CheckupFrame) -> Check:
-    links = np.flatnonzero(_links_to_do(frame) & (frame.net.lag < -EPS))
+    links = np.flatnonzero(_links_to_do(frame) & (frame.lags < -EPS))
     offenders, note = _link_names(frame, links)
     return count_check(frame, "leads", "Leads", offenders, "leads_count", "activities after a lead",
                        f"Links with a negative lag: {note}." if note else "")
@@ -74,7 +74,7 @@ def leads(frame: CheckupFrame) -> Check:
 
 def lags(frame: CheckupFrame) -> Check:
     counted = _links_to_do(frame)
-    links = np.flatnonzero(counted & (frame.net.lag > EPS))
+    links = np.flatnonzero(counted & (frame.lags > EPS))
     offenders, note = _link_names(frame, links)
     return share_check(frame, "lags", "Lags", int(links.size), int(counted.sum()), "lags_pct", "links",
                        offenders, f"Links with a positive lag: {note}." if note else "")
