@@ -133,6 +133,15 @@ def format_whole_percent(p) -> str:
     return f"{max(0.0, min(1.0, p)) * 100:.0f} %"
 
 
+def format_chance(p) -> str:
+    """The chance of a date worked out from estimates (PERT or a simulation): as
+    ``format_percent``, but never ``0 %`` or ``100 %`` — an estimate is never certain, so the
+    ends read ``< 0.1 %`` and ``> 99.9 %`` (as the summary strip says them)."""
+    if p is None or math.isnan(float(p)):
+        return NONE
+    return format_percent(min(max(float(p), 0.0001), 0.9999))
+
+
 def format_percent(p) -> str:
     """A probability for people: ``85.5 %``; ``< 0.1 %`` and ``> 99.9 %`` near the ends so
     an uncertain finish never reads as certain; ``0 %`` and ``100 %`` only when exact."""

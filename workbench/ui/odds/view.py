@@ -293,7 +293,7 @@ class OddsView(QWidget):
     def _headline(self, q: fo.Question) -> None:
         """The question and both answers as a small table: readable at a glance."""
         a = self.analysis
-        rows = [("Chance", f"{100 * fo.pert_probability(a.pert, q):.1f} %", self._sim_percent(q))]
+        rows = [("Chance", fm.format_chance(fo.pert_probability(a.pert, q)), self._sim_percent(q))]
         rows += [(f"{p} date", d_pert, d_sim) for p, d_pert, d_sim in self._answer_dates]
         narrow = self.panel.width() < NARROW_PANEL_PX     # a small dock: dates without weekday and year
         heads = ["", "PERT", "Sim." if narrow else "Simulation"]
@@ -301,7 +301,7 @@ class OddsView(QWidget):
         if crews is not None:           # the same run's durations with the crews holding work back
             heads[2] = "Logic" if narrow else "Logic only"
             heads.append("Crews" if narrow else "With the crews")
-            extra = [f"{100 * fo.sim_probability(crews, q):.1f} %"]
+            extra = [fm.format_chance(fo.sim_probability(crews, q))]
             extra += [fo.format_date(fo.date_of(a.calendar, fo.sim_offset_at(crews, p)))
                       for p in dict.fromkeys((self.confidence, 0.9))]      # as show_confidence asks
             rows = [row + (x,) for row, x in zip(rows, extra)]
@@ -317,7 +317,7 @@ class OddsView(QWidget):
     def _sim_percent(self, q) -> str:
         if self.result is None:
             return "not run"
-        return "stale" if self.stale else f"{100 * fo.sim_probability(self.result, q):.1f} %"
+        return "stale" if self.stale else fm.format_chance(fo.sim_probability(self.result, q))
 
     def _dates_at(self, p: float) -> tuple[str, str, str]:
         """Headline texts for a confidence: (percentage, PERT date, simulation date)."""
