@@ -16,18 +16,24 @@ TITLE_MOST = 200          # characters of the title, revision, names printed on 
 FACT_MOST = 160
 SIGNER_MOST = 44          # two lines of a sign-off row
 CONTENTS = ("Summary", "Timeline", "Network", "Odds", "Drivers", "Activities",
-            "Assumptions and cautions")
+            "Assumptions and cautions")      # when the caller does not say what the pack holds
 
 
-def cover(ctx: PackContext, width: float) -> list:
+def contents_of(parts: list) -> list[str]:
+    """The section titles a story holds, in order, each once (the cover left out)."""
+    titles = [p.title for p in parts if isinstance(p, Section) and p.key != "cover"]
+    return list(dict.fromkeys(titles))
+
+
+def cover(ctx: PackContext, width: float, contents: list[str] | None = None) -> list:
     s = ctx.settings
     story = [Section("Cover", "cover"),
              Paragraph("SLACKLINE \u00b7 APPROVAL PACK", styles.SUBTITLE), Spacer(1, 40),
              Paragraph(para(elide(s.title, TITLE_MOST)), styles.TITLE), Spacer(1, 14),
              _facts(ctx, width), Spacer(1, 18),
-             *_headline(ctx, width), Spacer(1, 18),
+             *_headline(ctx, width), *_crews(ctx), Spacer(1, 18),
              Paragraph("Contents", styles.H2),
-             Paragraph(para(" \u00b7 ".join(CONTENTS)), styles.BODY), Spacer(1, 30),
+             Paragraph(para(" \u00b7 ".join(contents or CONTENTS)), styles.BODY), Spacer(1, 30),
              Paragraph("Sign-off", styles.H1),
              Paragraph("By signing, each person confirms they have reviewed this pack; the "
                        "decision rests with the organisation's own approval rules.", styles.BODY),
@@ -62,6 +68,20 @@ def _headline(ctx: PackContext, width: float) -> list:
                                ("TEXTCOLOR", (0, 0), (0, -1), styles.MUTED),
                                ("LINEBELOW", (0, 0), (-1, -1), 0.3, styles.GRID)]))
     return [table, Spacer(1, 4), Paragraph(para(f"{head.note} {head.caution}"), styles.SMALL)]
+
+
+def _crews(ctx: PackContext) -> list:
+    """For a plan with resources: the crews' effect on the odds, where the board reads the
+    headline (the Resources pages give the detail)."""
+    from .resource_pages import crews_odds
+
+    both = crews_odds(ctx)
+    if both is None:
+        return []
+    sentence = both.sentence(float(ctx.settings.target_confidence))
+    sentence = sentence[:1].lower() + sentence[1:]
+    return [Spacer(1, 6), Paragraph(para(f"With the crews: {sentence} The figures above are the logic's alone; "
+                                         "see Resources."), styles.BODY)]
 
 
 def sign_off_table(people, width: float) -> Table:

@@ -23,7 +23,7 @@ from .cautions import cautions
 from .charts import chart_pages
 from .checkup_pages import checkup_pages
 from .context import PackContext
-from .cover import cover
+from .cover import contents_of, cover
 from .footer import FooterInfo, PackCanvas, footer_drawer
 from .layout import LANDSCAPE, PORTRAIT, PackDocument, frame_size, new_page
 from .path_pages import full_path, is_long
@@ -94,7 +94,7 @@ def _build(ctx: PackContext, buffer, report) -> PackDocument:
 
 def story(ctx: PackContext, report) -> list:
     portrait_w, _ = frame_size(ctx.paper, PORTRAIT)
-    parts = cover(ctx, portrait_w) + new_page(PORTRAIT) + summary(ctx, portrait_w)
+    parts = new_page(PORTRAIT) + summary(ctx, portrait_w)
     parts += baseline_pages(ctx, frame_size(ctx.paper, LANDSCAPE))
     parts += new_page(PORTRAIT) + checkup_pages(ctx, portrait_w)
     report(72)
@@ -105,7 +105,7 @@ def story(ctx: PackContext, report) -> list:
     parts += new_page(PORTRAIT) + cautions(ctx, portrait_w)
     parts += (new_page(PORTRAIT) + full_path(ctx, portrait_w)) if is_long(ctx) else []
     report(85)
-    return parts
+    return cover(ctx, portrait_w, contents_of(parts)) + parts
 
 
 def _checked(plan):

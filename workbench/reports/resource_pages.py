@@ -177,16 +177,25 @@ def _held_by(plan, held_by: str) -> str:
     return names.get(held_by, held_by)
 
 
-def _odds(ctx, width) -> list:
+def crews_odds(ctx):
+    """The pack's odds with and without the crews (None without resources or a simulation):
+    the logic-only run is the pack's own (the Odds pages' figures); the crews' run draws the
+    same durations (same seed, same iterations). Worked out once per pack: the cover quotes it."""
     sim = ctx.simulation
-    if sim is None:
-        return []
-    from workbench.core.montecarlo import simulate
-    from workbench.core.resource_odds import ResourceOdds
+    if sim is None or not ctx.plan.resources:
+        return None
+    if getattr(ctx, "_crews_odds", None) is None:
+        from workbench.core.montecarlo import simulate
+        from workbench.core.resource_odds import ResourceOdds
+        ctx._crews_odds = ResourceOdds(sim, simulate(ctx.plan, sim.iterations, sim.seed, resources=True))
+    return ctx._crews_odds
 
-    # the logic-only column is the pack's own run (the Odds pages' figures); the crews' run
-    # draws the same durations: same seed, same number of iterations
-    both = ResourceOdds(sim, simulate(ctx.plan, sim.iterations, sim.seed, resources=True))
+
+def _odds(ctx, width) -> list:
+    both = crews_odds(ctx)
+    if both is None:
+        return []
+    sim = ctx.simulation
     conf = float(ctx.settings.target_confidence)
     rows = [["", "Logic only", "With the crews"]] + [list(r) for r in both.rows(conf)]
     table = Table(rows, colWidths=[width * 0.3, width * 0.25, width * 0.25])
