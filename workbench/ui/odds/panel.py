@@ -119,6 +119,7 @@ class OddsPanel(QWidget):
         lay = QVBoxLayout(self)
         lay.setContentsMargins(4, 4, 4, 4)       # narrow margins: the panel may share a small dock
         lay.addWidget(self.headline)
+        lay.addWidget(self.caution)               # beside the chances, in sight without scrolling
         self.crews_box = QGroupBox("With the crews")    # shown when the plan has resources
         self.crews_slot = QVBoxLayout(self.crews_box)
         self.crews_box.hide()
@@ -133,7 +134,6 @@ class OddsPanel(QWidget):
         inner.addWidget(self.table)
         inner.addWidget(self.merge_note)
         lay.addWidget(self.compare_box)
-        lay.addWidget(self.caution)
         lay.addStretch(1)
 
     def set_table(self, cells, unit: str = "") -> None:
