@@ -73,9 +73,19 @@ def _labels(plan, ids) -> list[str]:
 
 
 def criticality_bars(result, plan=None, top: int = 10) -> list[DriverBar]:
-    """Criticality index per activity, highest first."""
+    """Criticality index per activity, highest first. Milestones are left out when the plan
+    is given: a start or finish milestone is on every path (100 %) and drives nothing."""
     ids = list(result.ids)
-    return ranked(ids, _labels(plan, ids), result.criticality, top)
+    keep = _not_milestones(plan, ids)
+    ids = [ids[i] for i in keep]
+    return ranked(ids, _labels(plan, ids), np.asarray(result.criticality, dtype=float)[keep], top)
+
+
+def _not_milestones(plan, ids) -> list[int]:
+    if plan is None:
+        return list(range(len(ids)))
+    milestone = {a.id for a in plan.activities if a.is_milestone}
+    return [i for i, a in enumerate(ids) if a not in milestone]
 
 
 def sensitivity_bars(result, plan=None, top: int = 10) -> list[DriverBar]:
