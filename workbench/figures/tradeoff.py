@@ -50,7 +50,7 @@ class ChancePoint:
     @property
     def short_label(self) -> str:
         """The label beside the point on a chart (the table keeps the full one)."""
-        return "textbook" if self.textbook else self.label
+        return "mean schedule" if self.textbook else self.label
 
 
 def chance_points(result) -> list[ChancePoint]:
@@ -58,7 +58,7 @@ def chance_points(result) -> list[ChancePoint]:
     out = []
     d = result.to_deadline
     if d is not None:
-        out.append(ChancePoint("textbook: crash the mean to the deadline", d.chance, d.standard_error,
+        out.append(ChancePoint("mean-schedule plan: crash the mean to the deadline", d.chance, d.standard_error,
                                d.point.direct_cost - result.problem.base_cost, True))
     for c in result.confidence:
         if c.reachable:

@@ -20,7 +20,8 @@ BAR_ROW = 17.0
 
 
 FOOTNOTE = ("Activities on the PERT critical path are drawn hatched with a heavy outline. A folded row "
-            "stands for the remaining activities and shows the largest of their values.")
+            "stands for the remaining activities and shows the largest of their values. Milestones are not "
+            "ranked for criticality (a start or finish milestone lies on every path).")
 
 
 def drivers_pages(ctx, frame: tuple[float, float]) -> list:
@@ -39,7 +40,7 @@ def drivers_pages(ctx, frame: tuple[float, float]) -> list:
 def paint_drivers(c, w: float, h: float, crit, sens, critical: set[str]) -> None:
     """Criticality (left) and the sensitivity tornado (right) side by side in w × h points."""
     half = (w - 20) / 2
-    _panel(c, (0, h, half), crit, False, "Criticality index: runs on the critical path (milestones aside)", critical)
+    _panel(c, (0, h, half), crit, False, "Criticality index: runs on the critical path", critical)
     _panel(c, (half + 20, h, half), sens, True, "Sensitivity: correlation with the finish", critical)
     c.setFont(styles.FONT, 8)
     c.setFillColor(styles.MUTED)

@@ -279,7 +279,7 @@ class TradeoffView(QWidget):
         r = self.result
         if r.to_deadline is not None:
             d = r.to_deadline
-            self.options.append(("Textbook: crash the mean schedule to the deadline", d.point.days,
+            self.options.append(("Mean-schedule plan: crash the mean schedule to the deadline", d.point.days,
                                  d.point.direct_cost - r.problem.base_cost, d.chance, d.standard_error))
         for c in r.confidence:
             if c.reachable:
