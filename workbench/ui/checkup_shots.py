@@ -71,7 +71,8 @@ def main(argv: list[str] | None = None) -> int:
     if not argv:
         print("usage: python -m workbench.ui.checkup_shots OUTDIR", file=sys.stderr)
         return 2
-    os.environ.setdefault("QT_QPA_PLATFORM", "offscreen")
+    from workbench.ui.shot_screen import use_shot_screen
+    use_shot_screen()
     os.environ.setdefault("SLACKLINE_DATA_DIR", tempfile.mkdtemp(prefix="slackline-shots-"))
     for path in render(Path(argv[0])):
         print(path)

@@ -41,7 +41,7 @@ def test_a_current_simulation_leads_the_slide_as_it_leads_the_strip(qtbot):
     pert = session.analysis.probability_by_deadline()
     assert chance < pert - 0.2                      # the two methods disagree plainly here
     rows = _figure_rows(slide)
-    assert [label for label, _ in rows] == [strip.captions[k].text() for k in strip.FIELDS]
+    assert [label for label, _ in rows] == [strip.texts()[f"{k}_caption"] for k in strip.FIELDS]
     assert [value for _, value in rows] == [strip.values[k].text() for k in strip.FIELDS]
     assert rows[1][1].startswith(percent(chance))    # the simulation's chance, before PERT's
     lines = slide.lines()

@@ -4,7 +4,7 @@ confidence and the critical path — large enough to read across a meeting room.
 from __future__ import annotations
 
 from PySide6.QtCore import Qt
-from PySide6.QtGui import QFont
+from PySide6.QtGui import QFont, QFontMetrics
 from PySide6.QtWidgets import QFrame, QGridLayout, QHBoxLayout, QLabel, QPushButton, QSizePolicy
 
 from workbench.core.formatting import format_duration, format_number
@@ -12,6 +12,7 @@ from workbench.figures.headline import headline
 from workbench.ui.session import Session, take_simulation
 
 PATH_SHOWN = 12
+PATH_LEAST = 3          # ids the path line keeps however narrow the strip
 
 
 def _float_to_deadline(a) -> str:
@@ -129,10 +130,40 @@ class SummaryStrip(QFrame):
         return out
 
     @staticmethod
-    def _path_text(a) -> str:
+    def _path_text(a, most: int = PATH_SHOWN) -> str:
         path = list(a.pert.path)
-        shown = " → ".join(path[:PATH_SHOWN]) + (f" → … ({len(path)} activities)" if len(path) > PATH_SHOWN else "")
+        shown = " → ".join(path[:most]) + (f" → … ({len(path)} activities)" if len(path) > most else "")
         return (shown + _float_to_deadline(a)) or "—"
+
+    def _fit(self, label: QLabel, candidates: list[str]) -> None:
+        """The first wording that fits the label on one line (the last when none does): a
+        narrow strip (a 1024×768 projector) keeps every figure to its lines, so the table
+        below keeps its rows."""
+        width = label.contentsRect().width()
+        metrics = QFontMetrics(label.font())
+        if not self.isVisible():            # not laid out yet: the whole wording until shown
+            text = candidates[0]
+        else:
+            text = next((t for t in candidates if metrics.horizontalAdvance(t) <= width), candidates[-1])
+        if label.text() != text:
+            label.setText(text)
+
+    def _fit_all(self, texts: dict[str, str]) -> None:
+        for key in self.FIELDS:
+            caption, beside = texts[f"{key}_caption"], texts[f"{key}_beside"]
+            self._fit(self.captions[key], [caption, caption.replace("(simulation)", "(sim.)")])
+            self._fit(self.besides[key], [beside, beside.replace(" (single path)", "")])
+        a = self.session.analysis
+        if a is not None:
+            self._fit(self.values["path"], [self._path_text(a, k) for k in range(PATH_SHOWN, PATH_LEAST - 1, -1)])
+
+    def resizeEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        super().resizeEvent(event)
+        self._fit_all(self.texts())
+
+    def showEvent(self, event) -> None:  # noqa: N802 (Qt override)
+        super().showEvent(event)
+        self._fit_all(self.texts())
 
     def refresh(self) -> None:
         texts = self.texts()
@@ -142,6 +173,7 @@ class SummaryStrip(QFrame):
             self.besides[key].setText(texts[f"{key}_beside"])
             self.besides[key].setVisible(bool(texts[f"{key}_beside"]))
         self.values["path"].setText(texts["path"])
+        self._fit_all(texts)
         self.note.setText(texts["note"])
         self.note.setStyleSheet("color: #8A3B00; font-weight: bold;" if self.stale and self.result is not None else "")
         self.values["path"].setToolTip(" → ".join(self.session.analysis.pert.path) if self.session.analysis else "")
