@@ -86,11 +86,13 @@ class NetworkPainter:
         size = 7.5
         width = c.stringWidth(text, styles.BOLD, size)
         page_w = self.view.w * self.view.scale
+        bottom = top - self.view.h * self.view.scale + 2.0
         x = min(max(x - width / 2, 2.0), page_w - width - 2.0)
-        y = min(max(y - size / 2, top - self.view.h * self.view.scale + 2.0), top - size - 2.0)
-        if any(t == text and abs(px - x) < 40 and abs(py - y) < 14 for t, px, py in placed):
+        y = min(max(y - size / 2, bottom), top - size - 2.0)
+        if any(t == text and abs(px - x) < 40 and abs(py - y) < 14 for t, px, py, _ in placed):
             return                           # two links to the same box leave at the same place
-        placed.append((text, x, y))
+        y = _free_row(placed, x, y, width, size, bottom, top - size - 2.0)
+        placed.append((text, x, y, width))
         c.saveState()
         c.setFillColor(_WHITE)
         c.setStrokeColor(styles.CRITICAL if link.critical else styles.MUTED)
@@ -124,6 +126,10 @@ class NetworkPainter:
             x, y = self.view.page(*link.label_at, top)
             text = clean(link.label)
             width = c.stringWidth(text, styles.BOLD, 7.5)
+            page_w, page_h = self.view.w * self.view.scale, self.view.h * self.view.scale
+            if not (x - width / 2 >= 0 and x + width / 2 <= page_w and top - page_h <= y and y + 10 <= top):
+                c.restoreState()             # the label would be cut by the page's edge: the page
+                return                       # where the link's box sits shows it whole
             c.setFillColor(_WHITE)
             c.rect(x - width / 2 - 1.5, y + 1, width + 3, 9, stroke=0, fill=1)
             c.setFont(styles.BOLD, 7.5)
@@ -198,6 +204,22 @@ class NetworkPainter:
                 ("LS", day("late_start"), False), ("LF", day("late_finish"), False),
                 ("TF", format_duration(s.total_float[i], unit), s.total_float[i] < -1e-9),
                 ("FF", format_duration(s.free_float[i], unit), False)]
+
+
+def _free_row(placed, x: float, y: float, width: float, size: float, lo: float, hi: float) -> float:
+    """``y``, or the nearest height (down first, then up, a tag's height at a time, within
+    lo..hi) where a tag at ``x`` of ``width`` overlaps no tag placed before (tags of links
+    leaving near one another would otherwise print over each other)."""
+    step = size + 5.0
+
+    def clashes(yy):
+        return any(x - 2 < px + pw + 2 and px - 2 < x + width + 2 and yy - 2 < py + size + 1 and py - 2 < yy + size + 1
+                   for _, px, py, pw in placed)
+    for k in range(0, 40):
+        for yy in ((y,) if k == 0 else (y - k * step, y + k * step)):
+            if lo <= yy <= hi and not clashes(yy):
+                return yy
+    return y
 
 
 def _exit_point(points, view: View):
