@@ -9,14 +9,15 @@ from pathlib import Path
 
 import pytest
 from PySide6.QtCore import Qt
-from PySide6.QtWidgets import QDialog, QDialogButtonBox
+from PySide6.QtWidgets import QDialog, QDialogButtonBox, QLabel
 
 from support.ui import ui_env, window  # noqa: F401 (fixtures)
 from workbench.cli import main
+from workbench.core.date_text import show_date
 from workbench.io.planfile import load_plan, save_plan
 from workbench.ui.activities import columns as C
 from workbench.ui.workspace.settings_dialog import to_qdate
-from workbench.ui.workspace.status_dialog import MARK, StatusDateDialog
+from workbench.ui.workspace.status_dialog import MARK, StatusDateDialog, dates_as_shown
 
 SAMPLE = Path(__file__).resolve().parents[2] / "data" / "harbour_kiosk_progress_v3.slw"
 START, FINISH, REMAINING = 2, 3, 4          # the dialog's columns
@@ -73,7 +74,9 @@ def test_a_finish_before_the_start_is_told_in_the_dialog_and_corrected_there(qtb
     before = session.undo_stack.count()
     press_ok(qtbot, dialog)
     assert dialog.isVisible() and dialog.message.isVisible()
-    assert "activity ELEC: actual finish 2026-03-16 is before its actual start 2026-03-18" in dialog.message.text()
+    # the dates as the dialog's cells show them
+    assert ("activity ELEC: actual finish Mon 16 Mar 2026 is before its actual start Wed 18 Mar 2026"
+            in dialog.message.text())
     assert marked(dialog) == [(row(dialog, "ELEC"), FINISH)]
     cell = dialog.table.item(row(dialog, "ELEC"), FINISH)
     assert cell.font().bold() and "actual finish" in cell.toolTip()
@@ -100,7 +103,8 @@ def test_a_date_after_the_new_status_date_marks_the_actual_start(qtbot, kiosk_wi
     dialog = open_dialog(qtbot, kiosk_window)
     type_in(dialog, "ELEC", START, "2026-03-25")
     press_ok(qtbot, dialog)
-    assert "activity ELEC: actual start 2026-03-25 is after the status date 2026-03-20" in dialog.message.text()
+    words = "activity ELEC: actual start Wed 25 Mar 2026 is after the status date Fri 20 Mar 2026"
+    assert words in dialog.message.text()
     assert marked(dialog) == [(row(dialog, "ELEC"), START)]
     assert kiosk_window.session.plan.settings.status_date == dt.date(2026, 3, 13)
     type_in(dialog, "ELEC", START, "2026-03-19")              # put right: the mark and the message go
@@ -129,12 +133,14 @@ def test_moving_the_date_keeps_what_was_typed(qtbot, kiosk_window):
 
 
 def test_the_status_date_was_is_shown_as_the_window_shows_dates(qtbot, kiosk_window):
-    from workbench.core.date_text import show_date
-    from PySide6.QtWidgets import QLabel
-
     dialog = open_dialog(qtbot, kiosk_window)
     labels = [w.text() for w in dialog.findChildren(QLabel)]
     assert show_date(dt.date(2026, 3, 13)) in labels and "2026-03-13" not in labels
+
+
+def test_only_real_dates_in_a_message_are_rewritten():
+    assert dates_as_shown("finish 2026-03-16, not 2026-02-30 nor 12026-03-16") == \
+        "finish Mon 16 Mar 2026, not 2026-02-30 nor 12026-03-16"
 
 
 # --- the words: % done without an actual start -------------------------------------------

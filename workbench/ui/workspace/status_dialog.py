@@ -10,6 +10,7 @@ from __future__ import annotations
 
 import datetime as dt
 import html
+import re
 
 import numpy as np
 from PySide6.QtCore import QItemSelectionModel, Qt
@@ -31,6 +32,18 @@ KEYS = ("actual_start", "actual_finish", "remaining")
 FIRST_KEY_COLUMN = 2
 MARK = QColor("#F7D9C4")            # a light tint of the critical vermillion (the bold text and tooltip say it too)
 MESSAGE_STYLE = "QLabel { border: 2px solid #D55E00; border-radius: 3px; padding: 4px; }"
+NAME_WIDTH = 260                     # wider names are elided (the whole name is the cell's tooltip)
+_ISO_DAY = re.compile(r"\b(\d{4})-(\d{2})-(\d{2})\b")
+
+
+def dates_as_shown(message: str) -> str:
+    """``message`` with its ISO dates written as the dialog's cells show dates."""
+    def shown(m: re.Match) -> str:
+        try:
+            return show_date(dt.date(*(int(g) for g in m.groups())))
+        except ValueError:
+            return m.group(0)
+    return _ISO_DAY.sub(shown, message)
 
 
 def column_of(field: str | None) -> int:
@@ -125,8 +138,10 @@ class StatusDateDialog(QDialog):
                 item = QTableWidgetItem(text)
                 if c < FIRST_KEY_COLUMN:
                     item.setFlags(item.flags() & ~Qt.ItemFlag.ItemIsEditable)
+                    item.setToolTip(text)
                 self.table.setItem(r, c, item)
         self.table.resizeColumnsToContents()
+        self.table.setColumnWidth(1, min(self.table.columnWidth(1), NAME_WIDTH))
 
     def command(self):
         """The one-step command for what the table says. A cell that cannot be read raises
@@ -159,7 +174,8 @@ class StatusDateDialog(QDialog):
     def show_refusal(self, exc: PlanError) -> None:
         """Say why inside the dialog and mark (and focus) the cell at fault."""
         self.clear_refusal()
-        self.message.setText(f"<b>Not moved yet:</b> {html.escape(as_the_window_says(exc), quote=False)}")
+        words = dates_as_shown(as_the_window_says(exc))
+        self.message.setText(f"<b>Not moved yet:</b> {html.escape(words, quote=False)}")
         self.message.show()
         row = self._row_of(exc.culprit)
         if row is None:
@@ -170,7 +186,7 @@ class StatusDateDialog(QDialog):
         font = QFont(item.font())
         font.setBold(True)
         item.setFont(font)
-        item.setToolTip(str(exc))
+        item.setToolTip(words)
         self.marked = (row, col)
         self.table.scrollToItem(item)
         self.table.setCurrentCell(row, col, QItemSelectionModel.SelectionFlag.ClearAndSelect)
@@ -185,7 +201,7 @@ class StatusDateDialog(QDialog):
             if item is not None:
                 item.setData(Qt.ItemDataRole.BackgroundRole, None)
                 item.setData(Qt.ItemDataRole.FontRole, None)
-                item.setToolTip("")
+                item.setToolTip(item.text() if self.marked[1] < FIRST_KEY_COLUMN else "")
         self.marked = None
 
     def _row_of(self, act_id: str | None) -> int | None:
