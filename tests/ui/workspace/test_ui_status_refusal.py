@@ -88,7 +88,8 @@ def test_a_finish_before_the_start_is_told_in_the_dialog_and_corrected_there(qtb
     assert (text_at(dialog, "ELEC", START), text_at(dialog, "ELEC", FINISH),
             text_at(dialog, "PERM", REMAINING)) == ("2026-03-18", "16 Mar 2026", "1 / 2 / 4")
 
-    type_in(dialog, "ELEC", FINISH, "2026-03-19")
+    type_in(dialog, "ELEC", FINISH, "2026-03-19")             # typing there takes the mark away
+    assert marked(dialog) == [] and not dialog.message.isVisible()
     press_ok(qtbot, dialog)
     assert dialog.result() == QDialog.DialogCode.Accepted and not dialog.isVisible()
     assert session.undo_stack.count() == before + 1

@@ -87,6 +87,8 @@ class StatusDateDialog(QDialog):
         self.message.setTextFormat(Qt.TextFormat.RichText)
         self.message.hide()
         self.marked: tuple[int, int] | None = None
+        self.marked_text = ""
+        self.table.itemChanged.connect(self._edited)
         self.date.dateChanged.connect(lambda *_: self.fill())
         self._layout(old)
         self.fill()
@@ -187,7 +189,7 @@ class StatusDateDialog(QDialog):
         font.setBold(True)
         item.setFont(font)
         item.setToolTip(words)
-        self.marked = (row, col)
+        self.marked, self.marked_text = (row, col), item.text()
         self.table.scrollToItem(item)
         self.table.setCurrentCell(row, col, QItemSelectionModel.SelectionFlag.ClearAndSelect)
         self.table.clearSelection()                # the focus frame stays; the tint is not hidden
@@ -196,13 +198,18 @@ class StatusDateDialog(QDialog):
     def clear_refusal(self) -> None:
         self.message.hide()
         self.message.clear()
-        if self.marked is not None and self.marked[0] < self.table.rowCount():
-            item = self.table.item(*self.marked)
+        marked, self.marked = self.marked, None
+        if marked is not None and marked[0] < self.table.rowCount():
+            item = self.table.item(*marked)
             if item is not None:
                 item.setData(Qt.ItemDataRole.BackgroundRole, None)
                 item.setData(Qt.ItemDataRole.FontRole, None)
-                item.setToolTip(item.text() if self.marked[1] < FIRST_KEY_COLUMN else "")
-        self.marked = None
+                item.setToolTip(item.text() if marked[1] < FIRST_KEY_COLUMN else "")
+
+    def _edited(self, item: QTableWidgetItem) -> None:
+        """Typing into the marked cell takes the mark and the message away (OK judges anew)."""
+        if self.marked == (item.row(), item.column()) and item.text() != self.marked_text:
+            self.clear_refusal()
 
     def _row_of(self, act_id: str | None) -> int | None:
         for r in range(self.table.rowCount()):
