@@ -92,7 +92,7 @@ def main(argv: list[str] | None = None) -> int:
             return open_window([])
         return _dispatch(args)
     except PlanError as exc:
-        return _fail(str(exc), 2)
+        return _fail(_worded_for_here(exc, args), 2)
     except BrokenPipeError:  # output piped into a pager or `head` that stopped reading
         return _quiet_exit()
     except (OSError, UnicodeError) as exc:
@@ -103,6 +103,17 @@ def main(argv: list[str] | None = None) -> int:
         if os.environ.get("SLACKLINE_DEBUG"):
             raise
         return _fail(f"internal error ({type(exc).__name__}: {exc}); rerun with SLACKLINE_DEBUG=1 for details", 1)
+
+
+def _worded_for_here(exc, args) -> str:
+    """The refusal as the command line words it: a missing status date names how to give
+    one with this verb."""
+    from .core.errors import StatusDateMissing
+
+    if not isinstance(exc, StatusDateMissing):
+        return str(exc)
+    from .cmdline.living import status_date_way
+    return exc.with_way(status_date_way(args))
 
 
 def _quiet_exit() -> int:

@@ -13,6 +13,7 @@ import numpy as np
 import pytest
 
 from workbench.core import Activity, Link, Plan, PlanError, Settings, analyze
+from workbench.core.errors import StatusDateMissing
 from workbench.core.progress_fields import DONE, IN_PROGRESS, NOT_STARTED, Progress
 
 MONDAY = dt.date(2027, 1, 4)
@@ -161,7 +162,11 @@ def test_actual_dates_against_the_status_date_and_each_other_are_refused(progres
     (dict(actual_start=0.0, actual_finish=2.0, percent_complete=50), "is done .* but remaining work is given"),
     (dict(actual_start=0.0, percent_complete=101), "percent complete 101 lies outside 0\u2013100"),
     (dict(actual_start=0.0, percent_complete=-5), "percent complete -5 lies outside 0\u2013100"),
-    (dict(percent_complete=40), "remaining work is given but there is no actual start"),
+    (dict(percent_complete=40), r"percent complete needs an actual start: give the actual start \(the date work "
+                                r"began\) first"),
+    (dict(remaining=2.0), "remaining duration needs an actual start"),
+    (dict(remaining_optimistic=1.0, remaining_most_likely=2.0, remaining_pessimistic=3.0),
+     "remaining estimate needs an actual start"),
     (dict(actual_start=0.0, remaining=2.0, percent_complete=40), "give the remaining work one way only"),
     (dict(actual_start=0.0, remaining_optimistic=1.0), "needs remaining optimistic, most likely and pessimistic"),
     (dict(actual_start=0.0, remaining_optimistic=3.0, remaining_most_likely=2.0, remaining_pessimistic=4.0),
@@ -175,6 +180,26 @@ def test_inconsistent_progress_is_refused_when_the_activity_is_made(progress, ma
     assert err.value.culprit == "K2" and "activity K2" in str(err.value)
 
 
+@pytest.mark.parametrize("progress, field", [
+    (dict(actual_finish=2.0), "actual_finish"),
+    (dict(actual_start=2.0, actual_finish=1.0), "actual_finish"),
+    (dict(percent_complete=40), "percent_complete"),
+    (dict(remaining=2.0), "remaining"),
+    (dict(actual_start=0.0, remaining=-1.0), "remaining"),
+    (dict(actual_start="Monday"), "actual_start"),
+])
+def test_a_refusal_names_the_field_at_fault(progress, field):
+    with pytest.raises(PlanError) as err:
+        Progress(**progress).validated("K5")
+    assert err.value.field == field and err.value.culprit == "K5"
+
+
+def test_a_late_actual_date_names_its_field():
+    err = refused([Activity("K6", duration=3, progress=Progress(actual_start=0.0, actual_finish=dt.date(2030, 1, 7)))],
+                  "actual finish 2030-01-07 is after the status date")
+    assert err.field == "actual_finish"
+
+
 def test_a_done_activity_may_say_it_is_100_percent_complete():
     act = Activity("K3", duration=3, progress=Progress(actual_start=0.0, actual_finish=3.0, percent_complete=100))
     assert act.validated() is act
@@ -183,7 +208,9 @@ def test_a_done_activity_may_say_it_is_100_percent_complete():
 def test_progress_needs_a_status_date():
     acts = [Activity("Z", duration=1), Activity("K4", duration=3, progress=Progress(actual_start=0.0))]
     err = refused(acts, "activity K4 has progress, so the plan needs a status date", status=None)
-    assert err.culprit == "K4"
+    assert err.culprit == "K4" and isinstance(err, StatusDateMissing)
+    assert str(err) == "activity K4 has progress, so the plan needs a status date"    # each surface adds its way
+    assert err.with_way("give one here") == "activity K4 has progress, so the plan needs a status date: give one here"
 
 
 def test_an_unknown_progress_rule_is_refused():

@@ -21,6 +21,14 @@ def add_baseline(p) -> None:
     p.add_argument("--baseline", metavar="NAME", help="compare with this baseline (default: the approved one)")
 
 
+def status_date_way(args) -> str:
+    """How to give a missing status date with this verb (its option, when it has one)."""
+    if hasattr(args, "status_date"):
+        return "give one with --status-date YYYY-MM-DD"
+    return ("this verb reads it from the plan: set one in the window (Progress \u2192 Move the Status "
+            "Date\u2026) and save, or give the plan file's settings a status_date")
+
+
 def apply_status_date(plan, args) -> None:
     """Set the plan's status date from ``--status-date`` (refused unless a valid date)."""
     text = getattr(args, "status_date", None)

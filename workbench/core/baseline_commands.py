@@ -10,6 +10,7 @@ import datetime as dt
 
 from . import baseline as bl
 from .commands import Command, EditActivity, Group, SetSettings, settings_with
+from .errors import PlanError
 from .model import Plan
 from .progress_fields import Progress
 
@@ -66,3 +67,18 @@ def MoveStatusDate(plan: Plan, day: dt.date, progress: dict[str, Progress], rule
     parts = [SetSettings(settings_with(plan.settings, status_date=day, progress_rule=rule or plan.settings.progress_rule))]
     parts += [EditActivity(act_id, progress=p) for act_id, p in progress.items()]
     return Group(parts, f"Move the status date to {day.isoformat()}")
+
+
+def refusal_of(plan: Plan, command) -> PlanError | None:
+    """The PlanError the core would meet applying ``command`` to ``plan`` and scheduling the
+    result (naming the activity and, where known, the field), or None. Tried on a snapshot:
+    ``plan`` itself is left alone and nobody listening to it hears anything."""
+    from .analysis import analyze
+
+    trial = plan.snapshot()
+    try:
+        command.do(trial)
+        analyze(trial)
+    except PlanError as exc:
+        return exc
+    return None

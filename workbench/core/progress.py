@@ -31,7 +31,7 @@ from dataclasses import dataclass, field
 
 import numpy as np
 
-from .errors import PlanError
+from .errors import StatusDateMissing
 from .progress_fields import DONE, IN_PROGRESS, NOT_STARTED, STATE_NAMES
 from .progress_resolve import resolve
 
@@ -89,8 +89,7 @@ def progress_frame(plan, calendar, status_date: dt.date | None = None, means=Non
     day = status_date or plan.settings.status_date
     if day is None:
         first = acts[rows[0]].id
-        raise PlanError(f"activity {first} has progress, so the plan needs a status date "
-                        f"(plan settings, or --status-date)", first)
+        raise StatusDateMissing(first)
     n, T = len(acts), calendar.offset_through(day)
     frame = ProgressFrame(day, T, plan.settings.progress_rule, np.zeros(n, dtype=np.int8),
                           np.full(n, np.nan), np.full(n, np.nan), np.asarray(rows, dtype=np.int64),

@@ -25,15 +25,15 @@ def resolve(frame, acts, calendar, led: np.ndarray, means: np.ndarray) -> None:
     fed = led[rows]
     start, late_start = _points(calendar, [p.actual_start for p in progs], mile & fed, frame, ids, "actual start")
     end, late_end = _points(calendar, [p.actual_finish for p in progs], ~(mile & ~fed), frame, ids, "actual finish")
-    late = [x for x in (late_start, late_end) if x is not None]
+    late = [(*x, key) for x, key in ((late_start, "actual_start"), (late_end, "actual_finish")) if x is not None]
     if late:                                # the first activity in plan order at fault
-        k, message = min(late)
-        raise PlanError(message, ids[k])
+        k, message, key = min(late)
+        raise PlanError(message, ids[k], key)
     back = np.flatnonzero(end < start - EPS)
     if back.size:
         k = int(back[0])
         raise PlanError(f"activity {ids[k]}: actual finish {_shown(progs[k].actual_finish)} is before its actual "
-                        f"start {_shown(progs[k].actual_start)}", ids[k])
+                        f"start {_shown(progs[k].actual_start)}", ids[k], "actual_finish")
     state = np.where(~np.isnan(end), DONE, np.where(~np.isnan(start), IN_PROGRESS, NOT_STARTED)).astype(np.int8)
     frame.state[rows], frame.actual_start[rows], frame.actual_finish[rows] = state, start, end
     done = state == DONE

@@ -17,7 +17,7 @@ from PySide6.QtGui import QUndoCommand, QUndoStack
 from PySide6.QtWidgets import QDockWidget
 
 from workbench.core.analysis import Analysis, analyze
-from workbench.core.errors import PlanError
+from workbench.core.errors import PlanError, StatusDateMissing
 from workbench.core.model import Plan
 
 
@@ -59,6 +59,16 @@ class _PlanOnlyAdapter(QUndoCommand):
     def undo(self) -> None:
         self.command.undo(self.session.plan)
         self.session.simulation_changed.emit()
+
+
+STATUS_DATE_WAY = ("set one with Progress \u2192 Move the Status Date\u2026 "
+                   "(or File \u2192 Plan Settings\u2026)")
+
+
+def as_the_window_says(exc: PlanError) -> str:
+    """A refusal in the window's words: a missing status date names the window's own
+    controls (the command line names its option instead)."""
+    return exc.with_way(STATUS_DATE_WAY) if isinstance(exc, StatusDateMissing) else str(exc)
 
 
 class Session(QObject):
@@ -128,7 +138,7 @@ class Session(QObject):
         try:
             result, error = analyze(self.plan), None
         except PlanError as exc:
-            result, error = None, str(exc)
+            result, error = None, as_the_window_says(exc)
         except Exception as exc:  # an engine fault must not take the window (or the edit) with it
             result, error = None, f"the schedule could not be computed ({type(exc).__name__}: {exc})"
         return result, error, (time.perf_counter() - t0) * 1000.0

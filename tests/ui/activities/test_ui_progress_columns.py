@@ -51,7 +51,7 @@ def test_each_progress_edit_is_one_undo_step(model):
 
 @pytest.mark.parametrize("key, text, words", [
     ("actual_start", "2026-03-20", "activity FIT: actual start 2026-03-20 is after the status date 2026-03-13"),
-    ("percent_complete", "140", "activity STRIP: percent complete 140 lies outside 0\u2013100"),
+    ("percent_complete", "140", "activity STRIP: % done 140 lies outside 0\u2013100"),    # named as the column
     ("remaining", "1 2", "remaining: write one number, or three"),
     ("actual_finish", "2026-03-11", "activity OPEN: an actual finish needs an actual start"),
 ])

@@ -59,7 +59,8 @@ def test_a_bad_row_is_refused_and_nothing_changes(session):
     _set(dialog, "ELEC", 2, "2026-03-25")           # after the new status date
     before = session.undo_stack.count()
     dialog._accept()
-    assert "activity ELEC: actual start 2026-03-25 is after the status date 2026-03-20" in session.last_refusal
+    words = "activity ELEC: actual start Wed 25 Mar 2026 is after the status date Fri 20 Mar 2026"
+    assert words in dialog.message.text()
     assert session.undo_stack.count() == before and session.plan.settings.status_date == dt.date(2026, 3, 13)
 
 

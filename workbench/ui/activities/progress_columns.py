@@ -19,6 +19,9 @@ COMPUTED = ("state", "baseline_start", "baseline_finish", "start_variance", "fin
 _REMAINING = ("remaining_optimistic", "remaining_most_likely", "remaining_pessimistic", "remaining",
               "percent_complete")
 _SPLIT = re.compile(r"\s*[/;]\s*|\s+")
+# How refusals name the fields here: as the table's columns are headed.
+WINDOW_NAMES = {"actual_start": "actual start", "actual_finish": "actual finish", "remaining": "remaining",
+                "remaining_estimate": "remaining", "percent_complete": "% done"}
 
 
 def edit_text(act, key: str, fmt_number, fmt_point) -> str:
@@ -43,13 +46,13 @@ def changes_for(act, key: str, text: str, parse_number, parse_point) -> dict:
         if key == "actual_finish" and p.actual_finish is not None:   # finished: nothing remains
             p = p.with_(**dict.fromkeys(_REMAINING))
     elif key == "percent_complete":
-        value = parse_number(text.strip().rstrip("%"), act.id, "percent complete")
+        value = parse_number(text.strip().rstrip("%"), act.id, WINDOW_NAMES[key])
         p = p.with_(**{**dict.fromkeys(_REMAINING), "percent_complete": value})
     else:
         p = p.with_(**{**dict.fromkeys(_REMAINING), **_remaining(text, act.id, parse_number)})
     p = None if p.is_empty else p
     if p is not None:
-        p.validated(act.id)
+        p.validated(act.id, WINDOW_NAMES)
     return {"progress": p}
 
 
