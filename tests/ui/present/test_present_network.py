@@ -82,3 +82,34 @@ def test_a_small_network_shows_whole_on_one_part(qtbot, monkeypatch):
     seen = drawn_ids(slide, monkeypatch)
     assert slide.part_count == 1 and set(seen) == set(slide.session.plan.ids())
     assert min(seen.values()) >= 16.0
+
+
+def inked_box(image) -> tuple[int, int, int, int]:
+    """Bounding box (left, top, right, bottom) of the pixels that are not white."""
+    import numpy as np
+    from PySide6.QtGui import QImage
+    image = image.convertToFormat(QImage.Format.Format_RGB32)
+    rgb = np.frombuffer(image.constBits(), np.uint8).reshape(image.height(), image.bytesPerLine() // 4, 4)
+    ink = (rgb[:, :image.width(), :3] < 235).any(axis=2)
+    rows, cols = np.flatnonzero(ink.any(axis=1)), np.flatnonzero(ink.any(axis=0))
+    return int(cols[0]), int(rows[0]), int(cols[-1]), int(rows[-1])
+
+
+def test_the_wrapped_demo_fills_the_slide(shown, monkeypatch):
+    """At 1024×768 the demo's strips together use most of the slide's width and height."""
+    _, slide = shown
+    left, top, right, bottom = inked_box(slide.grab().toImage())
+    assert (right - left) >= 0.9 * slide.width(), (left, right, slide.width())
+    assert (bottom - top) >= 0.85 * slide.height(), (top, bottom, slide.height())
+    seen = drawn_ids(slide, monkeypatch)
+    assert slide.part_count == 1 and set(seen) == set(slide.session.plan.ids())
+    assert min(seen.values()) >= ID_PX
+
+
+def test_a_small_network_fills_the_slide_in_one_strip(qtbot, monkeypatch):
+    from support.plans import footbridge_plan
+    slide = PresentNetworkSlide(Session(footbridge_plan()))
+    qtbot.addWidget(slide)
+    slide.resize(1024, 640)
+    left, top, right, bottom = inked_box(slide.grab().toImage())
+    assert (right - left) >= 0.9 * slide.width() or (bottom - top) >= 0.9 * slide.height()
