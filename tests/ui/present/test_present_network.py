@@ -113,3 +113,21 @@ def test_a_small_network_fills_the_slide_in_one_strip(qtbot, monkeypatch):
     slide.resize(1024, 640)
     left, top, right, bottom = inked_box(slide.grab().toImage())
     assert (right - left) >= 0.9 * slide.width() or (bottom - top) >= 0.9 * slide.height()
+
+
+@pytest.mark.parametrize("count", [1, 2, 3, 5])
+def test_strips_hold_every_box_once_and_whole(count):
+    from support.plans import long_plan
+    from workbench.core import analyze
+    from workbench.figures.network_layout import layout_plan
+    from workbench.ui.present.network_wrap import strips
+    for plan in (_plan(None), long_plan(60)):
+        layout = layout_plan(plan, analyze(plan))
+        views = strips(layout, count)
+        assert 1 <= len(views) <= count
+        rows = [r for v in views for r in v.rows]
+        assert sorted(rows) == list(range(len(layout.boxes)))          # each box in one strip
+        for v in views:
+            b = layout.boxes[sorted(v.rows)]
+            assert (b[:, 0] >= v.x0).all() and (b[:, 0] + b[:, 2] <= v.x0 + v.w).all()
+            assert (b[:, 1] >= v.y0).all() and (b[:, 1] + b[:, 3] <= v.y0 + v.h).all()
