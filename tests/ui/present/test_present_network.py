@@ -131,3 +131,12 @@ def test_strips_hold_every_box_once_and_whole(count):
             b = layout.boxes[sorted(v.rows)]
             assert (b[:, 0] >= v.x0).all() and (b[:, 0] + b[:, 2] <= v.x0 + v.w).all()
             assert (b[:, 1] >= v.y0).all() and (b[:, 1] + b[:, 3] <= v.y0 + v.h).all()
+
+
+def test_the_part_keys_are_named_only_when_there_are_parts(qtbot, shown):
+    from support.plans import long_plan
+    from workbench.ui.present.network_slide import PARTS_HINT
+    win, _ = shown
+    assert PARTS_HINT not in win.counter.text()              # the demo wraps onto one slide
+    many = present_at(qtbot, Session(long_plan(150)), 2)
+    assert PARTS_HINT in many.counter.text()                 # 150 activities come in parts

@@ -14,9 +14,10 @@ from workbench.reports import styles
 from workbench.reports.network_pages import MARGIN_UNITS, overview_view, tiles
 from workbench.reports.network_paint import MIN_DETAIL_SCALE, NetworkPainter, View
 
-from workbench.ui.present.chart_slide import LOGICAL_H, LOGICAL_W, MARGIN_PX, PresentChartSlide
+from workbench.ui.present.chart_slide import LOGICAL_H, LOGICAL_W, MARGIN_PX, PresentChartSlide, session_context
 from workbench.ui.present.network_wrap import ROW_GAP, placed, wrapped
 
+PARTS_HINT = "[ and ]: other parts of the network"
 ID_PX = 17.0          # smallest id on the projector, in pixels
 OVERVIEW_ID_SHARE = 0.6   # overview boxes set their id at up to this share of the box height
 OVERVIEW_ID_MAX = 14.0    # … and at most this many points
@@ -85,7 +86,13 @@ def slide_groups(views: list[View], h: float) -> list[list[View]]:
 class PresentNetworkSlide(PresentChartSlide):
     """The diagram part by part; ``part`` is the one shown."""
 
-    present_hint = "[ and ]: other parts of the network"
+    @property
+    def present_hint(self) -> str:
+        """The keys, said only when the diagram is in parts (not when it wraps onto one slide)."""
+        ctx = session_context(self.session)
+        if ctx is None or self._legible_strips(layout_plan(ctx.plan, ctx.analysis), *self.logical):
+            return ""
+        return PARTS_HINT
 
     def __init__(self, session, parent=None):
         super().__init__(session, self._paint_network, parent)
@@ -108,10 +115,16 @@ class PresentNetworkSlide(PresentChartSlide):
         k = max(min(room_w / LOGICAL_W, room_h / LOGICAL_H), 0.1)
         self.logical = (room_w / k, room_h / k)
 
+    def _legible_strips(self, layout, w: float, h: float) -> list:
+        """The strips that fill w × h points, when their ids read (else empty)."""
+        views = wrapped(layout, w, h)
+        legible = views and id_points(layout, views[0].scale) * self.scale_and_origin()[0] >= ID_PX
+        return views if legible else []
+
     def _paint_network(self, canvas, ctx, w, h) -> None:
         layout = layout_plan(ctx.plan, ctx.analysis)
-        views = wrapped(layout, w, h)
-        if views and id_points(layout, views[0].scale) * self.scale_and_origin()[0] >= ID_PX:
+        views = self._legible_strips(layout, w, h)
+        if views:
             self.part_count, self.part = 1, 0
             for view, (left, top) in zip(views, placed(views, w, h)):
                 canvas.saveState()
