@@ -116,7 +116,17 @@ class PresentNetworkSlide(PresentChartSlide):
         self.logical = (room_w / k, room_h / k)
 
     def _legible_strips(self, layout, w: float, h: float) -> list:
-        """The strips that fill w × h points, when their ids read (else empty)."""
+        """The strips that fill w × h points, when their ids read (else empty); worked out
+        once per analysis and page size."""
+        key = (w, h, self.scale_and_origin()[0])
+        kept = getattr(self, "_kept_strips", None)
+        if kept is not None and kept[0] is self.session.analysis and kept[1] == key:
+            return kept[2]
+        views = self._strips_now(layout, w, h)
+        self._kept_strips = (self.session.analysis, key, views)
+        return views
+
+    def _strips_now(self, layout, w: float, h: float) -> list:
         views = wrapped(layout, w, h)
         legible = views and id_points(layout, views[0].scale) * self.scale_and_origin()[0] >= ID_PX
         return views if legible else []

@@ -5,9 +5,11 @@ use the slide's width and height best (a wide, shallow network in two or three s
 
 from __future__ import annotations
 
+import bisect
+
 import numpy as np
 
-from workbench.reports.network_pages import MARGIN_UNITS, cuts
+from workbench.reports.network_pages import MARGIN_UNITS, gaps
 from workbench.reports.network_paint import MIN_DETAIL_SCALE, View
 
 MAX_STRIPS = 6        # more strips than this on one slide read as a puzzle, not a diagram
@@ -16,17 +18,37 @@ STRIP_MARGIN = 2 * MARGIN_UNITS   # layout units beside a strip's outer boxes (r
 
 
 def strip_windows(layout, count: int) -> list[tuple[float, float]]:
-    """At most ``count`` windows (x0, x1) of the layout's width, cut between columns and
-    shared as evenly as the gaps allow."""
+    """At most ``count`` windows (x0, x1) of the layout's width, cut in gaps between
+    columns, the widest as narrow as the gaps allow."""
     b = layout.boxes
     lo, hi = float(b[:, 0].min()), float((b[:, 0] + b[:, 2]).max())
-    size = (hi - lo) / count
-    for _ in range(200):        # widen until the gaps allow ``count`` windows
-        windows = cuts(b[:, 0], b[:, 0] + b[:, 2], lo, hi, size)
-        if len(windows) <= count:
-            return windows
-        size *= 1.03
-    return [(lo, hi)]
+    points = sorted(g for g in gaps(b[:, 0], b[:, 0] + b[:, 2]) if lo < g < hi)
+    small, large, best = (hi - lo) / max(count, 1), hi - lo, [(lo, hi)]
+    found = _greedy(points, lo, hi, small)
+    if found is not None and len(found) <= count:
+        return found
+    for _ in range(30):                      # bisection on the widest window's width
+        mid = (small + large) / 2
+        found = _greedy(points, lo, hi, mid)
+        if found is not None and len(found) <= count:
+            large, best = mid, found
+        else:
+            small = mid
+    return best
+
+
+def _greedy(points: list[float], lo: float, hi: float, width: float) -> list[tuple[float, float]] | None:
+    """Windows no wider than ``width`` from lo to hi, each ending at the farthest gap
+    (``points``) in reach: the fewest such windows; None when a column is wider."""
+    out, start = [], lo
+    while hi - start > width + 1e-9:
+        j = bisect.bisect_right(points, start + width) - 1
+        if j < 0 or points[j] <= start:
+            return None
+        out.append((start, points[j]))
+        start = points[j]
+    out.append((start, hi))
+    return out
 
 
 def strips(layout, count: int) -> list[View]:
