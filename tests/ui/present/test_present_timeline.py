@@ -6,7 +6,7 @@ from __future__ import annotations
 
 import numpy as np
 import pytest
-from PySide6.QtCore import QPointF, Qt
+from PySide6.QtCore import QPointF, QRectF, Qt
 from PySide6.QtGui import QColor, QFontMetricsF
 
 from workbench.core.montecarlo import simulate
@@ -208,6 +208,21 @@ def test_date_labels_are_whole_and_inside_the_slide(slide):
         assert top + font_px <= room.bottom() + 1                   # not cut at the foot
     bottom = axis.mapRectToScene(room).bottom()
     assert bottom <= view.plot.height()
+
+
+def test_the_last_date_label_lies_inside_the_screen(slide):
+    """The chart reaches the slide's right edge: a month label centred on a tick near it
+    would be cut there, so it is left out rather than drawn in part."""
+    win, view = slide
+    axis = view.date_axis
+    _, (_, xs), texts = axis.generateDrawSpecs(None)
+    shown = view.plot.viewport().rect()
+    assert len(texts) >= 2
+    for x, top, w, text in texts:
+        rect = view.plot.mapFromScene(axis.mapRectToScene(QRectF(x, top, w, 10))).boundingRect()
+        assert shown.left() <= rect.left() and rect.right() <= shown.right() + 1, (text, rect, shown)
+    right_edge = view.plot.mapFromScene(axis.mapToScene(QPointF(float(xs[-1]), 0))).x()
+    assert right_edge > shown.right() - 30       # a tick near the edge: the case that cut "Oct"
 
 
 def test_date_labels_are_drawn_below_the_chart(slide):

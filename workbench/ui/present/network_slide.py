@@ -1,8 +1,9 @@
-"""The Network slide of Present mode: the pack's activity-on-node diagram, shown in
-parts just large enough that every id reads from the back of a room (at least ID_PX
-pixels high). Parts are set one under another on a slide while they fit (a wide network
-wraps like text); [ and ] step between
-slides only when there is more than one. A small network shows whole."""
+"""The Network slide of Present mode: the pack's activity-on-node diagram, filling the
+slide (its logical page takes the screen's shape). A wide network wraps like text into
+strips set one under another, as many as make the diagram largest (``network_wrap``).
+When even that leaves an id below ID_PX pixels, the diagram is shown in parts just large
+enough that every id reads from the back of a room, set one under another on a slide while
+they fit; [ and ] step between slides only when there is more than one."""
 
 from __future__ import annotations
 
@@ -13,8 +14,10 @@ from workbench.reports import styles
 from workbench.reports.network_pages import MARGIN_UNITS, overview_view, tiles
 from workbench.reports.network_paint import MIN_DETAIL_SCALE, NetworkPainter, View
 
-from workbench.ui.present.chart_slide import PresentChartSlide
+from workbench.ui.present.chart_slide import LOGICAL_H, LOGICAL_W, MARGIN_PX, PresentChartSlide, session_context
+from workbench.ui.present.network_wrap import ROW_GAP, placed, wrapped
 
+PARTS_HINT = "[ and ]: other parts of the network"
 ID_PX = 17.0          # smallest id on the projector, in pixels
 OVERVIEW_ID_SHARE = 0.6   # overview boxes set their id at up to this share of the box height
 OVERVIEW_ID_MAX = 14.0    # … and at most this many points
@@ -64,9 +67,6 @@ def _occupied(layout, views: list[View]) -> list[View]:
                                  & (b[:, 1] + b[:, 3] >= v.y0) & (b[:, 1] <= v.y0 + v.h)).any()]
 
 
-ROW_GAP = 14.0        # points between two rows of a wrapped network on one slide
-
-
 def slide_groups(views: list[View], h: float) -> list[list[View]]:
     """Parts grouped into slides: a wide, shallow network wraps like text, its parts set
     one under another while they fit the slide's height, so it splits only when it must."""
@@ -86,7 +86,13 @@ def slide_groups(views: list[View], h: float) -> list[list[View]]:
 class PresentNetworkSlide(PresentChartSlide):
     """The diagram part by part; ``part`` is the one shown."""
 
-    present_hint = "[ and ]: other parts of the network"
+    @property
+    def present_hint(self) -> str:
+        """The keys, said only when the diagram is in parts (not when it wraps onto one slide)."""
+        ctx = session_context(self.session)
+        if ctx is None or self._legible_strips(layout_plan(ctx.plan, ctx.analysis), *self.logical):
+            return ""
+        return PARTS_HINT
 
     def __init__(self, session, parent=None):
         super().__init__(session, self._paint_network, parent)
@@ -101,7 +107,46 @@ class PresentNetworkSlide(PresentChartSlide):
         layout = layout_plan(ctx.plan, ctx.analysis)
         return layout, network_parts(layout, w, h, self.scale_and_origin()[0])
 
+    def resizeEvent(self, event):  # noqa: N802 (Qt override)
+        """The logical page takes the slide's shape (at the other slides' points per pixel),
+        so the diagram can use the whole screen."""
+        super().resizeEvent(event)
+        room_w, room_h = max(self.width() - 2 * MARGIN_PX, 1), max(self.height() - 2 * MARGIN_PX, 1)
+        k = max(min(room_w / LOGICAL_W, room_h / LOGICAL_H), 0.1)
+        self.logical = (room_w / k, room_h / k)
+
+    def _legible_strips(self, layout, w: float, h: float) -> list:
+        """The strips that fill w × h points, when their ids read (else empty); worked out
+        once per analysis and page size."""
+        key = (w, h, self.scale_and_origin()[0])
+        kept = getattr(self, "_kept_strips", None)
+        if kept is not None and kept[0] is self.session.analysis and kept[1] == key:
+            return kept[2]
+        views = self._strips_now(layout, w, h)
+        self._kept_strips = (self.session.analysis, key, views)
+        return views
+
+    def _strips_now(self, layout, w: float, h: float) -> list:
+        views = wrapped(layout, w, h)
+        legible = views and id_points(layout, views[0].scale) * self.scale_and_origin()[0] >= ID_PX
+        return views if legible else []
+
     def _paint_network(self, canvas, ctx, w, h) -> None:
+        layout = layout_plan(ctx.plan, ctx.analysis)
+        views = self._legible_strips(layout, w, h)
+        if views:
+            self.part_count, self.part = 1, 0
+            for view, (left, top) in zip(views, placed(views, w, h)):
+                canvas.saveState()
+                canvas.translate(left, 0)
+                NetworkPainter(ctx, layout, view).paint(canvas, w, top)
+                canvas.restoreState()
+            return
+        self._paint_parts(canvas, ctx, w, h)
+
+    def _paint_parts(self, canvas, ctx, w, h) -> None:
+        """The diagram in parts at the smallest scale at which every id reads (too large
+        to wrap onto one slide legibly)."""
         layout, views = self.parts(ctx, w, h - 16)      # a line at the top names the part
         groups = slide_groups(views, h - 16) if len(views) > 1 else [views]
         self.part_count = len(groups)

@@ -87,13 +87,24 @@ class TimelineDateAxis(TimelineAxisCache, pg.AxisItem):
         if need > self.textHeight or need < self.textHeight - 10:   # as pyqtgraph: only on a real change,
             self._updateMaxTextSize(need)                          # which also drops the kept image
         top = bounds.top() + max(0, self.style["tickLength"]) + self.style["tickTextOffset"][1]
-        texts, room = [], self.boundingRect()
+        texts, room = [], self._label_room()
         for x, (_, text) in zip(xs.tolist(), ticks):    # whole labels only, within the axis and a margin
             w = (laid_out.get(text) or self._lay_out(laid_out, text, font, metrics))[0]
             if room.left() <= x - w / 2 and x + w / 2 <= room.right():
                 texts.append((x - w / 2, top, w, text))
         axis = (QPen(self.pen()), QPointF(bounds.left(), bounds.top()), QPointF(bounds.right(), bounds.top()))
         return axis, (bounds.top(), xs), texts
+
+    def _label_room(self) -> QRectF:
+        """Where labels may go: the axis and a margin beside it, but only as far as the
+        chart's widget shows (a label past its edge would be cut, e.g. on a slide)."""
+        room = self.boundingRect()
+        scene = self.scene()
+        views = [] if scene is None else scene.views()
+        if views:
+            shown = views[0].mapToScene(views[0].viewport().rect()).boundingRect()
+            room = room.intersected(self.mapRectFromScene(shown))
+        return room
 
     def _laid_out_for(self, font: QFont) -> dict:
         """Label text → (width, laid-out text) in ``font`` (one font key asked per paint)."""

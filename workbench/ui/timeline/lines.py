@@ -20,6 +20,7 @@ LINE_COLOURS = {"start": style.TEXT, "deadline": style.DEADLINE, "status": style
 LABEL_PLACES = {"deadline": (0, (1.0, 0.0)), "p10": (1, (1.0, 0.0)), "p90": (1, (1.0, 0.0))}
 
 
+LABEL_MARGIN_PX = 2      # white around a label's text (the header band holds up to five lines)
 LINE_Z, LABEL_Z = 5, 8      # every label above every line (a line never crosses a label)
 
 
@@ -72,6 +73,7 @@ class TimelineLines:
                                           "color": LINE_COLOURS[name], "fill": pg.mkBrush(255, 255, 255, 230),
                                           "anchors": [anchor, anchor]})
         line.label.setFont(font)
+        line.label.textItem.document().setDocumentMargin(LABEL_MARGIN_PX)   # tight lines of labels
         line.setZValue(LABEL_Z)
         for item in (line, line.label):     # labels show dates; clicks and drags reach the bars under them
             item.setAcceptedMouseButtons(Qt.MouseButton.NoButton)
@@ -97,23 +99,37 @@ class TimelineLines:
         vb = self.plot.getViewBox()
         box = vb.sceneBoundingRect()
         header = vb.mapViewToScene(QPointF(0, first_row - 0.5)).y() - box.top()
-        taken: list[tuple[int, float, float]] = []
-        for name in sorted(self.lines, key=list(LINE_NAMES).index):
-            line = self.lines[name]
-            x = vb.mapViewToScene(QPointF(line.value(), 0)).x()
-            rect = line.label.boundingRect()
-            bands = max(2, int(header // (rect.height() + 1.0)))
-            band, anchor = LABEL_PLACES.get(name, (0, (0.0, 0.0)))
-            order = [band] + [b for b in range(bands) if b != band]
-            tries = [(b, side) for b in order for side in (anchor[0], 1.0 - anchor[0])]
-            spans = [(b, x - side * rect.width(), x + (1 - side) * rect.width()) for b, side in tries]
-            k = min(range(len(spans)), key=lambda j: (_cost(spans[j], taken, box), j))
-            # no free place (zoomed far out): the line stays, its label waits for room
-            line.label.setVisible(_cost(spans[k], taken, box) == 0.0 or not taken)
-            if line.label.isVisible():
-                taken.append(spans[k])
-            line.label.anchors = [(tries[k][1], 0.0)] * 2
-            line.label.setPosition(self._position(tries[k][0], rect.height()))
+        names = self._names()
+        xs = [vb.mapViewToScene(QPointF(self.lines[name].value(), 0)).x() for name in names]
+        bands = max(2, int(header // (self.label_height() + 1.0)))
+        for name, place in zip(names, label_places(self._spans(names, xs), box.left(), box.right(), bands)):
+            label = self.lines[name].label
+            label.setVisible(place is not None)
+            if place is not None:
+                label.anchors = [(place[1], 0.0)] * 2
+                label.setPosition(self._position(place[0], label.boundingRect().height()))
+
+    def header_lines(self, x_range: tuple[float, float], width_px: float) -> int:
+        """How many header lines the labels take, all apart and inside the view, when
+        ``x_range`` (plan units) spans ``width_px`` pixels (what a fit is about to show)."""
+        names = self._names()
+        if not names:
+            return 0
+        x0, x1 = x_range
+        xs = [(self.lines[name].value() - x0) / max(x1 - x0, 1e-9) * width_px for name in names]
+        places = label_places(self._spans(names, xs), 0.0, width_px, len(names))
+        return 1 + max((place[0] for place in places if place is not None), default=0)
+
+    def label_height(self) -> float:
+        """Height in pixels of a line label (all share one type)."""
+        return max((line.label.boundingRect().height() for line in self.lines.values()), default=0.0)
+
+    def _names(self) -> list[str]:
+        return sorted(self.lines, key=list(LINE_NAMES).index)
+
+    def _spans(self, names, xs) -> list[tuple]:
+        """(x, width, header line, side) of each label: where it stands and its own place."""
+        return [(x, self.lines[name].label.boundingRect().width(), *_own_place(name)) for name, x in zip(names, xs)]
 
     def _update_band(self, whisker) -> None:
         if whisker is None:
@@ -125,11 +141,37 @@ class TimelineLines:
             self.plot.addItem(self.band, ignoreBounds=True)
 
 
-def _cost(span, taken, box) -> float:
+def _own_place(name: str) -> tuple[int, float]:
+    band, anchor = LABEL_PLACES.get(name, (0, (0.0, 0.0)))
+    return band, anchor[0]
+
+
+def label_places(labels, left: float, right: float, bands: int) -> list:
+    """Header line and side (0: right of its line, 1: left) of each label, or None when it
+    has no free place. ``labels``: (x, width, own header line, own side) in pixels, in the
+    order they are placed; ``left``/``right``: the view's edges. Each label takes its own
+    place when free, else the other side, else another of the ``bands`` lines; the first
+    label is always placed."""
+    taken: list[tuple[int, float, float]] = []
+    places = []
+    for x, width, band, side in labels:
+        order = [band] + [b for b in range(bands) if b != band]
+        tries = [(b, s) for b in order for s in (side, 1.0 - side)]
+        spans = [(b, x - s * width, x + (1 - s) * width) for b, s in tries]
+        k = min(range(len(spans)), key=lambda j: (_cost(spans[j], taken, left, right), j))
+        if _cost(spans[k], taken, left, right) == 0.0 or not taken:
+            taken.append(spans[k])
+            places.append(tries[k])
+        else:
+            places.append(None)
+    return places
+
+
+def _cost(span, taken, left: float, right: float) -> float:
     """Pixels of a label span (header line, left, right) over other labels on its line or
     outside the view: 0 for a free place."""
     b, lo, hi = span
-    out = max(0.0, box.left() - lo) + max(0.0, hi - box.right())
+    out = max(0.0, left - lo) + max(0.0, hi - right)
     over = sum(max(0.0, min(hi, hi2 + 4) - max(lo, lo2 - 4)) for b2, lo2, hi2 in taken if b2 == b)
     return 10.0 * out + over
 

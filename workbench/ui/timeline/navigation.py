@@ -12,7 +12,9 @@ from workbench.figures import style
 from workbench.ui.timeline.present import page_of_rows, present_key, stack_finish_labels
 from workbench.ui.timeline.row_axis import legible_pitch
 
-HEADER_PX = 44.0       # empty band above row 0: two lines for the reference lines' labels
+HEADER_PX = 44.0       # empty band above row 0, at least: the reference lines' labels
+HEADER_AIR_PX = 4.0    # below the last line of labels
+MIN_FULL_ROWS = 5      # a fit on opening keeps full-height rows when this many fit
 
 
 class TimelineNavigation:
@@ -33,10 +35,8 @@ class TimelineNavigation:
         paged = every_row is None and self._weights is style.PRESENT
         lo, hi = geo.x_range
         pad = 0.03 * (hi - lo)
-        height = max(self.view_box.height(), 200.0)
-        # lines of labels: start and deadline; status; P10 and P90 apart
-        lines = 2 + (geo.finish_whisker is not None) + ("status" in self._lines)
-        header_px = max(HEADER_PX, lines * (2.0 * self._font().pixelSize() + 1.5))   # a label is ~2 px high
+        height = self.view_box.height() if self.view_box.height() > 1 else 200.0   # 200: not laid out yet
+        header_px = min(self._header_px((lo - pad, hi + pad)), max(height - self.legible_row_pitch(), 0.5 * height))
         self.row_axis.set_page(0, "")
         if paged:
             first, n, header_px = page_of_rows(self, max(geo.n_rows, 1), height, header_px)
@@ -49,13 +49,24 @@ class TimelineNavigation:
         self.view_box.setRange(xRange=(lo - pad, hi + pad), yRange=(first - 0.5 - header, bottom), padding=0)
         stack_finish_labels(self)
 
+    def _header_px(self, x_range: tuple[float, float]) -> float:
+        """The band above row 0 for the line labels at ``x_range``: as many lines as they
+        take apart from each other (``TimelineLines.header_lines``), at least ``HEADER_PX``."""
+        lines = self.reference.header_lines(x_range, self.view_box.width())
+        return max(HEADER_PX, lines * (self.reference.label_height() + 1.0) + HEADER_AIR_PX)
+
     def _rows_in_fit(self, n: int, room_px: float, rows_to_fit: bool, every_row: bool) -> int:
-        """How many rows (from the top) a fit shows in ``room_px`` pixels."""
+        """How many rows (from the top) a fit shows in ``room_px`` pixels: never so many
+        that a row falls below the legible pitch (the rest are reached by scrolling),
+        except with ``every_row``; with ``rows_to_fit`` at full row height when at least
+        a few rows fit so."""
         if every_row:            # asked for (Every row)
             return n
+        legible = max(1, int(room_px / self.legible_row_pitch() - 0.1))
         if rows_to_fit:
-            return min(n, max(5, int(room_px / self._weights.row_height)))
-        return min(n, max(1, int(room_px / self.legible_row_pitch() - 0.1)))
+            full = int(room_px / self._weights.row_height)
+            return min(n, full if full >= MIN_FULL_ROWS else legible)
+        return min(n, legible)
 
     def legible_row_pitch(self) -> float:
         """Row pitch in pixels below which the label column starts thinning labels."""
