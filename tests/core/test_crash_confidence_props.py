@@ -50,3 +50,17 @@ def test_confidence_plan_keeps_its_promises(plan, share, stretch, target):
     assert np.all(found.days >= -1e-12) and np.all(found.days <= full + 1e-9)
     assert found.extra_cost == pytest.approx(float(problem.slope @ found.days))
     assert found.extra_cost <= float(problem.slope @ full) + 1e-6
+
+
+def test_a_deadline_met_only_exactly_when_fully_crashed_gives_the_full_crash():
+    """Fully crashed, every scenario finishes exactly at the deadline: the LP (which aims a
+    hair inside the deadline) has no answer, yet full crashing reaches the target, and is
+    the answer (this once raised a TypeError instead)."""
+    acts = [Activity("A", optimistic=4, most_likely=5, pessimistic=8, cost=100.0, crash_cost=400.0, crash_duration=3),
+            Activity("B", optimistic=1, most_likely=2, pessimistic=4, cost=50.0, crash_cost=80.0, crash_duration=1)]
+    problem = CrashProblem(Plan(Settings(start=dt.date(2027, 1, 4)), acts, [Link("A", "B")]))
+    assert problem.shortest() == pytest.approx(4.0)
+    inside, outside = ScenarioSet(problem, 128, 3, 4.0), ScenarioSet(problem, 128, 4, 4.0)
+    found = crash_to_confidence(problem, 0.9, inside, outside, [np.zeros(problem.size)])
+    assert found.reachable and np.allclose(found.days, problem.span)
+    assert found.chance_in_sample == 1.0 and found.extra_cost == pytest.approx(float(problem.slope @ problem.span))

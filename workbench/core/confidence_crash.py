@@ -137,8 +137,8 @@ def crash_to_confidence(problem, target: float, inside, outside, starts, progres
         return ConfidencePlan(target, None, math.nan, inside.chance(full), outside.chance(full),
                               _se(outside.chance(full), outside.iterations), search.solves)
     found = [d for d in (search.run(s, need) for s in starts) if d is not None]
-    if not found:
-        found = [search.run(full, need)]
+    if not found:          # from every start the LP met no wider set: search from the full crash,
+        found = [d for d in (search.run(full, need),) if d is not None] or [full]   # which reaches it
     days = min(found, key=search.cost)
     out = outside.chance(days)
     return ConfidencePlan(target, days, search.cost(days), inside.chance(days), out,
