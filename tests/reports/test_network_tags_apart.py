@@ -19,17 +19,21 @@ PAGE = (770.0, 449.0 - HEADING_SPACE - DETAIL_NOTE_SPACE)     # an A4 landscape 
 SIZE = 7.5
 
 
+def demo_pages():
+    """The demo's pack context, network layout and detail page windows."""
+    plan = demo_plan()
+    analysis = analyze(plan)
+    layout = layout_plan(plan, analysis)
+    return PackContext(plan, analysis, None, None, "a4"), layout, tiles(layout, *PAGE, detail_scale(layout, PAGE[1]))
+
+
 def overlaps(a, b) -> bool:
     (_, ax, ay, aw), (_, bx, by, bw) = a, b
     return ax - 2 < bx + bw + 2 and bx - 2 < ax + aw + 2 and ay - 2 < by + SIZE + 1 and by - 2 < ay + SIZE + 1
 
 
 def test_tags_on_every_demo_detail_page_stand_apart(monkeypatch):
-    plan = demo_plan()
-    analysis = analyze(plan)
-    ctx = PackContext(plan, analysis, None, None, "a4")
-    layout = layout_plan(plan, analysis)
-    views = tiles(layout, *PAGE, detail_scale(layout, PAGE[1]))
+    ctx, layout, views = demo_pages()
     pages = []
     real = NetworkPainter._off_page_tag
 
@@ -60,11 +64,7 @@ def test_a_clashing_tag_moves_to_the_nearest_free_row():
 
 
 def test_a_lag_label_cut_by_the_page_edge_is_left_to_the_other_page(monkeypatch):
-    plan = demo_plan()
-    analysis = analyze(plan)
-    ctx = PackContext(plan, analysis, None, None, "a4")
-    layout = layout_plan(plan, analysis)
-    views = tiles(layout, *PAGE, detail_scale(layout, PAGE[1]))
+    ctx, layout, views = demo_pages()
     drawn = []
     real = Canvas.drawCentredString
 

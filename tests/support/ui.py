@@ -117,3 +117,21 @@ def shown(qtbot, widget, size: tuple[int, int]):
     widget.show()
     qtbot.waitExposed(widget)
     return widget
+
+
+def in_dock_frame(qtbot, view, size: tuple[int, int], holder: bool = False):
+    """``view`` framed as the window frames a dock's view (a holder, optional, inside the
+    dock's scroller), in a frame shown at ``size``; returns (frame, scroller)."""
+    from PySide6.QtWidgets import QVBoxLayout, QWidget
+
+    from workbench.ui.workspace.screen_fit import scroller
+    frame, content = QWidget(), view
+    if holder:
+        content = QWidget()
+        QVBoxLayout(content).setContentsMargins(0, 0, 0, 0)
+        content.layout().addWidget(view)
+    area = scroller(content, frame)
+    QVBoxLayout(frame).setContentsMargins(0, 0, 0, 0)
+    frame.layout().addWidget(area)
+    shown(qtbot, frame, size)
+    return frame, area

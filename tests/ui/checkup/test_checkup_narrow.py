@@ -9,16 +9,15 @@ from pathlib import Path
 import pytest
 from PySide6.QtCore import QRect, Qt
 from PySide6.QtGui import QFont, QFontMetrics
-from PySide6.QtWidgets import QLabel, QStyleOptionViewItem, QVBoxLayout, QWidget
+from PySide6.QtWidgets import QLabel, QStyleOptionViewItem
 
 from workbench.core.demo import demo_plan
 from workbench.ui.checkup.fitted_text import ELLIPSIS, fitted
 from workbench.ui.checkup.view import CheckupView
 from workbench.ui.session import Session
-from workbench.ui.workspace.screen_fit import scroller
 
 from support.dock_fit import run_window
-from support.ui import shown
+from support.ui import in_dock_frame
 
 DEMO = Path(__file__).resolve().parents[3] / "resources" / "demo.slw"
 
@@ -26,12 +25,7 @@ DEMO = Path(__file__).resolve().parents[3] / "resources" / "demo.slw"
 def in_a_dock(qtbot, size):
     """The demo's Checkup view in the window's dock frame (a scroller), at ``size``."""
     view = CheckupView(Session(demo_plan()))
-    host = QWidget()
-    area = scroller(view, host)
-    lay = QVBoxLayout(host)
-    lay.setContentsMargins(0, 0, 0, 0)
-    lay.addWidget(area)
-    shown(qtbot, host, size)
+    host, area = in_dock_frame(qtbot, view, size)
     qtbot.waitUntil(lambda: view.width() > 0 and view.table.viewport().width() > 0)
     qtbot.wait(20)
     view.host = host                 # kept alive with the view (qtbot holds it weakly)

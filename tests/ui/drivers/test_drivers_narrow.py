@@ -5,29 +5,21 @@ width, the charts one at a time with rows that never run into each other."""
 import pytest
 from PySide6.QtCore import QPointF
 from PySide6.QtGui import QFontMetrics
-from PySide6.QtWidgets import QVBoxLayout, QWidget
 
 from workbench.core.montecarlo import simulate
 from workbench.ui.drivers.view import DriversView
 from workbench.ui.session import Session
-from workbench.ui.workspace.screen_fit import scroller
 
 from support.plans import house_plan
-from support.ui import shown
+from support.ui import in_dock_frame
 
 
 @pytest.fixture
 def docked(qtbot):
     """A view in a dock's holder and scroller (as the window makes them), in a frame
     resized like the dock."""
-    frame, holder = QWidget(), QWidget()
     view = DriversView(Session(house_plan()))
-    QVBoxLayout(holder).setContentsMargins(0, 0, 0, 0)
-    holder.layout().addWidget(view)
-    area = scroller(holder, frame)
-    QVBoxLayout(frame).setContentsMargins(0, 0, 0, 0)
-    frame.layout().addWidget(area)
-    shown(qtbot, frame, (410, 330))
+    frame, area = in_dock_frame(qtbot, view, (410, 330), holder=True)
     return frame, area, view
 
 

@@ -8,7 +8,6 @@ apart (but never down to a single date)."""
 import pytest
 from PySide6.QtCore import QRectF
 from PySide6.QtGui import QFont, QFontMetricsF
-from PySide6.QtWidgets import QVBoxLayout, QWidget
 
 from workbench.core.demo import demo_plan
 from workbench.ui.odds import chance_axis
@@ -16,10 +15,9 @@ from workbench.ui.date_axis import DateAxis
 from workbench.ui.odds.axis import NARROW_AXIS_PX, NARROW_GAP_PX, OddsAxis
 from workbench.ui.odds.view import OddsView
 from workbench.ui.session import Session
-from workbench.ui.workspace.screen_fit import scroller
 
 from support.dock_fit import run_window
-from support.ui import shown
+from support.ui import in_dock_frame
 
 SIZES = [(410, 330), (580, 330), (1920, 1080)]
 
@@ -28,12 +26,7 @@ SIZES = [(410, 330), (580, 330), (1920, 1080)]
 def docked(request, qtbot):
     """The demo's Odds view in the window's dock frame (a scroller), placed and measured."""
     view = OddsView(Session(demo_plan()))
-    host = QWidget()
-    area = scroller(view, host)
-    lay = QVBoxLayout(host)
-    lay.setContentsMargins(0, 0, 0, 0)
-    lay.addWidget(area)
-    shown(qtbot, host, request.param)
+    host, area = in_dock_frame(qtbot, view, request.param)
     plot = view.plot
     qtbot.waitUntil(lambda: all(hasattr(p, "_y_room") for p in (plot.density, plot.cumulative))
                     and not plot._placing)

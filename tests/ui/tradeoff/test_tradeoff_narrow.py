@@ -4,29 +4,21 @@ charts are shown one at a time and every page can be brought forward; on a large
 view is laid out side by side as before; switching keeps what was found."""
 
 import pytest
-from PySide6.QtWidgets import QVBoxLayout, QWidget
 
 from workbench.core.demo import demo_plan
 from workbench.ui.session import Session
 from workbench.ui.tradeoff.arrangement import PAGES
 from workbench.ui.tradeoff.view import TradeoffView
-from workbench.ui.workspace.screen_fit import scroller
 
-from support.ui import shown
+from support.ui import in_dock_frame
 
 
 @pytest.fixture
 def docked(qtbot):
     """A view in a dock's holder and scroller (as the window makes them), in a frame that is
     resized like the dock."""
-    frame, holder = QWidget(), QWidget()
     view = TradeoffView(Session(demo_plan()))
-    QVBoxLayout(holder).setContentsMargins(0, 0, 0, 0)
-    holder.layout().addWidget(view)
-    area = scroller(holder, frame)
-    QVBoxLayout(frame).setContentsMargins(0, 0, 0, 0)
-    frame.layout().addWidget(area)
-    shown(qtbot, frame, (1600, 900))
+    frame, area = in_dock_frame(qtbot, view, (1600, 900), holder=True)
     qtbot.waitUntil(lambda: view.result is not None, timeout=30000)
     yield frame, area, view
     view.runner.stop()
