@@ -104,3 +104,11 @@ def test_a_view_beyond_any_calendar_date_gives_ticks_only_where_dates_exist(lo, 
 def test_a_thousand_year_view_still_has_ticks():
     ticks = date_ticks(cal(), 0, 1_000_000, 8)
     assert 2 <= len(ticks) <= 8 and all(t.isdigit() for _, t in ticks)
+
+
+def test_a_span_no_step_fits_still_gets_ticks():
+    """Fifty years with room for two labels: 25-year steps give three, 100-year steps none;
+    every other 25-year tick is kept rather than none (found by the property test above)."""
+    ticks = date_ticks(cal(), -500.0, 12544.0, 2)
+    assert [label for _, label in ticks] == ["2025", "2075"]
+    assert all(-500.0 <= o <= 12544.0 for o, _ in ticks)

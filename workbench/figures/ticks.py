@@ -10,6 +10,7 @@ non-working days that would collide are dropped. No Qt.
 from __future__ import annotations
 
 import datetime as dt
+import math
 
 import numpy as np
 
@@ -100,6 +101,7 @@ def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> 
     at_the_ends = first == FIRST_DAY or last == LAST_DAY
     chosen = choose_level(calendar, lo, hi, max_ticks)
     start = next(i for i, level in enumerate(LEVELS) if level[:2] == chosen)
+    crowded = None
     for level, step, _ in LEVELS[max(0, start - 2):] + FAR_LEVELS:
         dates = _candidates(level, step, first, last, calendar)
         if at_the_ends:
@@ -113,7 +115,13 @@ def date_ticks(calendar, lo_offset: float, hi_offset: float, max_ticks: int) -> 
         if count and count <= max_ticks:
             kept = dates[keep].astype(dt.date).tolist()
             return _with_context(level, list(zip(offsets[keep].tolist(), kept)))
-    return []
+        if count:          # too many at this step; a coarser one may hold none at all
+            crowded = (level, offsets[keep], dates[keep])
+    if crowded is None:
+        return []
+    level, offsets, dates = crowded           # every k-th of the coarsest step that had any
+    k = math.ceil(len(offsets) / max_ticks)
+    return _with_context(level, list(zip(offsets[::k].tolist(), dates[::k].astype(dt.date).tolist())))
 
 
 def _with_context(level: str, ticks: list[tuple[float, dt.date]]) -> list[tuple[float, str]]:
