@@ -12,6 +12,7 @@ from . import fonts, styles
 from .chart_flowable import ChartFlowable
 from .layout import LANDSCAPE, Section, new_page
 from .tables import fit
+from .text import wrap_words
 
 TOP = 15
 HEADING_SPACE = 30.0
@@ -44,21 +45,10 @@ def paint_drivers(c, w: float, h: float, crit, sens, critical: set[str]) -> None
     _panel(c, (half + 20, h, half), sens, True, "Sensitivity: correlation with the finish", critical)
     c.setFont(styles.FONT, 8)
     c.setFillColor(styles.MUTED)
-    lines = _wrap(c, FOOTNOTE, w, styles.FONT, 8)           # wrapped, never cut short
+    lines = wrap_words(c, FOOTNOTE, w, styles.FONT, 8)           # wrapped, never cut short
     for k, line in enumerate(lines):
         c.drawString(0, 4 + 10 * (len(lines) - 1 - k), line)
 
-
-def _wrap(c, text: str, width: float, font: str, size: float) -> list[str]:
-    """Words in lines no wider than ``width`` as ``c`` measures them (paper or screen)."""
-    lines: list[str] = []
-    for word in text.split():
-        trial = f"{lines[-1]} {word}" if lines else word
-        if lines and c.stringWidth(trial, font, size) <= width:
-            lines[-1] = trial
-        else:
-            lines.append(word)
-    return lines
 
 
 def _panel(c, box, bars, signed: bool, title: str, critical: set[str]) -> None:

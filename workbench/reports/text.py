@@ -69,3 +69,15 @@ def elide(text: str, limit: int) -> str:
     """At most ``limit`` characters; longer text ends in '...' (only its head is cleaned)."""
     text = clean(("" if text is None else str(text))[: limit + 1])
     return text if len(text) <= limit else text[: max(1, limit - 3)].rstrip() + "..."
+
+
+def wrap_words(c, text: str, width: float, font: str, size: float) -> list[str]:
+    """Words in lines no wider than ``width`` as ``c`` measures them (paper or screen)."""
+    lines: list[str] = []
+    for word in text.split():
+        trial = f"{lines[-1]} {word}" if lines else word
+        if lines and c.stringWidth(trial, font, size) <= width:
+            lines[-1] = trial
+        else:
+            lines.append(word)
+    return lines

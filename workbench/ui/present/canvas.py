@@ -155,17 +155,3 @@ class PresentCanvas:
 
     def drawCentredString(self, x, y, text, *_, **__):  # noqa: N802
         self._text(x, y, text, 0.5)
-
-
-def wrap_words(c, text: str, width: float, font: str, size: float) -> list[str]:
-    """``text`` in lines no wider than ``width`` points in that font (a word longer than the
-    width keeps a line of its own)."""
-    lines, line = [], ""
-    for word in text.split():
-        trial = f"{line} {word}".strip()
-        if line and c.stringWidth(trial, font, size) > width:
-            lines.append(line)
-            line = word
-        else:
-            line = trial
-    return lines + ([line] if line else [])

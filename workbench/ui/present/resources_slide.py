@@ -9,9 +9,9 @@ from __future__ import annotations
 from workbench.core.levelling import level
 from workbench.core.loading import plan_loading
 from workbench.reports import styles
+from workbench.reports.text import wrap_words
 from workbench.reports.resource_pages import paint_grid, summary_text
 
-from workbench.ui.present.canvas import wrap_words
 from workbench.ui.present.chart_slide import PresentChartSlide
 
 SHOWN = 4

@@ -11,9 +11,9 @@ from workbench.core.crash_problem import has_cost_data
 from workbench.core.formatting import format_whole_percent
 from workbench.figures import tradeoff as ftr
 from workbench.reports import styles
+from workbench.reports.text import wrap_words
 from workbench.reports.tradeoff_pages import CAUTION, ITERATIONS, TARGETS, paint_tradeoff
 
-from workbench.ui.present.canvas import wrap_words
 from workbench.ui.present.chart_slide import PresentChartSlide
 from workbench.ui.tradeoff.runner import TradeoffRunner
 
